@@ -1,0 +1,22 @@
+// @ts-check
+import { defineConfig } from 'astro/config';
+import node from '@astrojs/node';
+import react from '@astrojs/react';
+import tailwindcss from '@tailwindcss/vite';
+
+// Server-rendered app on the Node standalone adapter; React only for interactive islands.
+export default defineConfig({
+  output: 'server',
+  // Parallel test runs (one per developer checkout) may build into their own folder.
+  outDir: process.env.SELFSOWN_OUT_DIR || './dist',
+  adapter: node({ mode: 'standalone' }),
+  integrations: [react()],
+  // Origin checks on form posts are done by Astro; API routes are checked in src/middleware.ts too.
+  security: { checkOrigin: true },
+  server: { host: '127.0.0.1', port: 4321 },
+  vite: {
+    plugins: [tailwindcss()],
+    // mysql2 and friends stay as Node modules in the server bundle.
+    ssr: { external: ['mysql2', 'nodemailer', 'smtp-server', 'mailparser', 'highs'] },
+  },
+});

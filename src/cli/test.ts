@@ -1,0 +1,161 @@
+/**
+ * npm test: brings up the private MariaDB and a fresh test database (selfsown_test), loads the
+ * reference foods, builds the app, serves it on a test port and runs unit, integration and e2e
+ * tests against it. Exits non-zero on any failure and ends with a summary.
+ */
+import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { loadDotEnv, parseDatabaseUrl, testDatabaseUrl } from '../server/config';
+import { migrateDatabase } from '../db/migrate';
+import { recreateDatabase, serverPaths, stopServer } from './mariadb';
+import { dbUp } from './db';
+import { importFoods } from './import-foods';
+import { startMailFake } from './mail-fake';
+import { run, startService, stopService, waitForHttp } from './processes';
+import { ensureProgram } from './system';
+
+interface Stage {
+  name: string;
+  passed: number;
+  failed: number;
+  skipped: number;
+  ok: boolean;
+  seconds: number;
+}
+
+const root = process.cwd();
+const outDir = resolve(root, process.env.SELFSOWN_OUT_DIR || 'dist');
+const reports = resolve(root, '.data', `test-reports-${process.env.TEST_PORT || '4399'}`);
+const bin = (name: string) => resolve(root, 'node_modules', '.bin', name);
+
+function vitestCounts(file: string): { passed: number; failed: number; skipped: number } {
+  if (!existsSync(file)) return { passed: 0, failed: 0, skipped: 0 };
+  const r = JSON.parse(readFileSync(file, 'utf8')) as { numPassedTests: number; numFailedTests: number; numPendingTests: number; numTodoTests: number };
+  return { passed: r.numPassedTests, failed: r.numFailedTests, skipped: r.numPendingTests + r.numTodoTests };
+}
+
+function playwrightCounts(file: string): { passed: number; failed: number; skipped: number } {
+  if (!existsSync(file)) return { passed: 0, failed: 0, skipped: 0 };
+  const r = JSON.parse(readFileSync(file, 'utf8')) as { stats: { expected: number; unexpected: number; flaky: number; skipped: number } };
+  return { passed: r.stats.expected + r.stats.flaky, failed: r.stats.unexpected, skipped: r.stats.skipped };
+}
+
+async function stage(name: string, fn: () => Promise<{ code: number; counts?: { passed: number; failed: number; skipped: number } }>): Promise<Stage> {
+  const t0 = Date.now();
+  console.log(`\n━━ ${name} ━━`);
+  const { code, counts } = await fn();
+  const c = counts ?? { passed: 0, failed: 0, skipped: 0 };
+  // A runner that fails without counting a failure (crash, no tests found) still fails the stage.
+  const ok = code === 0 && c.failed === 0;
+  return { name, ...c, failed: ok ? c.failed : Math.max(c.failed, 1), ok, seconds: (Date.now() - t0) / 1000 };
+}
+
+/** Developer shortcuts: TEST_STAGES=unit,integration,e2e picks stages; TEST_FILES=a,b narrows files. */
+const wanted = new Set((process.env.TEST_STAGES || 'unit,integration,e2e').split(','));
+const files = (process.env.TEST_FILES || '').split(',').filter(Boolean);
+const filesFor = (dir: string) => files.filter((f) => f.includes(dir));
+
+async function main(): Promise<number> {
+  loadDotEnv();
+  const started = Date.now();
+  const testUrl = testDatabaseUrl();
+  const port = process.env.TEST_PORT || '4399';
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const paths = serverPaths();
+  const wasRunning = existsSync(paths.pidFile);
+  rmSync(reports, { recursive: true, force: true });
+  mkdirSync(reports, { recursive: true });
+
+  ensureProgram('chromium', 'chromium');
+  console.log('━━ set-up ━━');
+  await dbUp(testUrl);
+  await recreateDatabase(paths, parseDatabaseUrl(testUrl));
+  await migrateDatabase(testUrl);
+  const importStart = Date.now();
+  await importFoods(testUrl);
+  console.log(`• reference foods imported into the test database in ${((Date.now() - importStart) / 1000).toFixed(1)} s`);
+
+  // The test run's own fake SMTP server and outbox, derived from TEST_PORT so parallel runs do not clash.
+  const smtpPort = Number(process.env.TEST_SMTP_PORT || Number(port) + 10000);
+  const mailDir = resolve(root, '.data', `test-mail-${port}`);
+  rmSync(mailDir, { recursive: true, force: true });
+  const mailFake = await startMailFake({ port: smtpPort, dir: mailDir });
+  console.log(`• fake SMTP on 127.0.0.1:${smtpPort}, mail in ${mailDir}`);
+
+  const env: NodeJS.ProcessEnv = {
+    ...process.env,
+    // Always the fake, whatever .env says: tests never send real mail.
+    SMTP_URL: '',
+    FAKE_SMTP_PORT: String(smtpPort),
+    MAIL_DIR: mailDir,
+    // Generous limits so many test users can sign up; sign-in keeps a small limit with a short
+    // window (the rate-limit test connects from its own loopback address, 127.0.0.x).
+    AUTH_RATE_LIMIT: '100000/60',
+    AUTH_SIGNUP_RATE_LIMIT: '100000/60',
+    AUTH_RESET_RATE_LIMIT: '1000/60',
+    AUTH_SIGNIN_RATE_LIMIT: '5/2',
+    DATABASE_URL: testUrl,
+    TEST_DATABASE_URL: testUrl,
+    HOST: '127.0.0.1',
+    PORT: port,
+    PUBLIC_ORIGIN: baseUrl,
+    TEST_BASE_URL: baseUrl,
+    NODE_ENV: 'production',
+    SELFSOWN_ALLOW_DEV_SECRET: '1',
+  };
+
+  const stages: Stage[] = [];
+  if (wanted.has('unit')) stages.push(
+    await stage('unit tests', async () => {
+      const out = resolve(reports, 'unit.json');
+      const code = await run(bin('vitest'), ['run', '--config', 'tests/vitest.config.ts', '--project', 'unit', '--reporter=default', '--reporter=json', `--outputFile.json=${out}`, ...filesFor('unit')], env);
+      return { code, counts: vitestCounts(out) };
+    }),
+  );
+
+  const build = await stage('build', async () => ({ code: await run(bin('astro'), ['build'], env) }));
+  stages.push(build);
+  if (build.ok) {
+    const server = startService('node', [resolve(outDir, 'server/entry.mjs')], env, true);
+    try {
+      await waitForHttp(`${baseUrl}/`, 30_000, server);
+      if (wanted.has('integration')) stages.push(
+        await stage('integration tests (MariaDB + built server)', async () => {
+          const out = resolve(reports, 'integration.json');
+          const code = await run(bin('vitest'), ['run', '--config', 'tests/vitest.config.ts', '--project', 'integration', '--reporter=default', '--reporter=json', `--outputFile.json=${out}`, ...filesFor('integration')], env);
+          return { code, counts: vitestCounts(out) };
+        }),
+      );
+      if (wanted.has('e2e')) stages.push(
+        await stage('e2e tests (Playwright, Debian Chromium)', async () => {
+          const out = resolve(reports, 'e2e.json');
+          const code = await run(bin('playwright'), ['test', '--config', 'tests/playwright.config.ts', ...filesFor('e2e')], { ...env, PLAYWRIGHT_JSON_OUTPUT_NAME: out });
+          return { code, counts: playwrightCounts(out) };
+        }),
+      );
+    } finally {
+      await stopService(server);
+    }
+  }
+  await mailFake.close();
+  if (!wasRunning) await stopServer(paths);
+
+  const total = stages.reduce((a, s) => ({ passed: a.passed + s.passed, failed: a.failed + s.failed, skipped: a.skipped + s.skipped }), { passed: 0, failed: 0, skipped: 0 });
+  console.log('\n━━ summary ━━');
+  for (const s of stages) {
+    console.log(`${s.ok ? 'PASS' : 'FAIL'}  ${s.name.padEnd(44)} ${String(s.passed).padStart(4)} passed ${String(s.failed).padStart(3)} failed  ${s.seconds.toFixed(1)} s`);
+  }
+  console.log(`time: ${((Date.now() - started) / 1000).toFixed(0)} s`);
+  const allOk = stages.every((s) => s.ok) && total.passed > 0;
+  console.log(`${total.passed} passed, ${total.failed} failed, ${total.skipped} skipped`);
+  return allOk ? 0 : 1;
+}
+
+main().then(
+  (code) => process.exit(code),
+  (e: unknown) => {
+    console.error(`test: ${e instanceof Error ? e.stack ?? e.message : String(e)}`);
+    console.log('0 passed, 1 failed');
+    process.exit(1);
+  },
+);

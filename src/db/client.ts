@@ -1,0 +1,50 @@
+/**
+ * The one database client: a mysql2 pool wrapped by Drizzle. Created on first use so that importing
+ * a module never opens a connection by itself.
+ */
+import mysql from 'mysql2/promise';
+import { drizzle, type MySql2Database } from 'drizzle-orm/mysql2';
+import * as schema from './schema';
+import { databaseUrl, parseDatabaseUrl } from '../server/config';
+
+export type Db = MySql2Database<typeof schema>;
+
+let pool: mysql.Pool | null = null;
+let db: Db | null = null;
+
+export function createPool(url: string): mysql.Pool {
+  const p = parseDatabaseUrl(url);
+  return mysql.createPool({
+    host: p.host,
+    port: p.port,
+    user: p.user,
+    password: p.password,
+    database: p.database,
+    connectionLimit: Number(process.env.DB_POOL_SIZE || 10),
+    charset: 'utf8mb4_unicode_ci',
+    timezone: 'Z',
+    dateStrings: ['DATE'],
+    multipleStatements: false,
+  });
+}
+
+/** The shared Drizzle client for DATABASE_URL. */
+export function getDb(): Db {
+  if (!db) {
+    pool = createPool(databaseUrl());
+    db = drizzle(pool, { schema, mode: 'default' });
+  }
+  return db;
+}
+
+/** The raw pool, for bulk statements Drizzle does not express well. */
+export function getPool(): mysql.Pool {
+  getDb();
+  return pool!;
+}
+
+export async function closeDb(): Promise<void> {
+  if (pool) await pool.end();
+  pool = null;
+  db = null;
+}

@@ -1,0 +1,401 @@
+/**
+ * The whole database schema (Drizzle, MariaDB). Migrations in drizzle/ are generated from this file
+ * with `npm run db:generate` and applied with `npm run db:migrate`.
+ */
+import {
+  bigint,
+  boolean,
+  date,
+  decimal,
+  double,
+  index,
+  int,
+  mysqlEnum,
+  mysqlTable,
+  primaryKey,
+  smallint,
+  text,
+  timestamp,
+  tinyint,
+  uniqueIndex,
+  varchar,
+} from 'drizzle-orm/mysql-core';
+
+// ── Reference data: food composition datasets ────────────────────────────────────────────────
+
+/** A public food composition dataset (e.g. USDA SR28), with its release and licence. */
+export const datasets = mysqlTable(
+  'datasets',
+  {
+    id: int('id').autoincrement().primaryKey(),
+    slug: varchar('slug', { length: 40 }).notNull(),
+    name: varchar('name', { length: 200 }).notNull(),
+    release: varchar('release', { length: 80 }).notNull(),
+    publisher: varchar('publisher', { length: 200 }).notNull(),
+    licence: varchar('licence', { length: 200 }).notNull(),
+    sourceNote: varchar('source_note', { length: 400 }).notNull().default(''),
+    foodCount: int('food_count').notNull().default(0),
+    importedAt: timestamp('imported_at').notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex('datasets_slug_uq').on(t.slug)],
+);
+
+/** The nutrients the app knows; rows mirror src/lib/nutrients.ts (written by the importer). */
+export const nutrients = mysqlTable('nutrients', {
+  key: varchar('key', { length: 40 }).primaryKey(),
+  name: varchar('name', { length: 80 }).notNull(),
+  unit: varchar('unit', { length: 8 }).notNull(),
+  nutrientGroup: varchar('nutrient_group', { length: 16 }).notNull(),
+  sortOrder: smallint('sort_order').notNull(),
+});
+
+/** One food of a dataset. `code` is the dataset's own code (SR28: the 5-digit NDB number). */
+export const foods = mysqlTable(
+  'foods',
+  {
+    id: int('id').autoincrement().primaryKey(),
+    datasetId: int('dataset_id')
+      .notNull()
+      .references(() => datasets.id, { onDelete: 'cascade' }),
+    code: varchar('code', { length: 20 }).notNull(),
+    name: varchar('name', { length: 255 }).notNull(),
+    originalName: varchar('original_name', { length: 255 }).notNull(),
+    foodGroup: varchar('food_group', { length: 80 }).notNull(),
+    /** Refuse, % of weight as bought or harvested that is not eaten; null when not given. */
+    refusePct: double('refuse_pct'),
+    /** 0 = raw/whole form, higher = more processed; used to rank search results. */
+    rawness: tinyint('rawness').notNull().default(5),
+    /** Words the FULLTEXT index searches: readable name, original text, group. */
+    searchText: text('search_text').notNull(),
+  },
+  (t) => [
+    uniqueIndex('foods_dataset_code_uq').on(t.datasetId, t.code),
+    index('foods_code_idx').on(t.code),
+    index('foods_group_idx').on(t.foodGroup),
+  ],
+);
+
+/** Amount per 100 g edible portion. A missing row means the dataset has no value (unknown, not 0). */
+export const foodNutrients = mysqlTable(
+  'food_nutrients',
+  {
+    foodId: int('food_id')
+      .notNull()
+      .references(() => foods.id, { onDelete: 'cascade' }),
+    nutrientKey: varchar('nutrient_key', { length: 40 })
+      .notNull()
+      .references(() => nutrients.key),
+    amount: double('amount').notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.foodId, t.nutrientKey] }), index('food_nutrients_key_idx').on(t.nutrientKey)],
+);
+
+/** Household measures from the dataset ("1 cup, cubes" = 140 g). */
+export const foodWeights = mysqlTable(
+  'food_weights',
+  {
+    id: bigint('id', { mode: 'number', unsigned: true }).autoincrement().primaryKey(),
+    foodId: int('food_id')
+      .notNull()
+      .references(() => foods.id, { onDelete: 'cascade' }),
+    seq: tinyint('seq').notNull(),
+    description: varchar('description', { length: 200 }).notNull(),
+    grams: double('grams').notNull(),
+  },
+  (t) => [uniqueIndex('food_weights_food_seq_uq').on(t.foodId, t.seq)],
+);
+
+export type Dataset = typeof datasets.$inferSelect;
+export type Food = typeof foods.$inferSelect;
+export type NewFood = typeof foods.$inferInsert;
+
+// ── Accounts (better-auth's tables: user, session, account, verification, rateLimit) ──────────
+
+export const user = mysqlTable('user', {
+  id: varchar('id', { length: 36 }).primaryKey(),
+  name: varchar('name', { length: 200 }).notNull(),
+  email: varchar('email', { length: 255 }).notNull().unique(),
+  emailVerified: boolean('email_verified').notNull().default(false),
+  image: text('image'),
+  createdAt: timestamp('created_at', { fsp: 3 }).notNull().defaultNow(),
+  updatedAt: timestamp('updated_at', { fsp: 3 }).notNull().defaultNow(),
+});
+
+export const session = mysqlTable(
+  'session',
+  {
+    id: varchar('id', { length: 36 }).primaryKey(),
+    expiresAt: timestamp('expires_at', { fsp: 3 }).notNull(),
+    token: varchar('token', { length: 255 }).notNull().unique(),
+    createdAt: timestamp('created_at', { fsp: 3 }).notNull().defaultNow(),
+    updatedAt: timestamp('updated_at', { fsp: 3 }).notNull().defaultNow(),
+    ipAddress: text('ip_address'),
+    userAgent: text('user_agent'),
+    userId: varchar('user_id', { length: 36 })
+      .notNull()
+      .references(() => user.id, { onDelete: 'cascade' }),
+  },
+  (t) => [index('session_user_idx').on(t.userId)],
+);
+
+export const account = mysqlTable(
+  'account',
+  {
+    id: varchar('id', { length: 36 }).primaryKey(),
+    accountId: text('account_id').notNull(),
+    providerId: text('provider_id').notNull(),
+    userId: varchar('user_id', { length: 36 })
+      .notNull()
+      .references(() => user.id, { onDelete: 'cascade' }),
+    accessToken: text('access_token'),
+    refreshToken: text('refresh_token'),
+    idToken: text('id_token'),
+    accessTokenExpiresAt: timestamp('access_token_expires_at', { fsp: 3 }),
+    refreshTokenExpiresAt: timestamp('refresh_token_expires_at', { fsp: 3 }),
+    scope: text('scope'),
+    password: text('password'),
+    createdAt: timestamp('created_at', { fsp: 3 }).notNull().defaultNow(),
+    updatedAt: timestamp('updated_at', { fsp: 3 }).notNull().defaultNow(),
+  },
+  (t) => [index('account_user_idx').on(t.userId)],
+);
+
+export const verification = mysqlTable(
+  'verification',
+  {
+    id: varchar('id', { length: 36 }).primaryKey(),
+    identifier: varchar('identifier', { length: 255 }).notNull(),
+    value: text('value').notNull(),
+    expiresAt: timestamp('expires_at', { fsp: 3 }).notNull(),
+    createdAt: timestamp('created_at', { fsp: 3 }).notNull().defaultNow(),
+    updatedAt: timestamp('updated_at', { fsp: 3 }).notNull().defaultNow(),
+  },
+  (t) => [index('verification_identifier_idx').on(t.identifier)],
+);
+
+/** better-auth's limiter counters, in the database so every app server shares them. */
+export const rateLimit = mysqlTable('rate_limit', {
+  id: varchar('id', { length: 36 }).primaryKey(),
+  key: varchar('key', { length: 255 }).notNull().unique(),
+  count: int('count').notNull(),
+  lastRequest: bigint('last_request', { mode: 'number' }).notNull(),
+});
+
+/** Site-wide administrators (reference data management). */
+export const siteAdmins = mysqlTable('site_admins', {
+  userId: varchar('user_id', { length: 36 })
+    .primaryKey()
+    .references(() => user.id, { onDelete: 'cascade' }),
+  grantedAt: timestamp('granted_at').notNull().defaultNow(),
+});
+
+// ── Households, members and invitations ──────────────────────────────────────────────────
+
+export const ROLES = ['owner', 'grower', 'viewer'] as const;
+export type Role = (typeof ROLES)[number];
+
+export const households = mysqlTable('households', {
+  id: int('id').autoincrement().primaryKey(),
+  name: varchar('name', { length: 120 }).notNull(),
+  /** IANA time zone; entry dates are the household's local dates. */
+  timezone: varchar('timezone', { length: 64 }).notNull(),
+  units: mysqlEnum('units', ['metric', 'us']).notNull().default('metric'),
+  /** Month (1–12) the household's growing year starts. */
+  yearStartMonth: tinyint('year_start_month').notNull().default(1),
+  createdAt: timestamp('created_at').notNull().defaultNow(),
+});
+
+export const memberships = mysqlTable(
+  'memberships',
+  {
+    householdId: int('household_id')
+      .notNull()
+      .references(() => households.id, { onDelete: 'cascade' }),
+    userId: varchar('user_id', { length: 36 })
+      .notNull()
+      .references(() => user.id, { onDelete: 'cascade' }),
+    role: mysqlEnum('role', ROLES).notNull(),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.householdId, t.userId] }), index('memberships_user_idx').on(t.userId)],
+);
+
+export const invitations = mysqlTable(
+  'invitations',
+  {
+    id: int('id').autoincrement().primaryKey(),
+    householdId: int('household_id')
+      .notNull()
+      .references(() => households.id, { onDelete: 'cascade' }),
+    email: varchar('email', { length: 255 }).notNull(),
+    role: mysqlEnum('role', ROLES).notNull(),
+    /** SHA-256 of the single-use token sent by e-mail (the token itself is never stored). */
+    tokenHash: varchar('token_hash', { length: 64 }).notNull(),
+    invitedBy: varchar('invited_by', { length: 36 }).references(() => user.id, { onDelete: 'set null' }),
+    expiresAt: timestamp('expires_at').notNull(),
+    acceptedAt: timestamp('accepted_at'),
+    acceptedBy: varchar('accepted_by', { length: 36 }).references(() => user.id, { onDelete: 'set null' }),
+    revokedAt: timestamp('revoked_at'),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex('invitations_token_uq').on(t.tokenHash), index('invitations_household_idx').on(t.householdId)],
+);
+
+export type Household = typeof households.$inferSelect;
+export type Membership = typeof memberships.$inferSelect;
+
+// ── The household's records: crops, harvests, bought food, staples, people ──────────────────
+
+export const USE_VALUES = ['fresh', 'stored', 'preserved', 'seed', 'given', 'sold', 'lost'] as const;
+export const UNIT_VALUES = ['g', 'kg', 'oz', 'lb'] as const;
+export const CATEGORY_VALUES = ['grain', 'legume', 'root_tuber', 'squash', 'leafy_green', 'fruit', 'nut_seed', 'herb', 'animal_product', 'other'] as const;
+
+/** The household's own catalogue of what it grows or keeps, each matched to one reference food. */
+export const crops = mysqlTable(
+  'crops',
+  {
+    id: int('id').autoincrement().primaryKey(),
+    householdId: int('household_id')
+      .notNull()
+      .references(() => households.id, { onDelete: 'cascade' }),
+    name: varchar('name', { length: 120 }).notNull(),
+    variety: varchar('variety', { length: 120 }).notNull().default(''),
+    foodId: int('food_id').references(() => foods.id, { onDelete: 'restrict' }),
+    category: mysqlEnum('category', CATEGORY_VALUES).notNull().default('other'),
+    /** Share of the weight the household eats, overriding the food's refuse (0–1). */
+    edibleFraction: double('edible_fraction'),
+    defaultUse: mysqlEnum('default_use', USE_VALUES),
+    defaultSpreadMonths: tinyint('default_spread_months'),
+    /** Ornamental or toxic: never counted as food. */
+    notFood: boolean('not_food').notNull().default(false),
+    archived: boolean('archived').notNull().default(false),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex('crops_household_name_variety_uq').on(t.householdId, t.name, t.variety)],
+);
+
+/** One weighing (or one part of a split weighing) and what happened to it. */
+export const harvests = mysqlTable(
+  'harvests',
+  {
+    id: bigint('id', { mode: 'number', unsigned: true }).autoincrement().primaryKey(),
+    householdId: int('household_id')
+      .notNull()
+      .references(() => households.id, { onDelete: 'cascade' }),
+    cropId: int('crop_id').references(() => crops.id, { onDelete: 'restrict' }),
+    /** The reference food (the crop's, or chosen directly); null only for a not-food crop without one. */
+    foodId: int('food_id').references(() => foods.id, { onDelete: 'restrict' }),
+    date: date('date', { mode: 'string' }).notNull(),
+    quantity: double('quantity').notNull(),
+    unit: mysqlEnum('unit', UNIT_VALUES).notNull(),
+    grams: double('grams').notNull(),
+    edibleGrams: double('edible_grams').notNull(),
+    use: mysqlEnum('use', USE_VALUES).notNull(),
+    spreadMonths: tinyint('spread_months').notNull().default(1),
+    trimmed: boolean('trimmed').notNull().default(false),
+    note: varchar('note', { length: 500 }),
+    /** Entries saved from one split weighing share this id. */
+    splitGroup: varchar('split_group', { length: 36 }),
+    createdBy: varchar('created_by', { length: 36 }).references(() => user.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+    updatedAt: timestamp('updated_at').notNull().defaultNow().onUpdateNow(),
+  },
+  (t) => [
+    index('harvests_household_date_idx').on(t.householdId, t.date),
+    index('harvests_household_crop_idx').on(t.householdId, t.cropId),
+  ],
+);
+
+/** Bought food, staples above all; bulk buys are spread over the months they last. */
+export const purchases = mysqlTable(
+  'purchases',
+  {
+    id: bigint('id', { mode: 'number', unsigned: true }).autoincrement().primaryKey(),
+    householdId: int('household_id')
+      .notNull()
+      .references(() => households.id, { onDelete: 'cascade' }),
+    foodId: int('food_id')
+      .notNull()
+      .references(() => foods.id, { onDelete: 'restrict' }),
+    date: date('date', { mode: 'string' }).notNull(),
+    quantity: double('quantity').notNull(),
+    unit: mysqlEnum('unit', UNIT_VALUES).notNull(),
+    grams: double('grams').notNull(),
+    edibleGrams: double('edible_grams').notNull(),
+    price: decimal('price', { precision: 12, scale: 2 }),
+    currency: varchar('currency', { length: 3 }),
+    spreadMonths: tinyint('spread_months').notNull().default(1),
+    trimmed: boolean('trimmed').notNull().default(false),
+    note: varchar('note', { length: 500 }),
+    createdBy: varchar('created_by', { length: 36 }).references(() => user.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+    updatedAt: timestamp('updated_at').notNull().defaultNow().onUpdateNow(),
+  },
+  (t) => [index('purchases_household_date_idx').on(t.householdId, t.date)],
+);
+
+/** Entry-creating requests already answered, by Idempotency-Key: a retry gets the first answer. */
+export const idempotencyKeys = mysqlTable(
+  'idempotency_keys',
+  {
+    householdId: int('household_id')
+      .notNull()
+      .references(() => households.id, { onDelete: 'cascade' }),
+    key: varchar('key', { length: 100 }).notNull(),
+    route: varchar('route', { length: 40 }).notNull(),
+    status: smallint('status').notNull(),
+    response: text('response').notNull(),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.householdId, t.key] })],
+);
+
+/** Foods a household buys again and again: one tap to log another. */
+export const staples = mysqlTable(
+  'staples',
+  {
+    id: int('id').autoincrement().primaryKey(),
+    householdId: int('household_id')
+      .notNull()
+      .references(() => households.id, { onDelete: 'cascade' }),
+    foodId: int('food_id')
+      .notNull()
+      .references(() => foods.id, { onDelete: 'restrict' }),
+    label: varchar('label', { length: 120 }).notNull(),
+    quantity: double('quantity').notNull(),
+    unit: mysqlEnum('unit', UNIT_VALUES).notNull(),
+    spreadMonths: tinyint('spread_months').notNull().default(1),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex('staples_household_food_uq').on(t.householdId, t.foodId, t.quantity, t.unit)],
+);
+
+/** People who eat in the household (not the same as members who sign in). */
+export const people = mysqlTable(
+  'people',
+  {
+    id: int('id').autoincrement().primaryKey(),
+    householdId: int('household_id')
+      .notNull()
+      .references(() => households.id, { onDelete: 'cascade' }),
+    name: varchar('name', { length: 120 }).notNull(),
+    sex: mysqlEnum('sex', ['female', 'male']).notNull(),
+    ageYears: double('age_years'),
+    birthYear: smallint('birth_year'),
+    heightCm: double('height_cm'),
+    weightKg: double('weight_kg'),
+    activity: mysqlEnum('activity', ['sedentary', 'low', 'active', 'very']).notNull().default('low'),
+    condition: mysqlEnum('condition', ['none', 'pregnancy', 'lactation']).notNull().default('none'),
+    kcalPerDay: double('kcal_per_day'),
+    atHomePct: double('at_home_pct').notNull().default(100),
+    presentFrom: date('present_from', { mode: 'string' }),
+    presentTo: date('present_to', { mode: 'string' }),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+  },
+  (t) => [index('people_household_idx').on(t.householdId)],
+);
+
+export type Crop = typeof crops.$inferSelect;
+export type Harvest = typeof harvests.$inferSelect;
+export type Purchase = typeof purchases.$inferSelect;
+export type Person = typeof people.$inferSelect;

@@ -1,0 +1,177 @@
+/**
+ * When food is eaten: an entry's nutrients spread over the months the household eats it, kept
+ * apart for home-grown and bought food, with the weight whose nutrient value is unknown counted
+ * beside the sums (an unknown value is never read as zero).
+ */
+import { listMonths, monthIndex, monthOf, addMonths } from './months';
+import type { NutrientKey } from './nutrients';
+
+/** What happens to a harvest or a purchase. */
+export const USES = ['fresh', 'stored', 'preserved', 'seed', 'given', 'sold', 'lost'] as const;
+export type Use = (typeof USES)[number];
+
+/** Uses the household eats; the others (seed, given, sold, lost) leave its diet. */
+export const EATEN_USES = ['fresh', 'stored', 'preserved'] as const satisfies readonly Use[];
+
+export type Source = 'home' | 'bought';
+
+/** Amounts for an entry's edible grams; null = the dataset has no value. A missing key is unknown too. */
+export type NutrientAmounts = Partial<Record<NutrientKey, number | null>>;
+
+export interface FoodEntry {
+  /** 'YYYY-MM-DD' of the harvest or purchase. */
+  date: string;
+  use: Use;
+  source: Source;
+  /** Whole months the food is eaten over, from the entry's month (≥ 1). */
+  spreadMonths: number;
+  nutrients: NutrientAmounts;
+  edibleGrams: number;
+}
+
+/** Sums for one month and nutrient. */
+export interface NutrientSums {
+  /** Sum of the known amounts of home-grown food. */
+  home: number;
+  /** Sum of the known amounts of bought food. */
+  bought: number;
+  /** Edible grams of home food whose value for this nutrient is known / unknown. */
+  homeKnownGrams: number;
+  homeUnknownGrams: number;
+  boughtKnownGrams: number;
+  boughtUnknownGrams: number;
+}
+
+export interface MonthAllocation<K extends NutrientKey = NutrientKey> {
+  month: string;
+  sums: Record<K, NutrientSums>;
+}
+
+export interface AllocateOptions<K extends NutrientKey> {
+  /** First and last month of the report, 'YYYY-MM', both included. */
+  from: string;
+  to: string;
+  keys: readonly K[];
+}
+
+export interface EatenPart {
+  month: string;
+  /** Share of the entry eaten in this month (the parts of an entry add up to 1). */
+  fraction: number;
+}
+
+/**
+ * Nutrients of an amount of edible food from amounts per 100 g; null stays null,
+ * e.g. nutrientsOf(750, { energy_kcal: 77, vitamin_d_ug: null }) → { energy_kcal: 577.5, vitamin_d_ug: null }.
+ */
+export function nutrientsOf<K extends string>(
+  edibleGrams: number,
+  per100g: Readonly<Partial<Record<K, number | null>>>,
+): Partial<Record<K, number | null>> {
+  checkGrams(edibleGrams);
+  const out: Partial<Record<K, number | null>> = {};
+  for (const key of Object.keys(per100g) as K[]) {
+    const amount = per100g[key];
+    if (amount != null && (!Number.isFinite(amount) || amount < 0)) {
+      throw new RangeError(`amount of ${key} per 100 g must be a number ≥ 0, got ${amount}`);
+    }
+    out[key] = amount == null ? null : (edibleGrams / 100) * amount;
+  }
+  return out;
+}
+
+/** Whether the household eats food with this use, e.g. isEaten('stored') → true, isEaten('sold') → false. */
+export function isEaten(use: Use): boolean {
+  return (EATEN_USES as readonly Use[]).includes(use);
+}
+
+/**
+ * The months an entry is eaten in: fresh home food in its own month; stored or preserved food,
+ * and all bought food, evenly over `spreadMonths` calendar months from the entry's month (each
+ * month the same share, whatever its length); nothing for seed, given, sold or lost,
+ * e.g. eatenParts({ date: '2026-11-05', use: 'stored', source: 'home', spreadMonths: 4, … }) →
+ * 2026-11, 2026-12, 2027-01, 2027-02 at 0.25 each.
+ */
+export function eatenParts(entry: Pick<FoodEntry, 'date' | 'use' | 'source' | 'spreadMonths'>): EatenPart[] {
+  checkSpread(entry.spreadMonths);
+  const first = monthOf(entry.date);
+  if (!isEaten(entry.use)) return [];
+  const spread = entry.use === 'fresh' && entry.source === 'home' ? 1 : entry.spreadMonths;
+  return Array.from({ length: spread }, (_, i) => ({ month: addMonths(first, i), fraction: 1 / spread }));
+}
+
+function checkSpread(spreadMonths: number): void {
+  if (!Number.isInteger(spreadMonths) || spreadMonths < 1) {
+    throw new RangeError(`spreadMonths must be a whole number ≥ 1, got ${spreadMonths}`);
+  }
+}
+
+function checkGrams(grams: number): void {
+  if (!Number.isFinite(grams) || grams < 0) throw new RangeError(`edible grams must be a number ≥ 0, got ${grams}`);
+}
+
+/** Empty sums, e.g. as the start of a total. */
+export function emptySums(): NutrientSums {
+  return { home: 0, bought: 0, homeKnownGrams: 0, homeUnknownGrams: 0, boughtKnownGrams: 0, boughtUnknownGrams: 0 };
+}
+
+/** Adds b into a (mutates a) and returns a, e.g. to total months. */
+export function addSums(a: NutrientSums, b: NutrientSums): NutrientSums {
+  a.home += b.home;
+  a.bought += b.bought;
+  a.homeKnownGrams += b.homeKnownGrams;
+  a.homeUnknownGrams += b.homeUnknownGrams;
+  a.boughtKnownGrams += b.boughtKnownGrams;
+  a.boughtUnknownGrams += b.boughtUnknownGrams;
+  return a;
+}
+
+/**
+ * Adds one share of an entry into the sums of one month and nutrient.
+ * A null or missing value adds its grams to the unknown weight, never zero to the sum.
+ */
+export function addEntryPart(sums: NutrientSums, entry: FoodEntry, key: NutrientKey, fraction: number): void {
+  const amount = entry.nutrients[key];
+  if (amount != null && (!Number.isFinite(amount) || amount < 0)) {
+    throw new RangeError(`${key} of an entry dated ${entry.date} must be a number ≥ 0, got ${amount}`);
+  }
+  const grams = entry.edibleGrams * fraction;
+  if (entry.source === 'home') {
+    if (amount == null) sums.homeUnknownGrams += grams;
+    else {
+      sums.home += amount * fraction;
+      sums.homeKnownGrams += grams;
+    }
+  } else if (amount == null) sums.boughtUnknownGrams += grams;
+  else {
+    sums.bought += amount * fraction;
+    sums.boughtKnownGrams += grams;
+  }
+}
+
+/**
+ * Per month of [from, to] and per nutrient: what was eaten from home and from bought food.
+ * Entries dated before `from` count in the months of the range they are still eaten in,
+ * e.g. allocate(entries, { from: '2026-01', to: '2026-12', keys: ['energy_kcal'] })[10].sums.energy_kcal.home.
+ */
+export function allocate<K extends NutrientKey>(
+  entries: readonly FoodEntry[],
+  { from, to, keys }: AllocateOptions<K>,
+): MonthAllocation<K>[] {
+  const months = listMonths(from, to);
+  const start = monthIndex(from);
+  const result: MonthAllocation<K>[] = months.map((month) => {
+    const sums = {} as Record<K, NutrientSums>;
+    for (const key of keys) sums[key] = emptySums();
+    return { month, sums };
+  });
+  for (const entry of entries) {
+    checkGrams(entry.edibleGrams);
+    for (const part of eatenParts(entry)) {
+      const slot = result[monthIndex(part.month) - start];
+      if (!slot) continue; // eaten outside the report's range
+      for (const key of keys) addEntryPart(slot.sums[key], entry, key, part.fraction);
+    }
+  }
+  return result;
+}

@@ -1,0 +1,616 @@
+/**
+ * The one set of rules for what a harvest, a purchase and a crop may look like. The forms, the API
+ * endpoints and the CSV importer all validate with these schemas, so a rule is written once.
+ *
+ * Conventions:
+ * - Quantities stay in the unit they were logged in (g, kg, oz, lb); conversion happens when counted.
+ * - Text fields are trimmed; an empty note or variety counts as none.
+ * - In a patch, `null` clears an optional field (note, price, currency, variety, …).
+ */
+import { z } from 'zod';
+import { CROP_CATEGORIES } from './crop-categories';
+import { WEIGHT_UNITS } from './units';
+
+// ---------------------------------------------------------------------------------------------
+// Uses
+
+/** What happens to a harvest or purchase. Example: `USES[0]` → 'fresh' */
+export const USES = ['fresh', 'stored', 'preserved', 'seed', 'given', 'sold', 'lost'] as const;
+
+export type Use = (typeof USES)[number];
+
+/** Display names for the uses, in our own words. Example: `USE_LABELS.lost` → 'Lost or composted' */
+export const USE_LABELS: Readonly<Record<Use, string>> = {
+  fresh: 'Eaten fresh',
+  stored: 'Stored (cellar, clamp, shelf)',
+  preserved: 'Preserved (dried, frozen, bottled)',
+  seed: 'Kept as seed',
+  given: 'Given away',
+  sold: 'Sold',
+  lost: 'Lost or composted',
+};
+
+/** Uses the household eats. Example: `EATEN_USES.includes('stored')` → true */
+export const EATEN_USES = ['fresh', 'stored', 'preserved'] as const satisfies readonly Use[];
+
+/** Uses the household does not eat. Example: `NOT_EATEN_USES.includes('sold')` → true */
+export const NOT_EATEN_USES = ['seed', 'given', 'sold', 'lost'] as const satisfies readonly Use[];
+
+/** Uses whose food is eaten over several months. Example: `SPREAD_USES.includes('fresh')` → false */
+export const SPREAD_USES = ['stored', 'preserved'] as const satisfies readonly Use[];
+
+/** True when the household eats food with this use. Example: `isEatenUse('given')` → false */
+export function isEatenUse(use: Use): boolean {
+  return (EATEN_USES as readonly Use[]).includes(use);
+}
+
+/** True when food with this use is spread over months. Example: `isSpreadUse('preserved')` → true */
+export function isSpreadUse(use: Use): boolean {
+  return (SPREAD_USES as readonly Use[]).includes(use);
+}
+
+// ---------------------------------------------------------------------------------------------
+// Limits
+
+/** Bounds the schemas enforce. Example: `ENTRY_LIMITS.maxSpreadMonths` → 24 */
+export const ENTRY_LIMITS = {
+  /** Largest quantity in one entry, in the entry's unit: 100 t in kg; catches a slipped keyboard. */
+  maxQuantity: 100_000,
+  maxNoteLength: 500,
+  minSpreadMonths: 1,
+  maxSpreadMonths: 24,
+  maxSplitParts: 7,
+  maxNameLength: 120,
+  maxPrice: 10_000_000,
+  minYear: 1900,
+  maxYear: 2199,
+  defaultPageSize: 50,
+  maxPageSize: 200,
+} as const;
+
+const L = ENTRY_LIMITS;
+
+// ---------------------------------------------------------------------------------------------
+// Field schemas
+
+function daysInMonth(year: number, month: number): number {
+  // Day 0 of the next month is the last day of this one; UTC avoids time-zone shifts.
+  return new Date(Date.UTC(year, month, 0)).getUTCDate();
+}
+
+/** True for 'YYYY-MM-DD' naming a day that exists. Example: `isRealIsoDate('2026-02-30')` → false */
+export function isRealIsoDate(text: string): boolean {
+  const match = /^(\d{4})-(\d{2})-(\d{2})$/.exec(text);
+  if (!match) return false;
+  const year = Number(match[1]);
+  const month = Number(match[2]);
+  const day = Number(match[3]);
+  return month >= 1 && month <= 12 && day >= 1 && day <= daysInMonth(year, month);
+}
+
+/** A calendar date written 'YYYY-MM-DD', between 1900 and 2199. Example: `isoDate.parse('2028-02-29')` → '2028-02-29' */
+export const isoDate = z
+  .string({ error: 'Enter a date as YYYY-MM-DD.' })
+  .trim()
+  .regex(/^\d{4}-\d{2}-\d{2}$/, { error: 'Write the date as YYYY-MM-DD, for example 2026-07-14.' })
+  .refine(isRealIsoDate, { error: 'That day does not exist in the calendar; check the month and day.', abort: true })
+  .refine((d) => Number(d.slice(0, 4)) >= L.minYear && Number(d.slice(0, 4)) <= L.maxYear, {
+    error: `The year must be between ${L.minYear} and ${L.maxYear}; check for a typing slip.`,
+  });
+
+/** A database id: a positive whole number. Example: `recordId.parse(7)` → 7 */
+export const recordId = z
+  .number({ error: 'Choose one from the list.' })
+  .int({ error: 'An id is a whole number.' })
+  .positive({ error: 'An id is a positive whole number.' });
+
+/** An amount in the entry's unit, more than 0. Example: `quantity.parse(1.5)` → 1.5 */
+export const quantity = z
+  .number({ error: (iss) => (iss.input === undefined ? 'Enter the weight.' : 'The weight must be a number.') })
+  .positive({ error: 'The weight must be more than 0.' })
+  .max(L.maxQuantity, { error: `The weight is too large (at most ${L.maxQuantity.toLocaleString('en')} in its unit); check the unit.` });
+
+/** One of g, kg, oz, lb. Example: `weightUnit.parse('lb')` → 'lb' */
+export const weightUnit = z.enum(WEIGHT_UNITS, { error: `The unit must be one of ${WEIGHT_UNITS.join(', ')}.` });
+
+/** One of the uses. Example: `use.parse('seed')` → 'seed' */
+export const use = z.enum(USES, { error: `The use must be one of ${USES.join(', ')}.` });
+
+/** Whole months from 1 to 24. Example: `spreadMonths.parse(6)` → 6 */
+export const spreadMonths = z
+  .number({ error: 'The spread must be a number of months.' })
+  .int({ error: 'The spread must be a whole number of months.' })
+  .min(L.minSpreadMonths, { error: `The spread must be at least ${L.minSpreadMonths} month.` })
+  .max(L.maxSpreadMonths, { error: `The spread can be at most ${L.maxSpreadMonths} months.` });
+
+const noteText = z
+  .string({ error: 'The note must be text.' })
+  .trim()
+  .max(L.maxNoteLength, { error: `The note can be at most ${L.maxNoteLength} characters.` });
+
+/** A free-text note up to 500 characters; blank becomes no note. Example: `note.parse('  ')` → undefined */
+export const note = noteText.transform((s) => (s === '' ? undefined : s));
+
+// In a patch: null or blank clears the note.
+const noteOrClear = z.union([noteText.transform((s) => (s === '' ? null : s)), z.null()]);
+
+const trimmedFlag = z.boolean({ error: 'Trimmed must be true or false.' });
+
+/** Price paid, 0 or more. Example: `price.parse(3.49)` → 3.49 */
+export const price = z
+  .number({ error: 'The price must be a number.' })
+  .min(0, { error: 'The price cannot be negative.' })
+  .max(L.maxPrice, { error: 'The price is too large; check it.' });
+
+/** ISO 4217 currency code, upper-cased. Example: `currency.parse('eur')` → 'EUR' */
+export const currency = z
+  .string({ error: 'The currency must be a code like EUR or USD.' })
+  .trim()
+  .toUpperCase()
+  .regex(/^[A-Z]{3}$/, { error: 'The currency must be a three-letter ISO 4217 code, like EUR or USD.' });
+
+const nameText = (what: string) =>
+  z
+    .string({ error: `The ${what} must be text.` })
+    .trim()
+    .max(L.maxNameLength, { error: `The ${what} can be at most ${L.maxNameLength} characters.` });
+
+// ---------------------------------------------------------------------------------------------
+// Shared rules
+
+type Ctx = z.RefinementCtx;
+
+// Fresh food is counted in its own month and food that is not eaten is not counted at all, so a
+// spread only means something for stored and preserved food.
+function checkSpreadForUse(value: { use?: Use | undefined; spreadMonths?: number | undefined }, ctx: Ctx): void {
+  if (value.use === undefined || value.spreadMonths === undefined) return;
+  if (!isSpreadUse(value.use) && value.spreadMonths !== 1) {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['spreadMonths'],
+      message: 'Only stored or preserved food is spread over months; leave the spread empty (or 1) for this use.',
+    });
+  }
+}
+
+function checkOneOfCropFood(value: { cropId?: number | undefined; foodId?: number | undefined }, ctx: Ctx, required: boolean): void {
+  const hasCrop = value.cropId !== undefined;
+  const hasFood = value.foodId !== undefined;
+  if (hasCrop && hasFood) {
+    ctx.addIssue({ code: 'custom', path: ['foodId'], message: 'Give either a crop or a reference food, not both.' });
+  } else if (required && !hasCrop && !hasFood) {
+    ctx.addIssue({ code: 'custom', path: ['cropId'], message: 'Choose the crop (or a reference food) this harvest is of.' });
+  }
+}
+
+function checkNotEmpty(value: object, ctx: Ctx): void {
+  if (Object.values(value).every((v) => v === undefined)) {
+    ctx.addIssue({ code: 'custom', path: [], message: 'Nothing to change: give at least one field.' });
+  }
+}
+
+// Fresh food and food that is not eaten fall in the entry's month: spread 1. Stored and preserved
+// food without a spread is left without one, for the server to fill from the crop or its category.
+function withSpreadDefault<T extends { use: Use; spreadMonths?: number | undefined }>(value: T): T {
+  if (value.spreadMonths !== undefined || isSpreadUse(value.use)) return value;
+  return { ...value, spreadMonths: 1 };
+}
+
+// ---------------------------------------------------------------------------------------------
+// Harvests
+
+const harvestFields = {
+  date: isoDate,
+  quantity,
+  unit: weightUnit,
+  use: use.default('fresh'),
+  spreadMonths: spreadMonths.optional(),
+  trimmed: trimmedFlag.default(false),
+  note: note.optional(),
+};
+
+const cropOrFood = { cropId: recordId.optional(), foodId: recordId.optional() };
+
+/**
+ * A harvest: date, exactly one of cropId / foodId, quantity in its unit, use (default fresh),
+ * spread (1 for every use but stored/preserved, where an absent spread is left for the server to
+ * fill from the crop or its category), trimmed (default false), note.
+ * Example: `harvestInput.parse({ date: '2026-07-14', cropId: 3, quantity: 2.5, unit: 'kg' })`
+ *   → { date: '2026-07-14', cropId: 3, quantity: 2.5, unit: 'kg', use: 'fresh', spreadMonths: 1, trimmed: false }
+ */
+export const harvestInput = z
+  .object({ ...cropOrFood, ...harvestFields })
+  .superRefine((v, ctx) => checkOneOfCropFood(v, ctx, true))
+  .superRefine(checkSpreadForUse)
+  .transform(withSpreadDefault);
+
+export type HarvestInput = z.output<typeof harvestInput>;
+/** What a form or a client sends before defaults are applied. */
+export type HarvestInputRaw = z.input<typeof harvestInput>;
+
+/**
+ * A harvest before its crop or food is known — a CSV row, resolved later by name or code.
+ * Example: `harvestDetailsInput.parse({ date: '2026-07-14', quantity: 1, unit: 'lb', use: 'stored' })`
+ */
+export const harvestDetailsInput = z
+  .object(harvestFields)
+  .superRefine(checkSpreadForUse)
+  .transform(withSpreadDefault);
+
+export type HarvestDetails = z.output<typeof harvestDetailsInput>;
+
+const splitPart = z
+  .object({ quantity, use, spreadMonths: spreadMonths.optional() })
+  .superRefine(checkSpreadForUse)
+  .transform(withSpreadDefault);
+
+/**
+ * One weighing split between uses: shared date, crop or food, unit, trimmed and note, and 1–7 parts
+ * each with its own quantity (in the shared unit), use and spread. The weighed total is the sum of
+ * the parts. Example: `harvestSplitInput.parse({ date: '2026-09-20', cropId: 4, unit: 'kg',
+ *   parts: [{ quantity: 20, use: 'stored' }, { quantity: 2, use: 'fresh' }] })`
+ */
+export const harvestSplitInput = z
+  .object({
+    ...cropOrFood,
+    date: isoDate,
+    unit: weightUnit,
+    trimmed: trimmedFlag.default(false),
+    note: note.optional(),
+    parts: z
+      .array(splitPart, { error: 'List the parts of the split.' })
+      .min(1, { error: 'A split needs at least one part.' })
+      .max(L.maxSplitParts, { error: `A split can have at most ${L.maxSplitParts} parts.` }),
+  })
+  .superRefine((v, ctx) => checkOneOfCropFood(v, ctx, true));
+
+export type HarvestSplitInput = z.output<typeof harvestSplitInput>;
+
+/** Turns a split into one harvest per part. Example: `splitToHarvests(split).length` → split.parts.length */
+export function splitToHarvests(split: HarvestSplitInput): HarvestInput[] {
+  const { parts, ...shared } = split;
+  return parts.map((part) => harvestInput.parse({ ...shared, ...part }));
+}
+
+/**
+ * A change to a harvest: any of its fields, at least one. Setting cropId replaces the foodId and the
+ * other way round; a null note clears it. Defaults are not applied: use mergeHarvestPatch.
+ * Example: `harvestPatch.parse({ quantity: 3 })` → { quantity: 3 }
+ */
+export const harvestPatch = z
+  .object({
+    date: isoDate,
+    cropId: recordId,
+    foodId: recordId,
+    quantity,
+    unit: weightUnit,
+    use,
+    spreadMonths,
+    trimmed: trimmedFlag,
+    note: noteOrClear,
+  })
+  .partial()
+  .superRefine(checkNotEmpty)
+  .superRefine((v, ctx) => checkOneOfCropFood(v, ctx, false))
+  .superRefine(checkSpreadForUse);
+
+export type HarvestPatch = z.output<typeof harvestPatch>;
+
+type Stored<T> = { [K in keyof T]?: T[K] | null };
+
+// Applies a patch to a stored row: nulls mean "none", a patch's null clears the field.
+function mergeFields(current: Record<string, unknown>, patch: Record<string, unknown>): Record<string, unknown> {
+  const merged: Record<string, unknown> = {};
+  for (const [key, value] of Object.entries(current)) if (value !== null && value !== undefined) merged[key] = value;
+  for (const [key, value] of Object.entries(patch)) {
+    if (value === undefined) continue;
+    if (value === null) delete merged[key];
+    else merged[key] = value;
+  }
+  return merged;
+}
+
+/**
+ * The harvest after a patch, validated as a whole. A patch that sets cropId drops the foodId (and
+ * the other way round); a patch that changes the use without a spread drops the old spread, so the
+ * new use's default applies. Example: `mergeHarvestPatch(entry, { use: 'fresh' }).data?.spreadMonths` → 1
+ */
+export function mergeHarvestPatch(
+  current: Stored<HarvestInput>,
+  patch: HarvestPatch,
+): z.ZodSafeParseResult<HarvestInput> {
+  const base: Record<string, unknown> = { ...current };
+  if (patch.cropId !== undefined) delete base.foodId;
+  if (patch.foodId !== undefined) delete base.cropId;
+  if (patch.use !== undefined && patch.use !== current.use && patch.spreadMonths === undefined) delete base.spreadMonths;
+  return harvestInput.safeParse(mergeFields(base, patch));
+}
+
+/** A crop as far as the use rule needs it. */
+export interface CropUseInfo {
+  name?: string;
+  notFood?: boolean | null;
+}
+
+/**
+ * Why a use is not allowed for a crop, or undefined when it is: a crop marked not food (ornamental
+ * or toxic) can only be logged as seed, given, sold or lost. The server and the importer call this
+ * once the crop is known. Example: `cropUseError('fresh', { name: 'Foxglove', notFood: true })`
+ *   → 'Foxglove is marked as not food, so it can only be logged as seed, given, sold or lost.'
+ */
+export function cropUseError(entryUse: Use, crop: CropUseInfo): string | undefined {
+  if (!crop.notFood || !isEatenUse(entryUse)) return undefined;
+  const who = crop.name?.trim() || 'This crop';
+  return `${who} is marked as not food, so it can only be logged as seed, given, sold or lost.`;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Bought food
+
+const purchaseFields = {
+  date: isoDate,
+  quantity,
+  unit: weightUnit,
+  price: price.optional(),
+  currency: currency.optional(),
+  spreadMonths: spreadMonths.default(1),
+  trimmed: trimmedFlag.default(false),
+  note: note.optional(),
+};
+
+/**
+ * Bought food: date, reference food, quantity in its unit, optional price and currency, spread
+ * (default 1; a bulk buy eaten over months sets more), trimmed (default false), note.
+ * Example: `purchaseInput.parse({ date: '2026-03-02', foodId: 5, quantity: 25, unit: 'kg', spreadMonths: 6 })`
+ */
+export const purchaseInput = z.object({ foodId: recordId, ...purchaseFields });
+
+export type PurchaseInput = z.output<typeof purchaseInput>;
+export type PurchaseInputRaw = z.input<typeof purchaseInput>;
+
+/** Bought food before its food is known — a CSV row. Example: `purchaseDetailsInput.parse({ date: '2026-03-02', quantity: 1, unit: 'kg' })` */
+export const purchaseDetailsInput = z.object(purchaseFields);
+
+export type PurchaseDetails = z.output<typeof purchaseDetailsInput>;
+
+/**
+ * A change to bought food: any field, at least one; null clears price, currency or note.
+ * Example: `purchasePatch.parse({ price: null })` → { price: null }
+ */
+export const purchasePatch = z
+  .object({
+    date: isoDate,
+    foodId: recordId,
+    quantity,
+    unit: weightUnit,
+    price: price.nullable(),
+    currency: currency.nullable(),
+    spreadMonths,
+    trimmed: trimmedFlag,
+    note: noteOrClear,
+  })
+  .partial()
+  .superRefine(checkNotEmpty);
+
+export type PurchasePatch = z.output<typeof purchasePatch>;
+
+/** Bought food after a patch, validated as a whole. Example: `mergePurchasePatch(entry, { quantity: 2 }).success` → true */
+export function mergePurchasePatch(
+  current: Stored<PurchaseInput>,
+  patch: PurchasePatch,
+): z.ZodSafeParseResult<PurchaseInput> {
+  return purchaseInput.safeParse(mergeFields({ ...current }, patch));
+}
+
+// ---------------------------------------------------------------------------------------------
+// Staples (foods bought again and again)
+
+/**
+ * A staple: the reference food, a label (blank takes the food's name), the usual quantity and unit,
+ * and the months one lasts (default 1). Example: `stapleInput.parse({ foodId: 5, quantity: 25, unit: 'kg', spreadMonths: 6 })`
+ *   → { foodId: 5, quantity: 25, unit: 'kg', spreadMonths: 6 }
+ */
+export const stapleInput = z.object({
+  foodId: recordId,
+  label: nameText('label')
+    .transform((s) => (s === '' ? undefined : s))
+    .optional(),
+  quantity,
+  unit: weightUnit,
+  spreadMonths: spreadMonths.default(1),
+});
+
+export type StapleInput = z.output<typeof stapleInput>;
+
+/** Logging a staple as bought: the date, default today in the household. Example: `stapleLogInput.parse({})` → {} */
+export const stapleLogInput = z.object({ date: isoDate.optional() });
+
+// ---------------------------------------------------------------------------------------------
+// List queries (URL search parameters: everything arrives as a string, blank means absent)
+
+const blankToUndefined = (value: unknown) => (typeof value === 'string' && value.trim() === '' ? undefined : value);
+
+const queryId = z.preprocess(
+  blankToUndefined,
+  z.coerce.number({ error: 'An id is a whole number.' }).pipe(recordId).optional(),
+);
+const queryDate = z.preprocess(blankToUndefined, isoDate.optional());
+const page = z.preprocess(
+  blankToUndefined,
+  z.coerce.number({ error: 'The page must be a number.' }).int({ error: 'The page must be a whole number.' }).min(1, { error: 'Pages start at 1.' }).default(1),
+);
+const pageSize = z.preprocess(
+  blankToUndefined,
+  z.coerce
+    .number({ error: 'The page size must be a number.' })
+    .int({ error: 'The page size must be a whole number.' })
+    .min(1, { error: 'The page size must be at least 1.' })
+    .max(L.maxPageSize, { error: `The page size can be at most ${L.maxPageSize}.` })
+    .default(L.defaultPageSize),
+);
+
+function checkDateOrder(value: { from?: string | undefined; to?: string | undefined }, ctx: Ctx): void {
+  // ISO dates compare correctly as strings.
+  if (value.from !== undefined && value.to !== undefined && value.from > value.to) {
+    ctx.addIssue({ code: 'custom', path: ['to'], message: 'The end date is before the start date.' });
+  }
+}
+
+/** Orders a harvest list can take ('-' = descending; the default is -date, newest first). Example: `HARVEST_SORTS[1]` → '-date' */
+export const HARVEST_SORTS = ['date', '-date', 'grams', '-grams', 'crop'] as const;
+
+/** Orders a bought-food list can take. Example: `PURCHASE_SORTS[4]` → 'food' */
+export const PURCHASE_SORTS = ['date', '-date', 'grams', '-grams', 'food'] as const;
+
+export type HarvestSort = (typeof HARVEST_SORTS)[number];
+export type PurchaseSort = (typeof PURCHASE_SORTS)[number];
+
+/**
+ * Filters for listing harvests, read from URL search parameters (both ends of from/to included).
+ * Example: `harvestQuery.parse(Object.fromEntries(new URLSearchParams('use=stored&page=2')))`
+ *   → { use: 'stored', page: 2, pageSize: 50 }
+ */
+export const harvestQuery = z
+  .object({
+    from: queryDate,
+    to: queryDate,
+    cropId: queryId,
+    foodId: queryId,
+    use: z.preprocess(blankToUndefined, use.optional()),
+    sort: z.preprocess(blankToUndefined, z.enum(HARVEST_SORTS, { error: `The sort must be one of ${HARVEST_SORTS.join(', ')}.` }).optional()),
+    page,
+    pageSize,
+  })
+  .superRefine(checkDateOrder);
+
+export type HarvestQuery = z.output<typeof harvestQuery>;
+
+/** Filters for listing bought food. Example: `purchaseQuery.parse({ from: '2026-01-01' })` → { from: '2026-01-01', page: 1, pageSize: 50 } */
+export const purchaseQuery = z
+  .object({
+    from: queryDate,
+    to: queryDate,
+    foodId: queryId,
+    sort: z.preprocess(blankToUndefined, z.enum(PURCHASE_SORTS, { error: `The sort must be one of ${PURCHASE_SORTS.join(', ')}.` }).optional()),
+    page,
+    pageSize,
+  })
+  .superRefine(checkDateOrder);
+
+export type PurchaseQuery = z.output<typeof purchaseQuery>;
+
+// ---------------------------------------------------------------------------------------------
+// Crops
+
+const cropFields = {
+  name: nameText('crop name').min(1, { error: 'Give the crop a name.' }),
+  variety: nameText('variety')
+    .transform((s) => (s === '' ? undefined : s))
+    .optional(),
+  foodId: recordId.nullable(),
+  category: z.enum(CROP_CATEGORIES, { error: `The category must be one of ${CROP_CATEGORIES.join(', ')}.` }),
+  edibleFraction: z
+    .number({ error: 'The edible fraction must be a number.' })
+    .gt(0, { error: 'The edible fraction must be more than 0.' })
+    .max(1, { error: 'The edible fraction can be at most 1 (all of it eaten).' }),
+  defaultUse: use,
+  defaultSpreadMonths: spreadMonths,
+  notFood: z.boolean({ error: 'Not food must be true or false.' }),
+};
+
+// A crop marked not food (ornamental, or toxic parts) is never counted as food: it links to no
+// reference food, has no edible fraction and no eaten default use. Its harvests are checked with
+// cropUseError, so they can only be seed, given, sold or lost.
+function checkNotFood(
+  value: { notFood?: boolean | undefined; foodId?: number | null | undefined; edibleFraction?: number | undefined; defaultUse?: Use | undefined },
+  ctx: Ctx,
+): void {
+  if (!value.notFood) return;
+  if (value.foodId != null) {
+    ctx.addIssue({ code: 'custom', path: ['foodId'], message: 'A crop marked as not food cannot be matched to a reference food.' });
+  }
+  if (value.edibleFraction !== undefined) {
+    ctx.addIssue({ code: 'custom', path: ['edibleFraction'], message: 'A crop marked as not food has no edible fraction.' });
+  }
+  if (value.defaultUse !== undefined && isEatenUse(value.defaultUse)) {
+    ctx.addIssue({ code: 'custom', path: ['defaultUse'], message: 'A crop marked as not food can only default to seed, given, sold or lost.' });
+  }
+}
+
+/**
+ * A crop the household grows: name, variety, matched reference food (or null), category, optional
+ * edible fraction override, default use and spread, and whether it is not food.
+ * Example: `cropInput.parse({ name: 'Potato', variety: 'Charlotte', foodId: 12, category: 'root_tuber' })`
+ *   → { name: 'Potato', variety: 'Charlotte', foodId: 12, category: 'root_tuber', notFood: false }
+ */
+export const cropInput = z
+  .object({
+    ...cropFields,
+    foodId: cropFields.foodId.default(null),
+    edibleFraction: cropFields.edibleFraction.optional(),
+    defaultUse: cropFields.defaultUse.optional(),
+    defaultSpreadMonths: cropFields.defaultSpreadMonths.optional(),
+    notFood: cropFields.notFood.default(false),
+  })
+  .superRefine(checkNotFood);
+
+export type CropInput = z.output<typeof cropInput>;
+export type CropInputRaw = z.input<typeof cropInput>;
+
+/** A change to a crop: any field (and `archived`), at least one; null clears variety, edible fraction, default use or spread. Example: `cropPatch.parse({ archived: true })` */
+export const cropPatch = z
+  .object({
+    ...cropFields,
+    variety: z.union([nameText('variety').transform((s) => (s === '' ? null : s)), z.null()]),
+    edibleFraction: cropFields.edibleFraction.nullable(),
+    defaultUse: cropFields.defaultUse.nullable(),
+    defaultSpreadMonths: cropFields.defaultSpreadMonths.nullable(),
+    // Archived crops are hidden from the entry form but keep their harvests.
+    archived: z.boolean({ error: 'Archived must be true or false.' }),
+  })
+  .partial()
+  .superRefine(checkNotEmpty)
+  .superRefine((v, ctx) => checkNotFood({ ...v, edibleFraction: v.edibleFraction ?? undefined, defaultUse: v.defaultUse ?? undefined }, ctx));
+
+export type CropPatch = z.output<typeof cropPatch>;
+
+/** The crop after a patch, validated as a whole (the not-food rule included). Example: `mergeCropPatch(crop, { notFood: true }).success` */
+export function mergeCropPatch(current: Stored<CropInput>, patch: CropPatch): z.ZodSafeParseResult<CropInput> {
+  const merged = mergeFields({ ...current }, patch);
+  // foodId is nullable on a crop: keep an explicit null rather than dropping the key.
+  if (!('foodId' in merged)) merged.foodId = null;
+  return cropInput.safeParse(merged);
+}
+
+// ---------------------------------------------------------------------------------------------
+// Error answers
+
+/** The body of a 400/422 answer for bad input (wrapped as `{ error: … }` by the route). */
+export interface InvalidInputBody {
+  code: 'invalid_input';
+  message: string;
+  /** Field path ('quantity', 'parts.1.use') → first message for it; '_form' for the input as a whole. */
+  fields: Record<string, string>;
+}
+
+/** Key under which problems with the whole input (not one field) are listed in `fields`. */
+export const FORM_FIELD = '_form';
+
+/**
+ * Turns a zod error into the answer body the API and the forms show.
+ * Example: `zodErrorBody(harvestInput.safeParse({ date: '2026-02-30', cropId: 1, quantity: 0, unit: 'kg' }).error!)`
+ *   → { code: 'invalid_input', message: 'date: That day does not exist … (and 1 more problem)', fields: { date: …, quantity: … } }
+ */
+export function zodErrorBody(err: z.ZodError): InvalidInputBody {
+  const fields: Record<string, string> = {};
+  for (const issue of err.issues) {
+    const key = issue.path.length === 0 ? FORM_FIELD : issue.path.map(String).join('.');
+    if (!(key in fields)) fields[key] = issue.message;
+  }
+  const first = err.issues[0];
+  if (!first) return { code: 'invalid_input', message: 'The input is not valid.', fields };
+  const where = first.path.length === 0 ? '' : `${first.path.map(String).join('.')}: `;
+  const more = err.issues.length - 1;
+  const tail = more === 0 ? '' : ` (and ${more} more problem${more === 1 ? '' : 's'})`;
+  return { code: 'invalid_input', message: `${where}${first.message}${tail}`, fields };
+}

@@ -1,0 +1,106 @@
+/**
+ * Daily need per nutrient for one person: the RDA, or the AI where no RDA exists, of the
+ * National Academies' Dietary Reference Intakes for the person's life-stage group
+ * (reference-data/dri.csv, mirrored in dri-table.ts); energy from eer.ts.
+ * A nutrient without a published RDA or AI for the group (fat for anyone over 1 year, sugars,
+ * cholesterol, …) has no need: null, never zero.
+ */
+import { DRI_ROWS, type DriRow } from './dri-table';
+import { estimatedEnergyRequirement, referenceBody, type EnergyPerson } from './eer';
+import { NUTRIENT_KEYS, type NutrientKey } from './nutrients';
+
+export type { Sex, Condition, Activity } from './eer';
+
+/** Who a need is for: sex, age in years and, for energy, the EER inputs. */
+export type RequirementPerson = EnergyPerson;
+
+export interface DailyNeed {
+  /** Per day, in the unit of the nutrient key. */
+  value: number;
+  basis: 'RDA' | 'AI' | 'EER' | 'stated';
+  source: string;
+  /** DRI life-stage group the value belongs to (null for a stated energy need). */
+  lifeStage: string | null;
+  /** Assumptions behind an estimate (reference body, default activity, …); empty for table values. */
+  notes: string[];
+}
+
+const rowsByNutrient = new Map<NutrientKey, DriRow[]>();
+for (const row of DRI_ROWS) {
+  const list = rowsByNutrient.get(row.nutrient) ?? [];
+  list.push(row);
+  rowsByNutrient.set(row.nutrient, list);
+}
+
+function inAgeRange(row: DriRow, age: number): boolean {
+  return row.ageMin <= age && (row.ageMax === null || age < row.ageMax);
+}
+
+/**
+ * The DRI table row that applies to a person, or null when the table has none.
+ * Pregnancy and lactation rows apply whatever the sex field says (the DRI groups are not split
+ * by sex); past the table's oldest pregnancy/lactation group (31–50 y) that group is used.
+ * Ages: ageMin ≤ age < ageMax, so 30.9 years is 19–30 and 31 is 31–50.
+ * e.g. driRow({ sex: 'female', ageYears: 25 }, 'protein_g')?.value → 46.
+ */
+export function driRow(person: Pick<RequirementPerson, 'sex' | 'ageYears' | 'condition'>, key: NutrientKey): DriRow | null {
+  checkPerson(person);
+  const rows = rowsByNutrient.get(key);
+  if (!rows) return null;
+  const { ageYears: age, condition } = person;
+  if (condition) {
+    const forCondition = rows.filter((r) => r.condition === condition);
+    const exact = forCondition.find((r) => inAgeRange(r, age));
+    if (exact) return exact;
+    // older than the table's groups: the oldest group that starts at or below the age
+    const below = forCondition.filter((r) => r.ageMin <= age).sort((a, b) => b.ageMin - a.ageMin);
+    return below[0] ?? null;
+  }
+  return rows.find((r) => r.condition === 'none' && (r.sex === 'any' || r.sex === person.sex) && inAgeRange(r, age)) ?? null;
+}
+
+/**
+ * A person's daily need for one nutrient, or null when the DRI set none for their group,
+ * e.g. dailyNeed({ sex: 'male', ageYears: 25 }, 'protein_g') → { value: 56, basis: 'RDA', … };
+ * dailyNeed({ sex: 'male', ageYears: 25 }, 'fat_g') → null.
+ */
+export function dailyNeed(person: RequirementPerson, key: NutrientKey): DailyNeed | null {
+  if (key === 'energy_kcal') {
+    const energy = estimatedEnergyRequirement(person);
+    return {
+      value: energy.value,
+      basis: energy.basis,
+      source: energy.source,
+      lifeStage: energy.basis === 'stated' ? null : referenceBody(person.sex, person.ageYears).group,
+      notes: energy.assumptions,
+    };
+  }
+  const row = driRow(person, key);
+  if (!row) return null;
+  return { value: row.value, basis: row.basis, source: row.source, lifeStage: row.lifeStage, notes: [] };
+}
+
+/**
+ * Daily needs for several nutrients (all Selfsown knows by default); null where none is set,
+ * e.g. dailyNeeds({ sex: 'female', ageYears: 30 }, ['iron_mg', 'fat_g']) → { iron_mg: { value: 18, … }, fat_g: null }.
+ */
+export function dailyNeeds<K extends NutrientKey = NutrientKey>(
+  person: RequirementPerson,
+  keys: readonly K[] = NUTRIENT_KEYS as readonly K[],
+): Record<K, DailyNeed | null> {
+  const out = {} as Record<K, DailyNeed | null>;
+  for (const key of keys) out[key] = dailyNeed(person, key);
+  return out;
+}
+
+function checkPerson(person: Pick<RequirementPerson, 'sex' | 'ageYears' | 'condition'>): void {
+  if (person.sex !== 'female' && person.sex !== 'male') {
+    throw new RangeError(`sex must be "female" or "male", got "${String(person.sex)}"`);
+  }
+  if (!Number.isFinite(person.ageYears) || person.ageYears < 0 || person.ageYears > 130) {
+    throw new RangeError(`age must be a number of years from 0 to 130, got ${person.ageYears}`);
+  }
+  if (person.condition != null && person.condition !== 'pregnancy' && person.condition !== 'lactation') {
+    throw new RangeError(`condition must be "pregnancy" or "lactation", got "${String(person.condition)}"`);
+  }
+}

@@ -1,0 +1,88 @@
+/** Households and memberships in the database. Every function is scoped by user or household id. */
+import { and, asc, eq, sql } from 'drizzle-orm';
+import { getDb } from '../db/client';
+import { households, memberships, user, type Household, type Role } from '../db/schema';
+import { HttpError } from './http';
+
+export interface HouseholdInput {
+  name: string;
+  timezone: string;
+  units: 'metric' | 'us';
+  yearStartMonth: number;
+}
+
+export function householdJson(h: Household, role?: Role) {
+  return { id: h.id, name: h.name, timezone: h.timezone, units: h.units, yearStartMonth: h.yearStartMonth, ...(role ? { role } : {}) };
+}
+
+/** Creates a household with its creator as owner, in one transaction. */
+export async function createHousehold(userId: string, input: HouseholdInput): Promise<Household> {
+  return getDb().transaction(async (tx) => {
+    const [res] = await tx.insert(households).values(input);
+    const id = res.insertId;
+    await tx.insert(memberships).values({ householdId: id, userId, role: 'owner' });
+    const [h] = await tx.select().from(households).where(eq(households.id, id));
+    return h!;
+  });
+}
+
+export async function listHouseholds(userId: string) {
+  return getDb()
+    .select({ household: households, role: memberships.role })
+    .from(memberships)
+    .innerJoin(households, eq(households.id, memberships.householdId))
+    .where(eq(memberships.userId, userId))
+    .orderBy(asc(households.name), asc(households.id));
+}
+
+export async function updateHousehold(householdId: number, patch: Partial<HouseholdInput>): Promise<Household> {
+  await getDb().update(households).set(patch).where(eq(households.id, householdId));
+  const [h] = await getDb().select().from(households).where(eq(households.id, householdId));
+  return h!;
+}
+
+/** Deletes a household and everything that belongs to it (foreign keys cascade), all or nothing. */
+export async function deleteHousehold(householdId: number): Promise<void> {
+  await getDb().transaction(async (tx) => {
+    await tx.delete(households).where(eq(households.id, householdId));
+  });
+}
+
+export async function listMembers(householdId: number) {
+  return getDb()
+    .select({ userId: memberships.userId, role: memberships.role, name: user.name, email: user.email, since: memberships.createdAt })
+    .from(memberships)
+    .innerJoin(user, eq(user.id, memberships.userId))
+    .where(eq(memberships.householdId, householdId))
+    .orderBy(asc(user.name));
+}
+
+async function ownerCount(tx: Parameters<Parameters<ReturnType<typeof getDb>['transaction']>[0]>[0], householdId: number): Promise<number> {
+  // FOR UPDATE: two owners demoting each other at once cannot both succeed.
+  const rows = await tx.execute(sql`SELECT COUNT(*) AS n FROM memberships WHERE household_id = ${householdId} AND role = 'owner' FOR UPDATE`);
+  return Number((rows[0] as unknown as { n: number }[])[0]!.n);
+}
+
+/** Changes a member's role; the last owner cannot be demoted. */
+export async function setMemberRole(householdId: number, memberId: string, role: Role): Promise<void> {
+  await getDb().transaction(async (tx) => {
+    const [m] = await tx.select().from(memberships).where(and(eq(memberships.householdId, householdId), eq(memberships.userId, memberId)));
+    if (!m) throw new HttpError(404, 'not_found', 'That person is not a member of this household.');
+    if (m.role === 'owner' && role !== 'owner' && (await ownerCount(tx, householdId)) <= 1) {
+      throw new HttpError(409, 'last_owner', 'A household needs at least one owner: make someone else owner first.');
+    }
+    await tx.update(memberships).set({ role }).where(and(eq(memberships.householdId, householdId), eq(memberships.userId, memberId)));
+  });
+}
+
+/** Removes a member (or lets one leave); the last owner cannot go. Access ends at once. */
+export async function removeMember(householdId: number, memberId: string): Promise<void> {
+  await getDb().transaction(async (tx) => {
+    const [m] = await tx.select().from(memberships).where(and(eq(memberships.householdId, householdId), eq(memberships.userId, memberId)));
+    if (!m) throw new HttpError(404, 'not_found', 'That person is not a member of this household.');
+    if (m.role === 'owner' && (await ownerCount(tx, householdId)) <= 1) {
+      throw new HttpError(409, 'last_owner', 'The last owner cannot leave or be removed: make someone else owner first, or delete the household.');
+    }
+    await tx.delete(memberships).where(and(eq(memberships.householdId, householdId), eq(memberships.userId, memberId)));
+  });
+}

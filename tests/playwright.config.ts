@@ -1,0 +1,32 @@
+import { defineConfig, devices } from '@playwright/test';
+
+// Served by `npm test` (src/cli/test.ts) from the built app; Chromium is Debian's.
+export default defineConfig({
+  testDir: './e2e',
+  fullyParallel: false,
+  workers: 1,
+  retries: 0,
+  timeout: 60_000,
+  reporter: [['list'], ['json']],
+  outputDir: `../.data/test-reports-${process.env.TEST_PORT ?? '4399'}/e2e-artifacts`,
+  use: {
+    baseURL: process.env.TEST_BASE_URL ?? `http://127.0.0.1:${process.env.TEST_PORT ?? '4399'}`,
+    trace: 'retain-on-failure',
+    launchOptions: {
+      executablePath: '/usr/bin/chromium',
+      args: [
+        '--headless',
+        '--no-sandbox',
+        '--disable-gpu',
+        '--disable-quic',
+        '--no-first-run',
+        '--disable-background-networking',
+        '--disable-component-update',
+        '--disable-sync',
+      ],
+    },
+  },
+  projects: [
+    { name: 'desktop', use: { ...devices['Desktop Chrome'], channel: undefined } },
+  ],
+});

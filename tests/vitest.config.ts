@@ -1,0 +1,35 @@
+import { fileURLToPath } from 'node:url';
+import { defineConfig } from 'vitest/config';
+
+const root = fileURLToPath(new URL('..', import.meta.url));
+
+// Two projects: pure domain code (no database) and the data layer + HTTP API against the real
+// MariaDB and the built server that `npm test` (src/cli/test.ts) starts before running these.
+export default defineConfig({
+  root,
+  test: {
+    projects: [
+      {
+        test: {
+          name: 'unit',
+          root,
+          include: ['tests/unit/**/*.test.ts'],
+          environment: 'node',
+        },
+      },
+      {
+        test: {
+          name: 'integration',
+          root,
+          include: ['tests/integration/**/*.test.ts'],
+          environment: 'node',
+          // One database shared by the files: run them one after another.
+          pool: 'forks',
+          poolOptions: { forks: { singleFork: true } },
+          testTimeout: 60_000,
+          hookTimeout: 180_000,
+        },
+      },
+    ],
+  },
+});
