@@ -1,0 +1,43 @@
+/** Input rules for the account forms (sign-up, sign-in, reset), shared by the pages and auth.ts. */
+import { z } from 'zod';
+
+/** Passwords: long enough to resist guessing, short enough to hash quickly. */
+export const PASSWORD_MIN = 10;
+export const PASSWORD_MAX = 128;
+
+const email = z.email('Enter an e-mail address, e.g. robin@example.org.').trim().toLowerCase().max(255, 'At most 255 characters.');
+const password = z
+  .string()
+  .min(PASSWORD_MIN, `Use at least ${PASSWORD_MIN} characters.`)
+  .max(PASSWORD_MAX, `Use at most ${PASSWORD_MAX} characters.`);
+
+export const signUpInput = z.object({
+  name: z.string().trim().min(1, 'Tell us what to call you.').max(200, 'At most 200 characters.'),
+  email,
+  password,
+});
+
+export const signInInput = z.object({
+  email,
+  password: z.string().min(1, 'Enter your password.'),
+});
+
+export const forgotPasswordInput = z.object({ email });
+
+export const resetPasswordInput = z
+  .object({ password, confirm: z.string() })
+  .refine((v) => v.password === v.confirm, { message: 'The two passwords differ.', path: ['confirm'] });
+
+/**
+ * First message per field of a failed parse, for inline form errors.
+ * @example fieldErrors(signInInput.safeParse({ email: 'x', password: '' })) // { email: 'Enter an e-mail…', password: 'Enter your password.' }
+ */
+export function fieldErrors(result: { success: boolean; error?: z.ZodError }): Record<string, string> {
+  const out: Record<string, string> = {};
+  if (result.success || !result.error) return out;
+  for (const issue of result.error.issues) {
+    const key = issue.path.map(String).join('.') || '_';
+    out[key] ??= issue.message;
+  }
+  return out;
+}
