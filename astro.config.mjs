@@ -11,8 +11,10 @@ export default defineConfig({
   outDir: process.env.SELFSOWN_OUT_DIR || './dist',
   adapter: node({ mode: 'standalone' }),
   integrations: [react()],
-  // Origin checks on form posts are done by Astro; API routes are checked in src/middleware.ts too.
-  security: { checkOrigin: true },
+  // Origin checks are done in src/middleware.ts against PUBLIC_ORIGIN (read at run time). Astro's own
+  // check compares with Astro.url, whose host is "localhost" unless security.allowedDomains is baked
+  // into the build, and so refused every same-site DELETE without a body.
+  security: { checkOrigin: false },
   server: { host: '127.0.0.1', port: 4321 },
   vite: {
     plugins: [tailwindcss()],

@@ -25,13 +25,15 @@ export const onRequest = defineMiddleware(async (ctx, next) => {
   const { request, url } = ctx;
   const isApi = url.pathname.startsWith('/api/');
 
-  if (isApi && !SAFE.has(request.method) && !url.pathname.startsWith('/api/auth/')) {
+  if (!SAFE.has(request.method) && !url.pathname.startsWith('/api/auth/')) {
     // Browsers name the page that sent a request; one from another site may not change anything.
-    // (better-auth checks the origin of /api/auth/ requests itself.)
+    // This is the app's only origin check (pages and API alike); better-auth checks /api/auth/ itself.
     const origin = request.headers.get('origin');
     const site = request.headers.get('sec-fetch-site');
-    if ((origin && origin !== publicOrigin() && origin !== url.origin) || site === 'cross-site') {
-      return errorResponse(403, 'bad_origin', 'This request came from another site and was refused.');
+    if ((origin && origin !== publicOrigin()) || site === 'cross-site') {
+      return isApi
+        ? errorResponse(403, 'bad_origin', 'This request came from another site and was refused.')
+        : new Response('Cross-site form submissions are refused.', { status: 403, headers: { 'content-type': 'text/plain; charset=utf-8' } });
     }
   }
 

@@ -1,8 +1,11 @@
 /**
  * npm start: brings up the private MariaDB, migrates, loads the reference foods when not yet
  * loaded, builds and serves the app on http://127.0.0.1:4321 (HOST and PORT override).
- * Ctrl-C stops the app and the database server it started.
+ * Seeds the demo account and household on first start and, when SMTP_URL is empty, runs the local
+ * fake SMTP server (mail readable at /dev/mail). Ctrl-C stops the app, the fake and the database
+ * server if this command started it.
  */
+import { existsSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { databaseUrl, loadDotEnv, mailConfig, publicOrigin } from '../server/config';
 import { serverPaths, stopServer } from './mariadb';
@@ -15,6 +18,8 @@ async function main(): Promise<void> {
   loadDotEnv();
   const root = process.cwd();
   const url = databaseUrl();
+  // Stop at the end only a database server this command started (another may be using it).
+  const dbWasRunning = existsSync(serverPaths().pidFile);
   await importFoods(url); // also starts MariaDB and migrates
   await seedDemo(url);
   // No SMTP_URL: mail goes to the local fake, readable at /dev/mail.
@@ -37,7 +42,7 @@ async function main(): Promise<void> {
   const built = await run(resolve(root, 'node_modules/.bin/astro'), ['build'], env);
   if (built !== 0) throw new Error('the build failed');
 
-  const services = [startService('node', [resolve(root, 'dist/server/entry.mjs')], env)];
+  const services = [startService('node', [resolve(root, process.env.SELFSOWN_OUT_DIR || 'dist', 'server/entry.mjs')], env)];
   const app = services[0]!;
   let stopping = false;
   const stopAll = async () => {
@@ -45,7 +50,7 @@ async function main(): Promise<void> {
     stopping = true;
     for (const s of services.reverse()) await stopService(s);
     if (mailFake) await mailFake.close();
-    await stopServer(serverPaths());
+    if (!dbWasRunning) await stopServer(serverPaths());
     process.exit(0);
   };
   process.on('SIGINT', stopAll);

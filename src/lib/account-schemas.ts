@@ -5,7 +5,13 @@ import { z } from 'zod';
 export const PASSWORD_MIN = 10;
 export const PASSWORD_MAX = 128;
 
-const email = z.email('Enter an e-mail address, e.g. robin@example.org.').trim().toLowerCase().max(255, 'At most 255 characters.');
+// Trim and lower-case first, then check the format (zod checks run in order).
+const email = z
+  .string({ error: 'Enter an e-mail address, e.g. robin@example.org.' })
+  .trim()
+  .toLowerCase()
+  .max(255, 'At most 255 characters.')
+  .pipe(z.email('Enter an e-mail address, e.g. robin@example.org.'));
 const password = z
   .string()
   .min(PASSWORD_MIN, `Use at least ${PASSWORD_MIN} characters.`)

@@ -6,12 +6,10 @@
 import { listMonths, monthIndex, monthOf, addMonths } from './months';
 import type { NutrientKey } from './nutrients';
 
-/** What happens to a harvest or a purchase. */
-export const USES = ['fresh', 'stored', 'preserved', 'seed', 'given', 'sold', 'lost'] as const;
-export type Use = (typeof USES)[number];
+import { EATEN_USES, USES, type Use } from './entry-schemas';
 
-/** Uses the household eats; the others (seed, given, sold, lost) leave its diet. */
-export const EATEN_USES = ['fresh', 'stored', 'preserved'] as const satisfies readonly Use[];
+// The uses are defined once, with the entry rules; re-exported for the share code's callers.
+export { EATEN_USES, USES, type Use };
 
 export type Source = 'home' | 'bought';
 
@@ -93,11 +91,23 @@ export function isEaten(use: Use): boolean {
  * 2026-11, 2026-12, 2027-01, 2027-02 at 0.25 each.
  */
 export function eatenParts(entry: Pick<FoodEntry, 'date' | 'use' | 'source' | 'spreadMonths'>): EatenPart[] {
+  return eatenSpan(entry).map((i, _, all) => ({ month: addMonths(monthOf(entry.date), i), fraction: 1 / all.length }));
+}
+
+/**
+ * The same months as offsets from the entry's month (0, 1, …), without building month strings:
+ * the share report calls this for every entry, e.g. a stored entry with spreadMonths 3 → [0, 1, 2].
+ */
+export function eatenSpan(entry: Pick<FoodEntry, 'date' | 'use' | 'source' | 'spreadMonths'>): number[] {
   checkSpread(entry.spreadMonths);
-  const first = monthOf(entry.date);
   if (!isEaten(entry.use)) return [];
   const spread = entry.use === 'fresh' && entry.source === 'home' ? 1 : entry.spreadMonths;
-  return Array.from({ length: spread }, (_, i) => ({ month: addMonths(first, i), fraction: 1 / spread }));
+  return Array.from({ length: spread }, (_, i) => i);
+}
+
+/** Month index (year × 12 + month − 1) of a 'YYYY-MM-DD' date, checked once. */
+export function dateMonthIndex(date: string): number {
+  return monthIndex(monthOf(date));
 }
 
 function checkSpread(spreadMonths: number): void {
@@ -167,10 +177,13 @@ export function allocate<K extends NutrientKey>(
   });
   for (const entry of entries) {
     checkGrams(entry.edibleGrams);
-    for (const part of eatenParts(entry)) {
-      const slot = result[monthIndex(part.month) - start];
+    const span = eatenSpan(entry);
+    if (span.length === 0) continue;
+    const first = dateMonthIndex(entry.date) - start;
+    for (const offset of span) {
+      const slot = result[first + offset];
       if (!slot) continue; // eaten outside the report's range
-      for (const key of keys) addEntryPart(slot.sums[key], entry, key, part.fraction);
+      for (const key of keys) addEntryPart(slot.sums[key], entry, key, 1 / span.length);
     }
   }
   return result;

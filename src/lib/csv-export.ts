@@ -182,37 +182,57 @@ export function cropsToCsv(records: readonly CropCsvRecord[], options: CsvExport
   );
 }
 
-/** Columns of the people list (who eats). Example: `PEOPLE_CSV_COLUMNS[1]` → 'sex' */
+/** Columns of the people list (who eats), as the people table holds them. Example: `PEOPLE_CSV_COLUMNS[1]` → 'sex' */
 export const PEOPLE_CSV_COLUMNS = [
   'name',
   'sex',
-  'birth_date',
-  'activity',
+  'age_years',
+  'birth_year',
   'height_cm',
   'weight_kg',
-  'kcal_per_day',
+  'activity',
   'condition',
-  'home_meals_percent',
+  'kcal_per_day',
+  'at_home_pct',
+  'present_from',
+  'present_to',
 ] as const;
 
 export interface PersonCsvRecord {
   name: string;
   sex?: string | null;
-  birthDate?: string | null;
-  activity?: string | null;
+  ageYears?: number | null;
+  birthYear?: number | null;
   heightCm?: number | null;
   weightKg?: number | null;
-  kcalPerDay?: number | null;
+  activity?: string | null;
   condition?: string | null;
+  kcalPerDay?: number | null;
   /** Share of meals eaten at home, 0–100. */
-  homeMealsPercent?: number | null;
+  atHomePct?: number | null;
+  /** First and last day the person eats in the household (YYYY-MM-DD), when not always. */
+  presentFrom?: string | null;
+  presentTo?: string | null;
 }
 
 /** The household's people as CSV. Example: `peopleToCsv([{ name: 'Ana', sex: 'female' }])` */
 export function peopleToCsv(records: readonly PersonCsvRecord[], options: CsvExportOptions = {}): string {
   return toCsv(
     PEOPLE_CSV_COLUMNS,
-    records.map((r) => [r.name, r.sex, r.birthDate, r.activity, r.heightCm, r.weightKg, r.kcalPerDay, r.condition, r.homeMealsPercent]),
+    records.map((r) => [
+      r.name,
+      r.sex,
+      r.ageYears,
+      r.birthYear,
+      r.heightCm,
+      r.weightKg,
+      r.activity,
+      r.condition,
+      r.kcalPerDay,
+      r.atHomePct,
+      r.presentFrom,
+      r.presentTo,
+    ]),
     options,
   );
 }

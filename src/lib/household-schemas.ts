@@ -19,27 +19,47 @@ export function timeZoneList(): string[] {
 
 export const MONTH_NAMES = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'] as const;
 
+const ZONE_SHAPE = /^[A-Za-z][A-Za-z0-9_+-]*(\/[A-Za-z0-9][A-Za-z0-9_+-]*)*$/;
+
 /**
- * True for an IANA time zone name this runtime knows.
- * @example isTimeZone('Europe/Oslo') // true; isTimeZone('Mars/Olympus') // false
+ * True for an IANA time zone name this runtime knows, current or older spelling alike (the
+ * runtime's own list has ICU's names, e.g. Asia/Calcutta, while browsers may say Asia/Kolkata).
+ * @example isTimeZone('Europe/Oslo') // true; isTimeZone('Asia/Kolkata') // true; isTimeZone('Mars/Olympus') // false
  */
 export function isTimeZone(tz: string): boolean {
-  return zones.has(tz);
+  if (zones.has(tz)) return true;
+  if (!ZONE_SHAPE.test(tz) || tz.length > 64) return false;
+  try {
+    new Intl.DateTimeFormat('en', { timeZone: tz });
+    return true;
+  } catch {
+    return false;
+  }
 }
 
-export const householdInput = z.object({
+const householdFields = {
   name: z.string().trim().min(1, 'Give the household a name.').max(120, 'At most 120 characters.'),
   timezone: z.string().trim().refine(isTimeZone, 'Not a known IANA time zone (e.g. Europe/Berlin).'),
-  units: z.enum(['metric', 'us']).default('metric'),
-  yearStartMonth: z.number().int().min(1).max(12).default(1),
+  units: z.enum(['metric', 'us'], { error: 'Choose metric or us.' }),
+  yearStartMonth: z.number({ error: 'A month number from 1 to 12.' }).int('A month number from 1 to 12.').min(1, 'A month number from 1 to 12.').max(12, 'A month number from 1 to 12.'),
+};
+
+export const householdInput = z.object({
+  ...householdFields,
+  units: householdFields.units.default('metric'),
+  yearStartMonth: householdFields.yearStartMonth.default(1),
 });
 
-export const householdPatch = householdInput.partial().refine((v) => Object.keys(v).length > 0, 'Change at least one field.');
+/** A change to a household: only the fields sent (no defaults, which would silently reset the others). */
+export const householdPatch = z
+  .object(householdFields)
+  .partial()
+  .refine((v) => Object.keys(v).length > 0, 'Change at least one field.');
 
 export const roleInput = z.object({ role: z.enum(ROLE_VALUES) });
 
 export const invitationInput = z.object({
-  email: z.email('Not an e-mail address.').trim().toLowerCase().max(255),
+  email: z.string({ error: 'Not an e-mail address.' }).trim().toLowerCase().max(255, 'At most 255 characters.').pipe(z.email('Not an e-mail address.')),
   role: z.enum(ROLE_VALUES),
 });
 

@@ -6,7 +6,7 @@
  * edible grams had no value for the nutrient. When every gram behind `home` (or `bought`) is of
  * unknown value, that sum is null, and so is any share built on it. No food at all is a known 0.
  */
-import { addSums, allocate, eatenParts, emptySums, isEaten, type FoodEntry, type NutrientSums } from './allocate';
+import { addSums, allocate, dateMonthIndex, eatenSpan, emptySums, isEaten, type FoodEntry, type NutrientSums } from './allocate';
 import { daysInMonth, listMonths, monthIndex } from './months';
 import { monthlyNeeds, type Person } from './needs';
 import { SHARE_NUTRIENTS, nutrientDef, type NutrientKey, type ShareNutrientKey } from './nutrients';
@@ -154,12 +154,9 @@ export function topContributors(
     if (amount == null) continue; // unknown: cannot rank
     let fraction = 1;
     if (window) {
-      fraction = eatenParts(entry)
-        .filter((p) => {
-          const i = monthIndex(p.month) - window.start;
-          return i >= 0 && i < window.months;
-        })
-        .reduce((s, p) => s + p.fraction, 0);
+      const span = eatenSpan(entry);
+      const first = dateMonthIndex(entry.date) - window.start;
+      fraction = span.filter((o) => first + o >= 0 && first + o < window.months).length / (span.length || 1);
     }
     const eaten = amount * fraction;
     if (eaten <= 0) continue;

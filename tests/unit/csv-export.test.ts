@@ -134,7 +134,8 @@ describe('exporting crops and people', () => {
     ]);
   });
   it('writes one row per person', () => {
-    const csv = peopleToCsv([{ name: 'Ana Núñez', sex: 'female', birthDate: '1988-04-02', activity: 'active', homeMealsPercent: 85 }], { bom: false });
-    expect(csv.split('\r\n')[1]).toBe('Ana Núñez,female,1988-04-02,active,,,,,85');
+    const csv = peopleToCsv([{ name: 'Ana Núñez', sex: 'female', birthYear: 1988, activity: 'active', atHomePct: 85, presentFrom: '2026-05-01' }], { bom: false });
+    expect(csv.split('\r\n')[0]).toBe('name,sex,age_years,birth_year,height_cm,weight_kg,activity,condition,kcal_per_day,at_home_pct,present_from,present_to');
+    expect(csv.split('\r\n')[1]).toBe('Ana Núñez,female,,1988,,,active,,,85,2026-05-01,');
   });
 });

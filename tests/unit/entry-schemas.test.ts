@@ -17,6 +17,8 @@ import {
   purchasePatch,
   purchaseQuery,
   splitToHarvests,
+  stapleInput,
+  stapleLogInput,
   USE_LABELS,
   USES,
   zodErrorBody,
@@ -242,6 +244,13 @@ describe('list queries', () => {
     expect(harvestQuery.safeParse(fromUrl('page=0')).success).toBe(false);
     expect(harvestQuery.safeParse(fromUrl('page=two')).success).toBe(false);
   });
+  it('reads a sort order and refuses an unknown one', () => {
+    expect(harvestQuery.parse(fromUrl('sort=-grams')).sort).toBe('-grams');
+    expect(harvestQuery.parse(fromUrl('sort=')).sort).toBeUndefined();
+    expect(fieldsOf(harvestQuery.safeParse(fromUrl('sort=weight'))).sort).toMatch(/-date/);
+    expect(purchaseQuery.parse(fromUrl('sort=food')).sort).toBe('food');
+    expect(purchaseQuery.safeParse(fromUrl('sort=crop')).success).toBe(false);
+  });
   it('refuses impossible dates, bad ids and an end before the start', () => {
     expect(harvestQuery.safeParse(fromUrl('from=2026-02-30')).success).toBe(false);
     expect(harvestQuery.safeParse(fromUrl('cropId=abc')).success).toBe(false);
@@ -320,5 +329,22 @@ describe('error answers', () => {
     expect(body.code).toBe('invalid_input');
     expect(Object.keys(body.fields).sort()).toEqual(['quantity', 'unit']);
     expect(body.message).toMatch(/^quantity: The weight must be more than 0\. \(and 1 more problem\)$/);
+  });
+});
+
+describe('crop archiving and staples', () => {
+  it('takes archived alone as a crop change', () => {
+    expect(cropPatch.parse({ archived: true })).toEqual({ archived: true });
+    expect(cropPatch.safeParse({ archived: 'yes' }).success).toBe(false);
+  });
+  it('reads a staple with a spread of 1 month unless told, and a blank label as none', () => {
+    expect(stapleInput.parse({ foodId: 5, label: '  ', quantity: 25, unit: 'kg' })).toEqual({ foodId: 5, quantity: 25, unit: 'kg', spreadMonths: 1 });
+    expect(fieldsOf(stapleInput.safeParse({ foodId: 5, quantity: 0, unit: 'kg' })).quantity).toBeDefined();
+    expect(fieldsOf(stapleInput.safeParse({ foodId: 5, quantity: 1, unit: 'sack' })).unit).toBeDefined();
+    expect(fieldsOf(stapleInput.safeParse({ foodId: 5, quantity: 1, unit: 'kg', spreadMonths: 25 })).spreadMonths).toBeDefined();
+  });
+  it('logs a staple on an optional real date', () => {
+    expect(stapleLogInput.parse({})).toEqual({});
+    expect(stapleLogInput.safeParse({ date: '2026-02-30' }).success).toBe(false);
   });
 });

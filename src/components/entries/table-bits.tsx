@@ -1,0 +1,110 @@
+/** Pieces the harvest and bought-food tables share: sortable headers, the pager, the totals line. */
+import type { ReactNode } from 'react';
+import { formatWeight, type UnitSystem } from '../../lib/units';
+import type { Totals } from './api';
+
+/** A column header that sorts by `asc` / `desc` (the same key twice for a one-way sort). */
+export function SortHeader({ label, sort, asc, desc, onSort, className = '' }: { label: string; sort: string; asc: string; desc: string; onSort: (s: string) => void; className?: string }) {
+  const state = sort === asc ? 'ascending' : sort === desc ? 'descending' : 'none';
+  const next = sort === desc ? asc : desc;
+  const arrow = state === 'ascending' ? '▲' : state === 'descending' ? '▼' : '↕';
+  return (
+    <th scope="col" aria-sort={state} className={`px-2 py-1 ${className}`}>
+      <button type="button" className="inline-flex min-h-12 items-center gap-1 rounded-lg px-1 font-bold hover:bg-loam-100" onClick={() => onSort(next)}>
+        {label}
+        <span aria-hidden="true" className={`text-xs ${state === 'none' ? 'text-loam-500' : 'text-sprout-700'}`}>
+          {arrow}
+        </span>
+        <span className="sr-only">{state === 'none' ? ', not sorted' : `, sorted ${state}`}</span>
+      </button>
+    </th>
+  );
+}
+
+/** Previous / next with "page 2 of 5". */
+export function Pager({ page, pageSize, total, onPage }: { page: number; pageSize: number; total: number; onPage: (p: number) => void }) {
+  const pages = Math.max(1, Math.ceil(total / pageSize));
+  if (pages <= 1) return null;
+  return (
+    <nav aria-label="Pages" className="mt-3 flex items-center justify-between gap-2">
+      <button type="button" className="btn-quiet" disabled={page <= 1} onClick={() => onPage(page - 1)}>
+        ← Newer
+      </button>
+      <span className="text-sm text-loam-700">
+        Page {page} of {pages}
+      </span>
+      <button type="button" className="btn-quiet" disabled={page >= pages} onClick={() => onPage(page + 1)}>
+        Older →
+      </button>
+    </nav>
+  );
+}
+
+/** "14 entries · 12.3 kg weighed · 9.8 kg edible portion", in the household's units. */
+export function TotalsLine({ total, totals, units, children }: { total: number; totals: Totals | undefined; units: UnitSystem; children?: ReactNode }) {
+  return (
+    <div className="flex flex-wrap items-baseline gap-x-6 gap-y-1 rounded-2xl bg-sprout-100 px-4 py-3 text-sprout-900" data-testid="totals" role="status">
+      <span>
+        <span className="text-2xl font-extrabold tabular-nums">{total}</span> {total === 1 ? 'entry' : 'entries'}
+      </span>
+      {totals ? (
+        <>
+          <span>
+            <span className="text-2xl font-extrabold tabular-nums">{formatWeight(totals.grams, units)}</span> weighed
+          </span>
+          <span>
+            <span className="text-2xl font-extrabold tabular-nums">{formatWeight(totals.edibleGrams, units)}</span> edible portion
+          </span>
+        </>
+      ) : null}
+      {children}
+    </div>
+  );
+}
+
+/** Filter row container: wraps on a phone, one line on a wide screen. */
+export function FilterBar({ children }: { children: ReactNode }) {
+  return (
+    <div role="group" aria-label="Filters" className="grid grid-flow-row-dense grid-cols-2 items-end gap-3 sm:grid-cols-4">
+      {children}
+    </div>
+  );
+}
+
+/**
+ * Class names that turn a table into stacked cards on a phone (below the sm breakpoint) and leave
+ * it a plain table on wider screens: the table stays one table for assistive technology, while a
+ * 390 px screen never scrolls sideways.
+ */
+export const stack = {
+  table: 'w-full border-collapse text-left max-sm:block sm:min-w-[40rem]',
+  thead: 'border-b border-loam-200 bg-loam-50 text-sm max-sm:hidden',
+  tbody: 'max-sm:block',
+  row: 'border-b border-loam-100 last:border-b-0 max-sm:grid max-sm:grid-cols-[1fr_auto] max-sm:gap-x-3 max-sm:gap-y-1 max-sm:px-4 max-sm:py-3',
+  wide: 'max-sm:block',
+  /** Cell positions on a phone: 1 name | 2 weight, 3 date | 4 edible, then full-width lines. */
+  name: 'max-sm:order-1 max-sm:p-0 max-sm:text-lg',
+  weight: 'max-sm:order-2 max-sm:p-0 max-sm:text-lg',
+  date: 'max-sm:order-3 max-sm:p-0 max-sm:text-sm max-sm:text-loam-700',
+  edible: 'max-sm:order-4 max-sm:p-0 max-sm:text-sm',
+  line: 'max-sm:order-5 max-sm:col-span-2 max-sm:p-0 max-sm:text-sm',
+  actions: 'max-sm:order-6 max-sm:col-span-2 max-sm:p-0 max-sm:pt-2 max-sm:text-left',
+} as const;
+
+/** A sort picker for phones, where the column headers are hidden. */
+export function SortSelect({ id, sort, onSort, options }: { id: string; sort: string; onSort: (s: string) => void; options: [string, string][] }) {
+  return (
+    <div className="sm:hidden">
+      <label htmlFor={id} className="block text-sm font-semibold">
+        Order
+      </label>
+      <select id={id} className="field mt-1" value={sort} onChange={(e) => onSort(e.target.value)}>
+        {options.map(([v, l]) => (
+          <option key={v} value={v}>
+            {l}
+          </option>
+        ))}
+      </select>
+    </div>
+  );
+}

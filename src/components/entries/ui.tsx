@@ -1,0 +1,176 @@
+/**
+ * Small pieces the entry islands share: a labelled field shell with its error, the unit toggle,
+ * the use chips, a two-step delete button and the hook that remembers a unit per household.
+ * Touch targets are at least 48 px (min-h-12) so they work with one thumb outdoors.
+ */
+import { useEffect, useState, type ReactNode } from 'react';
+import { USE_LABELS, USES, type Use } from '../../lib/entry-schemas';
+import { DEFAULT_ENTRY_UNIT, WEIGHT_UNITS, isWeightUnit, type UnitSystem, type WeightUnit } from '../../lib/units';
+
+export type Errors = Record<string, string>;
+
+/** aria-describedby for a field: its hint and its error, when there are any. */
+export function describedBy(id: string, error?: string, hint?: boolean): string | undefined {
+  return [hint ? `${id}-hint` : '', error ? `${id}-error` : ''].filter(Boolean).join(' ') || undefined;
+}
+
+/** The props that make an input report its error to assistive technology. */
+export function invalidProps(id: string, error?: string, hint?: boolean) {
+  return { id, 'aria-invalid': error ? true : undefined, 'aria-describedby': describedBy(id, error, hint) } as const;
+}
+
+/** The error line under a field (id `${id}-error`). */
+export function ErrorText({ id, error }: { id: string; error?: string | undefined }) {
+  return error ? (
+    <p id={`${id}-error`} className="mt-1 text-sm font-semibold text-berry-700">
+      {error}
+    </p>
+  ) : null;
+}
+
+/** A label, an optional hint, the control and its error. */
+export function FieldShell({ id, label, hint, error, children, className = 'mt-4' }: { id: string; label: ReactNode; hint?: ReactNode; error?: string | undefined; children: ReactNode; className?: string }) {
+  return (
+    <div className={className}>
+      <label htmlFor={id} className="block font-semibold">
+        {label}
+      </label>
+      {hint ? (
+        <p id={`${id}-hint`} className="text-sm text-loam-700">
+          {hint}
+        </p>
+      ) : null}
+      <div className="mt-1">{children}</div>
+      <ErrorText id={id} error={error} />
+    </div>
+  );
+}
+
+/** A message for the whole form: role=alert for errors, role=status for good news. */
+export function Alert({ message, tone = 'error' }: { message: ReactNode | null; tone?: 'error' | 'ok' | 'wait' }) {
+  const style = tone === 'error' ? 'bg-berry-700/10 text-berry-700' : tone === 'ok' ? 'bg-sprout-100 text-sprout-900' : 'bg-rind-100 text-loam-900';
+  return (
+    <div role={tone === 'error' ? 'alert' : 'status'}>
+      {message ? <div className={`mt-4 rounded-xl p-3 font-semibold ${style}`}>{message}</div> : null}
+    </div>
+  );
+}
+
+const segment = 'min-h-12 min-w-12 flex-1 px-3 text-lg font-bold transition-colors first:rounded-l-xl last:rounded-r-xl border border-loam-200 -ml-px first:ml-0';
+
+/** The g / kg / oz / lb toggle (a radio group, so arrow keys move between units). */
+export function UnitToggle({ name, value, onChange, label = 'Unit' }: { name: string; value: WeightUnit; onChange: (u: WeightUnit) => void; label?: string }) {
+  return (
+    <fieldset className="min-w-0">
+      <legend className="sr-only">{label}</legend>
+      <div className="flex">
+        {WEIGHT_UNITS.map((u) => (
+          <label key={u} className={`${segment} flex cursor-pointer items-center justify-center ${value === u ? 'border-sprout-700 bg-sprout-700 text-white' : 'bg-white text-loam-900 hover:bg-loam-100'}`}>
+            <input type="radio" className="sr-only" name={name} value={u} checked={value === u} onChange={() => onChange(u)} />
+            {u}
+          </label>
+        ))}
+      </div>
+    </fieldset>
+  );
+}
+
+/** "Stored (cellar, clamp, shelf)" → ["Stored", "cellar, clamp, shelf"]. */
+export function splitUseLabel(use: Use): [string, string | null] {
+  const m = /^(.*?)\s*\((.*)\)$/.exec(USE_LABELS[use]);
+  return m ? [m[1]!, m[2]!] : [USE_LABELS[use], null];
+}
+
+/** The use chips: one tap picks what happens to the food. Uses in `disabled` cannot be picked. */
+export function UseChips({ name, value, onChange, disabled = [], legend = 'What happens to it', error }: { name: string; value: Use; onChange: (u: Use) => void; disabled?: readonly Use[]; legend?: string; error?: string | undefined }) {
+  const errId = `${name}-error`;
+  return (
+    <fieldset className="mt-5" aria-describedby={error ? errId : undefined}>
+      <legend className="font-semibold">{legend}</legend>
+      <div className="mt-2 grid grid-cols-2 gap-2 sm:grid-cols-4">
+        {USES.map((u) => {
+          const [main, sub] = splitUseLabel(u);
+          const off = disabled.includes(u);
+          const on = value === u;
+          return (
+            <label
+              key={u}
+              className={`flex min-h-14 cursor-pointer flex-col justify-center rounded-xl border px-3 py-2 leading-tight transition-colors has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-rind-500 ${
+                on ? 'border-sprout-700 bg-sprout-100 text-sprout-900 ring-2 ring-sprout-700' : 'border-loam-200 bg-white hover:bg-loam-100'
+              } ${off ? 'cursor-not-allowed opacity-40' : ''}`}
+            >
+              <input type="radio" className="sr-only" name={name} value={u} checked={on} disabled={off} onChange={() => onChange(u)} />
+              <span className="font-bold">{main}</span>
+              {sub ? <span className="text-xs text-loam-700">{sub}</span> : null}
+            </label>
+          );
+        })}
+      </div>
+      <ErrorText id={name} error={error} />
+    </fieldset>
+  );
+}
+
+/** A delete button that asks once more before it acts. */
+export function ConfirmDelete({ onConfirm, label = 'Delete', what, busy = false }: { onConfirm: () => void; label?: string; what: string; busy?: boolean }) {
+  const [asking, setAsking] = useState(false);
+  if (!asking) {
+    return (
+      <button type="button" className="btn-quiet min-h-12 px-3 text-berry-700" onClick={() => setAsking(true)} aria-label={`${label} ${what}`}>
+        {label}
+      </button>
+    );
+  }
+  return (
+    <span className="inline-flex flex-wrap items-center gap-2" role="group" aria-label={`Confirm: ${label.toLowerCase()} ${what}`}>
+      <span className="text-sm font-semibold">{label} {what}?</span>
+      <button type="button" className="btn-danger min-h-12 px-3" disabled={busy} onClick={onConfirm}>
+        Yes, {label.toLowerCase()}
+      </button>
+      <button type="button" className="btn-quiet min-h-12 px-3" onClick={() => setAsking(false)}>
+        Keep
+      </button>
+    </span>
+  );
+}
+
+/**
+ * The unit last used in this household on this device (localStorage), else the unit-system default
+ * (metric → kg, us → lb). Reading storage waits for hydration, so the server HTML matches.
+ */
+export function useRememberedUnit(householdId: number, system: UnitSystem, what = 'unit'): [WeightUnit, (u: WeightUnit) => void] {
+  const key = `selfsown:${what}:${householdId}`;
+  const [unit, setUnit] = useState<WeightUnit>(DEFAULT_ENTRY_UNIT[system]);
+  useEffect(() => {
+    try {
+      const saved = localStorage.getItem(key);
+      if (isWeightUnit(saved)) setUnit(saved);
+    } catch {
+      /* storage unavailable */
+    }
+  }, [key]);
+  const choose = (u: WeightUnit) => {
+    setUnit(u);
+    try {
+      localStorage.setItem(key, u);
+    } catch {
+      /* storage unavailable */
+    }
+  };
+  return [unit, choose];
+}
+
+/** A value that follows `value` after it has stopped changing for `ms`. */
+export function useDebounced<T>(value: T, ms = 250): T {
+  const [v, setV] = useState(value);
+  useEffect(() => {
+    const t = window.setTimeout(() => setV(value), ms);
+    return () => window.clearTimeout(t);
+  }, [value, ms]);
+  return v;
+}
+
+/** Percent for people. Example: `pct(25)` → '25 %' */
+export function pct(n: number | null | undefined): string {
+  return n == null ? 'not given' : `${Math.round(n * 10) / 10} %`;
+}

@@ -1,0 +1,14 @@
+import { householdRoute } from '../../../../../server/authz';
+import { importEntries, readImportRequest } from '../../../../../server/entry-import';
+import { json } from '../../../../../server/http';
+
+/**
+ * POST /api/households/{id}/imports (owner, grower), multipart/form-data: file, kind=harvests|purchases,
+ * mode=preview|commit, createCrops (JSON list of crops to create first). Preview → 200 with rows and
+ * errors by row; commit → 201 { ok: true, created } or 422 with the errors, writing nothing.
+ */
+export const POST = householdRoute('write', async (ctx, a) => {
+  const req = await readImportRequest(ctx.request);
+  const { status, body } = await importEntries(a.household.id, a.userId, req);
+  return json(body, status);
+});

@@ -1,0 +1,16 @@
+import type { APIRoute } from 'astro';
+import { acceptInvitationInput } from '../../../lib/household-schemas';
+import { requireUser } from '../../../server/authz';
+import { handle, json, readJson } from '../../../server/http';
+import { acceptInvitation } from '../../../server/invitations';
+
+/**
+ * POST /api/invitations/accept {token} (signed in, confirmed address) → 200 {householdId, role,
+ * alreadyMember}. Unknown token 404; used, revoked or expired 410 with a sentence saying which.
+ */
+export const POST: APIRoute = handle(async (ctx) => {
+  const u = requireUser(ctx);
+  const { token } = acceptInvitationInput.parse(await readJson(ctx.request));
+  const r = await acceptInvitation(token, { id: u.id, emailVerified: ctx.locals.user?.emailVerified ?? false });
+  return json(r);
+});

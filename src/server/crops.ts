@@ -1,0 +1,284 @@
+/**
+ * The household's crop catalogue in the database. Every function takes the household id and reads
+ * or writes only that household's rows.
+ */
+import { and, asc, count, desc, eq, inArray, max, sql } from 'drizzle-orm';
+import { getDb } from '../db/client';
+import { crops, datasets, foods, harvests, type Crop } from '../db/schema';
+import type { CropCategory } from '../lib/crop-categories';
+import { edibleFactor } from '../lib/edible';
+import { EATEN_USES, mergeCropPatch, type CropInput, type CropPatch, type Use } from '../lib/entry-schemas';
+import { HttpError } from './http';
+import { fieldError, invalidInput, isDuplicateKey, isRowReferenced, type Executor, type Tx } from './entry-input';
+
+/** A reference food as a crop shows it: enough to judge the match. */
+export interface FoodSummary {
+  id: number;
+  dataset: string;
+  code: string;
+  name: string;
+  refusePct: number | null;
+  kcalPer100g: number | null;
+  proteinPer100g: number | null;
+}
+
+export interface CropJson {
+  id: number;
+  name: string;
+  variety: string | null;
+  displayName: string;
+  foodId: number | null;
+  food: FoodSummary | null;
+  category: CropCategory;
+  edibleFraction: number | null;
+  defaultUse: Use | null;
+  defaultSpreadMonths: number | null;
+  notFood: boolean;
+  archived: boolean;
+  harvestCount: number;
+  lastHarvestDate: string | null;
+}
+
+/** "Name (variety)", or the name alone. Example: `cropDisplayName('Potato', 'Pink Fir')` → 'Potato (Pink Fir)' */
+export function cropDisplayName(name: string, variety: string | null | undefined): string {
+  return variety ? `${name} (${variety})` : name;
+}
+
+/** Reference foods by id, with refuse, kcal and protein per 100 g. */
+export async function foodSummaries(ex: Executor, ids: readonly number[]): Promise<Map<number, FoodSummary>> {
+  const unique = [...new Set(ids)];
+  if (unique.length === 0) return new Map();
+  const nutrient = (key: string) =>
+    sql<number | null>`(SELECT fn.amount FROM food_nutrients fn WHERE fn.food_id = ${foods.id} AND fn.nutrient_key = ${key})`;
+  const rows = await ex
+    .select({
+      id: foods.id,
+      dataset: datasets.slug,
+      code: foods.code,
+      name: foods.name,
+      refusePct: foods.refusePct,
+      kcalPer100g: nutrient('energy_kcal'),
+      proteinPer100g: nutrient('protein_g'),
+    })
+    .from(foods)
+    .innerJoin(datasets, eq(datasets.id, foods.datasetId))
+    .where(inArray(foods.id, unique));
+  return new Map(
+    rows.map((r) => [
+      r.id,
+      { ...r, kcalPer100g: r.kcalPer100g === null ? null : Number(r.kcalPer100g), proteinPer100g: r.proteinPer100g === null ? null : Number(r.proteinPer100g) },
+    ]),
+  );
+}
+
+/** 400 unless the reference food exists. */
+export async function requireFood(ex: Executor, foodId: number, field = 'foodId'): Promise<{ id: number; refusePct: number | null; name: string }> {
+  const [food] = await ex.select({ id: foods.id, refusePct: foods.refusePct, name: foods.name }).from(foods).where(eq(foods.id, foodId)).limit(1);
+  if (!food) throw fieldError(field, 'There is no reference food with this id.');
+  return food;
+}
+
+function toJson(c: Crop, food: FoodSummary | null, stats: { n: number; last: string | null } | undefined): CropJson {
+  const variety = c.variety === '' ? null : c.variety;
+  return {
+    id: c.id,
+    name: c.name,
+    variety,
+    displayName: cropDisplayName(c.name, variety),
+    foodId: c.foodId,
+    food,
+    category: c.category,
+    edibleFraction: c.edibleFraction,
+    defaultUse: c.defaultUse,
+    defaultSpreadMonths: c.defaultSpreadMonths,
+    notFood: c.notFood,
+    archived: c.archived,
+    harvestCount: stats?.n ?? 0,
+    lastHarvestDate: stats?.last ?? null,
+  };
+}
+
+async function cropsJson(ex: Executor, householdId: number, rows: Crop[]): Promise<CropJson[]> {
+  if (rows.length === 0) return [];
+  const ids = rows.map((c) => c.id);
+  const statRows = await ex
+    .select({ cropId: harvests.cropId, n: count(), last: max(harvests.date) })
+    .from(harvests)
+    .where(and(eq(harvests.householdId, householdId), inArray(harvests.cropId, ids)))
+    .groupBy(harvests.cropId);
+  const stats = new Map(statRows.map((s) => [s.cropId, { n: Number(s.n), last: s.last }]));
+  const foodsById = await foodSummaries(ex, rows.flatMap((c) => (c.foodId === null ? [] : [c.foodId])));
+  return rows.map((c) => toJson(c, c.foodId === null ? null : (foodsById.get(c.foodId) ?? null), stats.get(c.id)));
+}
+
+/**
+ * The household's crops, recently harvested first, then by name; archived ones only when asked.
+ * Example: `(await listCrops(7)).map((c) => c.displayName)` → ['Potato (Pink Fir)', 'Kale', …]
+ */
+export async function listCrops(householdId: number, options: { includeArchived?: boolean } = {}): Promise<CropJson[]> {
+  const db = getDb();
+  const where = options.includeArchived ? eq(crops.householdId, householdId) : and(eq(crops.householdId, householdId), eq(crops.archived, false));
+  const rows = await db.select().from(crops).where(where).orderBy(asc(crops.name), asc(crops.variety));
+  const list = await cropsJson(db, householdId, rows);
+  // Most recent harvest first; never-harvested crops after, by name (the sort is stable).
+  return list.sort((a, b) => (b.lastHarvestDate ?? '').localeCompare(a.lastHarvestDate ?? ''));
+}
+
+/** One crop row of the household, or 404. */
+export async function cropRow(ex: Executor, householdId: number, cropId: number, forUpdate = false): Promise<Crop> {
+  const q = ex
+    .select()
+    .from(crops)
+    .where(and(eq(crops.householdId, householdId), eq(crops.id, cropId)))
+    .limit(1);
+  const [row] = forUpdate ? await q.for('update') : await q;
+  if (!row) throw new HttpError(404, 'not_found', 'No such crop in this household.');
+  return row;
+}
+
+/** One crop as JSON, or 404. */
+export async function getCrop(householdId: number, cropId: number, ex: Executor = getDb()): Promise<CropJson> {
+  const row = await cropRow(ex, householdId, cropId);
+  return (await cropsJson(ex, householdId, [row]))[0]!;
+}
+
+function duplicate(name: string, variety: string | null | undefined): HttpError {
+  return new HttpError(409, 'duplicate', `There is already a crop ${cropDisplayName(name, variety)} in this household.`, {
+    name: 'This household already has a crop with this name and variety.',
+  });
+}
+
+/** Inserts a crop inside a transaction and returns its id (409 when name + variety exist). */
+export async function insertCrop(tx: Tx, householdId: number, input: CropInput): Promise<number> {
+  if (input.foodId != null) await requireFood(tx, input.foodId);
+  try {
+    const [res] = await tx.insert(crops).values({
+      householdId,
+      name: input.name,
+      variety: input.variety ?? '',
+      foodId: input.foodId ?? null,
+      category: input.category,
+      edibleFraction: input.edibleFraction ?? null,
+      defaultUse: input.defaultUse ?? null,
+      defaultSpreadMonths: input.defaultSpreadMonths ?? null,
+      notFood: input.notFood,
+    });
+    return res.insertId;
+  } catch (e) {
+    if (isDuplicateKey(e)) throw duplicate(input.name, input.variety);
+    throw e;
+  }
+}
+
+/** Adds a crop to the household. Example: `await createCrop(7, cropInput.parse({ name: 'Kale', category: 'leafy_green' }))` */
+export async function createCrop(householdId: number, input: CropInput): Promise<CropJson> {
+  return getDb().transaction(async (tx) => getCrop(householdId, await insertCrop(tx, householdId, input), tx));
+}
+
+/**
+ * Edible grams of a harvest from its crop (or food): 0 for a crop marked not food (it is never
+ * counted as food), the grams themselves when weighed trimmed, else grams × the crop's edible
+ * fraction or × (1 − refuse/100). Example: `harvestEdibleGrams(1000, false, { refusePct: 25 })` → 750
+ */
+export function harvestEdibleGrams(
+  grams: number,
+  trimmed: boolean,
+  basis: { refusePct?: number | null; edibleFraction?: number | null; notFood?: boolean },
+): number {
+  if (basis.notFood) return 0;
+  return grams * edibleFactor({ refusePercent: basis.refusePct, edibleFraction: basis.edibleFraction, trimmed });
+}
+
+/**
+ * Changes a crop. A new food match or edible fraction is carried into the crop's harvests in the
+ * same transaction (their food and edible grams), so no entry keeps counting the old match.
+ */
+export async function updateCrop(householdId: number, cropId: number, patch: CropPatch): Promise<CropJson> {
+  return getDb().transaction(async (tx) => {
+    const current = await cropRow(tx, householdId, cropId, true);
+    const merged = mergeCropPatch(
+      {
+        name: current.name,
+        variety: current.variety === '' ? null : current.variety,
+        foodId: current.foodId,
+        category: current.category,
+        edibleFraction: current.edibleFraction,
+        defaultUse: current.defaultUse,
+        defaultSpreadMonths: current.defaultSpreadMonths,
+        notFood: current.notFood,
+      },
+      patch,
+    );
+    if (!merged.success) throw invalidInput(merged.error);
+    const next = merged.data;
+    const food = next.foodId != null ? await requireFood(tx, next.foodId) : null;
+    if (next.notFood && !current.notFood) {
+      const [eaten] = await tx
+        .select({ n: count() })
+        .from(harvests)
+        .where(and(eq(harvests.householdId, householdId), eq(harvests.cropId, cropId), inArray(harvests.use, [...EATEN_USES])));
+      if (Number(eaten?.n ?? 0) > 0) {
+        throw new HttpError(409, 'in_use', `${cropDisplayName(current.name, current.variety)} has harvests logged as eaten; change their use before marking it not food.`);
+      }
+    }
+    try {
+      await tx
+        .update(crops)
+        .set({
+          name: next.name,
+          variety: next.variety ?? '',
+          foodId: next.foodId ?? null,
+          category: next.category,
+          edibleFraction: next.edibleFraction ?? null,
+          defaultUse: next.defaultUse ?? null,
+          defaultSpreadMonths: next.defaultSpreadMonths ?? null,
+          notFood: next.notFood,
+          ...(patch.archived !== undefined ? { archived: patch.archived } : {}),
+        })
+        .where(and(eq(crops.householdId, householdId), eq(crops.id, cropId)));
+    } catch (e) {
+      if (isDuplicateKey(e)) throw duplicate(next.name, next.variety);
+      throw e;
+    }
+    const edibleChanged =
+      (next.foodId ?? null) !== current.foodId || (next.edibleFraction ?? null) !== current.edibleFraction || next.notFood !== current.notFood;
+    if (edibleChanged) {
+      const basis = { refusePct: food?.refusePct ?? null, edibleFraction: next.edibleFraction ?? null, notFood: next.notFood };
+      const factor = harvestEdibleGrams(1, false, basis);
+      const trimmedFactor = harvestEdibleGrams(1, true, basis);
+      await tx
+        .update(harvests)
+        .set({
+          foodId: next.foodId ?? null,
+          edibleGrams: sql`${harvests.grams} * CASE WHEN ${harvests.trimmed} THEN ${trimmedFactor} ELSE ${factor} END`,
+        })
+        .where(and(eq(harvests.householdId, householdId), eq(harvests.cropId, cropId)));
+    }
+    return getCrop(householdId, cropId, tx);
+  });
+}
+
+/** Deletes a crop; 409 `in_use` while harvests point at it (archive it instead). */
+export async function deleteCrop(householdId: number, cropId: number): Promise<void> {
+  const inUse = () =>
+    new HttpError(409, 'in_use', 'This crop has harvests logged; archive it instead (its harvests stay counted).');
+  await getDb().transaction(async (tx) => {
+    await cropRow(tx, householdId, cropId, true);
+    const [used] = await tx
+      .select({ n: count() })
+      .from(harvests)
+      .where(and(eq(harvests.householdId, householdId), eq(harvests.cropId, cropId)));
+    if (Number(used?.n ?? 0) > 0) throw inUse();
+    try {
+      await tx.delete(crops).where(and(eq(crops.householdId, householdId), eq(crops.id, cropId)));
+    } catch (e) {
+      if (isRowReferenced(e)) throw inUse();
+      throw e;
+    }
+  });
+}
+
+/** All crops of a household as rows (for import matching and export), archived included. */
+export async function cropRows(ex: Executor, householdId: number): Promise<Crop[]> {
+  return ex.select().from(crops).where(eq(crops.householdId, householdId)).orderBy(asc(crops.name), asc(crops.variety), desc(crops.id));
+}

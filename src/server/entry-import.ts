@@ -1,0 +1,439 @@
+/**
+ * Importing old harvest logs and bought-food lists from CSV files: reading the upload (size- and
+ * type-checked before it is parsed), matching crop names and food codes to this household's crops
+ * and the reference foods, and writing every row in one transaction — or none, with each rejected
+ * row named. The rules for the file itself live in src/lib/csv-import.ts.
+ */
+import { asc, inArray } from 'drizzle-orm';
+import { z } from 'zod';
+import { getDb } from '../db/client';
+import { foods, harvests, purchases, type Crop } from '../db/schema';
+import {
+  CSV_LIMITS,
+  cropNameKey,
+  parseHarvestCsv,
+  parsePurchaseCsv,
+  resolveHarvestRows,
+  resolvePurchaseRows,
+  type CsvError,
+} from '../lib/csv-import';
+import { cropInput, type CropInput, type HarvestInput, type PurchaseInput } from '../lib/entry-schemas';
+import { toGrams } from '../lib/units';
+import { cropDisplayName, cropRows, insertCrop } from './crops';
+import { HttpError } from './http';
+import { parseInput, type Executor, type Tx } from './entry-input';
+import { harvestValues, type HarvestBasis } from './harvests';
+import { purchaseValues } from './purchases';
+
+/** Rows shown in a preview answer; the counts and totals always cover the whole file. */
+export const PREVIEW_ROW_LIMIT = 500;
+
+/** Room for the multipart envelope and the small fields around the file. */
+const FORM_OVERHEAD_BYTES = 256 * 1024;
+
+const INSERT_CHUNK = 2000;
+
+export const importFields = z.object({
+  kind: z.enum(['harvests', 'purchases'], { error: 'Say what the file holds: kind=harvests or kind=purchases.' }),
+  mode: z.enum(['preview', 'commit'], { error: 'The mode must be preview or commit.' }).default('preview'),
+  createCrops: z
+    .array(cropInput, { error: 'createCrops must be a list of crops.' })
+    .max(500, { error: 'At most 500 new crops in one import.' })
+    .default([]),
+});
+
+export type ImportRequest = z.output<typeof importFields> & { file: Uint8Array; fileName: string };
+
+async function readLimited(request: Request, maxBytes: number): Promise<Uint8Array> {
+  const tooLarge = () =>
+    new HttpError(413, 'too_large', `The file is larger than ${CSV_LIMITS.maxBytes / 1024 / 1024} MB; split it into smaller files.`);
+  const declared = Number(request.headers.get('content-length') ?? NaN);
+  // Refuse a body that says it is too big before reading any of it.
+  if (Number.isFinite(declared) && declared > maxBytes) throw tooLarge();
+  if (!request.body) return new Uint8Array();
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > maxBytes) {
+      await reader.cancel();
+      throw tooLarge();
+    }
+    chunks.push(value);
+  }
+  const bytes = new Uint8Array(total);
+  let at = 0;
+  for (const c of chunks) {
+    bytes.set(c, at);
+    at += c.byteLength;
+  }
+  return bytes;
+}
+
+// Files people pick by mistake, by their first bytes.
+const NOT_CSV: { magic: number[]; message: string }[] = [
+  { magic: [0x50, 0x4b, 0x03, 0x04], message: 'This is a spreadsheet workbook (xlsx or ods), not a CSV file. Save it as "CSV UTF-8" and upload that.' },
+  { magic: [0xd0, 0xcf, 0x11, 0xe0], message: 'This is an old Excel workbook (xls), not a CSV file. Save it as "CSV UTF-8" and upload that.' },
+  { magic: [0x25, 0x50, 0x44, 0x46], message: 'This is a PDF, not a CSV file.' },
+];
+
+const CSV_TYPES = new Set(['', 'text/csv', 'text/plain', 'application/csv', 'text/x-csv', 'application/vnd.ms-excel', 'application/octet-stream', 'text/comma-separated-values']);
+
+function checkFile(file: File, bytes: Uint8Array): void {
+  const fileError = (message: string, status = 400) => new HttpError(status, 'invalid_file', message, { file: message });
+  for (const { magic, message } of NOT_CSV) {
+    if (magic.every((b, i) => bytes[i] === b)) throw fileError(message, 415);
+  }
+  const type = file.type.split(';')[0]!.trim().toLowerCase();
+  const name = file.name.toLowerCase();
+  const csvName = /\.(csv|txt)$/.test(name);
+  if (!CSV_TYPES.has(type) && !csvName) throw fileError(`A file of type ${type} cannot be imported; upload a .csv file.`, 415);
+}
+
+/**
+ * Reads an import request (multipart/form-data: file, kind, mode, createCrops as JSON), refusing a
+ * body over the size limit before reading it and a file that is not CSV text.
+ */
+export async function readImportRequest(request: Request): Promise<ImportRequest> {
+  const type = request.headers.get('content-type') ?? '';
+  if (!type.toLowerCase().startsWith('multipart/form-data')) {
+    throw new HttpError(415, 'unsupported_media_type', 'Send the file as multipart/form-data with the fields file, kind and mode.');
+  }
+  const body = await readLimited(request, CSV_LIMITS.maxBytes + FORM_OVERHEAD_BYTES);
+  let form: FormData;
+  try {
+    form = await new Response(body as Uint8Array<ArrayBuffer>, { headers: { 'content-type': type } }).formData();
+  } catch {
+    throw new HttpError(400, 'invalid_form', 'The upload could not be read as multipart/form-data.');
+  }
+  const file = form.get('file');
+  if (!(file instanceof File)) throw new HttpError(400, 'invalid_input', 'file: Choose a CSV file to import.', { file: 'Choose a CSV file to import.' });
+  if (file.size > CSV_LIMITS.maxBytes) {
+    throw new HttpError(413, 'too_large', `The file is larger than ${CSV_LIMITS.maxBytes / 1024 / 1024} MB; split it into smaller files.`);
+  }
+  const bytes = new Uint8Array(await file.arrayBuffer());
+  checkFile(file, bytes);
+
+  let createCrops: unknown = [];
+  const rawCrops = form.get('createCrops');
+  if (typeof rawCrops === 'string' && rawCrops.trim() !== '') {
+    try {
+      createCrops = JSON.parse(rawCrops) as unknown;
+    } catch {
+      throw new HttpError(400, 'invalid_input', 'createCrops: This is not valid JSON.', { createCrops: 'This is not valid JSON.' });
+    }
+  }
+  const text = (k: string) => {
+    const v = form.get(k);
+    return typeof v === 'string' && v.trim() !== '' ? v.trim() : undefined;
+  };
+  const fields = parseInput(importFields, { kind: text('kind'), mode: text('mode'), createCrops });
+  return { ...fields, file: bytes, fileName: file.name };
+}
+
+// ---------------------------------------------------------------------------------------------
+
+interface FoodRef {
+  id: number;
+  code: string;
+  name: string;
+  refusePct: number | null;
+}
+
+/** Reference foods by dataset code; when two datasets share a code, the first imported wins. */
+async function foodsByCodes(ex: Executor, codes: readonly string[]): Promise<Map<string, FoodRef>> {
+  const found = new Map<string, FoodRef>();
+  const unique = [...new Set(codes)];
+  for (let i = 0; i < unique.length; i += 1000) {
+    const rows = await ex
+      .select({ id: foods.id, code: foods.code, name: foods.name, refusePct: foods.refusePct })
+      .from(foods)
+      .where(inArray(foods.code, unique.slice(i, i + 1000)))
+      .orderBy(asc(foods.datasetId), asc(foods.id));
+    for (const r of rows) if (!found.has(r.code)) found.set(r.code, r);
+  }
+  return found;
+}
+
+async function foodsByIds(ex: Executor, ids: readonly number[]): Promise<Map<number, FoodRef>> {
+  const unique = [...new Set(ids)];
+  if (unique.length === 0) return new Map();
+  const rows = await ex
+    .select({ id: foods.id, code: foods.code, name: foods.name, refusePct: foods.refusePct })
+    .from(foods)
+    .where(inArray(foods.id, unique));
+  return new Map(rows.map((r) => [r.id, r]));
+}
+
+const cropKey = (name: string, variety?: string | null) => `${cropNameKey(name)}\u0000${cropNameKey(variety ?? '')}`;
+
+/** A crop as the importer sees it; new ones of a preview have negative ids. */
+type ImportCrop = Pick<Crop, 'id' | 'name' | 'variety' | 'foodId' | 'category' | 'edibleFraction' | 'defaultSpreadMonths' | 'notFood'>;
+
+function cropFromInput(id: number, input: CropInput): ImportCrop {
+  return {
+    id,
+    name: input.name,
+    variety: input.variety ?? '',
+    foodId: input.foodId ?? null,
+    category: input.category,
+    edibleFraction: input.edibleFraction ?? null,
+    defaultSpreadMonths: input.defaultSpreadMonths ?? null,
+    notFood: input.notFood,
+  };
+}
+
+interface PreviewRow {
+  row: number;
+  date: string;
+  crop: string | null;
+  foodCode: string | null;
+  foodName: string | null;
+  quantity: number;
+  unit: string;
+  grams: number;
+  edibleGrams: number;
+  use?: string;
+  spreadMonths: number;
+  trimmed: boolean;
+  note: string | null;
+  price?: number | null;
+  currency?: string | null;
+}
+
+export interface ImportAnswer {
+  status: number;
+  body: {
+    ok: boolean;
+    kind: 'harvests' | 'purchases';
+    mode: 'preview' | 'commit';
+    /** The first rows as they would be stored (at most PREVIEW_ROW_LIMIT). */
+    rows: PreviewRow[];
+    rowCount: number;
+    totals: { grams: number; edibleGrams: number };
+    errors: CsvError[];
+    unknownCrops: { name: string; variety?: string }[];
+    unknownFoodCodes: string[];
+    ignoredColumns: string[];
+    created?: number;
+    error?: { code: string; message: string; fields: Record<string, string> };
+  };
+}
+
+const byRow = (errors: CsvError[]) => [...errors].sort((a, b) => a.row - b.row);
+
+/** Thrown inside the commit transaction to roll it back and answer 422 with the rows to fix. */
+class RowsRefused extends Error {
+  constructor(readonly answer: ImportAnswer) {
+    super('import refused');
+  }
+}
+
+function refusedError(errors: CsvError[]): { code: string; message: string; fields: Record<string, string> } {
+  const first = errors[0];
+  const where = first ? (first.row === 0 ? '' : `Row ${first.row}${first.column ? `, ${first.column}` : ''}: `) : '';
+  const more = errors.length - 1;
+  return {
+    code: 'invalid_rows',
+    message: `Nothing was imported. ${where}${first?.message ?? 'The file could not be read.'}${more > 0 ? ` (and ${more} more problem${more === 1 ? '' : 's'})` : ''}`,
+    fields: {},
+  };
+}
+
+interface Prepared<V> {
+  values: (V & { row: number })[];
+  errors: CsvError[];
+  unknownCrops: { name: string; variety?: string }[];
+  unknownFoodCodes: string[];
+  ignoredColumns: string[];
+  preview: PreviewRow[];
+}
+
+async function prepareHarvests(ex: Executor, req: ImportRequest, householdCrops: ImportCrop[]): Promise<Prepared<ReturnType<typeof harvestValues>>> {
+  const parsed = parseHarvestCsv(req.file);
+  const codes = await foodsByCodes(ex, parsed.rows.flatMap((r) => (r.foodCode === undefined ? [] : [r.foodCode])));
+  const cropsByKey = new Map<string, ImportCrop>();
+  for (const c of householdCrops) if (!cropsByKey.has(cropKey(c.name, c.variety))) cropsByKey.set(cropKey(c.name, c.variety), c);
+  const cropsById = new Map(householdCrops.map((c) => [c.id, c]));
+  const resolved = resolveHarvestRows(parsed.rows, {
+    cropByName: (name, variety) => {
+      const c = cropsByKey.get(cropKey(name, variety));
+      return c === undefined ? undefined : { id: c.id, name: cropDisplayName(c.name, c.variety), notFood: c.notFood };
+    },
+    foodByCode: (code) => codes.get(code)?.id,
+  });
+  const cropFoods = await foodsByIds(ex, householdCrops.flatMap((c) => (c.foodId === null ? [] : [c.foodId])));
+  const foodsById = new Map([...codes.values()].map((f) => [f.id, f]));
+  const values: Prepared<ReturnType<typeof harvestValues>>['values'] = [];
+  const preview: PreviewRow[] = [];
+  for (const { row, input } of resolved.inputs) {
+    const crop = input.cropId === undefined ? undefined : cropsById.get(input.cropId);
+    const food = crop ? (crop.foodId === null ? undefined : cropFoods.get(crop.foodId)) : foodsById.get(input.foodId!);
+    const basis: HarvestBasis = crop
+      ? {
+          cropId: crop.id,
+          foodId: crop.foodId,
+          refusePct: food?.refusePct ?? null,
+          edibleFraction: crop.edibleFraction,
+          notFood: crop.notFood,
+          category: crop.category,
+          cropDefaultSpread: crop.defaultSpreadMonths,
+        }
+      : { cropId: null, foodId: food!.id, refusePct: food!.refusePct, edibleFraction: null, notFood: false, category: 'other', cropDefaultSpread: null };
+    const v = harvestValues(input as HarvestInput, basis);
+    values.push({ ...v, row });
+    if (preview.length < PREVIEW_ROW_LIMIT) {
+      preview.push({
+        row,
+        date: v.date,
+        crop: crop ? cropDisplayName(crop.name, crop.variety) : null,
+        foodCode: food?.code ?? null,
+        foodName: food?.name ?? null,
+        quantity: v.quantity,
+        unit: v.unit,
+        grams: v.grams,
+        edibleGrams: v.edibleGrams,
+        use: v.use,
+        spreadMonths: v.spreadMonths,
+        trimmed: v.trimmed,
+        note: v.note,
+      });
+    }
+  }
+  return {
+    values,
+    preview,
+    errors: byRow([...parsed.errors, ...resolved.errors]),
+    unknownCrops: resolved.unknownCrops,
+    unknownFoodCodes: resolved.unknownFoodCodes,
+    ignoredColumns: parsed.ignoredColumns,
+  };
+}
+
+async function preparePurchases(ex: Executor, req: ImportRequest): Promise<Prepared<ReturnType<typeof purchaseValues>>> {
+  const parsed = parsePurchaseCsv(req.file);
+  const codes = await foodsByCodes(ex, parsed.rows.map((r) => r.foodCode));
+  const resolved = resolvePurchaseRows(parsed.rows, { foodByCode: (code) => codes.get(code)?.id });
+  const foodsById = new Map([...codes.values()].map((f) => [f.id, f]));
+  const values: Prepared<ReturnType<typeof purchaseValues>>['values'] = [];
+  const preview: PreviewRow[] = [];
+  for (const { row, input } of resolved.inputs) {
+    const food = foodsById.get(input.foodId)!;
+    const v = purchaseValues(input as PurchaseInput, food.refusePct);
+    values.push({ ...v, row });
+    if (preview.length < PREVIEW_ROW_LIMIT) {
+      preview.push({
+        row,
+        date: v.date,
+        crop: null,
+        foodCode: food.code,
+        foodName: food.name,
+        quantity: v.quantity,
+        unit: v.unit,
+        grams: v.grams,
+        edibleGrams: v.edibleGrams,
+        spreadMonths: v.spreadMonths,
+        trimmed: v.trimmed,
+        note: v.note,
+        price: v.price === null ? null : Number(v.price),
+        currency: v.currency,
+      });
+    }
+  }
+  return {
+    values,
+    preview,
+    errors: byRow([...parsed.errors, ...resolved.errors]),
+    unknownCrops: [],
+    unknownFoodCodes: resolved.unknownFoodCodes,
+    ignoredColumns: parsed.ignoredColumns,
+  };
+}
+
+function answer<V extends { grams: number; edibleGrams: number }>(req: ImportRequest, p: Prepared<V>, status: number, extra: Partial<ImportAnswer['body']> = {}): ImportAnswer {
+  const totals = p.values.reduce((t, v) => ({ grams: t.grams + v.grams, edibleGrams: t.edibleGrams + v.edibleGrams }), { grams: 0, edibleGrams: 0 });
+  return {
+    status,
+    body: {
+      ok: p.errors.length === 0,
+      kind: req.kind,
+      mode: req.mode,
+      rows: p.preview,
+      rowCount: p.values.length,
+      totals,
+      errors: p.errors,
+      unknownCrops: p.unknownCrops,
+      unknownFoodCodes: p.unknownFoodCodes,
+      ignoredColumns: p.ignoredColumns,
+      ...(p.errors.length > 0 ? { error: refusedError(p.errors) } : {}),
+      ...extra,
+    },
+  };
+}
+
+/** Crops to create first, without those the household already has (same name and variety). */
+function newCrops(existing: ImportCrop[], wanted: CropInput[]): CropInput[] {
+  const seen = new Set(existing.map((c) => cropKey(c.name, c.variety)));
+  const out: CropInput[] = [];
+  for (const c of wanted) {
+    const key = cropKey(c.name, c.variety);
+    if (seen.has(key)) continue;
+    seen.add(key);
+    out.push(c);
+  }
+  return out;
+}
+
+async function insertChunks(tx: Tx, householdId: number, userId: string | null, kind: ImportRequest['kind'], values: { row: number }[]): Promise<void> {
+  for (let i = 0; i < values.length; i += INSERT_CHUNK) {
+    const chunk = values.slice(i, i + INSERT_CHUNK).map(({ row: _row, ...v }) => ({ ...v, householdId, createdBy: userId }));
+    if (kind === 'harvests') await tx.insert(harvests).values(chunk as (typeof harvests.$inferInsert)[]);
+    else await tx.insert(purchases).values(chunk as (typeof purchases.$inferInsert)[]);
+  }
+}
+
+/**
+ * Previews or commits an import. Preview: 200 with the rows as they would be stored and every
+ * problem by row. Commit: creates the requested crops and writes every row in one transaction,
+ * 201 `{ ok: true, created }`; any problem rolls it all back and answers 422 with the problems.
+ */
+export async function importEntries(householdId: number, userId: string | null, req: ImportRequest): Promise<ImportAnswer> {
+  const db = getDb();
+  if (req.mode === 'preview') {
+    if (req.kind === 'purchases') return answer(req, await preparePurchases(db, req), 200);
+    const existing = await cropRows(db, householdId);
+    // Crops the grower chose to create are matched as if they existed (negative ids: never stored).
+    const virtual = newCrops(existing, req.createCrops).map((c, i) => cropFromInput(-(i + 1), c));
+    const missingFoods = virtual.flatMap((c) => (c.foodId === null ? [] : [c.foodId]));
+    const known = await foodsByIds(db, missingFoods);
+    const badFood = missingFoods.find((id) => !known.has(id));
+    if (badFood !== undefined) throw new HttpError(400, 'invalid_input', `createCrops: There is no reference food with id ${badFood}.`, { createCrops: `There is no reference food with id ${badFood}.` });
+    return answer(req, await prepareHarvests(db, req, [...existing, ...virtual]), 200);
+  }
+  try {
+    return await db.transaction(async (tx) => {
+      let created = 0;
+      let prepared: Prepared<{ grams: number; edibleGrams: number }>;
+      if (req.kind === 'harvests') {
+        const existing = await cropRows(tx, householdId);
+        const toCreate = newCrops(existing, req.createCrops);
+        for (const c of toCreate) await insertCrop(tx, householdId, c);
+        prepared = await prepareHarvests(tx, req, toCreate.length > 0 ? await cropRows(tx, householdId) : existing);
+      } else {
+        prepared = await preparePurchases(tx, req);
+      }
+      if (prepared.errors.length > 0 || prepared.values.length === 0) {
+        throw new RowsRefused(answer(req, prepared, 422, { ok: false }));
+      }
+      await insertChunks(tx, householdId, userId, req.kind, prepared.values);
+      created = prepared.values.length;
+      return answer(req, prepared, 201, { ok: true, created, rows: [] });
+    });
+  } catch (e) {
+    if (e instanceof RowsRefused) return e.answer;
+    throw e;
+  }
+}

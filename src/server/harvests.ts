@@ -1,0 +1,299 @@
+/**
+ * The harvest log in the database. Every function takes the household id and touches only that
+ * household's rows. Grams and edible grams are worked out here, at write time, from the entry's
+ * unit and its crop (or reference food), and again on every change.
+ */
+import { randomUUID } from 'node:crypto';
+import { and, asc, count, desc, eq, gte, inArray, lte, sql, sum, type SQL } from 'drizzle-orm';
+import { getDb } from '../db/client';
+import { crops, foods, harvests, type Harvest } from '../db/schema';
+import { defaultSpreadMonths, type CropCategory } from '../lib/crop-categories';
+import {
+  cropUseError,
+  mergeHarvestPatch,
+  splitToHarvests,
+  type HarvestInput,
+  type HarvestPatch,
+  type HarvestQuery,
+  type HarvestSplitInput,
+  type Use,
+} from '../lib/entry-schemas';
+import { toGrams, type WeightUnit } from '../lib/units';
+import { cropDisplayName, cropRow, harvestEdibleGrams, requireFood } from './crops';
+import { HttpError } from './http';
+import { fieldError, invalidInput, type Executor, type Tx } from './entry-input';
+
+export interface HarvestJson {
+  id: number;
+  date: string;
+  cropId: number | null;
+  cropName: string | null;
+  foodId: number | null;
+  foodName: string | null;
+  foodCode: string | null;
+  quantity: number;
+  unit: WeightUnit;
+  grams: number;
+  edibleGrams: number;
+  use: Use;
+  spreadMonths: number;
+  trimmed: boolean;
+  note: string | null;
+  splitGroup: string | null;
+  createdAt: string;
+}
+
+/** What a harvest's numbers rest on: its crop (if any) and reference food. */
+export interface HarvestBasis {
+  cropId: number | null;
+  cropName?: string;
+  foodId: number | null;
+  refusePct: number | null;
+  edibleFraction: number | null;
+  notFood: boolean;
+  category: CropCategory;
+  cropDefaultSpread: number | null;
+}
+
+/** The basis of an entry naming a crop (of this household) or a reference food; 400 when neither exists. */
+export async function harvestBasis(ex: Executor, householdId: number, ref: { cropId?: number | undefined; foodId?: number | undefined }): Promise<HarvestBasis> {
+  if (ref.cropId !== undefined) {
+    const crop = await cropRow(ex, householdId, ref.cropId).catch((e: unknown) => {
+      if (e instanceof HttpError && e.status === 404) throw fieldError('cropId', 'There is no such crop in this household.');
+      throw e;
+    });
+    const food = crop.foodId === null ? null : await requireFood(ex, crop.foodId);
+    return {
+      cropId: crop.id,
+      cropName: cropDisplayName(crop.name, crop.variety),
+      foodId: crop.foodId,
+      refusePct: food?.refusePct ?? null,
+      edibleFraction: crop.edibleFraction,
+      notFood: crop.notFood,
+      category: crop.category,
+      cropDefaultSpread: crop.defaultSpreadMonths,
+    };
+  }
+  if (ref.foodId !== undefined) {
+    const food = await requireFood(ex, ref.foodId);
+    return { cropId: null, foodId: food.id, refusePct: food.refusePct, edibleFraction: null, notFood: false, category: 'other', cropDefaultSpread: null };
+  }
+  throw fieldError('cropId', 'Choose the crop (or a reference food) this harvest is of.');
+}
+
+/** The stored columns of a harvest from its input and basis (grams, edible grams, spread filled in). */
+export function harvestValues(input: HarvestInput, basis: HarvestBasis): {
+  cropId: number | null;
+  foodId: number | null;
+  date: string;
+  quantity: number;
+  unit: WeightUnit;
+  grams: number;
+  edibleGrams: number;
+  use: Use;
+  spreadMonths: number;
+  trimmed: boolean;
+  note: string | null;
+} {
+  const grams = toGrams(input.quantity, input.unit);
+  return {
+    cropId: basis.cropId,
+    foodId: basis.foodId,
+    date: input.date,
+    quantity: input.quantity,
+    unit: input.unit,
+    grams,
+    edibleGrams: harvestEdibleGrams(grams, input.trimmed, basis),
+    use: input.use,
+    // Stored or preserved without a spread: the crop's own default, else its category's.
+    spreadMonths: input.spreadMonths ?? defaultSpreadMonths({ use: input.use, category: basis.category, cropDefault: basis.cropDefaultSpread }),
+    trimmed: input.trimmed,
+    note: input.note ?? null,
+  };
+}
+
+function checkUse(input: HarvestInput, basis: HarvestBasis, field = 'use'): void {
+  const problem = cropUseError(input.use, { name: basis.cropName, notFood: basis.notFood });
+  if (problem) throw fieldError(field, problem);
+}
+
+const selectJson = {
+  h: harvests,
+  cropName: crops.name,
+  cropVariety: crops.variety,
+  foodName: foods.name,
+  foodCode: foods.code,
+};
+
+type JoinedRow = { h: Harvest; cropName: string | null; cropVariety: string | null; foodName: string | null; foodCode: string | null };
+
+function toJson(r: JoinedRow): HarvestJson {
+  const h = r.h;
+  return {
+    id: h.id,
+    date: h.date,
+    cropId: h.cropId,
+    cropName: r.cropName === null ? null : cropDisplayName(r.cropName, r.cropVariety),
+    foodId: h.foodId,
+    foodName: r.foodName,
+    foodCode: r.foodCode,
+    quantity: h.quantity,
+    unit: h.unit,
+    grams: h.grams,
+    edibleGrams: h.edibleGrams,
+    use: h.use,
+    spreadMonths: h.spreadMonths,
+    trimmed: h.trimmed,
+    note: h.note,
+    splitGroup: h.splitGroup,
+    createdAt: h.createdAt.toISOString(),
+  };
+}
+
+function joined(ex: Executor) {
+  return ex.select(selectJson).from(harvests).leftJoin(crops, eq(crops.id, harvests.cropId)).leftJoin(foods, eq(foods.id, harvests.foodId));
+}
+
+/** Harvests of the household by id, in the order of the ids given. */
+export async function harvestsByIds(ex: Executor, householdId: number, ids: readonly number[]): Promise<HarvestJson[]> {
+  if (ids.length === 0) return [];
+  const rows = await joined(ex).where(and(eq(harvests.householdId, householdId), inArray(harvests.id, [...ids])));
+  const byId = new Map(rows.map((r) => [r.h.id, toJson(r)]));
+  return ids.flatMap((id) => byId.get(id) ?? []);
+}
+
+/** Every harvest of the household, oldest first (for the backup). */
+export async function everyHarvest(householdId: number, ex: Executor = getDb()): Promise<HarvestJson[]> {
+  const rows = await joined(ex).where(eq(harvests.householdId, householdId)).orderBy(asc(harvests.date), asc(harvests.id));
+  return rows.map(toJson);
+}
+
+/** One harvest of the household as JSON, or 404. */
+export async function getHarvest(householdId: number, harvestId: number, ex: Executor = getDb()): Promise<HarvestJson> {
+  const [h] = await harvestsByIds(ex, householdId, [harvestId]);
+  if (!h) throw new HttpError(404, 'not_found', 'No such harvest in this household.');
+  return h;
+}
+
+/** Stores one harvest in a transaction. Example: `await createHarvest(tx, 7, userId, harvestInput.parse(body))` → HarvestJson */
+export async function createHarvest(tx: Tx, householdId: number, userId: string | null, input: HarvestInput): Promise<HarvestJson> {
+  const basis = await harvestBasis(tx, householdId, input);
+  checkUse(input, basis);
+  const [res] = await tx.insert(harvests).values({ ...harvestValues(input, basis), householdId, createdBy: userId });
+  return getHarvest(householdId, res.insertId, tx);
+}
+
+/**
+ * Stores one weighing split between uses: one entry per part, sharing a split_group id, in the
+ * caller's transaction; if any part is refused the caller's transaction rolls back and nothing is kept.
+ */
+export async function createSplitHarvest(tx: Tx, householdId: number, userId: string | null, split: HarvestSplitInput): Promise<HarvestJson[]> {
+  const parts = splitToHarvests(split);
+  const basis = await harvestBasis(tx, householdId, split);
+  parts.forEach((part, i) => checkUse(part, basis, `parts.${i}.use`));
+  const splitGroup = randomUUID();
+  const ids: number[] = [];
+  // One insert per part: each insertId is exact (multi-row insert ids need not be consecutive under Galera).
+  for (const part of parts) {
+    const [res] = await tx.insert(harvests).values({ ...harvestValues(part, basis), householdId, createdBy: userId, splitGroup });
+    ids.push(res.insertId);
+  }
+  return harvestsByIds(tx, householdId, ids);
+}
+
+function filters(householdId: number, q: Omit<HarvestQuery, 'page' | 'pageSize'>): SQL {
+  const where: SQL[] = [eq(harvests.householdId, householdId)];
+  if (q.from !== undefined) where.push(gte(harvests.date, q.from));
+  if (q.to !== undefined) where.push(lte(harvests.date, q.to));
+  if (q.cropId !== undefined) where.push(eq(harvests.cropId, q.cropId));
+  if (q.foodId !== undefined) where.push(eq(harvests.foodId, q.foodId));
+  if (q.use !== undefined) where.push(eq(harvests.use, q.use));
+  return and(...where)!;
+}
+
+function ordering(sort: HarvestQuery['sort']): SQL[] {
+  switch (sort) {
+    case 'date':
+      return [asc(harvests.date), asc(harvests.id)];
+    case 'grams':
+      return [asc(harvests.grams), asc(harvests.id)];
+    case '-grams':
+      return [desc(harvests.grams), desc(harvests.id)];
+    case 'crop':
+      // Entries without a crop (a reference food chosen directly) sort by the food's name.
+      return [asc(sql`COALESCE(${crops.name}, ${foods.name})`), asc(crops.variety), desc(harvests.date), desc(harvests.id)];
+    default:
+      return [desc(harvests.date), desc(harvests.id)];
+  }
+}
+
+export interface HarvestList {
+  harvests: HarvestJson[];
+  page: number;
+  pageSize: number;
+  total: number;
+  totals: { grams: number; edibleGrams: number };
+}
+
+/** One page of the household's harvests, with the count and weight totals of the whole filter. */
+export async function listHarvests(householdId: number, q: HarvestQuery): Promise<HarvestList> {
+  const db = getDb();
+  const where = filters(householdId, q);
+  const rows = await joined(db)
+    .where(where)
+    .orderBy(...ordering(q.sort))
+    .limit(q.pageSize)
+    .offset((q.page - 1) * q.pageSize);
+  const [agg] = await db
+    .select({ n: count(), grams: sum(harvests.grams), edibleGrams: sum(harvests.edibleGrams) })
+    .from(harvests)
+    .where(where);
+  return {
+    harvests: rows.map(toJson),
+    page: q.page,
+    pageSize: q.pageSize,
+    total: Number(agg?.n ?? 0),
+    totals: { grams: Number(agg?.grams ?? 0), edibleGrams: Number(agg?.edibleGrams ?? 0) },
+  };
+}
+
+/** Changes a harvest; grams, edible grams and the spread are worked out again. */
+export async function updateHarvest(householdId: number, harvestId: number, patch: HarvestPatch): Promise<HarvestJson> {
+  return getDb().transaction(async (tx) => {
+    const [row] = await tx
+      .select()
+      .from(harvests)
+      .where(and(eq(harvests.householdId, householdId), eq(harvests.id, harvestId)))
+      .limit(1)
+      .for('update');
+    if (!row) throw new HttpError(404, 'not_found', 'No such harvest in this household.');
+    // A harvest of a crop also stores the crop's food: as input it names the crop only.
+    const current = {
+      date: row.date,
+      ...(row.cropId !== null ? { cropId: row.cropId } : { foodId: row.foodId }),
+      quantity: row.quantity,
+      unit: row.unit,
+      use: row.use,
+      spreadMonths: row.spreadMonths,
+      trimmed: row.trimmed,
+      note: row.note,
+    };
+    const merged = mergeHarvestPatch(current, patch);
+    if (!merged.success) throw invalidInput(merged.error);
+    const basis = await harvestBasis(tx, householdId, merged.data);
+    checkUse(merged.data, basis);
+    await tx
+      .update(harvests)
+      .set(harvestValues(merged.data, basis))
+      .where(and(eq(harvests.householdId, householdId), eq(harvests.id, harvestId)));
+    return getHarvest(householdId, harvestId, tx);
+  });
+}
+
+/** Deletes a harvest of the household; 404 when it has none with this id. */
+export async function deleteHarvest(householdId: number, harvestId: number): Promise<void> {
+  const [res] = await getDb()
+    .delete(harvests)
+    .where(and(eq(harvests.householdId, householdId), eq(harvests.id, harvestId)));
+  if (res.affectedRows === 0) throw new HttpError(404, 'not_found', 'No such harvest in this household.');
+}

@@ -1,0 +1,105 @@
+/** The people API: create, read, change and remove who eats in a household; roles; validation. */
+import { beforeAll, describe, expect, it } from 'vitest';
+import { apiAs, createHousehold, householdWithRoles, newVerifiedUser, type RoleFixture, type TestUser } from '../support/users';
+
+let t: RoleFixture;
+let otherOwner: TestUser;
+let otherId: number;
+const base = () => `/api/households/${t.household.id}/people`;
+
+beforeAll(async () => {
+  t = await householdWithRoles({ name: 'People plot' });
+  otherOwner = await newVerifiedUser({ name: 'Pia Other' });
+  otherId = (await createHousehold(otherOwner.cookie, { name: 'Other people plot' })).id;
+});
+
+describe('people API', () => {
+  it('adds a person (201) with defaults and the energy need they rest on', async () => {
+    const r = await apiAs(t.owner.cookie, 'POST', base(), { name: 'Rosa', sex: 'female', ageYears: 34, kcalPerDay: 2100, atHomePct: 80 });
+    expect(r.status).toBe(201);
+    expect(r.body.person).toMatchObject({ name: 'Rosa', sex: 'female', ageYears: 34, activity: 'low', condition: 'none', atHomePct: 80, birthYear: null });
+    expect(r.body.person.energy).toMatchObject({ kcalPerDay: 2100, basis: 'stated', atHomeKcalPerDay: 1680 });
+  });
+
+  it('estimates the energy need by the IOM 2005 EER when none is stated', async () => {
+    const r = await apiAs(t.grower.cookie, 'POST', base(), { name: 'Tomas', sex: 'male', ageYears: 30, heightCm: 177, weightKg: 70, activity: 'very' });
+    expect(r.status).toBe(201);
+    // IOM 2005 EER men ≥19 y: 662 − 9.53 × 30 + 1.48 × (15.91 × 70 + 539.6 × 1.77), PA "very active" = 1.48
+    const eer = 662 - 9.53 * 30 + 1.48 * (15.91 * 70 + 539.6 * 1.77);
+    expect(r.body.person.energy.basis).toBe('EER');
+    expect(r.body.person.energy.kcalPerDay).toBeCloseTo(eer, 6);
+    expect(r.body.person.activity).toBe('very');
+  });
+
+  it('lists the household’s people for every member, viewers included', async () => {
+    const r = await apiAs(t.viewer.cookie, 'GET', base());
+    expect(r.status).toBe(200);
+    expect(r.body.people.map((p: { name: string }) => p.name)).toEqual(['Rosa', 'Tomas']);
+    expect(r.body.month).toMatch(/^\d{4}-\d{2}$/);
+  });
+
+  it('changes a person with PATCH, null clearing a field', async () => {
+    const list = (await apiAs(t.owner.cookie, 'GET', base())).body.people;
+    const rosa = list.find((p: { name: string }) => p.name === 'Rosa');
+    const r = await apiAs(t.grower.cookie, 'PATCH', `${base()}/${rosa.id}`, { kcalPerDay: null, ageYears: null, birthYear: 1990, presentFrom: '2026-05-01' });
+    expect(r.status).toBe(200);
+    expect(r.body.person).toMatchObject({ kcalPerDay: null, ageYears: null, birthYear: 1990, presentFrom: '2026-05-01', atHomePct: 80 });
+    expect(r.body.person.energy.basis).toBe('EER');
+    const again = await apiAs(t.viewer.cookie, 'GET', `${base()}/${rosa.id}`);
+    expect(again.body.person.birthYear).toBe(1990);
+  });
+
+  it('checks the person after the patch: age and birth year together, or a presence ending before it starts, are 400', async () => {
+    const rosa = (await apiAs(t.owner.cookie, 'GET', base())).body.people.find((p: { name: string }) => p.name === 'Rosa');
+    const both = await apiAs(t.owner.cookie, 'PATCH', `${base()}/${rosa.id}`, { ageYears: 36 });
+    expect(both.status).toBe(400);
+    expect(both.body.error.fields).toHaveProperty('birthYear');
+    const dates = await apiAs(t.owner.cookie, 'PATCH', `${base()}/${rosa.id}`, { presentTo: '2026-04-01' });
+    expect(dates.status).toBe(400);
+    expect(dates.body.error.fields).toHaveProperty('presentTo');
+    expect((await apiAs(t.owner.cookie, 'PATCH', `${base()}/${rosa.id}`, {})).status).toBe(400);
+  });
+
+  it('answers 400 with the fields for bad input, and 415 for a body that is not JSON', async () => {
+    const r = await apiAs(t.owner.cookie, 'POST', base(), { name: '', sex: 'other', ageYears: -3, atHomePct: 150 });
+    expect(r.status).toBe(400);
+    expect(r.body.error.code).toBe('invalid_input');
+    expect(Object.keys(r.body.error.fields)).toEqual(expect.arrayContaining(['name', 'sex', 'ageYears', 'atHomePct']));
+    const none = await apiAs(t.owner.cookie, 'POST', base(), { name: 'Nobody', sex: 'female' });
+    expect(none.status).toBe(400);
+    expect(none.body.error.fields).toHaveProperty('ageYears');
+    const text = await apiAs(t.owner.cookie, 'POST', base(), undefined, { 'content-type': 'text/plain' });
+    expect(text.status).toBe(415);
+  });
+
+  it('lets only owners and growers change people', async () => {
+    const rosa = (await apiAs(t.owner.cookie, 'GET', base())).body.people.find((p: { name: string }) => p.name === 'Rosa');
+    expect((await apiAs(t.viewer.cookie, 'POST', base(), { name: 'V', sex: 'male', ageYears: 9 })).status).toBe(403);
+    expect((await apiAs(t.viewer.cookie, 'PATCH', `${base()}/${rosa.id}`, { atHomePct: 10 })).status).toBe(403);
+    expect((await apiAs(t.viewer.cookie, 'DELETE', `${base()}/${rosa.id}`)).status).toBe(403);
+  });
+
+  it('hides the household from non-members (404) and asks the signed-out to sign in (401)', async () => {
+    expect((await apiAs(t.outsider.cookie, 'GET', base())).status).toBe(404);
+    expect((await apiAs(t.outsider.cookie, 'POST', base(), { name: 'X', sex: 'male', ageYears: 9 })).status).toBe(404);
+    expect((await apiAs('', 'GET', base())).status).toBe(401);
+  });
+
+  it('answers 404 for a person of another household, even to its own household’s owner through this one', async () => {
+    const mine = await apiAs(otherOwner.cookie, 'POST', `/api/households/${otherId}/people`, { name: 'Elsewhere', sex: 'male', ageYears: 50 });
+    expect(mine.status).toBe(201);
+    const id = mine.body.person.id;
+    expect((await apiAs(t.owner.cookie, 'GET', `${base()}/${id}`)).status).toBe(404);
+    expect((await apiAs(t.owner.cookie, 'PATCH', `${base()}/${id}`, { atHomePct: 10 })).status).toBe(404);
+    expect((await apiAs(t.owner.cookie, 'DELETE', `${base()}/${id}`)).status).toBe(404);
+    expect((await apiAs(otherOwner.cookie, 'GET', `/api/households/${otherId}/people/${id}`)).body.person.atHomePct).toBe(100);
+    expect((await apiAs(t.owner.cookie, 'GET', `${base()}/abc`)).status).toBe(404);
+  });
+
+  it('removes a person (204), after which they are gone', async () => {
+    const tomas = (await apiAs(t.owner.cookie, 'GET', base())).body.people.find((p: { name: string }) => p.name === 'Tomas');
+    expect((await apiAs(t.grower.cookie, 'DELETE', `${base()}/${tomas.id}`)).status).toBe(204);
+    expect((await apiAs(t.owner.cookie, 'GET', `${base()}/${tomas.id}`)).status).toBe(404);
+    expect((await apiAs(t.owner.cookie, 'DELETE', `${base()}/${tomas.id}`)).status).toBe(404);
+  });
+});

@@ -1,0 +1,67 @@
+/**
+ * HTTP requests to the built server from another loopback address (127.x.y.z), so that the
+ * server sees a different client. The sign-in limiter counts per client address: the rate-limit
+ * test uses one address of its own, and signIn() a fresh one each time so other tests never meet it.
+ */
+import { request } from 'node:http';
+import { BASE_URL } from './env';
+
+let counter = 0;
+
+/** A loopback address no other call of this test process used, e.g. 127.23.0.7. */
+export function freshLoopbackAddress(): string {
+  counter += 1;
+  // 127.x.y.z with x from the pid (parallel test processes differ), y.z from a counter.
+  return `127.${10 + (process.pid % 200)}.${Math.floor(counter / 250) % 250}.${(counter % 250) + 1}`;
+}
+
+export interface LoopbackAnswer {
+  status: number;
+  headers: Record<string, string | string[] | undefined>;
+  body: any;
+}
+
+/** One request from `localAddress`; the body (when given) is sent as JSON. */
+export function requestFrom(localAddress: string, method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<LoopbackAnswer> {
+  const url = new URL(path, BASE_URL);
+  const payload = body === undefined ? undefined : JSON.stringify(body);
+  return new Promise((resolve, reject) => {
+    const req = request(
+      {
+        host: url.hostname,
+        port: url.port,
+        path: url.pathname + url.search,
+        method,
+        localAddress,
+        // Like a browser, a state-changing request names its origin.
+        headers: { ...(method === 'GET' ? {} : { origin: BASE_URL }), ...(payload ? { 'content-type': 'application/json', 'content-length': Buffer.byteLength(payload) } : {}), ...headers },
+      },
+      (res) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (c: Buffer) => chunks.push(c));
+        res.on('end', () => {
+          const text = Buffer.concat(chunks).toString('utf8');
+          let parsed: unknown = text;
+          try {
+            parsed = JSON.parse(text);
+          } catch {
+            /* not JSON */
+          }
+          resolve({ status: res.statusCode ?? 0, headers: res.headers, body: parsed });
+        });
+      },
+    );
+    req.on('error', reject);
+    if (payload) req.write(payload);
+    req.end();
+  });
+}
+
+/** The Cookie header value for the cookies a loopback answer sets. */
+export function loopbackCookie(a: LoopbackAnswer): string {
+  const set = a.headers['set-cookie'] ?? [];
+  return (Array.isArray(set) ? set : [set])
+    .map((c) => c.split(';')[0]!)
+    .filter((c) => !/=$/.test(c))
+    .join('; ');
+}

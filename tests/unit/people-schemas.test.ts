@@ -1,0 +1,86 @@
+import { describe, expect, it } from 'vitest';
+import { mergePerson, needsPerson, personInput, personPatch } from '../../src/lib/people-schemas';
+
+const fieldsOf = (r: { success: boolean; error?: { issues: { path: PropertyKey[]; message: string }[] } }) =>
+  Object.fromEntries((r.error?.issues ?? []).map((i) => [i.path.join('.') || '_', i.message]));
+
+describe('personInput', () => {
+  it('fills the defaults: low activity, no condition, all meals at home', () => {
+    const p = personInput.parse({ name: '  Ada ', sex: 'female', ageYears: 34 });
+    expect(p).toMatchObject({ name: 'Ada', activity: 'low', condition: 'none', atHomePct: 100, birthYear: null, kcalPerDay: null, presentFrom: null });
+  });
+
+  it('treats blank form fields as not given', () => {
+    const p = personInput.parse({ name: 'Bo', sex: 'male', birthYear: 1990, ageYears: '', heightCm: '', presentTo: '', activity: '' });
+    expect(p.ageYears).toBeNull();
+    expect(p.heightCm).toBeNull();
+    expect(p.presentTo).toBeNull();
+    expect(p.activity).toBe('low');
+  });
+
+  it('needs an age or a birth year, but not both', () => {
+    expect(fieldsOf(personInput.safeParse({ name: 'A', sex: 'female' }))).toHaveProperty('ageYears');
+    expect(fieldsOf(personInput.safeParse({ name: 'A', sex: 'female', ageYears: 30, birthYear: 1996 }))).toHaveProperty('birthYear');
+  });
+
+  it('accepts an infant age in fractions of a year', () => {
+    expect(personInput.parse({ name: 'Baby', sex: 'male', ageYears: 0.5 }).ageYears).toBe(0.5);
+  });
+
+  it('refuses negative ages, a share of meals over 100 % and unknown activity levels', () => {
+    const f = fieldsOf(personInput.safeParse({ name: 'A', sex: 'female', ageYears: -1, atHomePct: 120, activity: 'athlete' }));
+    expect(Object.keys(f).sort()).toEqual(['activity', 'ageYears', 'atHomePct']);
+  });
+
+  it('refuses a stated energy need outside 300–10,000 kcal a day', () => {
+    expect(fieldsOf(personInput.safeParse({ name: 'A', sex: 'female', ageYears: 30, kcalPerDay: 50 }))).toHaveProperty('kcalPerDay');
+    expect(personInput.parse({ name: 'A', sex: 'female', ageYears: 30, kcalPerDay: 2100 }).kcalPerDay).toBe(2100);
+  });
+
+  it('refuses a presence that ends before it starts, and impossible dates', () => {
+    expect(fieldsOf(personInput.safeParse({ name: 'A', sex: 'male', ageYears: 20, presentFrom: '2026-09-01', presentTo: '2026-06-01' }))).toHaveProperty('presentTo');
+    expect(fieldsOf(personInput.safeParse({ name: 'A', sex: 'male', ageYears: 20, presentFrom: '2026-02-30' }))).toHaveProperty('presentFrom');
+    expect(personInput.safeParse({ name: 'A', sex: 'male', ageYears: 20, presentFrom: '2026-06-01', presentTo: '2026-06-01' }).success).toBe(true);
+  });
+
+  it('allows pregnancy and lactation for a female person only', () => {
+    expect(personInput.safeParse({ name: 'A', sex: 'female', ageYears: 28, condition: 'pregnancy' }).success).toBe(true);
+    expect(fieldsOf(personInput.safeParse({ name: 'A', sex: 'male', ageYears: 28, condition: 'lactation' }))).toHaveProperty('condition');
+  });
+
+  it('refuses fields it does not know, so a misspelt one is not silently dropped', () => {
+    expect(personInput.safeParse({ name: 'A', sex: 'female', ageYears: 30, atHomePercent: 50 }).success).toBe(false);
+  });
+});
+
+describe('personPatch and mergePerson', () => {
+  const stored = personInput.parse({ name: 'Ada', sex: 'female', ageYears: 34, heightCm: 165 });
+
+  it('keeps fields a patch leaves out and clears those set to null', () => {
+    const patch = personPatch.parse({ heightCm: null, atHomePct: 50 });
+    const merged = personInput.parse(mergePerson(stored, patch));
+    expect(merged).toMatchObject({ name: 'Ada', ageYears: 34, heightCm: null, atHomePct: 50 });
+  });
+
+  it('lets a patch switch from age to birth year', () => {
+    const merged = personInput.parse(mergePerson(stored, personPatch.parse({ ageYears: null, birthYear: 1992 })));
+    expect(merged.ageYears).toBeNull();
+    expect(merged.birthYear).toBe(1992);
+  });
+
+  it('checks the merged person, so a patch cannot leave both age and birth year', () => {
+    expect(personInput.safeParse(mergePerson(stored, personPatch.parse({ birthYear: 1992 }))).success).toBe(false);
+  });
+
+  it('refuses an empty patch', () => {
+    expect(personPatch.safeParse({}).success).toBe(false);
+  });
+});
+
+describe('needsPerson', () => {
+  it('maps "very" to the IOM very-active category and "none" to no condition', () => {
+    const p = needsPerson(personInput.parse({ name: 'A', sex: 'male', ageYears: 40, activity: 'very' }));
+    expect(p.activity).toBe('very_active');
+    expect(p.condition).toBeNull();
+  });
+});
