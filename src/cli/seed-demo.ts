@@ -15,6 +15,7 @@ import { createPool } from '../db/client';
 import * as schema from '../db/schema';
 import { databaseUrl, loadDotEnv } from '../server/config';
 import { isMain } from './is-main';
+import { seedDemoRecords } from './seed-demo-records';
 
 export const DEMO_EMAIL = 'demo@selfsown.invalid';
 export const DEMO_PASSWORD = 'selfsown-demo';
@@ -39,6 +40,13 @@ export async function seedDemo(url: string, log: (line: string) => void = consol
       await tx.insert(schema.siteAdmins).values({ userId });
       const [res] = await tx.insert(schema.households).values(DEMO_HOUSEHOLD);
       await tx.insert(schema.memberships).values({ householdId: res.insertId, userId, role: 'owner' });
+      // Invented people who eat there, so the demo's need and home share have something to stand on.
+      await tx.insert(schema.people).values([
+        { householdId: res.insertId, name: 'Ada (demo)', sex: 'female', ageYears: 41, activity: 'active' },
+        { householdId: res.insertId, name: 'Tomas (demo)', sex: 'male', ageYears: 44, activity: 'active' },
+        { householdId: res.insertId, name: 'Lio (demo)', sex: 'male', ageYears: 9, activity: 'low', atHomePct: 80 },
+      ]);
+      await seedDemoRecords(tx, res.insertId, userId, { log });
       return res.insertId;
     });
     log(`• demo seeded: sign in as ${DEMO_EMAIL} / ${DEMO_PASSWORD} (owner of "${DEMO_HOUSEHOLD.name}", site admin)`);

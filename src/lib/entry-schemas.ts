@@ -585,32 +585,5 @@ export function mergeCropPatch(current: Stored<CropInput>, patch: CropPatch): z.
 // ---------------------------------------------------------------------------------------------
 // Error answers
 
-/** The body of a 400/422 answer for bad input (wrapped as `{ error: … }` by the route). */
-export interface InvalidInputBody {
-  code: 'invalid_input';
-  message: string;
-  /** Field path ('quantity', 'parts.1.use') → first message for it; '_form' for the input as a whole. */
-  fields: Record<string, string>;
-}
-
-/** Key under which problems with the whole input (not one field) are listed in `fields`. */
-export const FORM_FIELD = '_form';
-
-/**
- * Turns a zod error into the answer body the API and the forms show.
- * Example: `zodErrorBody(harvestInput.safeParse({ date: '2026-02-30', cropId: 1, quantity: 0, unit: 'kg' }).error!)`
- *   → { code: 'invalid_input', message: 'date: That day does not exist … (and 1 more problem)', fields: { date: …, quantity: … } }
- */
-export function zodErrorBody(err: z.ZodError): InvalidInputBody {
-  const fields: Record<string, string> = {};
-  for (const issue of err.issues) {
-    const key = issue.path.length === 0 ? FORM_FIELD : issue.path.map(String).join('.');
-    if (!(key in fields)) fields[key] = issue.message;
-  }
-  const first = err.issues[0];
-  if (!first) return { code: 'invalid_input', message: 'The input is not valid.', fields };
-  const where = first.path.length === 0 ? '' : `${first.path.map(String).join('.')}: `;
-  const more = err.issues.length - 1;
-  const tail = more === 0 ? '' : ` (and ${more} more problem${more === 1 ? '' : 's'})`;
-  return { code: 'invalid_input', message: `${where}${first.message}${tail}`, fields };
-}
+// The error body is shared by every API route and form (src/lib/error-body.ts).
+export { FORM_FIELD, zodErrorBody, type InvalidInputBody } from './error-body';

@@ -3,6 +3,7 @@
  * { "error": { "code", "message", "fields"? } }. Bad input is 400/422, never a 500.
  */
 import { ZodError } from 'zod';
+import { zodErrorBody } from '../lib/error-body';
 
 export class HttpError extends Error {
   constructor(
@@ -26,21 +27,12 @@ export function errorResponse(status: number, code: string, message: string, fie
   return json({ error: { code, message, ...(fields ? { fields } : {}) } }, status);
 }
 
-/** Field paths → first message, e.g. { "parts.0.quantity": "Must be greater than 0" }. */
-export function zodFields(err: ZodError): Record<string, string> {
-  const fields: Record<string, string> = {};
-  for (const issue of err.issues) {
-    const path = issue.path.map(String).join('.') || '_';
-    fields[path] ??= issue.message;
-  }
-  return fields;
-}
-
 /** Turns anything thrown in a route into a response; unexpected errors are logged, not shown. */
 export function toResponse(e: unknown): Response {
   if (e instanceof HttpError) return errorResponse(e.status, e.code, e.message, e.fields);
   if (e instanceof ZodError) {
-    return errorResponse(400, 'invalid_input', 'Some fields are not valid.', zodFields(e));
+    const body = zodErrorBody(e);
+    return errorResponse(400, body.code, body.message, body.fields);
   }
   console.error('unexpected error in API route', e);
   return errorResponse(500, 'internal', 'Something went wrong on our side. Please try again.');
