@@ -170,7 +170,7 @@ async function foodsByIds(ex: Executor, ids: readonly number[]): Promise<Map<num
 
 const cropKey = (name: string, variety?: string | null) => `${cropNameKey(name)}\u0000${cropNameKey(variety ?? '')}`;
 
-/** A crop as the importer sees it; new ones of a preview have negative ids. */
+/** A crop as the importer sees it; new ones of a preview have stand-in ids above the INT range. */
 type ImportCrop = Pick<Crop, 'id' | 'name' | 'variety' | 'foodId' | 'category' | 'edibleFraction' | 'defaultSpreadMonths' | 'notFood'>;
 
 function cropFromInput(id: number, input: CropInput): ImportCrop {
@@ -405,8 +405,9 @@ export async function importEntries(householdId: number, userId: string | null, 
   if (req.mode === 'preview') {
     if (req.kind === 'purchases') return answer(req, await preparePurchases(db, req), 200);
     const existing = await cropRows(db, householdId);
-    // Crops the grower chose to create are matched as if they existed (negative ids: never stored).
-    const virtual = newCrops(existing, req.createCrops).map((c, i) => cropFromInput(-(i + 1), c));
+    // Crops the grower chose to create are matched as if they existed. Their stand-in ids are
+    // positive (the row rules want ids > 0) but far above any id an INT column can hold: never stored.
+    const virtual = newCrops(existing, req.createCrops).map((c, i) => cropFromInput(Number.MAX_SAFE_INTEGER - i, c));
     const missingFoods = virtual.flatMap((c) => (c.foodId === null ? [] : [c.foodId]));
     const known = await foodsByIds(db, missingFoods);
     const badFood = missingFoods.find((id) => !known.has(id));

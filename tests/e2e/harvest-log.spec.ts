@@ -1,10 +1,12 @@
 /**
  * The harvest form on a phone: a grower logs a weighing, finds it in the harvest log and undoes it;
- * and an entry whose request fails is kept on the phone, sent later, and stored exactly once.
+ * an entry whose request fails is kept on the phone, sent later, and stored exactly once; and the
+ * other record pages (crops, bought food and staples, CSV import, the log's edit and delete) work
+ * from a phone, read-only for a viewer.
  */
 import { expect, test, type BrowserContext, type Page } from '@playwright/test';
-import { allHarvests, foodId, makeCrop } from '../support/entries';
-import { BASE_URL, createHousehold, newVerifiedUser, type TestUser } from '../support/users';
+import { allHarvests, allPurchases, foodId, makeCrop } from '../support/entries';
+import { addMember, BASE_URL, createHousehold, newVerifiedUser, type TestUser } from '../support/users';
 
 test.use({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, deviceScaleFactor: 2 });
 
@@ -51,6 +53,13 @@ test('a grower logs a harvest on a phone, sees it in the log and undoes it', asy
   await expect(page.getByText('Choose the crop you harvested.')).toBeVisible();
 
   await fillHarvest(page, '1,2'); // a decimal comma, as typed on many phones
+  // Choosing "preserved" brings up the canning caution; back to fresh, it goes.
+  await expect(page.getByTestId('use-caution')).toHaveCount(0);
+  await page.getByText(/^Preserved/).tap();
+  // common practice (USDA Complete Guide to Home Canning): low-acid food needs a pressure canner
+  await expect(page.getByTestId('use-caution')).toContainText('pressure canner');
+  await page.getByText(/^Eaten fresh/).tap();
+  await expect(page.getByTestId('use-caution')).toHaveCount(0);
   await page.getByRole('button', { name: 'Save harvest' }).tap();
   await expect(page.getByTestId('saved-label').first()).toHaveText('1.2 kg Potato (Charlotte) — fresh');
   // 1.2 kg × (1 − 25/100) = 0.9 kg edible (USDA SR28, NDB 11352: 25 % refuse)
@@ -124,3 +133,83 @@ test('a harvest whose request fails waits on the phone and is stored exactly onc
   expect(await page.evaluate(() => Object.keys(localStorage).filter((k) => k.startsWith('selfsown:outbox:')))).toEqual([]);
 });
 
+test('a grower keeps crops, bought food and old logs from a phone; a viewer only reads', async ({ page, context }) => {
+  const { owner, h } = await potatoPlot(context, 'Records plot');
+
+  // A crop added with a suggested reference food, then archived: it leaves the catalogue list.
+  await page.goto(`/households/${h.id}/crops`);
+  await page.getByRole('button', { name: 'Add a crop' }).tap();
+  await page.getByLabel('Name', { exact: true }).fill('Carrot');
+  // Raw, whole forms are suggested first, with the figures to judge the match by.
+  await expect(page.getByRole('listbox').getByRole('option').first()).toContainText('Carrots, raw');
+  await page.getByRole('listbox').getByRole('option').first().tap();
+  // from memory: USDA SR28, NDB 11124 "Carrots, raw": 11 % refuse, 41 kcal per 100 g
+  await expect(page.getByTestId('crop-new-food-chosen')).toContainText('11124');
+  await expect(page.getByTestId('crop-new-food-chosen').getByTestId('facts-refuse')).toHaveText('11 %');
+  await expect(page.getByTestId('crop-new-food-chosen')).toContainText('41 kcal');
+  await page.getByLabel('Kind of crop').selectOption('root_tuber');
+  await page.getByRole('button', { name: 'Add crop' }).tap();
+  await expect(page.getByText('Carrot is added.')).toBeVisible();
+  await expect(page.getByTestId('crop-card')).toHaveCount(2);
+  await page.getByRole('button', { name: 'Archive Carrot' }).tap();
+  await expect(page.getByText(/Carrot is archived/)).toBeVisible();
+  await expect(page.getByTestId('crop-card')).toHaveCount(1);
+
+  // A bulk buy saved as a staple, logged again with one tap, the repeat undone, the first edited.
+  await page.goto(`/households/${h.id}/bought`);
+  await page.getByLabel('Food bought').fill('wheat flour whole');
+  await page.getByRole('listbox').getByRole('option').first().tap();
+  await page.getByLabel('Weight', { exact: true }).fill('25');
+  await page.getByLabel('Eaten over how many months?').fill('6');
+  await page.getByLabel('Also save as a staple (one tap next time)').check();
+  await page.getByRole('button', { name: 'Save bought food' }).tap();
+  await expect(page.getByTestId('purchase-saved')).toContainText('25 kg');
+  await expect(page.getByTestId('staples').getByRole('button').first()).toBeVisible();
+  await page.getByTestId('staples').getByRole('button').first().tap();
+  await expect(page.getByTestId('purchase-row')).toHaveCount(2);
+  expect((await allPurchases(owner.cookie, h.id)).total).toBe(2);
+  await page.getByTestId('purchase-saved').getByRole('button', { name: 'Undo' }).first().tap();
+  await expect(page.getByTestId('purchase-row')).toHaveCount(1);
+  await page.getByRole('button', { name: /^Edit/ }).tap();
+  await page.locator('[id^="pedit-"][id$="-price"]').fill('31.5');
+  await page.locator('[id^="pedit-"][id$="-currency"]').fill('EUR');
+  await page.getByRole('button', { name: 'Save changes' }).tap();
+  await expect(page.getByTestId('purchase-row')).toContainText('31.50 EUR');
+
+  // An old log with a crop the household does not have: created with the import.
+  await page.goto(`/households/${h.id}/import`);
+  await page.setInputFiles('#import-file', { name: 'old.csv', mimeType: 'text/csv', buffer: Buffer.from('date,crop,quantity,unit,use\n2025-08-01,Onion,3,kg,fresh\n2025-08-02,Onion,2,kg,stored\n') });
+  await page.getByRole('button', { name: 'Preview' }).tap();
+  await expect(page.getByTestId('unknown-crops')).toBeVisible();
+  await page.getByRole('listbox').getByRole('option').first().tap();
+  await page.getByRole('button', { name: 'Create 1 crop and import' }).tap();
+  await expect(page.getByText('Imported 2 harvests.')).toBeVisible();
+
+  // The harvest log: filter by use, edit in place, delete with confirmation.
+  await page.goto(`/households/${h.id}/harvests`);
+  await expect(page.getByTestId('harvest-row')).toHaveCount(2);
+  await page.getByLabel('Use', { exact: true }).selectOption('stored');
+  await expect(page.getByTestId('harvest-row')).toHaveCount(1);
+  await page.getByRole('button', { name: /^Edit/ }).tap();
+  await page.locator('[id^="edit-"][id$="-quantity"]').fill('2.5');
+  await page.getByRole('button', { name: 'Save changes' }).tap();
+  await expect(page.getByTestId('harvest-row')).toContainText('2.5 kg');
+  await page.getByRole('button', { name: /^Delete/ }).tap();
+  await page.getByRole('button', { name: 'Yes, delete' }).tap();
+  await expect(page.getByText('No harvests match these filters.')).toBeVisible();
+
+  // A viewer sees the records but no forms or edit buttons; another household's page is a 404.
+  const viewer = await newVerifiedUser({ name: 'Vi Ewer' });
+  await addMember(owner, h.id, viewer, 'viewer');
+  await context.clearCookies();
+  await signInAs(context, viewer);
+  await page.goto(`/households/${h.id}/harvests`);
+  await expect(page.getByTestId('harvest-row')).toHaveCount(1);
+  await expect(page.getByRole('button', { name: /^Edit/ })).toHaveCount(0);
+  await page.goto(`/households/${h.id}/log`);
+  await expect(page.getByText(/your role in this household is viewer/i)).toBeVisible();
+  await page.goto(`/households/${h.id}/bought`);
+  await expect(page.getByRole('button', { name: 'Save bought food' })).toHaveCount(0);
+  const r = await page.goto(`/households/999999/crops`);
+  expect(r!.status()).toBe(404);
+});

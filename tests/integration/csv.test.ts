@@ -70,6 +70,11 @@ describe('importing a harvest log', () => {
       createCrops: [{ name: 'Oca', category: 'root_tuber', foodId: null }],
     });
     expect(refused.status).toBe(422);
+    // A preview that names the crops to create shows the file as it will import, with no crop errors.
+    const checked = await upload(t.owner.cookie, hid, { kind: 'harvests', mode: 'preview', csv: withOca, createCrops: [{ name: 'Oca', category: 'root_tuber', foodId: null }] });
+    expect(checked.status).toBe(200);
+    expect(checked.body.errors).toEqual([]);
+    expect(checked.body.ok).toBe(true);
     const crops = (await apiAs(t.owner.cookie, 'GET', `/api/households/${hid}/crops?includeArchived=1`)).body.crops;
     expect(crops.map((c: { name: string }) => c.name)).not.toContain('Oca');
 

@@ -140,6 +140,10 @@ function CsvImportInner({ household }: { household: HouseholdInfo }) {
   const errorsByRow = new Map<number, CsvError[]>();
   for (const err of preview?.errors ?? []) errorsByRow.set(err.row, [...(errorsByRow.get(err.row) ?? []), err]);
   const pendingCrops = Object.entries(newCrops);
+  const creating = kind === 'harvests' ? pendingCrops.filter(([, c]) => c.create).length : 0;
+  // With new crops chosen, the commit itself is the check: it creates them and writes every row in
+  // one transaction, or answers 422 with the rows to fix and writes nothing.
+  const canCommit = preview !== null && (preview.ok || creating > 0);
   const stale = preview !== null && preview.kind === 'harvests' && pendingCrops.some(([k, c]) => c.create && (preview.unknownCrops ?? []).some((u) => cropKey(u) === k));
 
   return (
@@ -286,10 +290,16 @@ function CsvImportInner({ household }: { household: HouseholdInfo }) {
           ) : null}
 
           <div className="mt-5 flex flex-wrap items-center gap-3">
-            <button type="button" className="btn-primary min-h-14 text-lg" disabled={!preview.ok || stale || send.isPending} onClick={() => send.mutate('commit')}>
-              {send.isPending && send.variables === 'commit' ? 'Importing…' : preview.ok ? `Import ${preview.rowCount} ${preview.rowCount === 1 ? 'row' : 'rows'}` : 'Import (fix the problems first)'}
+            <button type="button" className="btn-primary min-h-14 text-lg" disabled={!canCommit || send.isPending} onClick={() => send.mutate('commit')}>
+              {send.isPending && send.variables === 'commit'
+                ? 'Importing…'
+                : creating > 0
+                  ? `Create ${creating} ${creating === 1 ? 'crop' : 'crops'} and import`
+                  : preview.ok
+                    ? `Import ${preview.rowCount} ${preview.rowCount === 1 ? 'row' : 'rows'}`
+                    : 'Import (fix the problems first)'}
             </button>
-            {stale ? <span className="text-sm font-semibold text-rind-700">Check again after choosing the new crops.</span> : null}
+            {stale ? <span className="text-sm text-loam-700">The import checks every row again; if anything is still wrong, nothing is written.</span> : null}
           </div>
         </section>
       ) : null}

@@ -402,6 +402,8 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
           </div>
         ) : null}
 
+        <UseCautions uses={splitting ? parts.map((p) => p.use) : [use]} />
+
         <div className="mt-4">
           {!splitting ? (
             <button type="button" className="btn-quiet w-full sm:w-auto" onClick={startSplit}>
@@ -590,5 +592,23 @@ function WaitingList({ items, onRetry, onDiscard }: { items: OutboxItem[]; onRet
         </div>
       ))}
     </section>
+  );
+}
+
+/** The usual cautions for what a grower is about to do with a harvest (preserving, selling). */
+function UseCautions({ uses }: { uses: readonly Use[] }) {
+  const preserved = uses.includes('preserved');
+  const sold = uses.includes('sold');
+  if (!preserved && !sold) return null;
+  return (
+    <div className="caution mt-4 space-y-1" data-testid="use-caution">
+      {preserved && (
+        <p>
+          Preserving: follow tested, published guidance for your method. Home canning of low-acid food (beans, corn,
+          potatoes, squash, most vegetables, meat) needs a pressure canner; a water bath is not enough.
+        </p>
+      )}
+      {sold && <p>Selling produce, eggs or honey may need a licence or labelling where you live: check your local rules.</p>}
+    </div>
   );
 }
