@@ -1,10 +1,48 @@
 /**
- * Small pieces the account and household forms share: a labelled field with its inline error
- * (aria-invalid + aria-describedby), a form-level alert, and a JSON POST that never throws.
+ * Small pieces every form shares (account, household and entry islands): a labelled field with
+ * its hint and inline error (aria-invalid + aria-describedby), a form-level alert, and a JSON POST
+ * that never throws.
  */
 import type { ReactNode } from 'react';
 
 export type FieldErrors = Record<string, string>;
+
+/** aria-describedby for a field: its hint and its error, when there are any. Example: `describedBy('qty', 'Too big')` → 'qty-error' */
+export function describedBy(id: string, error?: string, hint?: boolean): string | undefined {
+  return [hint ? `${id}-hint` : '', error ? `${id}-error` : ''].filter(Boolean).join(' ') || undefined;
+}
+
+/** The props that make an input report its error to assistive technology. */
+export function invalidProps(id: string, error?: string, hint?: boolean) {
+  return { id, 'aria-invalid': error ? true : undefined, 'aria-describedby': describedBy(id, error, hint) } as const;
+}
+
+/** A field's visible label and its optional hint (id `${id}-hint`). */
+function LabelAndHint({ id, label, hint }: { id: string; label: ReactNode; hint?: ReactNode }) {
+  return (
+    <>
+      <label htmlFor={id} className="block font-semibold">
+        {label}
+      </label>
+      {hint ? (
+        <p id={`${id}-hint`} className="text-sm text-loam-700">
+          {hint}
+        </p>
+      ) : null}
+    </>
+  );
+}
+
+/** A label, an optional hint, any control and its error. */
+export function FieldShell({ id, label, hint, error, children, className = 'mt-4' }: { id: string; label: ReactNode; hint?: ReactNode; error?: string | undefined; children: ReactNode; className?: string }) {
+  return (
+    <div className={className}>
+      <LabelAndHint id={id} label={label} hint={hint} />
+      <div className="mt-1">{children}</div>
+      <FieldError id={id} error={error} />
+    </div>
+  );
+}
 
 interface FieldProps {
   id: string;
@@ -20,24 +58,14 @@ interface FieldProps {
 
 /** A text-like input with a visible label, an optional hint and its error right below it. */
 export function Field({ id, label, error, hint, type = 'text', autoComplete, defaultValue, required = true, inputMode }: FieldProps) {
-  const describedBy = [hint ? `${id}-hint` : '', error ? `${id}-error` : ''].filter(Boolean).join(' ') || undefined;
   return (
     <div className="mt-4">
-      <label htmlFor={id} className="block font-semibold">
-        {label}
-      </label>
-      {hint ? (
-        <p id={`${id}-hint`} className="text-sm text-loam-700">
-          {hint}
-        </p>
-      ) : null}
+      <LabelAndHint id={id} label={label} hint={hint} />
       <input
-        id={id}
+        {...invalidProps(id, error, Boolean(hint))}
         name={id}
         type={type}
         className={`field mt-1 ${error ? 'border-berry-700 ring-1 ring-berry-700' : ''}`}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy}
         autoComplete={autoComplete}
         defaultValue={defaultValue}
         required={required}

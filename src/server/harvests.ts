@@ -4,7 +4,7 @@
  * unit and its crop (or reference food), and again on every change.
  */
 import { randomUUID } from 'node:crypto';
-import { and, asc, count, desc, eq, gte, inArray, lte, sql, sum, type SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, gte, inArray, lte, sql, type SQL } from 'drizzle-orm';
 import { getDb } from '../db/client';
 import { crops, foods, harvests, type Harvest } from '../db/schema';
 import { defaultSpreadMonths, type CropCategory } from '../lib/crop-categories';
@@ -22,6 +22,7 @@ import { toGrams, type WeightUnit } from '../lib/units';
 import { cropDisplayName, cropRow, harvestEdibleGrams, requireFood } from './crops';
 import { HttpError } from './http';
 import { fieldError, invalidInput, type Executor, type Tx } from './entry-input';
+import { countAndTotals, entryOrdering, pageOffset, type EntryPage } from './entry-list';
 
 export interface HarvestJson {
   id: number;
@@ -212,27 +213,13 @@ function filters(householdId: number, q: Omit<HarvestQuery, 'page' | 'pageSize'>
 }
 
 function ordering(sort: HarvestQuery['sort']): SQL[] {
-  switch (sort) {
-    case 'date':
-      return [asc(harvests.date), asc(harvests.id)];
-    case 'grams':
-      return [asc(harvests.grams), asc(harvests.id)];
-    case '-grams':
-      return [desc(harvests.grams), desc(harvests.id)];
-    case 'crop':
-      // Entries without a crop (a reference food chosen directly) sort by the food's name.
-      return [asc(sql`COALESCE(${crops.name}, ${foods.name})`), asc(crops.variety), desc(harvests.date), desc(harvests.id)];
-    default:
-      return [desc(harvests.date), desc(harvests.id)];
-  }
+  // Entries without a crop (a reference food chosen directly) sort by the food's name.
+  if (sort === 'crop') return [asc(sql`COALESCE(${crops.name}, ${foods.name})`), asc(crops.variety), desc(harvests.date), desc(harvests.id)];
+  return entryOrdering(harvests, sort);
 }
 
-export interface HarvestList {
+export interface HarvestList extends EntryPage {
   harvests: HarvestJson[];
-  page: number;
-  pageSize: number;
-  total: number;
-  totals: { grams: number; edibleGrams: number };
 }
 
 /** One page of the household's harvests, with the count and weight totals of the whole filter. */
@@ -243,18 +230,8 @@ export async function listHarvests(householdId: number, q: HarvestQuery): Promis
     .where(where)
     .orderBy(...ordering(q.sort))
     .limit(q.pageSize)
-    .offset((q.page - 1) * q.pageSize);
-  const [agg] = await db
-    .select({ n: count(), grams: sum(harvests.grams), edibleGrams: sum(harvests.edibleGrams) })
-    .from(harvests)
-    .where(where);
-  return {
-    harvests: rows.map(toJson),
-    page: q.page,
-    pageSize: q.pageSize,
-    total: Number(agg?.n ?? 0),
-    totals: { grams: Number(agg?.grams ?? 0), edibleGrams: Number(agg?.edibleGrams ?? 0) },
-  };
+    .offset(pageOffset(q));
+  return { harvests: rows.map(toJson), page: q.page, pageSize: q.pageSize, ...(await countAndTotals(db, harvests, where)) };
 }
 
 /** Changes a harvest; grams, edible grams and the spread are worked out again. */

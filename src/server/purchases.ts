@@ -3,7 +3,7 @@
  * household's rows. Grams and edible grams (the food's refuse taken off unless weighed trimmed) are
  * worked out at write time and again on every change.
  */
-import { and, asc, count, desc, eq, gte, lte, sum, type SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, gte, lte, type SQL } from 'drizzle-orm';
 import { getDb } from '../db/client';
 import { foods, purchases, type Purchase } from '../db/schema';
 import { edibleGrams } from '../lib/edible';
@@ -12,6 +12,7 @@ import { toGrams, type WeightUnit } from '../lib/units';
 import { requireFood } from './crops';
 import { HttpError } from './http';
 import { invalidInput, type Executor, type Tx } from './entry-input';
+import { countAndTotals, entryOrdering, pageOffset, type EntryPage } from './entry-list';
 
 export interface PurchaseJson {
   id: number;
@@ -101,26 +102,12 @@ function filters(householdId: number, q: Omit<PurchaseQuery, 'page' | 'pageSize'
 }
 
 function ordering(sort: PurchaseQuery['sort']): SQL[] {
-  switch (sort) {
-    case 'date':
-      return [asc(purchases.date), asc(purchases.id)];
-    case 'grams':
-      return [asc(purchases.grams), asc(purchases.id)];
-    case '-grams':
-      return [desc(purchases.grams), desc(purchases.id)];
-    case 'food':
-      return [asc(foods.name), desc(purchases.date), desc(purchases.id)];
-    default:
-      return [desc(purchases.date), desc(purchases.id)];
-  }
+  if (sort === 'food') return [asc(foods.name), desc(purchases.date), desc(purchases.id)];
+  return entryOrdering(purchases, sort);
 }
 
-export interface PurchaseList {
+export interface PurchaseList extends EntryPage {
   purchases: PurchaseJson[];
-  page: number;
-  pageSize: number;
-  total: number;
-  totals: { grams: number; edibleGrams: number };
 }
 
 /** One page of the household's bought food, with count and weight totals of the whole filter. */
@@ -131,18 +118,8 @@ export async function listPurchases(householdId: number, q: PurchaseQuery): Prom
     .where(where)
     .orderBy(...ordering(q.sort))
     .limit(q.pageSize)
-    .offset((q.page - 1) * q.pageSize);
-  const [agg] = await db
-    .select({ n: count(), grams: sum(purchases.grams), edibleGrams: sum(purchases.edibleGrams) })
-    .from(purchases)
-    .where(where);
-  return {
-    purchases: rows.map(toJson),
-    page: q.page,
-    pageSize: q.pageSize,
-    total: Number(agg?.n ?? 0),
-    totals: { grams: Number(agg?.grams ?? 0), edibleGrams: Number(agg?.edibleGrams ?? 0) },
-  };
+    .offset(pageOffset(q));
+  return { purchases: rows.map(toJson), page: q.page, pageSize: q.pageSize, ...(await countAndTotals(db, purchases, where)) };
 }
 
 /** Changes bought food; grams and edible grams are worked out again. */

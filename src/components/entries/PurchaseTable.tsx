@@ -18,7 +18,7 @@ const PAGE_SIZE = 25;
 
 /** "3.49 EUR", or empty. */
 export function formatPrice(price: Purchase['price'], currency: string | null): string {
-  if (price === null || price === undefined || price === '') return '';
+  if (price === null) return '';
   const n = Number(price);
   return Number.isFinite(n) ? `${n.toFixed(2)}${currency ? ` ${currency}` : ''}` : '';
 }

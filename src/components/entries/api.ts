@@ -4,9 +4,8 @@
  * (`{ error: { code, message, fields } }`), so TanStack Query sees a failure and the form can show
  * the fields. A network failure is an ApiError with status 0.
  */
-import type { CropCategory } from '../../lib/crop-categories';
-import type { Use } from '../../lib/entry-schemas';
-import type { UnitSystem, WeightUnit } from '../../lib/units';
+import type { FoodDetail, FoodHit } from '../../server/food-search';
+import type { UnitSystem } from '../../lib/units';
 
 /** What an island needs to know about the household it shows. */
 export interface HouseholdInfo {
@@ -22,118 +21,14 @@ export function canWrite(role: HouseholdInfo['role']): boolean {
   return role === 'owner' || role === 'grower';
 }
 
-export interface FoodHit {
-  id: number;
-  dataset: string;
-  code: string;
-  name: string;
-  group: string;
-  refusePct: number | null;
-}
-
-export interface FoodDetail extends FoodHit {
-  originalName: string;
-  datasetInfo: { slug: string; name: string; release: string; publisher: string; licence: string };
-  weights: { description: string; grams: number }[];
-  nutrients: { key: string; name: string; unit: string; amount: number | null }[];
-}
-
-export interface CropFood {
-  id: number;
-  dataset: string;
-  code: string;
-  name: string;
-  refusePct: number | null;
-  kcalPer100g: number | null;
-  proteinPer100g: number | null;
-}
-
-export interface Crop {
-  id: number;
-  name: string;
-  variety: string | null;
-  displayName: string;
-  foodId: number | null;
-  food: CropFood | null;
-  category: CropCategory;
-  edibleFraction: number | null;
-  defaultUse: Use | null;
-  defaultSpreadMonths: number | null;
-  notFood: boolean;
-  archived: boolean;
-  harvestCount: number;
-  lastHarvestDate: string | null;
-}
-
-export interface Harvest {
-  id: number;
-  date: string;
-  cropId: number | null;
-  cropName: string | null;
-  foodId: number | null;
-  foodName: string | null;
-  foodCode: string | null;
-  quantity: number;
-  unit: WeightUnit;
-  grams: number;
-  edibleGrams: number;
-  use: Use;
-  spreadMonths: number;
-  trimmed: boolean;
-  note: string | null;
-  splitGroup: string | null;
-  createdAt: string;
-}
-
-export interface Purchase {
-  id: number;
-  date: string;
-  foodId: number;
-  foodName: string;
-  foodCode: string;
-  quantity: number;
-  unit: WeightUnit;
-  grams: number;
-  edibleGrams: number;
-  price: number | string | null;
-  currency: string | null;
-  spreadMonths: number;
-  trimmed: boolean;
-  note: string | null;
-  createdAt: string;
-}
-
-export interface Staple {
-  id: number;
-  foodId: number;
-  foodName: string;
-  foodCode: string;
-  label: string;
-  quantity: number;
-  unit: WeightUnit;
-  spreadMonths: number;
-}
-
-export interface Totals {
-  grams: number;
-  edibleGrams: number;
-}
-
-export interface HarvestPage {
-  harvests: Harvest[];
-  page: number;
-  pageSize: number;
-  total: number;
-  totals: Totals;
-}
-
-export interface PurchasePage {
-  purchases: Purchase[];
-  page: number;
-  pageSize: number;
-  total: number;
-  totals: Totals;
-}
+// The JSON shapes come from the server modules that send them; type-only imports are erased, so no
+// server code reaches the browser bundle.
+export type { FoodDetail, FoodHit } from '../../server/food-search';
+export type { CropJson as Crop, FoodSummary as CropFood } from '../../server/crops';
+export type { HarvestJson as Harvest, HarvestList as HarvestPage } from '../../server/harvests';
+export type { PurchaseJson as Purchase, PurchaseList as PurchasePage } from '../../server/purchases';
+export type { StapleJson as Staple } from '../../server/staples';
+export type { EntryTotals as Totals } from '../../server/entry-list';
 
 export interface CsvError {
   row: number;

@@ -5,46 +5,12 @@
  */
 import { useEffect, useState, type ReactNode } from 'react';
 import { USE_LABELS, USES, type Use } from '../../lib/entry-schemas';
+import { FieldError as ErrorText } from '../forms';
 import { DEFAULT_ENTRY_UNIT, WEIGHT_UNITS, isWeightUnit, type UnitSystem, type WeightUnit } from '../../lib/units';
 
-export type Errors = Record<string, string>;
-
-/** aria-describedby for a field: its hint and its error, when there are any. */
-export function describedBy(id: string, error?: string, hint?: boolean): string | undefined {
-  return [hint ? `${id}-hint` : '', error ? `${id}-error` : ''].filter(Boolean).join(' ') || undefined;
-}
-
-/** The props that make an input report its error to assistive technology. */
-export function invalidProps(id: string, error?: string, hint?: boolean) {
-  return { id, 'aria-invalid': error ? true : undefined, 'aria-describedby': describedBy(id, error, hint) } as const;
-}
-
-/** The error line under a field (id `${id}-error`). */
-export function ErrorText({ id, error }: { id: string; error?: string | undefined }) {
-  return error ? (
-    <p id={`${id}-error`} className="mt-1 text-sm font-semibold text-berry-700">
-      {error}
-    </p>
-  ) : null;
-}
-
-/** A label, an optional hint, the control and its error. */
-export function FieldShell({ id, label, hint, error, children, className = 'mt-4' }: { id: string; label: ReactNode; hint?: ReactNode; error?: string | undefined; children: ReactNode; className?: string }) {
-  return (
-    <div className={className}>
-      <label htmlFor={id} className="block font-semibold">
-        {label}
-      </label>
-      {hint ? (
-        <p id={`${id}-hint`} className="text-sm text-loam-700">
-          {hint}
-        </p>
-      ) : null}
-      <div className="mt-1">{children}</div>
-      <ErrorText id={id} error={error} />
-    </div>
-  );
-}
+// The field pieces live in ../forms (shared with the account and household forms); re-exported
+// here so the entry islands keep one import.
+export { describedBy, invalidProps, FieldShell, FieldError as ErrorText, type FieldErrors as Errors } from '../forms';
 
 /** A message for the whole form: role=alert for errors, role=status for good news. */
 export function Alert({ message, tone = 'error' }: { message: ReactNode | null; tone?: 'error' | 'ok' | 'wait' }) {
