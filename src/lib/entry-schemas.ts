@@ -219,7 +219,7 @@ const cropOrFood = { cropId: recordId.optional(), foodId: recordId.optional() };
  *   → { date: '2026-07-14', cropId: 3, quantity: 2.5, unit: 'kg', use: 'fresh', spreadMonths: 1, trimmed: false }
  */
 export const harvestInput = z
-  .object({ ...cropOrFood, ...harvestFields })
+  .strictObject({ ...cropOrFood, ...harvestFields })
   .superRefine((v, ctx) => checkOneOfCropFood(v, ctx, true))
   .superRefine(checkSpreadForUse)
   .transform(withSpreadDefault);
@@ -240,7 +240,7 @@ export const harvestDetailsInput = z
 export type HarvestDetails = z.output<typeof harvestDetailsInput>;
 
 const splitPart = z
-  .object({ quantity, use, spreadMonths: spreadMonths.optional() })
+  .strictObject({ quantity, use, spreadMonths: spreadMonths.optional() })
   .superRefine(checkSpreadForUse)
   .transform(withSpreadDefault);
 
@@ -251,7 +251,7 @@ const splitPart = z
  *   parts: [{ quantity: 20, use: 'stored' }, { quantity: 2, use: 'fresh' }] })`
  */
 export const harvestSplitInput = z
-  .object({
+  .strictObject({
     ...cropOrFood,
     date: isoDate,
     unit: weightUnit,
@@ -278,7 +278,7 @@ export function splitToHarvests(split: HarvestSplitInput): HarvestInput[] {
  * Example: `harvestPatch.parse({ quantity: 3 })` → { quantity: 3 }
  */
 export const harvestPatch = z
-  .object({
+  .strictObject({
     date: isoDate,
     cropId: recordId,
     foodId: recordId,
@@ -363,7 +363,7 @@ const purchaseFields = {
  * (default 1; a bulk buy eaten over months sets more), trimmed (default false), note.
  * Example: `purchaseInput.parse({ date: '2026-03-02', foodId: 5, quantity: 25, unit: 'kg', spreadMonths: 6 })`
  */
-export const purchaseInput = z.object({ foodId: recordId, ...purchaseFields });
+export const purchaseInput = z.strictObject({ foodId: recordId, ...purchaseFields });
 
 export type PurchaseInput = z.output<typeof purchaseInput>;
 export type PurchaseInputRaw = z.input<typeof purchaseInput>;
@@ -378,7 +378,7 @@ export type PurchaseDetails = z.output<typeof purchaseDetailsInput>;
  * Example: `purchasePatch.parse({ price: null })` → { price: null }
  */
 export const purchasePatch = z
-  .object({
+  .strictObject({
     date: isoDate,
     foodId: recordId,
     quantity,
@@ -410,7 +410,7 @@ export function mergePurchasePatch(
  * and the months one lasts (default 1). Example: `stapleInput.parse({ foodId: 5, quantity: 25, unit: 'kg', spreadMonths: 6 })`
  *   → { foodId: 5, quantity: 25, unit: 'kg', spreadMonths: 6 }
  */
-export const stapleInput = z.object({
+export const stapleInput = z.strictObject({
   foodId: recordId,
   label: nameText('label')
     .transform((s) => (s === '' ? undefined : s))
@@ -423,7 +423,7 @@ export const stapleInput = z.object({
 export type StapleInput = z.output<typeof stapleInput>;
 
 /** Logging a staple as bought: the date, default today in the household. Example: `stapleLogInput.parse({})` → {} */
-export const stapleLogInput = z.object({ date: isoDate.optional() });
+export const stapleLogInput = z.strictObject({ date: isoDate.optional() });
 
 // ---------------------------------------------------------------------------------------------
 // List queries (URL search parameters: everything arrives as a string, blank means absent)
@@ -544,7 +544,7 @@ function checkNotFood(
  *   → { name: 'Potato', variety: 'Charlotte', foodId: 12, category: 'root_tuber', notFood: false }
  */
 export const cropInput = z
-  .object({
+  .strictObject({
     ...cropFields,
     foodId: cropFields.foodId.default(null),
     edibleFraction: cropFields.edibleFraction.optional(),
@@ -559,7 +559,7 @@ export type CropInputRaw = z.input<typeof cropInput>;
 
 /** A change to a crop: any field (and `archived`), at least one; null clears variety, edible fraction, default use or spread. Example: `cropPatch.parse({ archived: true })` */
 export const cropPatch = z
-  .object({
+  .strictObject({
     ...cropFields,
     variety: z.union([nameText('variety').transform((s) => (s === '' ? null : s)), z.null()]),
     edibleFraction: cropFields.edibleFraction.nullable(),
@@ -576,7 +576,9 @@ export type CropPatch = z.output<typeof cropPatch>;
 
 /** The crop after a patch, validated as a whole (the not-food rule included). Example: `mergeCropPatch(crop, { notFood: true }).success` */
 export function mergeCropPatch(current: Stored<CropInput>, patch: CropPatch): z.ZodSafeParseResult<CropInput> {
-  const merged = mergeFields({ ...current }, patch);
+  // `archived` is a flag on the stored crop, not part of what a crop is: it is checked by cropPatch.
+  const { archived: _archived, ...fields } = patch;
+  const merged = mergeFields({ ...current }, fields);
   // foodId is nullable on a crop: keep an explicit null rather than dropping the key.
   if (!('foodId' in merged)) merged.foodId = null;
   return cropInput.safeParse(merged);

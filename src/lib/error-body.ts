@@ -23,7 +23,13 @@ export const FORM_FIELD = '_form';
 export function zodErrorBody(err: z.ZodError): InvalidInputBody {
   const fields: Record<string, string> = {};
   for (const issue of err.issues) {
-    const key = issue.path.length === 0 ? FORM_FIELD : issue.path.map(String).join('.');
+    const at = issue.path.map(String);
+    // A misspelt or unknown field is named, so it is not silently dropped.
+    if (issue.code === 'unrecognized_keys') {
+      for (const k of issue.keys) fields[[...at, k].join('.')] ??= 'Unknown field: check its spelling.';
+      continue;
+    }
+    const key = at.length === 0 ? FORM_FIELD : at.join('.');
     if (!(key in fields)) fields[key] = issue.message;
   }
   const first = err.issues[0];

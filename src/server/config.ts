@@ -81,6 +81,11 @@ export function rateLimitRule(envName: string, fallback: { max: number; window: 
 }
 
 /** Take the client address from X-Forwarded-For (only behind a proxy you run: TRUST_PROXY=1). */
+/** The address the app server listens on. */
+export function bindHost(): string {
+  return process.env.HOST || '127.0.0.1';
+}
+
 export function trustProxy(): boolean {
   return process.env.TRUST_PROXY === '1';
 }

@@ -20,7 +20,7 @@ import {
 import { cropInput, type CropInput, type HarvestInput, type PurchaseInput } from '../lib/entry-schemas';
 import { toGrams } from '../lib/units';
 import { cropDisplayName, cropRows, insertCrop } from './crops';
-import { HttpError } from './http';
+import { HttpError, readBodyBytes } from './http';
 import { parseInput, type Executor, type Tx } from './entry-input';
 import { harvestValues, type HarvestBasis } from './harvests';
 import { purchaseValues } from './purchases';
@@ -45,32 +45,9 @@ export const importFields = z.object({
 export type ImportRequest = z.output<typeof importFields> & { file: Uint8Array; fileName: string };
 
 async function readLimited(request: Request, maxBytes: number): Promise<Uint8Array> {
-  const tooLarge = () =>
-    new HttpError(413, 'too_large', `The file is larger than ${CSV_LIMITS.maxBytes / 1024 / 1024} MB; split it into smaller files.`);
-  const declared = Number(request.headers.get('content-length') ?? NaN);
-  // Refuse a body that says it is too big before reading any of it.
-  if (Number.isFinite(declared) && declared > maxBytes) throw tooLarge();
-  if (!request.body) return new Uint8Array();
-  const reader = request.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    total += value.byteLength;
-    if (total > maxBytes) {
-      await reader.cancel();
-      throw tooLarge();
-    }
-    chunks.push(value);
-  }
-  const bytes = new Uint8Array(total);
-  let at = 0;
-  for (const c of chunks) {
-    bytes.set(c, at);
-    at += c.byteLength;
-  }
-  return bytes;
+  return readBodyBytes(request, maxBytes, () =>
+    new HttpError(413, 'too_large', `The file is larger than ${CSV_LIMITS.maxBytes / 1024 / 1024} MB; split it into smaller files.`),
+  );
 }
 
 // Files people pick by mistake, by their first bytes.

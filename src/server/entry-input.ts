@@ -35,20 +35,8 @@ export function fieldError(field: string, message: string, code = 'invalid_input
   return new HttpError(400, code, `${field}: ${message}`, { [field]: message });
 }
 
-/** A JSON body that may be absent: no body (or a blank one) reads as {}. */
-export async function readOptionalJson(request: Request, maxBytes = 100_000): Promise<unknown> {
-  const text = await request.text();
-  if (text.trim() === '') return {};
-  if (!(request.headers.get('content-type') ?? '').includes('application/json')) {
-    throw new HttpError(415, 'unsupported_media_type', 'Send the body as application/json.');
-  }
-  if (text.length > maxBytes) throw new HttpError(413, 'too_large', `The body is larger than ${maxBytes} bytes.`);
-  try {
-    return JSON.parse(text) as unknown;
-  } catch {
-    throw new HttpError(400, 'invalid_json', 'The body is not valid JSON.');
-  }
-}
+// readOptionalJson lives with the other body readers in ./http.
+export { readOptionalJson } from './http';
 
 function errCode(e: unknown): string | undefined {
   // Drizzle wraps the driver's error in DrizzleQueryError with the original as `cause`.

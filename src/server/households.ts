@@ -1,7 +1,7 @@
 /** Households and memberships in the database. Every function is scoped by user or household id. */
 import { and, asc, eq, sql } from 'drizzle-orm';
 import { getDb } from '../db/client';
-import { households, memberships, user, type Household, type Role } from '../db/schema';
+import { crops, harvests, households, memberships, purchases, staples, user, type Household, type Role } from '../db/schema';
 import { HttpError } from './http';
 
 export interface HouseholdInput {
@@ -41,9 +41,17 @@ export async function updateHousehold(householdId: number, patch: Partial<Househ
   return h!;
 }
 
-/** Deletes a household and everything that belongs to it (foreign keys cascade), all or nothing. */
+/**
+ * Deletes a household and everything that belongs to it, all or nothing. Entries go first: a
+ * harvest keeps its crop from being deleted (crops in use are protected elsewhere too), so the
+ * cascade from the household alone would be refused.
+ */
 export async function deleteHousehold(householdId: number): Promise<void> {
   await getDb().transaction(async (tx) => {
+    await tx.delete(harvests).where(eq(harvests.householdId, householdId));
+    await tx.delete(purchases).where(eq(purchases.householdId, householdId));
+    await tx.delete(staples).where(eq(staples.householdId, householdId));
+    await tx.delete(crops).where(eq(crops.householdId, householdId));
     await tx.delete(households).where(eq(households.id, householdId));
   });
 }

@@ -49,17 +49,64 @@ export function handle<C>(fn: (ctx: C) => Promise<Response> | Response): (ctx: C
   };
 }
 
-/** Reads a JSON request body, answering 400 (not 500) when it is not JSON. */
-export async function readJson(request: Request, maxBytes = 1_000_000): Promise<unknown> {
-  const type = request.headers.get('content-type') ?? '';
-  if (!type.includes('application/json')) {
-    throw new HttpError(415, 'unsupported_media_type', 'Send the body as application/json.');
+/**
+ * Reads a request body up to `maxBytes`, refusing (413) a larger one before reading it when it
+ * says its length, and as soon as it passes the limit otherwise: nothing big is buffered first.
+ */
+export async function readBodyBytes(request: Request, maxBytes: number, tooLarge?: () => HttpError): Promise<Uint8Array> {
+  const refuse = tooLarge ?? (() => new HttpError(413, 'too_large', `The body is larger than ${maxBytes} bytes.`));
+  const declared = Number(request.headers.get('content-length') ?? NaN);
+  if (Number.isFinite(declared) && declared > maxBytes) throw refuse();
+  if (!request.body) return new Uint8Array();
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > maxBytes) {
+      await reader.cancel();
+      throw refuse();
+    }
+    chunks.push(value);
   }
-  const text = await request.text();
-  if (text.length > maxBytes) throw new HttpError(413, 'too_large', `The body is larger than ${maxBytes} bytes.`);
+  const bytes = new Uint8Array(total);
+  let at = 0;
+  for (const c of chunks) {
+    bytes.set(c, at);
+    at += c.byteLength;
+  }
+  return bytes;
+}
+
+/** True when a Content-Type header names JSON exactly (its MIME essence, not a substring). */
+export function isJsonType(header: string | null): boolean {
+  return (header ?? '').split(';')[0]!.trim().toLowerCase() === 'application/json';
+}
+
+function parseJsonText(text: string): unknown {
   try {
     return JSON.parse(text) as unknown;
   } catch {
     throw new HttpError(400, 'invalid_json', 'The body is not valid JSON.');
   }
+}
+
+/** Reads a JSON request body, answering 415/413/400 (not 500) when it is not JSON, too big or broken. */
+export async function readJson(request: Request, maxBytes = 1_000_000): Promise<unknown> {
+  if (!isJsonType(request.headers.get('content-type'))) {
+    throw new HttpError(415, 'unsupported_media_type', 'Send the body as application/json.');
+  }
+  return parseJsonText(new TextDecoder().decode(await readBodyBytes(request, maxBytes)));
+}
+
+/** A JSON body that may be absent: no body (or a blank one) reads as {}. */
+export async function readOptionalJson(request: Request, maxBytes = 100_000): Promise<unknown> {
+  const text = new TextDecoder().decode(await readBodyBytes(request, maxBytes));
+  if (text.trim() === '') return {};
+  if (!isJsonType(request.headers.get('content-type'))) {
+    throw new HttpError(415, 'unsupported_media_type', 'Send the body as application/json.');
+  }
+  return parseJsonText(text);
 }

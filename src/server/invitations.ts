@@ -139,11 +139,11 @@ const GONE: Record<Exclude<InvitationStatus, 'pending'>, [string, string]> = {
 };
 
 /**
- * Accepts an invitation for a signed-in person with a confirmed address: adds the membership with
+ * Accepts an invitation for a signed-in person whose confirmed address is the invited one: adds the membership with
  * the invited role, marks the token used — both or neither. Someone already a member keeps the
  * role they have (an invitation never demotes or promotes).
  */
-export async function acceptInvitation(token: string, who: { id: string; emailVerified: boolean }): Promise<{ householdId: number; role: Role; alreadyMember: boolean }> {
+export async function acceptInvitation(token: string, who: { id: string; email: string; emailVerified: boolean }): Promise<{ householdId: number; role: Role; alreadyMember: boolean }> {
   if (!who.emailVerified) throw new HttpError(403, 'email_unverified', 'Confirm your e-mail address before joining a household.');
   const tokenHash = hashToken(token);
   return getDb().transaction(async (tx) => {
@@ -154,6 +154,10 @@ export async function acceptInvitation(token: string, who: { id: string; emailVe
     if (status !== 'pending') {
       const [code, message] = GONE[status];
       throw new HttpError(410, code, message);
+    }
+    // The link is for the address it was sent to: a forwarded or leaked link lets nobody else in.
+    if (inv.email.trim().toLowerCase() !== who.email.trim().toLowerCase()) {
+      throw new HttpError(403, 'invitation_other_address', `This invitation was sent to ${inv.email}. Sign in with that address to accept it, or ask the owner to invite the address you use.`);
     }
     await tx.update(invitations).set({ acceptedAt: new Date(), acceptedBy: who.id }).where(eq(invitations.id, inv.id));
     const [member] = await tx

@@ -204,13 +204,20 @@ describe('invitations', () => {
     expect((await apiAs(t.outsider.cookie, 'GET', `/api/households/${t.household.id}`)).status).toBe(404);
   });
 
-  it('records who accepted, even from another address than the one invited', async () => {
-    const { invitation, token } = await invite(t.owner, t.household.id, uniqueEmail('forwarded'), 'grower');
+  it('lets only the invited address accept, and records who did', async () => {
+    const email = uniqueEmail('forwarded');
+    const { invitation, token } = await invite(t.owner, t.household.id, email, 'grower');
     const other = await newVerifiedUser({ name: 'Other Address' });
-    expect((await apiAs(other.cookie, 'POST', '/api/invitations/accept', { token })).status).toBe(200);
+    const refused = await apiAs(other.cookie, 'POST', '/api/invitations/accept', { token });
+    expect(refused.status).toBe(403);
+    expect(refused.body.error.code).toBe('invitation_other_address');
+    expect((await apiAs(other.cookie, 'GET', `/api/households/${t.household.id}`)).status).toBe(404);
+
+    const invited = await newVerifiedUser({ name: 'Invited Address', email });
+    expect((await apiAs(invited.cookie, 'POST', '/api/invitations/accept', { token })).status).toBe(200);
     const [rows] = await pool.query('SELECT accepted_by, accepted_at FROM invitations WHERE id = ?', [invitation.id]);
     const row = (rows as { accepted_by: string; accepted_at: Date | null }[])[0]!;
-    expect(row.accepted_by).toBe(other.id);
+    expect(row.accepted_by).toBe(invited.id);
     expect(row.accepted_at).not.toBeNull();
   });
 
@@ -269,7 +276,7 @@ describe('invitations', () => {
     const email = uniqueEmail('twice');
     const first = await invite(t.owner, t.household.id, email, 'viewer');
     const second = await invite(t.owner, t.household.id, email, 'grower');
-    const u = await newVerifiedUser();
+    const u = await newVerifiedUser({ email });
     expect((await apiAs(u.cookie, 'POST', '/api/invitations/accept', { token: first.token })).status).toBe(410);
     const ok = await apiAs(u.cookie, 'POST', '/api/invitations/accept', { token: second.token });
     expect(ok.body.role).toBe('grower');

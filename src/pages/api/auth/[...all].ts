@@ -7,7 +7,9 @@ export const prerender = false;
 /** Every better-auth endpoint (/api/auth/sign-up/email, /sign-in/email, /sign-out, …). */
 export const ALL: APIRoute = async ({ request, clientAddress }) => {
   // The limiter keys on the connecting address; a client cannot choose it by sending the header.
-  const forwarded = trustProxy() ? request.headers.get('x-forwarded-for')?.split(',')[0]?.trim() : undefined;
+  // Behind the one trusted proxy (TRUST_PROXY=1) the last X-Forwarded-For entry is the address that
+  // proxy saw; earlier entries are whatever the client wrote, so they are never used.
+  const forwarded = trustProxy() ? request.headers.get('x-forwarded-for')?.split(',').pop()?.trim() : undefined;
   const headers = new Headers(request.headers);
   headers.set(CLIENT_IP_HEADER, forwarded || clientAddress);
   const init: RequestInit & { duplex?: 'half' } = { method: request.method, headers };
