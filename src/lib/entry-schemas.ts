@@ -8,6 +8,7 @@
  * - In a patch, `null` clears an optional field (note, price, currency, variety, …).
  */
 import { z } from 'zod';
+import { isPlainLine, PLAIN_LINE_MESSAGE } from './plain-text';
 import { CROP_CATEGORIES } from './crop-categories';
 import { WEIGHT_UNITS } from './units';
 
@@ -153,7 +154,8 @@ const nameText = (what: string) =>
   z
     .string({ error: `The ${what} must be text.` })
     .trim()
-    .max(L.maxNameLength, { error: `The ${what} can be at most ${L.maxNameLength} characters.` });
+    .max(L.maxNameLength, { error: `The ${what} can be at most ${L.maxNameLength} characters.` })
+    .refine(isPlainLine, { error: PLAIN_LINE_MESSAGE });
 
 // ---------------------------------------------------------------------------------------------
 // Shared rules

@@ -7,6 +7,7 @@
  * with `personInput` again, so rules across fields (age or birth year, from ≤ to) always hold.
  */
 import { z } from 'zod';
+import { isPlainLine, PLAIN_LINE_MESSAGE } from './plain-text';
 import { isDate } from './months';
 import type { Person } from './needs';
 
@@ -82,7 +83,8 @@ const fields = {
     .string({ error: 'Give the person a name.' })
     .trim()
     .min(1, { error: 'Give the person a name.' })
-    .max(L.maxNameLength, { error: `The name can be at most ${L.maxNameLength} characters.` }),
+    .max(L.maxNameLength, { error: `The name can be at most ${L.maxNameLength} characters.` })
+    .refine(isPlainLine, { error: PLAIN_LINE_MESSAGE }),
   sex: z.enum(SEXES, { error: 'Choose female or male (the reference intakes are given by sex).' }),
   ageYears: optionalNumber('The age', 0, L.maxAgeYears, ' years'),
   birthYear: optionalNumber('The birth year', L.minBirthYear, L.maxBirthYear, '', true),

@@ -44,3 +44,11 @@ describe('roleAllows', () => {
     expect(['owner', 'grower', 'viewer'].map((r) => roleAllows(r as 'owner', 'own'))).toEqual([true, false, false]);
   });
 });
+
+describe('names are one line of ordinary text', () => {
+  it('refuses control characters and broken UTF-16 in a household name', () => {
+    expect(householdInput.safeParse({ name: 'B\u0000plot', timezone: 'UTC' }).success).toBe(false);
+    expect(householdInput.safeParse({ name: 'Plot \ud800', timezone: 'UTC' }).success).toBe(false);
+    expect(householdInput.safeParse({ name: 'Øvre åker 🌱', timezone: 'UTC' }).success).toBe(true);
+  });
+});
