@@ -37,6 +37,7 @@ function vitestCounts(file: string): { passed: number; failed: number; skipped: 
 function playwrightCounts(file: string): { passed: number; failed: number; skipped: number } {
   if (!existsSync(file)) return { passed: 0, failed: 0, skipped: 0 };
   const r = JSON.parse(readFileSync(file, 'utf8')) as { stats: { expected: number; unexpected: number; flaky: number; skipped: number } };
+  if (r.stats.flaky > 0) console.log(`• ${r.stats.flaky} e2e test(s) passed only on their retry (flaky): see the list above`);
   return { passed: r.stats.expected + r.stats.flaky, failed: r.stats.unexpected, skipped: r.stats.skipped };
 }
 

@@ -1,4 +1,4 @@
-import { expect, test } from '@playwright/test';
+import { expect, test } from './fixtures';
 
 test('a visitor searches the reference foods and opens one', async ({ page }) => {
   await page.goto('/foods');

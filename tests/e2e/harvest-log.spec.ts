@@ -4,7 +4,8 @@
  * other record pages (crops, bought food and staples, CSV import, the log's edit and delete) work
  * from a phone, read-only for a viewer.
  */
-import { expect, test, type BrowserContext, type Page } from '@playwright/test';
+import type { BrowserContext, Page } from '@playwright/test';
+import { expect, test } from './fixtures';
 import { allHarvests, allPurchases, foodId, makeCrop } from '../support/entries';
 import { addMember, BASE_URL, createHousehold, newVerifiedUser, type TestUser } from '../support/users';
 

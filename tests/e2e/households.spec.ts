@@ -1,4 +1,5 @@
-import { expect, test, type Page } from '@playwright/test';
+import type { Page } from '@playwright/test';
+import { expect, test, waitForIslands } from './fixtures';
 import { randomBytes } from 'node:crypto';
 
 const PASSWORD = 'turnip-harvest-2041';
@@ -57,7 +58,7 @@ test('an owner signs up, starts a household and invites a second person, who joi
 
   // The second person, in a browser of their own, opens the mail and follows the link.
   const other = await browser.newContext();
-  const p2 = await other.newPage();
+  const p2 = waitForIslands(await other.newPage());
   await followMailLink(p2, growerEmail, /invites you to Larkspur Allotment/, '/invite/');
   await expect(p2.getByTestId('invite-household')).toHaveText('Larkspur Allotment');
   await expect(p2.getByTestId('invite-role')).toHaveText('grower');

@@ -2,7 +2,7 @@
  * A grower logs a harvest through the harvest form and sees the month's home share of calories
  * change on the Share dashboard.
  */
-import { expect, test } from '@playwright/test';
+import { expect, test } from './fixtures';
 import { foodId, makeCrop } from '../support/entries';
 import { apiAs, BASE_URL, createHousehold, newVerifiedUser } from '../support/users';
 
