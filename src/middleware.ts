@@ -66,5 +66,22 @@ export const onRequest = defineMiddleware(async (ctx, next) => {
   if (!isApi && !ctx.locals.user && !PUBLIC_PAGES.some((re) => re.test(url.pathname))) {
     return ctx.redirect(`/sign-in?next=${encodeURIComponent(url.pathname + url.search)}`, 303);
   }
-  return next();
+  const response = await next();
+  return withSecurityHeaders(response);
 });
+
+/** Headers every answer carries: no MIME sniffing, not framed by other sites, no full referrers out. */
+function withSecurityHeaders(response: Response): Response {
+  const set = (name: string, value: string) => {
+    if (!response.headers.has(name)) response.headers.set(name, value);
+  };
+  try {
+    set('X-Content-Type-Options', 'nosniff');
+    set('X-Frame-Options', 'SAMEORIGIN');
+    set('Content-Security-Policy', "frame-ancestors 'self'");
+    set('Referrer-Policy', 'strict-origin-when-cross-origin');
+  } catch {
+    // Some responses (e.g. a fetched Response passed through) have immutable headers: leave them.
+  }
+  return response;
+}

@@ -14,6 +14,14 @@ function post(path: string, body: string, type: string, extra: Record<string, st
 }
 
 describe('the edges of the API', () => {
+  it('sends the security headers on pages and API answers alike', async () => {
+    for (const path of ['/foods', '/api/foods?code=11352']) {
+      const r = await api(path);
+      expect(r.headers.get('x-content-type-options')).toBe('nosniff');
+      expect(r.headers.get('content-security-policy')).toContain("frame-ancestors 'self'");
+    }
+  });
+
   it('answers an unknown API path with the JSON error shape', async () => {
     const r = await api('/api/no-such-thing');
     expect(r.status).toBe(404);
