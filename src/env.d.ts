@@ -2,7 +2,7 @@
 
 declare namespace App {
   interface Locals {
-    user?: { id: string; email: string; name: string; emailVerified: boolean; isAdmin?: boolean } | null;
+    user?: { id: string; email: string; name: string; emailVerified: boolean } | null;
     session?: { id: string; userId: string; expiresAt: Date } | null;
     /** Page views only (not /api): the signed-in user's households with their role, by name. */
     households?: { id: number; name: string; role: 'owner' | 'grower' | 'viewer' }[];

@@ -6,9 +6,6 @@
  * the `household` cookie, else the only one.
  */
 import { defineMiddleware } from 'astro:middleware';
-import { eq } from 'drizzle-orm';
-import { getDb } from './db/client';
-import { siteAdmins } from './db/schema';
 import { getAuth } from './server/auth';
 import { publicOrigin } from './server/config';
 import { listHouseholds } from './server/households';
@@ -44,8 +41,8 @@ export const onRequest = defineMiddleware(async (ctx, next) => {
   if (!url.pathname.startsWith('/api/auth/') && !url.pathname.startsWith('/_astro/')) {
     const s = await getAuth().api.getSession({ headers: request.headers });
     if (s) {
-      const admin = await getDb().select().from(siteAdmins).where(eq(siteAdmins.userId, s.user.id)).limit(1);
-      ctx.locals.user = { id: s.user.id, email: s.user.email, name: s.user.name, emailVerified: s.user.emailVerified, isAdmin: admin.length > 0 };
+      // The site-admin flag is looked up by the admin pages that need it, not on every request.
+      ctx.locals.user = { id: s.user.id, email: s.user.email, name: s.user.name, emailVerified: s.user.emailVerified };
       ctx.locals.session = { id: s.session.id, userId: s.session.userId, expiresAt: s.session.expiresAt };
     }
   }

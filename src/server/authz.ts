@@ -63,6 +63,12 @@ export async function householdPage(
   }
 }
 
+/** What an island needs to know about the household it shows. */
+export function islandHousehold(a: HouseholdAccess) {
+  const h = a.household;
+  return { id: h.id, name: h.name, units: h.units, timezone: h.timezone, role: a.role };
+}
+
 /**
  * Wraps a handler of /api/households/{id}/…: authorisation first, then the handler, every error
  * answered as JSON. `param` names the route parameter holding the household id.

@@ -18,7 +18,7 @@ import {
   type CsvError,
 } from '../lib/csv-import';
 import { cropInput, type CropInput, type HarvestInput, type PurchaseInput } from '../lib/entry-schemas';
-import { toGrams } from '../lib/units';
+import { toGrams, type WeightUnit } from '../lib/units';
 import { cropDisplayName, cropRows, insertCrop } from './crops';
 import { HttpError, readBodyBytes } from './http';
 import { parseInput, type Executor, type Tx } from './entry-input';
@@ -163,14 +163,15 @@ function cropFromInput(id: number, input: CropInput): ImportCrop {
   };
 }
 
-interface PreviewRow {
+/** A row of the preview as it would be stored. */
+export interface PreviewRow {
   row: number;
   date: string;
   crop: string | null;
   foodCode: string | null;
   foodName: string | null;
   quantity: number;
-  unit: string;
+  unit: WeightUnit;
   grams: number;
   edibleGrams: number;
   use?: string;

@@ -15,41 +15,12 @@ import { formatDay } from './local-date';
 import { QueryProvider } from './QueryProvider';
 import { formatQuantity } from './quantity-text';
 import { Alert } from './ui';
+import type { ImportAnswer as ImportAnswerOf } from '../../server/entry-import';
 
 type Kind = 'harvests' | 'purchases';
 
-interface PreviewRow {
-  row: number;
-  date: string;
-  crop: string | null;
-  foodCode: string | null;
-  foodName: string | null;
-  quantity: number;
-  unit: 'g' | 'kg' | 'oz' | 'lb';
-  grams: number;
-  edibleGrams: number;
-  use?: string;
-  spreadMonths: number;
-  trimmed: boolean;
-  note: string | null;
-  price?: number | null;
-  currency?: string | null;
-}
-
-interface ImportAnswer {
-  ok: boolean;
-  kind: Kind;
-  mode: 'preview' | 'commit';
-  rows: PreviewRow[];
-  rowCount: number;
-  totals: { grams: number; edibleGrams: number };
-  errors: CsvError[];
-  unknownCrops: { name: string; variety?: string }[];
-  unknownFoodCodes: string[];
-  ignoredColumns: string[];
-  created?: number;
-  error?: { message: string };
-}
+// The answer's shape is the server's own (type-only import: no server code reaches the browser).
+type ImportAnswer = ImportAnswerOf['body'];
 
 interface NewCrop {
   name: string;

@@ -11,7 +11,7 @@ import { canWrite, get, keys, request, urls, ApiError, type Crop, type Harvest, 
 import { formatDay, monthRange } from './local-date';
 import { QueryProvider } from './QueryProvider';
 import { formatQuantity, parseDecimal, trimNumber } from './quantity-text';
-import { FilterBar, Pager, SortHeader, SortSelect, stack, TotalsLine } from './table-bits';
+import { FilterBar, Pager, SortHeader, SortSelect, stack, TotalsLine, MessageRow } from './table-bits';
 import { Alert, ConfirmDelete, ErrorText, invalidProps, splitUseLabel, type Errors } from './ui';
 
 const PAGE_SIZE = 25;
@@ -143,17 +143,9 @@ function HarvestTableInner({ household }: { household: HouseholdInfo }) {
           </thead>
           <tbody className={stack.tbody}>
             {list.isPending ? (
-              <tr className="max-sm:block">
-                <td colSpan={colCount} className="px-3 py-6 text-center text-loam-700 max-sm:block">
-                  Loading…
-                </td>
-              </tr>
+              <MessageRow colSpan={colCount}>Loading…</MessageRow>
             ) : rows.length === 0 ? (
-              <tr className="max-sm:block">
-                <td colSpan={colCount} className="px-3 py-6 text-center text-loam-700 max-sm:block">
-                  {month || cropId || use ? 'No harvests match these filters.' : 'No harvests logged yet.'}
-                </td>
-              </tr>
+              <MessageRow colSpan={colCount}>{month || cropId || use ? 'No harvests match these filters.' : 'No harvests logged yet.'}</MessageRow>
             ) : (
               rows.map((h) =>
                 editing === h.id ? (

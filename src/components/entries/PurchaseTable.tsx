@@ -11,7 +11,7 @@ import { ApiError, get, keys, request, urls, type HouseholdInfo, type Purchase, 
 import { FoodPicker, type FoodChoice } from './FoodPicker';
 import { formatDay, monthRange } from './local-date';
 import { formatQuantity, parseDecimal, trimNumber } from './quantity-text';
-import { FilterBar, Pager, SortHeader, SortSelect, stack, TotalsLine } from './table-bits';
+import { FilterBar, Pager, SortHeader, SortSelect, stack, TotalsLine, MessageRow } from './table-bits';
 import { Alert, ConfirmDelete, ErrorText, invalidProps, type Errors } from './ui';
 
 const PAGE_SIZE = 25;
@@ -99,17 +99,9 @@ export function PurchaseTable({ household, writer }: { household: HouseholdInfo;
           </thead>
           <tbody className={stack.tbody}>
             {list.isPending ? (
-              <tr className="max-sm:block">
-                <td colSpan={cols} className="px-3 py-6 text-center text-loam-700 max-sm:block">
-                  Loading…
-                </td>
-              </tr>
+              <MessageRow colSpan={cols}>Loading…</MessageRow>
             ) : rows.length === 0 ? (
-              <tr className="max-sm:block">
-                <td colSpan={cols} className="px-3 py-6 text-center text-loam-700 max-sm:block">
-                  {month || food ? 'No bought food matches these filters.' : 'No bought food entered yet.'}
-                </td>
-              </tr>
+              <MessageRow colSpan={cols}>{month || food ? 'No bought food matches these filters.' : 'No bought food entered yet.'}</MessageRow>
             ) : (
               rows.map((p) =>
                 editing === p.id ? (

@@ -108,3 +108,14 @@ export function SortSelect({ id, sort, onSort, options }: { id: string; sort: st
     </div>
   );
 }
+
+/** One full-width row for "Loading…" or "nothing here" in an entries table. */
+export function MessageRow({ colSpan, children }: { colSpan: number; children: ReactNode }) {
+  return (
+    <tr className="max-sm:block">
+      <td colSpan={colSpan} className="px-3 py-6 text-center text-loam-700 max-sm:block">
+        {children}
+      </td>
+    </tr>
+  );
+}
