@@ -121,7 +121,9 @@ export function rawnessRank(name: string, group?: string): number {
   }
   const has = (set: ReadonlySet<string>): boolean => [...tokens].some((t) => set.has(t));
 
-  let rank = tokens.has('raw') ? 0 : 1;
+  // A part on its own ("Potatoes, raw, skin", "Chicken, …, skin only, raw") is not the whole food.
+  const partOnly = name.split(',').some((seg) => /^(skin|peel)( only)?$/i.test(seg.trim()));
+  let rank = tokens.has('raw') && !partOnly ? 0 : 1;
   if (has(COOKED)) rank = 2;
   if (has(PRESERVED)) rank = 3;
   if (has(PREPARED) || (group !== undefined && MADE_GROUPS.has(group))) rank = 4;

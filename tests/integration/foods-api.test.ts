@@ -20,6 +20,9 @@ describe('GET /api/foods', () => {
     const names: string[] = r.body.foods.map((f: { name: string }) => f.name);
     expect(names.slice(0, 5).some((n) => /raw/.test(n))).toBe(true);
     expect(names[0]).toMatch(/raw/);
+    // The whole potato, not "Potatoes, raw, skin" (NDB 11362, a part on its own)
+    const raw = await api('/api/foods?q=potatoes%20raw');
+    expect(raw.body.foods[0].code).toBe('11352');
   });
 
   it('finds a food by its exact dataset code', async () => {

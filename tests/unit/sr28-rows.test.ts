@@ -162,6 +162,13 @@ describe('rawnessRank', () => {
     expect(rawnessRank('Babyfood, vegetables, green beans, strained')).toBe(5);
   });
 
+  it('puts a part on its own after the whole raw food', () => {
+    // USDA SR28, NDB 11362 "Potatoes, raw, skin" and 05015 "Chicken, broilers or fryers, skin only, raw"
+    expect(rawnessRank('Potatoes, raw, skin')).toBe(1);
+    expect(rawnessRank('Chicken, broilers or fryers, skin only, raw')).toBe(1);
+    expect(rawnessRank('Potatoes, flesh and skin, raw')).toBe(0);
+  });
+
   it('does not call a raw food processed because of a cut name or a cooking speed', () => {
     expect(rawnessRank('Beef, round, tip round, roast, lean and fat, 0" fat, choice, raw')).toBe(0);
     expect(rawnessRank('Lamb, New Zealand, imported, rack, lean and fat, cooked, fast roasted')).toBe(2);

@@ -147,7 +147,7 @@ function CropManagerInner({ household }: { household: HouseholdInfo }) {
                 <dd className="font-semibold">{USE_LABELS[defaultUse({ category: c.category, cropDefault: c.defaultUse, notFood: c.notFood })]}</dd>
                 {!c.notFood ? (
                   <>
-                    <dt className="text-loam-700">Stored, eaten over</dt>
+                    <dt className="text-loam-700">If stored, eaten over</dt>
                     <dd className="font-semibold">{defaultSpreadMonths({ use: 'stored', category: c.category, cropDefault: c.defaultSpreadMonths })} months</dd>
                   </>
                 ) : null}

@@ -133,7 +133,7 @@ function PersonCard({ person: p }: { person: PersonJson }) {
             {formatAmount(e.kcalPerDay)} kcal
           </span>{' '}
           <span className="text-loam-700">a day</span>{' '}
-          <span className="rounded-full bg-loam-100 px-3 py-1 text-sm font-semibold" data-testid="person-basis">
+          <span className="inline-block rounded-full bg-loam-100 px-3 py-1 text-sm font-semibold whitespace-nowrap" data-testid="person-basis">
             {e.basis === 'stated' ? 'as you stated' : 'estimated (EER)'}
           </span>
         </p>

@@ -51,7 +51,9 @@ export function MonthChart({ report }: { report: ShareResponse }) {
         label: 'Need',
         data: report.months.map((m) => m.values[k].need),
         borderColor: NEED,
-        backgroundColor: NEED,
+        // No fill: the legend then draws the need as a dashed outline, like the line itself.
+        backgroundColor: 'transparent',
+        pointBackgroundColor: NEED,
         borderDash: [6, 4],
         borderWidth: 2,
         pointRadius: 3,

@@ -113,8 +113,9 @@ function Dashboard({ householdId, units, periods, initial, peopleHref, currentMo
           ) : null}
           {data.to > currentMonth ? (
             <p className="text-loam-700" data-testid="future-note">
-              Months after {longMonth(currentMonth)} are still to come: their need is counted in the totals, their food not yet. “Last
-              12 months” gives a year that is complete.
+              Months after {longMonth(currentMonth)} are still to come: their need is counted in the totals, and so is the
+              stored and bulk-bought food already set to be eaten then, but no fresh harvest yet. “Last 12 months” gives a
+              year that is complete.
             </p>
           ) : null}
           <Headline report={data} />
