@@ -306,16 +306,20 @@ function readRow(cells: Record<string, string>, line: number, problems: CropTabl
  */
 export function parseCropTable(text: string): CropTableRow[] {
   const parsed = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: 'greedy' });
-  const problems: CropTableProblem[] = parsed.errors.map((e) => ({
-    line: (e.row ?? 0) + 2,
-    column: null,
-    message: `The CSV cannot be read here (${e.message}): check the quotes and commas of this line.`,
-  }));
+  const problems: CropTableProblem[] = [];
+  // The header first: with a column missing there, every data line also has one field too many.
   const header = parsed.meta.fields ?? [];
   const missing = CROP_TABLE_COLUMNS.filter((c) => !header.includes(c));
   const unknown = header.filter((c) => !isOneOf(CROP_TABLE_COLUMNS, c));
   if (missing.length > 0) problems.push({ line: 1, column: null, message: `The header lacks ${missing.join(', ')}: add those columns.` });
   if (unknown.length > 0) problems.push({ line: 1, column: null, message: `The header has unknown columns ${unknown.join(', ')}: rename or remove them.` });
+  for (const e of parsed.errors) {
+    problems.push({
+      line: (e.row ?? 0) + 2,
+      column: null,
+      message: `The CSV cannot be read here (${e.message}): check the quotes and commas of this line.`,
+    });
+  }
   if (problems.length > 0) throw new CropTableError(problems);
 
   const rows: CropTableRow[] = [];
