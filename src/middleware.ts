@@ -12,6 +12,6 @@ import { household } from './server/middleware/household';
 import { originCheck } from './server/middleware/origin-check';
 import { securityHeaders } from './server/middleware/security-headers';
 import { session } from './server/middleware/session';
-import { signInRedirect } from './server/middleware/sign-in-redirect';
+import { signInRedirect } from '@/server/middleware/sign-in-redirect';
 
 export const onRequest = sequence(securityHeaders, originCheck, session, household, signInRedirect);

@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { authSecret, mailConfig, publicOrigin, rateLimitRule, readEnv, testRunConfig } from '../../src/server/config';
+import { authSecret, mailConfig, publicOrigin, rateLimitRule, readEnv, testRunConfig } from '@/server/config';
 
 afterEach(() => {
   vi.unstubAllEnvs();
