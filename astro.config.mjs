@@ -7,7 +7,9 @@ import tailwindcss from '@tailwindcss/vite';
 // Server-rendered app on the Node standalone adapter; React only for interactive islands.
 export default defineConfig({
   output: 'server',
-  // Parallel test runs (one per developer checkout) may build into their own folder.
+  // Parallel test runs (one per developer checkout) may build into their own folder. The one read of
+  // process.env outside src/server/config.ts: the folder is needed at build time, when this file is
+  // loaded by Astro itself; keep the default in step with SELFSOWN_OUT_DIR in config.ts.
   outDir: process.env.SELFSOWN_OUT_DIR || './dist',
   adapter: node({ mode: 'standalone' }),
   integrations: [react()],

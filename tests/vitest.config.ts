@@ -2,6 +2,8 @@ import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 
 const root = fileURLToPath(new URL('..', import.meta.url));
+/** tsconfig.json's "@/*" → "src/*", which Vitest does not read by itself. */
+const resolve = { alias: [{ find: /^@\//, replacement: `${root}src/` }] };
 
 // Two projects: pure domain code (no database) and the data layer + HTTP API against the real
 // MariaDB and the built server that `npm test` (src/cli/test.ts) starts before running these.
@@ -10,6 +12,7 @@ export default defineConfig({
   test: {
     projects: [
       {
+        resolve,
         test: {
           name: 'unit',
           root,
@@ -18,6 +21,7 @@ export default defineConfig({
         },
       },
       {
+        resolve,
         test: {
           name: 'integration',
           root,

@@ -1,7 +1,8 @@
 /** Child processes for the start and test commands: started in their own group, stopped by pid. */
 import { spawn, type ChildProcess } from 'node:child_process';
+import { childEnv } from '../server/config';
 
-export function run(cmd: string, args: string[], env: NodeJS.ProcessEnv = process.env): Promise<number> {
+export function run(cmd: string, args: string[], env: NodeJS.ProcessEnv = childEnv()): Promise<number> {
   return new Promise((resolve) => {
     const child = spawn(cmd, args, { stdio: 'inherit', env });
     child.on('exit', (code, signal) => resolve(code ?? (signal ? 1 : 0)));

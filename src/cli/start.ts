@@ -7,7 +7,7 @@
  */
 import { existsSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { databaseUrl, loadDotEnv, mailConfig, publicOrigin } from '../server/config';
+import { bindHost, bindPort, childEnv, databaseUrl, hasAuthSecret, loadDotEnv, mailConfig, outDir, publicOrigin } from '../server/config';
 import { serverPaths, stopServer } from './mariadb';
 import { importFoods } from './import-foods';
 import { startMailFake, type MailFake } from './mail-fake';
@@ -29,20 +29,19 @@ async function main(): Promise<void> {
     mailFake = await startMailFake({ port: mail.fakePort, dir: mail.mailDir, log: (l) => console.log(l) });
     console.log(`• fake SMTP on 127.0.0.1:${mail.fakePort}; mail is kept in ${mail.mailDir} and shown at /dev/mail`);
   }
-  const env: NodeJS.ProcessEnv = {
-    ...process.env,
-    HOST: process.env.HOST || '127.0.0.1',
-    PORT: process.env.PORT || '4321',
+  const env = childEnv({
+    HOST: bindHost(),
+    PORT: bindPort(),
     NODE_ENV: 'production',
     // A single-household install on loopback may run with the development secret.
-    SELFSOWN_ALLOW_DEV_SECRET: process.env.BETTER_AUTH_SECRET ? '0' : '1',
+    SELFSOWN_ALLOW_DEV_SECRET: hasAuthSecret() ? '0' : '1',
     ...(mail.fake ? { SMTP_URL: '', FAKE_SMTP_PORT: String(mail.fakePort), MAIL_DIR: mail.mailDir } : {}),
-  };
+  });
   console.log('• building the app');
   const built = await run(resolve(root, 'node_modules/.bin/astro'), ['build'], env);
   if (built !== 0) throw new Error('the build failed');
 
-  const services = [startService('node', [resolve(root, process.env.SELFSOWN_OUT_DIR || 'dist', 'server/entry.mjs')], env)];
+  const services = [startService('node', [resolve(outDir(root), 'server/entry.mjs')], env)];
   const app = services[0]!;
   let stopping = false;
   const stopAll = async () => {

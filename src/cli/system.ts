@@ -1,12 +1,13 @@
 /** Finding and installing the Debian packages the start and test commands need. */
 import { execFileSync, spawnSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
+import { childEnv, searchPath } from '../server/config';
 
 const SEARCH = ['/usr/sbin', '/usr/bin', '/usr/local/sbin', '/usr/local/bin', '/sbin', '/bin'];
 
 /** Absolute path of a program, or null when it is not installed. */
 export function findProgram(name: string): string | null {
-  for (const dir of [...(process.env.PATH ?? '').split(':'), ...SEARCH]) {
+  for (const dir of [...searchPath(), ...SEARCH]) {
     if (dir && existsSync(`${dir}/${name}`)) return `${dir}/${name}`;
   }
   return null;
@@ -26,7 +27,7 @@ export function ensureProgram(program: string, pkg: string): string {
     throw new Error(`${program} is not installed. Install the Debian package "${pkg}" (sudo apt-get install ${pkg}) and run again.`);
   }
   console.log(`• ${program} not found: installing Debian package ${pkg} (one time, takes a little while)…`);
-  const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
+  const env = childEnv({ DEBIAN_FRONTEND: 'noninteractive' });
   if (!aptUpdated) {
     execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit', env });
     aptUpdated = true;

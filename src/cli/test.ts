@@ -5,7 +5,7 @@
  */
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { loadDotEnv, parseDatabaseUrl, testDatabaseUrl } from '../server/config';
+import { childEnv, loadDotEnv, outDir as buildDir, parseDatabaseUrl, testDatabaseUrl, testRunConfig } from '../server/config';
 import { migrateDatabase } from '../db/migrate';
 import { recreateDatabase, serverPaths, stopServer } from './mariadb';
 import { dbUp } from './db';
@@ -24,8 +24,13 @@ interface Stage {
 }
 
 const root = process.cwd();
-const outDir = resolve(root, process.env.SELFSOWN_OUT_DIR || 'dist');
-const reports = resolve(root, '.data', `test-reports-${process.env.TEST_PORT || '4399'}`);
+const outDir = buildDir(root);
+/**
+ * Developer shortcuts: TEST_STAGES=unit,integration,e2e picks stages; TEST_FILES=a,b narrows files.
+ * These and the report folder are read from the shell's environment, before `.env` is loaded.
+ */
+const { stages: wanted, files, port: portBeforeDotEnv } = testRunConfig();
+const reports = resolve(root, '.data', `test-reports-${portBeforeDotEnv}`);
 const bin = (name: string) => resolve(root, 'node_modules', '.bin', name);
 
 function vitestCounts(file: string): { passed: number; failed: number; skipped: number } {
@@ -51,16 +56,13 @@ async function stage(name: string, fn: () => Promise<{ code: number; counts?: { 
   return { name, ...c, failed: ok ? c.failed : Math.max(c.failed, 1), ok, seconds: (Date.now() - t0) / 1000 };
 }
 
-/** Developer shortcuts: TEST_STAGES=unit,integration,e2e picks stages; TEST_FILES=a,b narrows files. */
-const wanted = new Set((process.env.TEST_STAGES || 'unit,integration,e2e').split(','));
-const files = (process.env.TEST_FILES || '').split(',').filter(Boolean);
 const filesFor = (dir: string) => files.filter((f) => f.includes(dir));
 
 async function main(): Promise<number> {
   loadDotEnv();
+  const { port, smtpPort } = testRunConfig();
   const started = Date.now();
   const testUrl = testDatabaseUrl();
-  const port = process.env.TEST_PORT || '4399';
   const baseUrl = `http://127.0.0.1:${port}`;
   const paths = serverPaths();
   const wasRunning = existsSync(paths.pidFile);
@@ -77,14 +79,12 @@ async function main(): Promise<number> {
   console.log(`• reference foods imported into the test database in ${((Date.now() - importStart) / 1000).toFixed(1)} s`);
 
   // The test run's own fake SMTP server and outbox, derived from TEST_PORT so parallel runs do not clash.
-  const smtpPort = Number(process.env.TEST_SMTP_PORT || Number(port) + 10000);
   const mailDir = resolve(root, '.data', `test-mail-${port}`);
   rmSync(mailDir, { recursive: true, force: true });
   const mailFake = await startMailFake({ port: smtpPort, dir: mailDir });
   console.log(`• fake SMTP on 127.0.0.1:${smtpPort}, mail in ${mailDir}`);
 
-  const env: NodeJS.ProcessEnv = {
-    ...process.env,
+  const env = childEnv({
     // Always the fake, whatever .env says: tests never send real mail.
     SMTP_URL: '',
     FAKE_SMTP_PORT: String(smtpPort),
@@ -103,7 +103,7 @@ async function main(): Promise<number> {
     TEST_BASE_URL: baseUrl,
     NODE_ENV: 'production',
     SELFSOWN_ALLOW_DEV_SECRET: '1',
-  };
+  });
 
   const stages: Stage[] = [];
   if (wanted.has('unit')) stages.push(

@@ -5,7 +5,7 @@
 import mysql from 'mysql2/promise';
 import { drizzle, type MySql2Database } from 'drizzle-orm/mysql2';
 import * as schema from './schema';
-import { databaseUrl, parseDatabaseUrl } from '../server/config';
+import { databaseUrl, dbPoolSize, parseDatabaseUrl } from '../server/config';
 
 export type Db = MySql2Database<typeof schema>;
 
@@ -20,7 +20,7 @@ export function createPool(url: string): mysql.Pool {
     user: p.user,
     password: p.password,
     database: p.database,
-    connectionLimit: Number(process.env.DB_POOL_SIZE || 10),
+    connectionLimit: dbPoolSize(),
     charset: 'utf8mb4_unicode_ci',
     timezone: 'Z',
     dateStrings: ['DATE'],

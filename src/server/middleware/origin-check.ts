@@ -1,0 +1,24 @@
+/**
+ * The app's one origin check: a state-changing request (anything but GET, HEAD, OPTIONS) sent from
+ * another site is refused with 403 before any other step reads or writes. Browsers name the page
+ * that sent a request (Origin, Sec-Fetch-Site); it must be PUBLIC_ORIGIN. better-auth checks
+ * /api/auth/ itself. Astro's own check is off (see astro.config.mjs).
+ */
+import { defineMiddleware } from 'astro:middleware';
+import { publicOrigin } from '../config';
+import { errorResponse } from '../http';
+
+const SAFE = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+export const originCheck = defineMiddleware((ctx, next) => {
+  const { request, url } = ctx;
+  if (SAFE.has(request.method) || url.pathname.startsWith('/api/auth/')) return next();
+  const origin = request.headers.get('origin');
+  const site = request.headers.get('sec-fetch-site');
+  if ((origin && origin !== publicOrigin()) || site === 'cross-site') {
+    return url.pathname.startsWith('/api/')
+      ? errorResponse(403, 'bad_origin', 'This request came from another site and was refused.')
+      : new Response('Cross-site form submissions are refused.', { status: 403, headers: { 'content-type': 'text/plain; charset=utf-8' } });
+  }
+  return next();
+});
