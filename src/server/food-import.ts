@@ -1,7 +1,8 @@
 /**
  * Loads a food composition dataset into MariaDB in one transaction. Re-running it updates foods in
  * place (their ids stay, so crops and entries that point at them keep working) and replaces their
- * nutrient amounts and household weights: never duplicates.
+ * nutrient amounts and household weights: never duplicates. Statements go through Drizzle's builder
+ * except the bulk load of nutrient amounts and the joined deletes, each marked where it stays raw.
  */
 import { eq, sql } from 'drizzle-orm';
 import { drizzle } from 'drizzle-orm/mysql2';
@@ -48,12 +49,12 @@ const CHUNK = 1000;
 
 async function insertChunks(
   conn: PoolConnection,
-  sql: string,
+  statement: string,
   rows: unknown[][],
   progress?: (done: number) => void,
 ): Promise<void> {
   for (let i = 0; i < rows.length; i += CHUNK) {
-    await conn.query(sql, [rows.slice(i, i + CHUNK)]);
+    await conn.query(statement, [rows.slice(i, i + CHUNK)]);
     progress?.(Math.min(i + CHUNK, rows.length));
   }
 }
