@@ -47,7 +47,11 @@ export interface ShareReport<K extends NutrientKey> {
   ratioPercent: Record<K, number | null>;
 }
 
-function known(sum: number, knownGrams: number, unknownGrams: number): number | null {
+/**
+ * A sum of known amounts, or null when every gram behind it is of unknown value (no food is a known 0),
+ * e.g. knownSum(0, 0, 250) → null, knownSum(0, 0, 0) → 0, knownSum(90, 100, 250) → 90.
+ */
+export function knownSum(sum: number, knownGrams: number, unknownGrams: number): number | null {
   return knownGrams === 0 && unknownGrams > 0 ? null : sum;
 }
 
@@ -56,8 +60,8 @@ function known(sum: number, knownGrams: number, unknownGrams: number): number | 
  * e.g. shareValue({ home: 300, bought: 100, …grams }, 400).shareOfIntake → 0.75.
  */
 export function shareValue(sums: NutrientSums, need: number | null): ShareValue {
-  const home = known(sums.home, sums.homeKnownGrams, sums.homeUnknownGrams);
-  const bought = known(sums.bought, sums.boughtKnownGrams, sums.boughtUnknownGrams);
+  const home = knownSum(sums.home, sums.homeKnownGrams, sums.homeUnknownGrams);
+  const bought = knownSum(sums.bought, sums.boughtKnownGrams, sums.boughtUnknownGrams);
   const intake = home === null || bought === null ? null : home + bought;
   return {
     home,

@@ -1,10 +1,17 @@
 /**
  * Loads a food composition dataset into MariaDB in one transaction. Re-running it updates foods in
  * place (their ids stay, so crops and entries that point at them keep working) and replaces their
- * nutrient amounts and household weights: never duplicates.
+ * nutrient amounts and household weights: never duplicates. Statements go through Drizzle's builder
+ * except the bulk load of nutrient amounts and the joined deletes, each marked where it stays raw.
  */
+import { eq, sql } from 'drizzle-orm';
+import { drizzle } from 'drizzle-orm/mysql2';
 import type { Pool, PoolConnection } from 'mysql2/promise';
+import type { Db } from '../db/client';
+import * as schema from '../db/schema';
+import { datasets, foodWeights, foods as foodsTable, nutrients } from '../db/schema';
 import { NUTRIENTS } from '../lib/nutrients';
+import { dbOn } from './db-on';
 
 export interface DatasetInfo {
   slug: string;
@@ -42,31 +49,40 @@ const CHUNK = 1000;
 
 async function insertChunks(
   conn: PoolConnection,
-  sql: string,
+  statement: string,
   rows: unknown[][],
   progress?: (done: number) => void,
 ): Promise<void> {
   for (let i = 0; i < rows.length; i += CHUNK) {
-    await conn.query(sql, [rows.slice(i, i + CHUNK)]);
+    await conn.query(statement, [rows.slice(i, i + CHUNK)]);
     progress?.(Math.min(i + CHUNK, rows.length));
   }
 }
 
 /** Writes the nutrient definitions from src/lib/nutrients.ts (idempotent). */
-export async function syncNutrients(conn: PoolConnection | Pool): Promise<void> {
-  const rows = NUTRIENTS.map((n, i) => [n.key, n.name, n.unit, n.group, i]);
-  await conn.query(
-    'INSERT INTO nutrients (`key`, name, unit, nutrient_group, sort_order) VALUES ? ' +
-      'ON DUPLICATE KEY UPDATE name = VALUES(name), unit = VALUES(unit), nutrient_group = VALUES(nutrient_group), sort_order = VALUES(sort_order)',
-    [rows],
-  );
+export async function syncNutrients(db: Db): Promise<void> {
+  await db
+    .insert(nutrients)
+    .values(NUTRIENTS.map((n, i) => ({ key: n.key, name: n.name, unit: n.unit, nutrientGroup: n.group, sortOrder: i })))
+    .onDuplicateKeyUpdate({
+      set: {
+        name: sql`VALUES(${nutrients.name})`,
+        unit: sql`VALUES(${nutrients.unit})`,
+        nutrientGroup: sql`VALUES(${nutrients.nutrientGroup})`,
+        sortOrder: sql`VALUES(${nutrients.sortOrder})`,
+      },
+    });
 }
 
 /** True when this dataset release is already loaded with this many foods. */
 export async function isImported(pool: Pool, info: DatasetInfo, foodCount: number): Promise<boolean> {
-  const [rows] = await pool.query('SELECT `release`, food_count FROM datasets WHERE slug = ?', [info.slug]);
-  const r = (rows as { release: string; food_count: number }[])[0];
-  return !!r && r.release === info.release && r.food_count === foodCount;
+  const [r] = await dbOn(pool).select({ release: datasets.release, foodCount: datasets.foodCount }).from(datasets).where(eq(datasets.slug, info.slug));
+  return !!r && r.release === info.release && r.foodCount === foodCount;
+}
+
+async function datasetId(db: Db, slug: string): Promise<number> {
+  const [r] = await db.select({ id: datasets.id }).from(datasets).where(eq(datasets.slug, slug));
+  return r!.id;
 }
 
 export async function importDataset(
@@ -87,38 +103,66 @@ export async function importDataset(
     if (!Number.isFinite(a.amount) || a.amount < 0) throw new Error(`food ${a.code}: ${a.key} amount ${a.amount} is not a non-negative number`);
   }
   if (!opts.force && (await isImported(pool, info, foods.length))) {
-    const [rows] = await pool.query('SELECT id FROM datasets WHERE slug = ?', [info.slug]);
-    return { datasetId: (rows as { id: number }[])[0]!.id, foods: foods.length, amounts: 0, skipped: true };
+    return { datasetId: await datasetId(dbOn(pool), info.slug), foods: foods.length, amounts: 0, skipped: true };
   }
 
   const conn = await pool.getConnection();
+  // Drizzle on the transaction's own connection; the bulk statements below use `conn` directly.
+  const db = drizzle(conn, { schema, mode: 'default' });
   try {
     await conn.beginTransaction();
-    await syncNutrients(conn);
-    await conn.query(
-      'INSERT INTO datasets (slug, name, `release`, publisher, licence, source_note, food_count) VALUES (?, ?, ?, ?, ?, ?, ?) ' +
-        'ON DUPLICATE KEY UPDATE name = VALUES(name), `release` = VALUES(`release`), publisher = VALUES(publisher), ' +
-        'licence = VALUES(licence), source_note = VALUES(source_note), food_count = VALUES(food_count), imported_at = CURRENT_TIMESTAMP',
-      [info.slug, info.name, info.release, info.publisher, info.licence, info.sourceNote, foods.length],
-    );
-    const [ds] = await conn.query('SELECT id FROM datasets WHERE slug = ?', [info.slug]);
-    const datasetId = (ds as { id: number }[])[0]!.id;
+    await syncNutrients(db);
+    const dataset = {
+      slug: info.slug,
+      name: info.name,
+      release: info.release,
+      publisher: info.publisher,
+      licence: info.licence,
+      sourceNote: info.sourceNote,
+      foodCount: foods.length,
+    };
+    const { slug: _slug, ...changed } = dataset;
+    await db
+      .insert(datasets)
+      .values(dataset)
+      .onDuplicateKeyUpdate({ set: { ...changed, importedAt: sql`CURRENT_TIMESTAMP` } });
+    const id = await datasetId(db, info.slug);
 
     log(`  foods 0/${foods.length}`);
-    await insertChunks(
-      conn,
-      'INSERT INTO foods (dataset_id, code, name, original_name, food_group, refuse_pct, rawness, search_text) VALUES ? ' +
-        'ON DUPLICATE KEY UPDATE name = VALUES(name), original_name = VALUES(original_name), food_group = VALUES(food_group), ' +
-        'refuse_pct = VALUES(refuse_pct), rawness = VALUES(rawness), search_text = VALUES(search_text)',
-      foods.map((f) => [datasetId, f.code, f.name, f.originalName, f.group, f.refusePct, f.rawness, `${f.name} ${f.originalName} ${f.group} ${f.code}`]),
-      (n) => log(`  foods ${n}/${foods.length}`),
-    );
-    const [idRows] = await conn.query('SELECT id, code FROM foods WHERE dataset_id = ?', [datasetId]);
-    const idByCode = new Map((idRows as { id: number; code: string }[]).map((r) => [r.code, r.id]));
+    for (let i = 0; i < foods.length; i += CHUNK) {
+      const rows = foods.slice(i, i + CHUNK).map((f) => ({
+        datasetId: id,
+        code: f.code,
+        name: f.name,
+        originalName: f.originalName,
+        foodGroup: f.group,
+        refusePct: f.refusePct,
+        rawness: f.rawness,
+        searchText: `${f.name} ${f.originalName} ${f.group} ${f.code}`,
+      }));
+      await db
+        .insert(foodsTable)
+        .values(rows)
+        .onDuplicateKeyUpdate({
+          set: {
+            name: sql`VALUES(${foodsTable.name})`,
+            originalName: sql`VALUES(${foodsTable.originalName})`,
+            foodGroup: sql`VALUES(${foodsTable.foodGroup})`,
+            refusePct: sql`VALUES(${foodsTable.refusePct})`,
+            rawness: sql`VALUES(${foodsTable.rawness})`,
+            searchText: sql`VALUES(${foodsTable.searchText})`,
+          },
+        });
+      log(`  foods ${Math.min(i + CHUNK, foods.length)}/${foods.length}`);
+    }
+    const idRows = await db.select({ id: foodsTable.id, code: foodsTable.code }).from(foodsTable).where(eq(foodsTable.datasetId, id));
+    const idByCode = new Map(idRows.map((r) => [r.code, r.id]));
 
-    await conn.query('DELETE fn FROM food_nutrients fn JOIN foods f ON f.id = fn.food_id WHERE f.dataset_id = ?', [datasetId]);
-    await conn.query('DELETE w FROM food_weights w JOIN foods f ON f.id = w.food_id WHERE f.dataset_id = ?', [datasetId]);
+    // Multi-table DELETE with a join: Drizzle's delete() has no join.
+    await conn.query('DELETE fn FROM food_nutrients fn JOIN foods f ON f.id = fn.food_id WHERE f.dataset_id = ?', [id]);
+    await conn.query('DELETE w FROM food_weights w JOIN foods f ON f.id = w.food_id WHERE f.dataset_id = ?', [id]);
     log(`  nutrient amounts 0/${amounts.length}`);
+    // Raw bulk insert: about 260,000 rows, where mysql2's nested-array VALUES ? is the fast path.
     await insertChunks(
       conn,
       'INSERT INTO food_nutrients (food_id, nutrient_key, amount) VALUES ?',
@@ -127,11 +171,11 @@ export async function importDataset(
         if (n % 50_000 < CHUNK || n === amounts.length) log(`  nutrient amounts ${n}/${amounts.length}`);
       },
     );
-    const weightRows = foods.flatMap((f) => f.weights.map((w, i) => [idByCode.get(f.code), i + 1, w.description.slice(0, 200), w.grams]));
-    await insertChunks(conn, 'INSERT INTO food_weights (food_id, seq, description, grams) VALUES ?', weightRows);
+    const weightRows = foods.flatMap((f) => f.weights.map((w, i) => ({ foodId: idByCode.get(f.code)!, seq: i + 1, description: w.description.slice(0, 200), grams: w.grams })));
+    for (let i = 0; i < weightRows.length; i += CHUNK) await db.insert(foodWeights).values(weightRows.slice(i, i + CHUNK));
     log(`  household weights ${weightRows.length}`);
     await conn.commit();
-    return { datasetId, foods: foods.length, amounts: amounts.length, skipped: false };
+    return { datasetId: id, foods: foods.length, amounts: amounts.length, skipped: false };
   } catch (e) {
     await conn.rollback();
     throw e;

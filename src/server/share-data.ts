@@ -1,90 +1,28 @@
 /**
  * The share report of a household over a range of months: a few aggregate queries (harvests,
- * purchases, people, datasets) feeding the pure code of src/lib/shares.ts. Used by the share
- * endpoint, the dashboard and later the monthly e-mail and the planner.
+ * purchases, people, nutrients, datasets) feeding the pure code of src/lib (share-groups.ts,
+ * shares.ts, top-crops.ts, use-totals.ts). Used by the share endpoint, the dashboard and later the
+ * monthly e-mail and the planner.
  *
- * The queries group entries by (month, use, spread, crop, food) and join the food's nutrients,
- * so the rows grow with the variety of what was logged, not with the number of weighings. Grouping
- * by food keeps "unknown" honest: every entry of a group has a value for a nutrient or none does.
+ * The queries group entries by (month, use, spread, crop, food), so the rows grow with the variety
+ * of what was logged, not with the number of weighings. They go through Drizzle's builder and `sql`
+ * templates that name the schema's columns, so a renamed column fails the type check.
  */
-import type { RowDataPacket } from 'mysql2';
+import { and, eq, gte, inArray, isNotNull, isNull, lte, or, sql } from 'drizzle-orm';
 import type { Pool } from 'mysql2/promise';
-import { getPool } from '../db/client';
-import type { Household } from '../db/schema';
-import type { FoodEntry, Use } from '../lib/allocate';
-import { ENTRY_LIMITS, USES } from '../lib/entry-schemas';
-import { addMonths, daysInMonth, monthIndex } from '../lib/months';
+import { getDb, type Db } from '../db/client';
+import { crops, datasets, foodNutrients, foods, harvests, purchases, type Household } from '../db/schema';
+import { ENTRY_LIMITS } from '../lib/entry-schemas';
+import { addMonths, daysInMonth } from '../lib/months';
 import { SHARE_NUTRIENTS, type ShareNutrientKey } from '../lib/nutrients';
 import { needsPerson } from '../lib/people-schemas';
-import { computeShare, topContributors, type CropEntry, type ShareReport } from '../lib/shares';
+import { foodIdsOf, groupEntry, shareGroups, type FoodAmounts, type GroupRow } from '../lib/share-groups';
+import type { DatasetRef, ShareResponse } from '../lib/share-types';
+import { computeShare } from '../lib/shares';
+import { topCrops } from '../lib/top-crops';
+import { useTotals } from '../lib/use-totals';
+import { dbOn } from './db-on';
 import { listPeople, personFields } from './people';
-
-/** How many crops per nutrient the report names (the union over nutrients is returned). */
-export const TOP_CROPS_PER_NUTRIENT = 5;
-
-export interface TopCrop {
-  /** The household's crop, or null for a harvest logged directly against a reference food. */
-  cropId: number | null;
-  foodId: number | null;
-  name: string;
-  /** Amount of each nutrient eaten from this crop in the range; null when its food has no value. */
-  values: Record<ShareNutrientKey, number | null>;
-  /** values ÷ everything home-grown eaten in the range (fraction). */
-  shareOfHome: Record<ShareNutrientKey, number | null>;
-}
-
-export interface UseTotal {
-  use: Use;
-  /** Weight as harvested, g. */
-  grams: number;
-  /** Edible portion, g. */
-  edibleGrams: number;
-  entries: number;
-  /** Energy of the edible portion, kcal; null when none of it has a known value. */
-  energyKcal: number | null;
-}
-
-export interface ShareResponse extends ShareReport<ShareNutrientKey> {
-  topCrops: TopCrop[];
-  /** The harvest dated in the range, by use (not-food crops left out). */
-  uses: UseTotal[];
-  /** People counted for the need (present in some month of the range or not). */
-  peopleCount: number;
-  /** Food composition datasets behind the figures. */
-  datasets: { slug: string; name: string; release: string }[];
-}
-
-interface GroupRow extends RowDataPacket {
-  month: string;
-  use: Use;
-  spread: number;
-  crop_id: number | null;
-  food_id: number | null;
-  name: string | null;
-  grams: number;
-  edible_grams: number;
-  entries: number;
-}
-
-/** Amount per 100 g of each share nutrient, by food id; a missing key is unknown, never zero. */
-type FoodAmounts = Map<number, Partial<Record<ShareNutrientKey, number>>>;
-
-interface Group {
-  key: string;
-  source: 'home' | 'bought';
-  month: string;
-  use: Use;
-  spread: number;
-  cropId: number | null;
-  foodId: number | null;
-  name: string;
-  grams: number;
-  edibleGrams: number;
-  entries: number;
-  nutrients: Partial<Record<ShareNutrientKey, number>>;
-}
-
-const KEYS: readonly ShareNutrientKey[] = SHARE_NUTRIENTS;
 
 function lastDay(month: string): string {
   return `${month}-${String(daysInMonth(month)).padStart(2, '0')}`;
@@ -93,214 +31,129 @@ function lastDay(month: string): string {
 /** 'YYYY-MM' → 'YYYYMM', the period format of MariaDB's PERIOD_DIFF. */
 const period = (month: string) => month.replace('-', '');
 
+/** First day of the earliest month whose stored or bought food can still be eaten in `from`. */
+const lookback = (from: string) => `${addMonths(from, -ENTRY_LIMITS.maxSpreadMonths)}-01`;
+
 /**
  * Harvest groups whose eating can fall in [from, to] or that are dated in it: dated in the range,
  * or stored/preserved earlier with a spread reaching `from`. Not-food crops never count as food.
  */
-async function harvestGroups(pool: Pool, householdId: number, from: string, to: string): Promise<GroupRow[]> {
-  const lookback = `${addMonths(from, -ENTRY_LIMITS.maxSpreadMonths)}-01`;
-  const [rows] = await pool.query<GroupRow[]>(
-    `SELECT g.month, g.use, g.spread, g.crop_id, g.food_id, g.name, g.grams, g.edible_grams, g.entries
-       FROM (SELECT DATE_FORMAT(h.date, '%Y-%m') AS month, h.use, GREATEST(h.spread_months, 1) AS spread,
-                    h.crop_id, h.food_id,
-                    MAX(COALESCE(NULLIF(CONCAT_WS(', ', c.name, NULLIF(c.variety, '')), ''), f.name)) AS name,
-                    SUM(h.grams) AS grams, SUM(h.edible_grams) AS edible_grams, COUNT(*) AS entries
-               FROM harvests h
-               LEFT JOIN crops c ON c.id = h.crop_id AND c.household_id = h.household_id
-               LEFT JOIN foods f ON f.id = h.food_id
-              WHERE h.household_id = ?
-                AND h.date >= ? AND h.date <= ?
-                AND (c.id IS NULL OR c.not_food = 0)
-                AND (h.crop_id IS NULL OR c.id IS NOT NULL)
-                AND (h.date >= ?
-                     OR (h.use IN ('stored', 'preserved') AND PERIOD_DIFF(?, DATE_FORMAT(h.date, '%Y%m')) < h.spread_months))
-              GROUP BY month, h.use, spread, h.crop_id, h.food_id) g`,
-    [householdId, lookback, lastDay(to), `${from}-01`, period(from)],
-  );
-  return rows;
+async function harvestGroups(db: Db, householdId: number, from: string, to: string): Promise<GroupRow[]> {
+  const month = sql<string>`DATE_FORMAT(${harvests.date}, '%Y-%m')`;
+  const spread = sql<number>`GREATEST(${harvests.spreadMonths}, 1)`.mapWith(Number);
+  return db
+    .select({
+      month,
+      use: harvests.use,
+      spread,
+      cropId: harvests.cropId,
+      foodId: harvests.foodId,
+      name: sql<string | null>`MAX(COALESCE(NULLIF(CONCAT_WS(', ', ${crops.name}, NULLIF(${crops.variety}, '')), ''), ${foods.name}))`,
+      grams: sql<number>`SUM(${harvests.grams})`.mapWith(Number),
+      edibleGrams: sql<number>`SUM(${harvests.edibleGrams})`.mapWith(Number),
+      entries: sql<number>`COUNT(*)`.mapWith(Number),
+    })
+    .from(harvests)
+    .leftJoin(crops, and(eq(crops.id, harvests.cropId), eq(crops.householdId, harvests.householdId)))
+    .leftJoin(foods, eq(foods.id, harvests.foodId))
+    .where(
+      and(
+        eq(harvests.householdId, householdId),
+        gte(harvests.date, lookback(from)),
+        lte(harvests.date, lastDay(to)),
+        or(isNull(crops.id), eq(crops.notFood, false)),
+        or(isNull(harvests.cropId), isNotNull(crops.id)),
+        or(
+          gte(harvests.date, `${from}-01`),
+          and(
+            inArray(harvests.use, ['stored', 'preserved']),
+            sql`PERIOD_DIFF(${period(from)}, DATE_FORMAT(${harvests.date}, '%Y%m')) < ${harvests.spreadMonths}`,
+          ),
+        ),
+      ),
+    )
+    .groupBy(month, harvests.use, spread, harvests.cropId, harvests.foodId);
 }
 
 /** Purchase groups whose eating can fall in [from, to] (bought food is always spread). */
-async function purchaseGroups(pool: Pool, householdId: number, from: string, to: string): Promise<GroupRow[]> {
-  const lookback = `${addMonths(from, -ENTRY_LIMITS.maxSpreadMonths)}-01`;
-  const [rows] = await pool.query<GroupRow[]>(
-    `SELECT g.month, 'fresh' AS \`use\`, g.spread, NULL AS crop_id, g.food_id, NULL AS name, g.grams, g.edible_grams,
-            g.entries
-       FROM (SELECT DATE_FORMAT(p.date, '%Y-%m') AS month, GREATEST(p.spread_months, 1) AS spread, p.food_id,
-                    SUM(p.grams) AS grams, SUM(p.edible_grams) AS edible_grams, COUNT(*) AS entries
-               FROM purchases p
-              WHERE p.household_id = ?
-                AND p.date >= ? AND p.date <= ?
-                AND (p.date >= ? OR PERIOD_DIFF(?, DATE_FORMAT(p.date, '%Y%m')) < p.spread_months)
-              GROUP BY month, spread, p.food_id) g`,
-    [householdId, lookback, lastDay(to), `${from}-01`, period(from)],
-  );
-  return rows;
+async function purchaseGroups(db: Db, householdId: number, from: string, to: string): Promise<GroupRow[]> {
+  const month = sql<string>`DATE_FORMAT(${purchases.date}, '%Y-%m')`;
+  const spread = sql<number>`GREATEST(${purchases.spreadMonths}, 1)`.mapWith(Number);
+  const rows = await db
+    .select({
+      month,
+      spread,
+      foodId: purchases.foodId,
+      grams: sql<number>`SUM(${purchases.grams})`.mapWith(Number),
+      edibleGrams: sql<number>`SUM(${purchases.edibleGrams})`.mapWith(Number),
+      entries: sql<number>`COUNT(*)`.mapWith(Number),
+    })
+    .from(purchases)
+    .where(
+      and(
+        eq(purchases.householdId, householdId),
+        gte(purchases.date, lookback(from)),
+        lte(purchases.date, lastDay(to)),
+        or(gte(purchases.date, `${from}-01`), sql`PERIOD_DIFF(${period(from)}, DATE_FORMAT(${purchases.date}, '%Y%m')) < ${purchases.spreadMonths}`),
+      ),
+    )
+    .groupBy(month, spread, purchases.foodId);
+  return rows.map((r) => ({ month: r.month, use: 'fresh', spread: r.spread, cropId: null, foodId: r.foodId, name: null, grams: r.grams, edibleGrams: r.edibleGrams, entries: r.entries }));
 }
 
 /**
  * The share nutrients of the foods behind the groups, in one query over the distinct foods
  * (a handful), instead of joining every group to its nutrients in SQL.
  */
-async function foodAmounts(pool: Pool, foodIds: readonly number[]): Promise<FoodAmounts> {
+async function foodAmounts(db: Db, foodIds: readonly number[]): Promise<FoodAmounts> {
   const out: FoodAmounts = new Map();
   if (foodIds.length === 0) return out;
-  const [rows] = await pool.query<RowDataPacket[]>(
-    'SELECT food_id, nutrient_key, amount FROM food_nutrients WHERE food_id IN (?) AND nutrient_key IN (?)',
-    [foodIds, KEYS],
-  );
+  const rows = await db
+    .select({ foodId: foodNutrients.foodId, key: foodNutrients.nutrientKey, amount: foodNutrients.amount })
+    .from(foodNutrients)
+    .where(and(inArray(foodNutrients.foodId, [...foodIds]), inArray(foodNutrients.nutrientKey, [...SHARE_NUTRIENTS])));
   for (const r of rows) {
-    const id = Number(r.food_id);
-    let m = out.get(id);
-    if (!m) out.set(id, (m = {}));
-    m[r.nutrient_key as ShareNutrientKey] = Number(r.amount);
+    let m = out.get(r.foodId);
+    if (!m) out.set(r.foodId, (m = {}));
+    m[r.key as ShareNutrientKey] = Number(r.amount);
   }
   return out;
 }
 
-/** Group rows → groups with the nutrients of their edible grams. */
-function collect(rows: readonly GroupRow[], source: 'home' | 'bought', amounts: FoodAmounts, into: Map<string, Group>): void {
-  for (const r of rows) {
-    const key = `${source}|${r.month}|${r.use}|${r.spread}|${r.crop_id ?? ''}|${r.food_id ?? ''}`;
-    let g = into.get(key);
-    if (!g) {
-      g = {
-        key,
-        source,
-        month: r.month,
-        use: r.use,
-        spread: Number(r.spread),
-        cropId: r.crop_id,
-        foodId: r.food_id,
-        name: r.name ?? '',
-        grams: Number(r.grams),
-        edibleGrams: Number(r.edible_grams),
-        entries: Number(r.entries),
-        nutrients: {},
-      };
-      into.set(key, g);
-    }
-    // A nutrient the food has no row for stays missing: unknown, never zero.
-    const per100g = r.food_id == null ? undefined : amounts.get(r.food_id);
-    for (const key of KEYS) {
-      const a = per100g?.[key];
-      if (a !== undefined) g.nutrients[key] = (g.edibleGrams * a) / 100;
-    }
-  }
-}
-
-function toEntry(g: Group): CropEntry {
-  return {
-    date: `${g.month}-01`, // only the month matters: eating and the ratio both go by month
-    use: g.use,
-    source: g.source,
-    spreadMonths: g.spread,
-    edibleGrams: g.edibleGrams,
-    nutrients: g.nutrients,
-    cropId: g.cropId ?? `food:${g.foodId ?? 'none'}`,
-    name: g.name || 'Unnamed harvest',
-  };
-}
-
-function topCrops(groups: readonly Group[], from: string, to: string): TopCrop[] {
-  const entries = groups.filter((g) => g.source === 'home').map(toEntry);
-  const crops = new Map<string | number, TopCrop>();
-  const chosen = new Set<string | number>();
-  for (const key of KEYS) {
-    const ranked = topContributors(entries, key, entries.length, { from, to });
-    ranked.forEach((c, i) => {
-      let crop = crops.get(c.cropId);
-      if (!crop) {
-        const g = groups.find((x) => x.source === 'home' && (x.cropId ?? `food:${x.foodId ?? 'none'}`) === c.cropId)!;
-        crop = { cropId: g.cropId, foodId: g.foodId, name: c.name, values: emptyValues(), shareOfHome: emptyValues() };
-        crops.set(c.cropId, crop);
-      }
-      crop.values[key] = c.amount;
-      crop.shareOfHome[key] = c.shareOfHome;
-      if (i < TOP_CROPS_PER_NUTRIENT) chosen.add(c.cropId);
-    });
-  }
-  // A crop eaten in the range whose food has no value for a nutrient: unknown, not 0.
-  const start = monthIndex(from);
-  const end = monthIndex(to);
-  for (const e of entries) {
-    const crop = crops.get(e.cropId);
-    if (!crop) continue;
-    const first = monthIndex(e.date.slice(0, 7));
-    const last = first + (e.use === 'fresh' ? 1 : e.spreadMonths) - 1;
-    const eatenInRange = (e.use === 'fresh' || e.use === 'stored' || e.use === 'preserved') && last >= start && first <= end;
-    if (!eatenInRange) continue;
-    for (const key of KEYS) {
-      if (e.nutrients[key] == null && crop.values[key] === 0) {
-        crop.values[key] = null;
-        crop.shareOfHome[key] = null;
-      }
-    }
-  }
-  return [...crops.entries()]
-    .filter(([id]) => chosen.has(id))
-    .map(([, c]) => c)
-    .sort((a, b) => (b.values.energy_kcal ?? 0) - (a.values.energy_kcal ?? 0) || a.name.localeCompare(b.name));
-}
-
-function emptyValues(): Record<ShareNutrientKey, number | null> {
-  const out = {} as Record<ShareNutrientKey, number | null>;
-  for (const key of KEYS) out[key] = 0;
-  return out;
-}
-
-function useTotals(groups: readonly Group[], from: string, to: string): UseTotal[] {
-  const totals = new Map<Use, UseTotal & { known: number }>();
-  for (const use of USES) totals.set(use, { use, grams: 0, edibleGrams: 0, entries: 0, energyKcal: 0, known: 0 });
-  for (const g of groups) {
-    if (g.source !== 'home' || g.month < from || g.month > to) continue;
-    const t = totals.get(g.use)!;
-    t.grams += g.grams;
-    t.edibleGrams += g.edibleGrams;
-    t.entries += g.entries;
-    const kcal = g.nutrients.energy_kcal;
-    if (kcal != null) {
-      t.energyKcal = (t.energyKcal ?? 0) + kcal;
-      t.known += g.edibleGrams;
-    }
-  }
-  return [...totals.values()].map(({ known, ...t }) => ({ ...t, energyKcal: known === 0 && t.edibleGrams > 0 ? null : t.energyKcal }));
-}
-
-async function datasetsOf(pool: Pool, foodIds: number[]): Promise<ShareResponse['datasets']> {
+/** The food composition datasets the foods come from, by slug. */
+async function datasetsOf(db: Db, foodIds: readonly number[]): Promise<DatasetRef[]> {
   if (foodIds.length === 0) return [];
-  const [rows] = await pool.query<RowDataPacket[]>(
-    `SELECT DISTINCT d.slug, d.name, d.release FROM foods f JOIN datasets d ON d.id = f.dataset_id WHERE f.id IN (?) ORDER BY d.slug`,
-    [foodIds],
-  );
-  return rows.map((r) => ({ slug: String(r.slug), name: String(r.name), release: String(r.release) }));
+  return db
+    .selectDistinct({ slug: datasets.slug, name: datasets.name, release: datasets.release })
+    .from(foods)
+    .innerJoin(datasets, eq(datasets.id, foods.datasetId))
+    .where(inArray(foods.id, [...foodIds]))
+    .orderBy(datasets.slug);
 }
 
 /**
  * The share report of a household for [from, to] ('YYYY-MM', at most 120 months): per month and
  * nutrient home, bought, need and shares, totals, the FAO ratio, top crops and the harvest's uses.
+ * `pool` is for callers with their own pool (the benchmark); the app's shared client otherwise.
  * Throws RangeError when the range or a person's data cannot be computed.
  */
-export async function householdShare(household: Pick<Household, 'id'>, from: string, to: string, pool: Pool = getPool()): Promise<ShareResponse> {
+export async function householdShare(household: Pick<Household, 'id'>, from: string, to: string, pool?: Pool): Promise<ShareResponse> {
+  const db = pool ? dbOn(pool) : getDb();
   const [home, bought, rows] = await Promise.all([
-    harvestGroups(pool, household.id, from, to),
-    purchaseGroups(pool, household.id, from, to),
+    harvestGroups(db, household.id, from, to),
+    purchaseGroups(db, household.id, from, to),
     listPeople(household.id),
   ]);
-  const ids = [...new Set([...home, ...bought].map((r) => r.food_id).filter((id): id is number => id != null))];
-  const amounts = await foodAmounts(pool, ids);
-  const groups = new Map<string, Group>();
-  collect(home, 'home', amounts, groups);
-  collect(bought, 'bought', amounts, groups);
-  const all = [...groups.values()];
+  const ids = foodIdsOf([...home, ...bought]);
+  const [amounts, sources] = await Promise.all([foodAmounts(db, ids), datasetsOf(db, ids)]);
+  const groups = shareGroups(home, bought, amounts);
   const people = rows.map((r) => needsPerson(personFields(r)));
-  const report = computeShare({ from, to, entries: all.map(toEntry), people, nutrients: KEYS });
-  const foodIds = [...new Set(all.map((g) => g.foodId).filter((id): id is number => id != null))];
+  const report = computeShare({ from, to, entries: groups.map(groupEntry), people, nutrients: SHARE_NUTRIENTS });
   return {
     ...report,
-    topCrops: topCrops(all, from, to),
-    uses: useTotals(all, from, to),
+    topCrops: topCrops(groups, from, to),
+    uses: useTotals(groups, from, to),
     peopleCount: people.length,
-    datasets: await datasetsOf(pool, foodIds),
+    datasets: sources,
   };
 }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { nutrientsOf, type FoodEntry } from '../../src/lib/allocate';
-import { computeShare, topContributors, type CropEntry } from '../../src/lib/shares';
+import { computeShare, knownSum, topContributors, type CropEntry } from '../../src/lib/shares';
 
 // Edible portion as the product brief defines it: grams as harvested × (1 − refuse/100).
 const edible = (grams: number, refusePct: number) => grams * (1 - refusePct / 100);
@@ -158,5 +158,13 @@ describe('top contributors', () => {
     const entries = [asCrop(harvest(BUTTERNUT, 1000, { date: '2026-11-01', use: 'stored', spreadMonths: 4 }), 2, 'Butternut')];
     const top = topContributors(entries, 'energy_kcal', 3, { from: '2027-01', to: '2027-12' });
     expect(top[0]!.amount).toBe(189); // Jan + Feb: 2 × 378 ÷ 4
+  });
+});
+
+describe('known sums', () => {
+  it('is unknown only when every gram behind the sum is of unknown value', () => {
+    expect(knownSum(0, 0, 250)).toBeNull();
+    expect(knownSum(0, 0, 0)).toBe(0); // no food at all is a known 0
+    expect(knownSum(90, 100, 250)).toBe(90);
   });
 });

@@ -1,5 +1,5 @@
 /** Where the period's harvest went: eaten fresh, stored, preserved, seed, given, sold, lost. */
-import type { ShareResponse } from '../../server/share-data';
+import type { ShareResponse } from '../../lib/share-types';
 import { USE_LABELS } from '../../lib/entry-schemas';
 import { formatWeight, type UnitSystem } from '../../lib/units';
 import { percentText } from '../../lib/share-scale';

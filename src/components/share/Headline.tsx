@@ -1,5 +1,5 @@
 /** The two big numbers: home share of energy and of protein over the period, with need coverage beside. */
-import type { ShareResponse } from '../../server/share-data';
+import type { ShareResponse } from '../../lib/share-types';
 import { percentText } from '../../lib/share-scale';
 import { amountText } from './format';
 

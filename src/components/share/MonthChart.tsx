@@ -18,7 +18,7 @@ import {
 } from 'chart.js';
 import { useId, useState } from 'react';
 import { Chart } from 'react-chartjs-2';
-import type { ShareResponse } from '../../server/share-data';
+import type { ShareResponse } from '../../lib/share-types';
 import { percentText } from '../../lib/share-scale';
 import { amountText, longMonth, shortMonth } from './format';
 

@@ -5,7 +5,7 @@
  */
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
 import { useEffect, useState } from 'react';
-import type { ShareResponse } from '../../server/share-data';
+import type { ShareResponse } from '../../lib/share-types';
 import { get } from '../entries/api';
 import { QueryProvider } from '../entries/QueryProvider';
 import type { UnitSystem } from '../../lib/units';

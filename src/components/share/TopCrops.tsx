@@ -1,5 +1,5 @@
 /** The crops that supplied most of each nutrient the household ate in the period. */
-import type { ShareResponse } from '../../server/share-data';
+import type { ShareResponse } from '../../lib/share-types';
 import { percentText } from '../../lib/share-scale';
 import { amountText } from './format';
 
