@@ -3,17 +3,18 @@
  * totals in the household's units; inline edit and delete with confirmation. The table itself is
  * EntriesTable; this file brings the harvest log's columns, filters, edit row and words.
  */
-import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { useState, type FormEvent } from 'react';
-import { harvestPatch, USE_LABELS, USES, zodErrorBody, type Use } from '../../lib/entry-schemas';
+import { useQuery } from '@tanstack/react-query';
+import { useState } from 'react';
+import { harvestPatch, USE_LABELS, USES, type Use } from '../../lib/entry-schemas';
 import { formatWeight, WEIGHT_UNITS, type UnitSystem, type WeightUnit } from '../../lib/units';
-import { canWrite, get, keys, request, urls, ApiError, type Crop, type Harvest, type HarvestPage, type HouseholdInfo } from './api';
+import { canWrite, get, keys, urls, type Crop, type Harvest, type HarvestPage, type HouseholdInfo } from './api';
+import { EditRowShell, useEntryPatch } from './EditEntryRow';
 import { EntriesTable, entryColumns, type EntryColumn } from './EntriesTable';
 import { formatDay, monthRange } from './local-date';
 import { QueryProvider } from './QueryProvider';
 import { formatQuantity, parseDecimal, trimNumber } from './quantity-text';
 import { stack } from './table-bits';
-import { ErrorText, invalidProps, splitUseLabel, type Errors } from './ui';
+import { ErrorText, invalidProps, splitUseLabel } from './ui';
 
 export default function HarvestTable(props: { household: HouseholdInfo }) {
   return (
@@ -156,103 +157,71 @@ function HarvestTableInner({ household }: { household: HouseholdInfo }) {
 }
 
 function HarvestEditRow({ entry: harvest, colSpan, household, onDone }: { entry: Harvest; colSpan: number; household: HouseholdInfo; onDone: () => void }) {
-  const qc = useQueryClient();
-  const api = urls(household.id);
   const [quantity, setQuantity] = useState(trimNumber(harvest.quantity, 3));
   const [unit, setUnit] = useState<WeightUnit>(harvest.unit);
   const [use, setUse] = useState<Use>(harvest.use);
   const [date, setDate] = useState(harvest.date);
   const [note, setNote] = useState(harvest.note ?? '');
-  const [errors, setErrors] = useState<Errors>({});
+  const { errors, send, saving } = useEntryPatch(harvestPatch, urls(household.id).harvest(harvest.id), [keys.harvests(household.id), keys.allCrops(household.id)], onDone);
   const p = `edit-${harvest.id}`;
 
-  const save = useMutation({
-    mutationFn: (body: unknown) => request<{ harvest: Harvest }>('PATCH', api.harvest(harvest.id), body),
-    onSuccess: () => {
-      void qc.invalidateQueries({ queryKey: keys.harvests(household.id) });
-      void qc.invalidateQueries({ queryKey: keys.allCrops(household.id) });
-      onDone();
-    },
-    onError: (e) => setErrors(e instanceof ApiError && Object.keys(e.fields).length ? e.fields : { _form: (e as Error).message }),
-  });
-
-  function submit(e: FormEvent) {
-    e.preventDefault();
-    const r = harvestPatch.safeParse({ quantity: parseDecimal(quantity), unit, use, date, note });
-    if (!r.success) {
-      setErrors(zodErrorBody(r.error).fields);
-      return;
-    }
-    setErrors({});
-    save.mutate(r.data);
-  }
-
   return (
-    <tr className="border-b border-loam-200 bg-rind-100/50 max-sm:block">
-      <td colSpan={colSpan} className="px-3 py-3 max-sm:block">
-        <form onSubmit={submit} noValidate aria-label={`Edit ${harvest.cropName ?? 'harvest'} of ${harvest.date}`} className="grid gap-3 sm:grid-cols-5 sm:items-start">
-          <p className="font-bold sm:col-span-5">Editing {harvest.cropName ?? harvest.foodName}</p>
-          <div>
-            <label htmlFor={`${p}-quantity`} className="block text-sm font-semibold">
-              Quantity
-            </label>
-            <input {...invalidProps(`${p}-quantity`, errors.quantity)} type="text" inputMode="decimal" className="field mt-1 text-right tabular-nums" value={quantity} onChange={(e) => setQuantity(e.target.value)} />
-            <ErrorText id={`${p}-quantity`} error={errors.quantity} />
-          </div>
-          <div>
-            <label htmlFor={`${p}-unit`} className="block text-sm font-semibold">
-              Unit
-            </label>
-            <select id={`${p}-unit`} className="field mt-1" value={unit} onChange={(e) => setUnit(e.target.value as WeightUnit)}>
-              {WEIGHT_UNITS.map((u) => (
-                <option key={u} value={u}>
-                  {u}
-                </option>
-              ))}
-            </select>
-          </div>
-          <div>
-            <label htmlFor={`${p}-use`} className="block text-sm font-semibold">
-              Use
-            </label>
-            <select {...invalidProps(`${p}-use`, errors.use)} className="field mt-1" value={use} onChange={(e) => setUse(e.target.value as Use)}>
-              {USES.map((u) => (
-                <option key={u} value={u}>
-                  {USE_LABELS[u]}
-                </option>
-              ))}
-            </select>
-            <ErrorText id={`${p}-use`} error={errors.use} />
-          </div>
-          <div>
-            <label htmlFor={`${p}-date`} className="block text-sm font-semibold">
-              Date
-            </label>
-            <input {...invalidProps(`${p}-date`, errors.date)} type="date" className="field mt-1" value={date} onChange={(e) => setDate(e.target.value)} />
-            <ErrorText id={`${p}-date`} error={errors.date} />
-          </div>
-          <div>
-            <label htmlFor={`${p}-note`} className="block text-sm font-semibold">
-              Note
-            </label>
-            <input {...invalidProps(`${p}-note`, errors.note)} type="text" className="field mt-1" maxLength={500} value={note} onChange={(e) => setNote(e.target.value)} />
-            <ErrorText id={`${p}-note`} error={errors.note} />
-          </div>
-          <div className="flex flex-wrap gap-2 sm:col-span-5">
-            <button type="submit" className="btn-primary" disabled={save.isPending}>
-              {save.isPending ? 'Saving…' : 'Save changes'}
-            </button>
-            <button type="button" className="btn-quiet" onClick={onDone}>
-              Cancel
-            </button>
-          </div>
-          {errors._form || errors.spreadMonths || errors.cropId ? (
-            <p role="alert" className="font-semibold text-berry-700 sm:col-span-5">
-              {errors._form ?? errors.spreadMonths ?? errors.cropId}
-            </p>
-          ) : null}
-        </form>
-      </td>
-    </tr>
+    <EditRowShell
+      colSpan={colSpan}
+      label={`Edit ${harvest.cropName ?? 'harvest'} of ${harvest.date}`}
+      title={`Editing ${harvest.cropName ?? harvest.foodName}`}
+      layout={{ grid: 'sm:grid-cols-5', span: 'sm:col-span-5' }}
+      saving={saving}
+      formError={errors._form ?? errors.spreadMonths ?? errors.cropId}
+      onSubmit={() => send({ quantity: parseDecimal(quantity), unit, use, date, note })}
+      onCancel={onDone}
+    >
+      <div>
+        <label htmlFor={`${p}-quantity`} className="block text-sm font-semibold">
+          Quantity
+        </label>
+        <input {...invalidProps(`${p}-quantity`, errors.quantity)} type="text" inputMode="decimal" className="field mt-1 text-right tabular-nums" value={quantity} onChange={(e) => setQuantity(e.target.value)} />
+        <ErrorText id={`${p}-quantity`} error={errors.quantity} />
+      </div>
+      <div>
+        <label htmlFor={`${p}-unit`} className="block text-sm font-semibold">
+          Unit
+        </label>
+        <select id={`${p}-unit`} className="field mt-1" value={unit} onChange={(e) => setUnit(e.target.value as WeightUnit)}>
+          {WEIGHT_UNITS.map((u) => (
+            <option key={u} value={u}>
+              {u}
+            </option>
+          ))}
+        </select>
+      </div>
+      <div>
+        <label htmlFor={`${p}-use`} className="block text-sm font-semibold">
+          Use
+        </label>
+        <select {...invalidProps(`${p}-use`, errors.use)} className="field mt-1" value={use} onChange={(e) => setUse(e.target.value as Use)}>
+          {USES.map((u) => (
+            <option key={u} value={u}>
+              {USE_LABELS[u]}
+            </option>
+          ))}
+        </select>
+        <ErrorText id={`${p}-use`} error={errors.use} />
+      </div>
+      <div>
+        <label htmlFor={`${p}-date`} className="block text-sm font-semibold">
+          Date
+        </label>
+        <input {...invalidProps(`${p}-date`, errors.date)} type="date" className="field mt-1" value={date} onChange={(e) => setDate(e.target.value)} />
+        <ErrorText id={`${p}-date`} error={errors.date} />
+      </div>
+      <div>
+        <label htmlFor={`${p}-note`} className="block text-sm font-semibold">
+          Note
+        </label>
+        <input {...invalidProps(`${p}-note`, errors.note)} type="text" className="field mt-1" maxLength={500} value={note} onChange={(e) => setNote(e.target.value)} />
+        <ErrorText id={`${p}-note`} error={errors.note} />
+      </div>
+    </EditRowShell>
   );
 }

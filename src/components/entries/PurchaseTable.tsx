@@ -3,17 +3,17 @@
  * household's units, inline edit and delete with confirmation. The table itself is EntriesTable;
  * this file brings the bought-food columns, filters, edit row and words.
  */
-import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { useState, type FormEvent, type ReactNode } from 'react';
-import { purchasePatch, zodErrorBody } from '../../lib/entry-schemas';
+import { useState, type ReactNode } from 'react';
+import { purchasePatch } from '../../lib/entry-schemas';
 import { formatWeight, WEIGHT_UNITS, type UnitSystem, type WeightUnit } from '../../lib/units';
-import { ApiError, get, keys, request, urls, type HouseholdInfo, type Purchase, type PurchasePage } from './api';
+import { get, keys, urls, type HouseholdInfo, type Purchase, type PurchasePage } from './api';
+import { EditRowShell, useEntryPatch } from './EditEntryRow';
 import { EntriesTable, entryColumns, type EntryColumn } from './EntriesTable';
 import { FoodPicker, type FoodChoice } from './FoodPicker';
 import { formatDay, monthRange } from './local-date';
 import { formatQuantity, parseDecimal, trimNumber } from './quantity-text';
 import { stack } from './table-bits';
-import { ErrorText, invalidProps, type Errors } from './ui';
+import { ErrorText, invalidProps } from './ui';
 
 /** "3.49 EUR", or empty. */
 export function formatPrice(price: Purchase['price'], currency: string | null): string {
@@ -132,8 +132,6 @@ export function PurchaseTable({ household, writer }: { household: HouseholdInfo;
 }
 
 function PurchaseEditRow({ entry: purchase, colSpan, household, onDone }: { entry: Purchase; colSpan: number; household: HouseholdInfo; onDone: () => void }) {
-  const qc = useQueryClient();
-  const api = urls(household.id);
   const [quantity, setQuantity] = useState(trimNumber(purchase.quantity, 3));
   const [unit, setUnit] = useState<WeightUnit>(purchase.unit);
   const [price, setPrice] = useState(purchase.price == null ? '' : String(Number(purchase.price)));
@@ -141,33 +139,8 @@ function PurchaseEditRow({ entry: purchase, colSpan, household, onDone }: { entr
   const [date, setDate] = useState(purchase.date);
   const [spread, setSpread] = useState(String(purchase.spreadMonths));
   const [note, setNote] = useState(purchase.note ?? '');
-  const [errors, setErrors] = useState<Errors>({});
+  const { errors, send, saving } = useEntryPatch(purchasePatch, urls(household.id).purchase(purchase.id), [keys.purchases(household.id)], onDone);
   const p = `pedit-${purchase.id}`;
-  const save = useMutation({
-    mutationFn: (body: unknown) => request<{ purchase: Purchase }>('PATCH', api.purchase(purchase.id), body),
-    onSuccess: () => {
-      void qc.invalidateQueries({ queryKey: keys.purchases(household.id) });
-      onDone();
-    },
-    onError: (e) => setErrors(e instanceof ApiError && Object.keys(e.fields).length ? e.fields : { _form: (e as Error).message }),
-  });
-
-  function submit(e: FormEvent) {
-    e.preventDefault();
-    const priceN = parseDecimal(price);
-    const r = purchasePatch.safeParse({
-      quantity: parseDecimal(quantity),
-      unit,
-      price: priceN ?? null,
-      currency: currency.trim() === '' ? null : currency,
-      date,
-      spreadMonths: parseDecimal(spread),
-      note,
-    });
-    if (!r.success) return setErrors(zodErrorBody(r.error).fields);
-    setErrors({});
-    save.mutate(r.data);
-  }
 
   const field = (key: string, label: string, input: ReactNode) => (
     <div>
@@ -180,42 +153,43 @@ function PurchaseEditRow({ entry: purchase, colSpan, household, onDone }: { entr
   );
 
   return (
-    <tr className="border-b border-loam-200 bg-rind-100/50 max-sm:block">
-      <td colSpan={colSpan} className="px-3 py-3 max-sm:block">
-        <form onSubmit={submit} noValidate aria-label={`Edit ${purchase.foodName} of ${purchase.date}`} className="grid gap-3 sm:grid-cols-4 sm:items-start">
-          <p className="font-bold sm:col-span-4">Editing {purchase.foodName}</p>
-          {field('quantity', 'Quantity', <input {...invalidProps(`${p}-quantity`, errors.quantity)} type="text" inputMode="decimal" className="field mt-1 text-right" value={quantity} onChange={(e) => setQuantity(e.target.value)} />)}
-          {field(
-            'unit',
-            'Unit',
-            <select id={`${p}-unit`} className="field mt-1" value={unit} onChange={(e) => setUnit(e.target.value as WeightUnit)}>
-              {WEIGHT_UNITS.map((u) => (
-                <option key={u}>{u}</option>
-              ))}
-            </select>,
-          )}
-          {field('price', 'Price', <input {...invalidProps(`${p}-price`, errors.price)} type="text" inputMode="decimal" className="field mt-1 text-right" value={price} onChange={(e) => setPrice(e.target.value)} />)}
-          {field('currency', 'Currency', <input {...invalidProps(`${p}-currency`, errors.currency)} type="text" maxLength={3} className="field mt-1 uppercase" value={currency} onChange={(e) => setCurrency(e.target.value.toUpperCase())} />)}
-          {field('date', 'Date', <input {...invalidProps(`${p}-date`, errors.date)} type="date" className="field mt-1" value={date} onChange={(e) => setDate(e.target.value)} />)}
-          {field('spreadMonths', 'Eaten over (months)', <input {...invalidProps(`${p}-spreadMonths`, errors.spreadMonths)} type="text" inputMode="numeric" className="field mt-1" value={spread} onChange={(e) => setSpread(e.target.value)} />)}
-          <div className="sm:col-span-2">
-            {field('note', 'Note', <input {...invalidProps(`${p}-note`, errors.note)} type="text" maxLength={500} className="field mt-1" value={note} onChange={(e) => setNote(e.target.value)} />)}
-          </div>
-          <div className="flex flex-wrap gap-2 sm:col-span-4">
-            <button type="submit" className="btn-primary" disabled={save.isPending}>
-              {save.isPending ? 'Saving…' : 'Save changes'}
-            </button>
-            <button type="button" className="btn-quiet" onClick={onDone}>
-              Cancel
-            </button>
-          </div>
-          {errors._form ? (
-            <p role="alert" className="font-semibold text-berry-700 sm:col-span-4">
-              {errors._form}
-            </p>
-          ) : null}
-        </form>
-      </td>
-    </tr>
+    <EditRowShell
+      colSpan={colSpan}
+      label={`Edit ${purchase.foodName} of ${purchase.date}`}
+      title={`Editing ${purchase.foodName}`}
+      layout={{ grid: 'sm:grid-cols-4', span: 'sm:col-span-4' }}
+      saving={saving}
+      formError={errors._form}
+      onSubmit={() =>
+        send({
+          quantity: parseDecimal(quantity),
+          unit,
+          price: parseDecimal(price) ?? null,
+          currency: currency.trim() === '' ? null : currency,
+          date,
+          spreadMonths: parseDecimal(spread),
+          note,
+        })
+      }
+      onCancel={onDone}
+    >
+      {field('quantity', 'Quantity', <input {...invalidProps(`${p}-quantity`, errors.quantity)} type="text" inputMode="decimal" className="field mt-1 text-right" value={quantity} onChange={(e) => setQuantity(e.target.value)} />)}
+      {field(
+        'unit',
+        'Unit',
+        <select id={`${p}-unit`} className="field mt-1" value={unit} onChange={(e) => setUnit(e.target.value as WeightUnit)}>
+          {WEIGHT_UNITS.map((u) => (
+            <option key={u}>{u}</option>
+          ))}
+        </select>,
+      )}
+      {field('price', 'Price', <input {...invalidProps(`${p}-price`, errors.price)} type="text" inputMode="decimal" className="field mt-1 text-right" value={price} onChange={(e) => setPrice(e.target.value)} />)}
+      {field('currency', 'Currency', <input {...invalidProps(`${p}-currency`, errors.currency)} type="text" maxLength={3} className="field mt-1 uppercase" value={currency} onChange={(e) => setCurrency(e.target.value.toUpperCase())} />)}
+      {field('date', 'Date', <input {...invalidProps(`${p}-date`, errors.date)} type="date" className="field mt-1" value={date} onChange={(e) => setDate(e.target.value)} />)}
+      {field('spreadMonths', 'Eaten over (months)', <input {...invalidProps(`${p}-spreadMonths`, errors.spreadMonths)} type="text" inputMode="numeric" className="field mt-1" value={spread} onChange={(e) => setSpread(e.target.value)} />)}
+      <div className="sm:col-span-2">
+        {field('note', 'Note', <input {...invalidProps(`${p}-note`, errors.note)} type="text" maxLength={500} className="field mt-1" value={note} onChange={(e) => setNote(e.target.value)} />)}
+      </div>
+    </EditRowShell>
   );
 }
