@@ -30,7 +30,7 @@ import { Alert, ConfirmDelete } from './ui';
 export interface EntryColumnMeta {
   /** The API's sort keys when the column sorts, e.g. `{ asc: 'date', desc: '-date' }`. */
   sort?: ColumnSortKeys;
-  /** Numbers: header and cell aligned right. */
+  /** Numbers: the header aligned right (the cell says so in `cellClass`). */
   right?: boolean;
   /** Classes of the body cell, including its place in the phone card (`stack`). */
   cellClass: string;
