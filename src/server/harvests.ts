@@ -4,7 +4,7 @@
  * unit and its crop (or reference food), and again on every change.
  */
 import { randomUUID } from 'node:crypto';
-import { and, asc, desc, eq, gte, inArray, lte, sql, type SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
 import { getDb } from '../db/client';
 import { crops, foods, harvests, type Harvest } from '../db/schema';
 import { defaultSpreadMonths, type CropCategory } from '../lib/crop-categories';
@@ -18,31 +18,17 @@ import {
   type HarvestSplitInput,
   type Use,
 } from '../lib/entry-schemas';
+import type { HarvestJson, HarvestList } from '../lib/entry-types';
 import { toGrams, type WeightUnit } from '../lib/units';
 import { cropDisplayName, cropRow, harvestEdibleGrams, requireFood } from './crops';
 import { HttpError } from './http';
 import { fieldError, invalidInput, type Executor, type Tx } from './entry-input';
-import { countAndTotals, entryOrdering, pageOffset, type EntryPage } from './entry-list';
+import { listEntries, type EntryListSpec } from './entry-list';
+import { deleteEntry, updateEntry, type EntryUpdateSpec } from './entry-update';
 
-export interface HarvestJson {
-  id: number;
-  date: string;
-  cropId: number | null;
-  cropName: string | null;
-  foodId: number | null;
-  foodName: string | null;
-  foodCode: string | null;
-  quantity: number;
-  unit: WeightUnit;
-  grams: number;
-  edibleGrams: number;
-  use: Use;
-  spreadMonths: number;
-  trimmed: boolean;
-  note: string | null;
-  splitGroup: string | null;
-  createdAt: string;
-}
+export type { HarvestJson, HarvestList } from '../lib/entry-types';
+
+const NOT_FOUND = 'No such harvest in this household.';
 
 /** What a harvest's numbers rest on: its crop (if any) and reference food. */
 export interface HarvestBasis {
@@ -172,7 +158,7 @@ export async function everyHarvest(householdId: number, ex: Executor = getDb()):
 /** One harvest of the household as JSON, or 404. */
 export async function getHarvest(householdId: number, harvestId: number, ex: Executor = getDb()): Promise<HarvestJson> {
   const [h] = await harvestsByIds(ex, householdId, [harvestId]);
-  if (!h) throw new HttpError(404, 'not_found', 'No such harvest in this household.');
+  if (!h) throw new HttpError(404, 'not_found', NOT_FOUND);
   return h;
 }
 
@@ -202,48 +188,27 @@ export async function createSplitHarvest(tx: Tx, householdId: number, userId: st
   return harvestsByIds(tx, householdId, ids);
 }
 
-function filters(householdId: number, q: Omit<HarvestQuery, 'page' | 'pageSize'>): SQL {
-  const where: SQL[] = [eq(harvests.householdId, householdId)];
-  if (q.from !== undefined) where.push(gte(harvests.date, q.from));
-  if (q.to !== undefined) where.push(lte(harvests.date, q.to));
-  if (q.cropId !== undefined) where.push(eq(harvests.cropId, q.cropId));
-  if (q.foodId !== undefined) where.push(eq(harvests.foodId, q.foodId));
-  if (q.use !== undefined) where.push(eq(harvests.use, q.use));
-  return and(...where)!;
-}
-
-function ordering(sort: HarvestQuery['sort']): SQL[] {
+/** The harvest log's part of the shared list: crop names joined, crop and use filters, sort by crop. */
+const harvestList: EntryListSpec<HarvestQuery, JoinedRow, HarvestJson> = {
+  table: harvests,
+  select: joined,
+  toJson,
+  extraFilters: (q) => [...(q.cropId !== undefined ? [eq(harvests.cropId, q.cropId)] : []), ...(q.use !== undefined ? [eq(harvests.use, q.use)] : [])],
   // Entries without a crop (a reference food chosen directly) sort by the food's name.
-  if (sort === 'crop') return [asc(sql`COALESCE(${crops.name}, ${foods.name})`), asc(crops.variety), desc(harvests.date), desc(harvests.id)];
-  return entryOrdering(harvests, sort);
-}
-
-export interface HarvestList extends EntryPage {
-  harvests: HarvestJson[];
-}
+  nameSort: { key: 'crop', order: [asc(sql`COALESCE(${crops.name}, ${foods.name})`), asc(crops.variety), desc(harvests.date), desc(harvests.id)] },
+};
 
 /** One page of the household's harvests, with the count and weight totals of the whole filter. */
 export async function listHarvests(householdId: number, q: HarvestQuery): Promise<HarvestList> {
-  const db = getDb();
-  const where = filters(householdId, q);
-  const rows = await joined(db)
-    .where(where)
-    .orderBy(...ordering(q.sort))
-    .limit(q.pageSize)
-    .offset(pageOffset(q));
-  return { harvests: rows.map(toJson), page: q.page, pageSize: q.pageSize, ...(await countAndTotals(db, harvests, where)) };
+  const { rows, page } = await listEntries(harvestList, householdId, q);
+  return { harvests: rows, ...page };
 }
 
-/** Changes a harvest; grams, edible grams and the spread are worked out again. */
-export async function updateHarvest(householdId: number, harvestId: number, patch: HarvestPatch): Promise<HarvestJson> {
-  return getDb().transaction(async (tx) => {
-    const [row] = await tx
-      .select()
-      .from(harvests)
-      .where(and(eq(harvests.householdId, householdId), eq(harvests.id, harvestId)))
-      .limit(1)
-      .for('update');
-    if (!row) throw new HttpError(404, 'not_found', 'No such harvest in this household.');
+/** A harvest's part of the shared update: the patch merged over the stored entry, its basis looked up again. */
+const harvestUpdate: EntryUpdateSpec<typeof harvests, HarvestPatch, HarvestJson> = {
+  table: harvests,
+  notFound: NOT_FOUND,
+  revise: async (tx, householdId, row, patch) => {
     // A harvest of a crop also stores the crop's food: as input it names the crop only.
     const current = {
       date: row.date,
@@ -259,18 +224,17 @@ export async function updateHarvest(householdId: number, harvestId: number, patc
     if (!merged.success) throw invalidInput(merged.error);
     const basis = await harvestBasis(tx, householdId, merged.data);
     checkUse(merged.data, basis);
-    await tx
-      .update(harvests)
-      .set(harvestValues(merged.data, basis))
-      .where(and(eq(harvests.householdId, householdId), eq(harvests.id, harvestId)));
-    return getHarvest(householdId, harvestId, tx);
-  });
+    return harvestValues(merged.data, basis);
+  },
+  get: getHarvest,
+};
+
+/** Changes a harvest; grams, edible grams and the spread are worked out again. */
+export async function updateHarvest(householdId: number, harvestId: number, patch: HarvestPatch): Promise<HarvestJson> {
+  return updateEntry(harvestUpdate, householdId, harvestId, patch);
 }
 
 /** Deletes a harvest of the household; 404 when it has none with this id. */
 export async function deleteHarvest(householdId: number, harvestId: number): Promise<void> {
-  const [res] = await getDb()
-    .delete(harvests)
-    .where(and(eq(harvests.householdId, householdId), eq(harvests.id, harvestId)));
-  if (res.affectedRows === 0) throw new HttpError(404, 'not_found', 'No such harvest in this household.');
+  await deleteEntry(harvests, householdId, harvestId, NOT_FOUND);
 }

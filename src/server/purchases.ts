@@ -3,34 +3,22 @@
  * household's rows. Grams and edible grams (the food's refuse taken off unless weighed trimmed) are
  * worked out at write time and again on every change.
  */
-import { and, asc, desc, eq, gte, lte, type SQL } from 'drizzle-orm';
+import { and, asc, desc, eq } from 'drizzle-orm';
 import { getDb } from '../db/client';
 import { foods, purchases, type Purchase } from '../db/schema';
 import { edibleGrams } from '../lib/edible';
 import { mergePurchasePatch, type PurchaseInput, type PurchasePatch, type PurchaseQuery } from '../lib/entry-schemas';
+import type { PurchaseJson, PurchaseList } from '../lib/entry-types';
 import { toGrams, type WeightUnit } from '../lib/units';
 import { requireFood } from './crops';
 import { HttpError } from './http';
 import { invalidInput, type Executor, type Tx } from './entry-input';
-import { countAndTotals, entryOrdering, pageOffset, type EntryPage } from './entry-list';
+import { listEntries, type EntryListSpec } from './entry-list';
+import { deleteEntry, updateEntry, type EntryUpdateSpec } from './entry-update';
 
-export interface PurchaseJson {
-  id: number;
-  date: string;
-  foodId: number;
-  foodName: string;
-  foodCode: string;
-  quantity: number;
-  unit: WeightUnit;
-  grams: number;
-  edibleGrams: number;
-  price: number | null;
-  currency: string | null;
-  spreadMonths: number;
-  trimmed: boolean;
-  note: string | null;
-  createdAt: string;
-}
+export type { PurchaseJson, PurchaseList } from '../lib/entry-types';
+
+const NOT_FOUND = 'No such bought food in this household.';
 
 /** The stored columns of a purchase from its input and its food's refuse. */
 export function purchaseValues(input: PurchaseInput, refusePct: number | null) {
@@ -82,7 +70,7 @@ function joined(ex: Executor) {
 /** One purchase of the household as JSON, or 404. */
 export async function getPurchase(householdId: number, purchaseId: number, ex: Executor = getDb()): Promise<PurchaseJson> {
   const [row] = await joined(ex).where(and(eq(purchases.householdId, householdId), eq(purchases.id, purchaseId))).limit(1);
-  if (!row) throw new HttpError(404, 'not_found', 'No such bought food in this household.');
+  if (!row) throw new HttpError(404, 'not_found', NOT_FOUND);
   return toJson(row);
 }
 
@@ -93,45 +81,25 @@ export async function createPurchase(tx: Tx, householdId: number, userId: string
   return getPurchase(householdId, res.insertId, tx);
 }
 
-function filters(householdId: number, q: Omit<PurchaseQuery, 'page' | 'pageSize'>): SQL {
-  const where: SQL[] = [eq(purchases.householdId, householdId)];
-  if (q.from !== undefined) where.push(gte(purchases.date, q.from));
-  if (q.to !== undefined) where.push(lte(purchases.date, q.to));
-  if (q.foodId !== undefined) where.push(eq(purchases.foodId, q.foodId));
-  return and(...where)!;
-}
-
-function ordering(sort: PurchaseQuery['sort']): SQL[] {
-  if (sort === 'food') return [asc(foods.name), desc(purchases.date), desc(purchases.id)];
-  return entryOrdering(purchases, sort);
-}
-
-export interface PurchaseList extends EntryPage {
-  purchases: PurchaseJson[];
-}
+/** The bought-food list's part of the shared list: food names joined, sort by food. */
+const purchaseList: EntryListSpec<PurchaseQuery, JoinedRow, PurchaseJson> = {
+  table: purchases,
+  select: joined,
+  toJson,
+  nameSort: { key: 'food', order: [asc(foods.name), desc(purchases.date), desc(purchases.id)] },
+};
 
 /** One page of the household's bought food, with count and weight totals of the whole filter. */
 export async function listPurchases(householdId: number, q: PurchaseQuery): Promise<PurchaseList> {
-  const db = getDb();
-  const where = filters(householdId, q);
-  const rows = await joined(db)
-    .where(where)
-    .orderBy(...ordering(q.sort))
-    .limit(q.pageSize)
-    .offset(pageOffset(q));
-  return { purchases: rows.map(toJson), page: q.page, pageSize: q.pageSize, ...(await countAndTotals(db, purchases, where)) };
+  const { rows, page } = await listEntries(purchaseList, householdId, q);
+  return { purchases: rows, ...page };
 }
 
-/** Changes bought food; grams and edible grams are worked out again. */
-export async function updatePurchase(householdId: number, purchaseId: number, patch: PurchasePatch): Promise<PurchaseJson> {
-  return getDb().transaction(async (tx) => {
-    const [row] = await tx
-      .select()
-      .from(purchases)
-      .where(and(eq(purchases.householdId, householdId), eq(purchases.id, purchaseId)))
-      .limit(1)
-      .for('update');
-    if (!row) throw new HttpError(404, 'not_found', 'No such bought food in this household.');
+/** Bought food's part of the shared update: the patch merged over the stored entry, the food's refuse looked up again. */
+const purchaseUpdate: EntryUpdateSpec<typeof purchases, PurchasePatch, PurchaseJson> = {
+  table: purchases,
+  notFound: NOT_FOUND,
+  revise: async (tx, _householdId, row, patch) => {
     const merged = mergePurchasePatch(
       {
         date: row.date,
@@ -148,20 +116,19 @@ export async function updatePurchase(householdId: number, purchaseId: number, pa
     );
     if (!merged.success) throw invalidInput(merged.error);
     const food = await requireFood(tx, merged.data.foodId);
-    await tx
-      .update(purchases)
-      .set(purchaseValues(merged.data, food.refusePct))
-      .where(and(eq(purchases.householdId, householdId), eq(purchases.id, purchaseId)));
-    return getPurchase(householdId, purchaseId, tx);
-  });
+    return purchaseValues(merged.data, food.refusePct);
+  },
+  get: getPurchase,
+};
+
+/** Changes bought food; grams and edible grams are worked out again. */
+export async function updatePurchase(householdId: number, purchaseId: number, patch: PurchasePatch): Promise<PurchaseJson> {
+  return updateEntry(purchaseUpdate, householdId, purchaseId, patch);
 }
 
 /** Deletes bought food of the household; 404 when it has none with this id. */
 export async function deletePurchase(householdId: number, purchaseId: number): Promise<void> {
-  const [res] = await getDb()
-    .delete(purchases)
-    .where(and(eq(purchases.householdId, householdId), eq(purchases.id, purchaseId)));
-  if (res.affectedRows === 0) throw new HttpError(404, 'not_found', 'No such bought food in this household.');
+  await deleteEntry(purchases, householdId, purchaseId, NOT_FOUND);
 }
 
 /** Every purchase of the household, oldest first (for the backup). */

@@ -1,39 +1,40 @@
-/** Pieces the harvest and bought-food tables share: sortable headers, the pager, the totals line. */
+/** Pieces of the entries table (EntriesTable.tsx): sortable headers, the pager, the totals line, the phone's card classes. */
 import type { ReactNode } from 'react';
 import { formatWeight, type UnitSystem } from '../../lib/units';
-import type { Totals } from './api';
+import type { EntryTotals as Totals } from '../../lib/entry-types';
 
-/** A column header that sorts by `asc` / `desc` (the same key twice for a one-way sort). */
-export function SortHeader({ label, sort, asc, desc, onSort, className = '' }: { label: string; sort: string; asc: string; desc: string; onSort: (s: string) => void; className?: string }) {
-  const state = sort === asc ? 'ascending' : sort === desc ? 'descending' : 'none';
-  const next = sort === desc ? asc : desc;
-  const arrow = state === 'ascending' ? '▲' : state === 'descending' ? '▼' : '↕';
+/**
+ * A column header that sorts: `state` is how the table sorts by this column now, `onToggle` asks for
+ * the next order (the table decides which: newest or heaviest first, then the other way).
+ */
+export function SortHeader({ label, state, onToggle, className = '' }: { label: string; state: false | 'asc' | 'desc'; onToggle: (() => void) | ((e: unknown) => void) | undefined; className?: string }) {
+  const aria = state === 'asc' ? 'ascending' : state === 'desc' ? 'descending' : 'none';
+  const arrow = aria === 'ascending' ? '▲' : aria === 'descending' ? '▼' : '↕';
   return (
-    <th scope="col" aria-sort={state} className={`px-2 py-1 ${className}`}>
-      <button type="button" className="inline-flex min-h-12 items-center gap-1 rounded-lg px-1 font-bold hover:bg-loam-100" onClick={() => onSort(next)}>
+    <th scope="col" aria-sort={aria} className={`px-2 py-1 ${className}`}>
+      <button type="button" className="inline-flex min-h-12 items-center gap-1 rounded-lg px-1 font-bold hover:bg-loam-100" onClick={onToggle}>
         {label}
-        <span aria-hidden="true" className={`text-xs ${state === 'none' ? 'text-loam-500' : 'text-sprout-700'}`}>
+        <span aria-hidden="true" className={`text-xs ${aria === 'none' ? 'text-loam-500' : 'text-sprout-700'}`}>
           {arrow}
         </span>
-        <span className="sr-only">{state === 'none' ? ', not sorted' : `, sorted ${state}`}</span>
+        <span className="sr-only">{aria === 'none' ? ', not sorted' : `, sorted ${aria}`}</span>
       </button>
     </th>
   );
 }
 
-/** Previous / next with "page 2 of 5". */
-export function Pager({ page, pageSize, total, onPage }: { page: number; pageSize: number; total: number; onPage: (p: number) => void }) {
-  const pages = Math.max(1, Math.ceil(total / pageSize));
+/** Previous / next with "page 2 of 5"; nothing when everything fits on one page. */
+export function Pager({ page, pages, canPrevious, canNext, onPrevious, onNext }: { page: number; pages: number; canPrevious: boolean; canNext: boolean; onPrevious: () => void; onNext: () => void }) {
   if (pages <= 1) return null;
   return (
     <nav aria-label="Pages" className="mt-3 flex items-center justify-between gap-2">
-      <button type="button" className="btn-quiet" disabled={page <= 1} onClick={() => onPage(page - 1)}>
+      <button type="button" className="btn-quiet" disabled={!canPrevious} onClick={onPrevious}>
         ← Newer
       </button>
       <span className="text-sm text-loam-700">
         Page {page} of {pages}
       </span>
-      <button type="button" className="btn-quiet" disabled={page >= pages} onClick={() => onPage(page + 1)}>
+      <button type="button" className="btn-quiet" disabled={!canNext} onClick={onNext}>
         Older →
       </button>
     </nav>
