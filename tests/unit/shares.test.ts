@@ -87,10 +87,12 @@ describe('home share', () => {
 
   it('has no share of need where the DRI set no need or nobody is at home', () => {
     const entries = [harvest(POTATO, 1000, { date: '2026-01-10' })];
-    const fat = computeShare({ from: '2026-01', to: '2026-01', people: [woman25], nutrients: ['fat_g'], entries });
-    expect(fat.months[0]!.values.fat_g.need).toBeNull(); // total fat: no RDA or AI for adults (DRI Macronutrients table, "ND")
-    expect(fat.months[0]!.values.fat_g.shareOfNeed).toBeNull();
-    expect(fat.months[0]!.values.fat_g.shareOfIntake).toBe(1);
+    // total sugars: no RDA, AI or AMDR (DRI Macronutrients table); 0.78 g/100 g from memory: USDA SR28 NDB 11352
+    const sugary = [{ ...entries[0]!, nutrients: { sugars_g: 5.85 } }];
+    const sugars = computeShare({ from: '2026-01', to: '2026-01', people: [woman25], nutrients: ['sugars_g'], entries: sugary });
+    expect(sugars.months[0]!.values.sugars_g.need).toBeNull();
+    expect(sugars.months[0]!.values.sugars_g.shareOfNeed).toBeNull();
+    expect(sugars.months[0]!.values.sugars_g.shareOfIntake).toBe(1);
     const empty = computeShare({ from: '2026-01', to: '2026-01', people: [], nutrients: ['protein_g'], entries });
     expect(empty.months[0]!.values.protein_g.need).toBe(0);
     expect(empty.months[0]!.values.protein_g.shareOfNeed).toBeNull();
