@@ -3,7 +3,8 @@
  * March to November before it, so charging those months' need would read as "<1 % of what you
  * need". Months before `recordsSince` are marked `beforeRecords`, carry no need and are left out of
  * every total and headline; the owner may move the start, and by default it is the earlier of the
- * month the household was created and the month of its first entry.
+ * month the household was created and the month of its first entry. Months after the current one
+ * are future: shown apart, never in the default headline, which covers the growing year so far.
  */
 import { compareMonths, isMonth, monthOf } from './months';
 
@@ -54,4 +55,22 @@ export function markRecordsStart<N, M extends { month: string; need: N | null }>
  */
 export function countedMonths(months: readonly string[], recordsSince: string | null | undefined): string[] {
   return months.filter((m) => !isBeforeRecords(m, recordsSince));
+}
+
+/**
+ * The months a default headline counts: from the records start to the current month (the year so
+ * far; future months are shown apart), e.g.
+ * headlineMonths(['2026-11', '2026-12', '2027-01'], { recordsSince: '2026-11', currentMonth: '2026-12' }) → ['2026-11', '2026-12'].
+ */
+export function headlineMonths(
+  months: readonly string[],
+  { recordsSince, currentMonth }: { recordsSince: string | null | undefined; currentMonth: string },
+): string[] {
+  if (!isMonth(currentMonth)) throw new RangeError(`The current month must be written YYYY-MM, got "${currentMonth}".`);
+  return countedMonths(months, recordsSince).filter((m) => compareMonths(m, currentMonth) <= 0);
+}
+
+/** Whether a month is after the current one (shown apart), e.g. isFutureMonth('2027-01', '2026-12') → true. */
+export function isFutureMonth(month: string, currentMonth: string): boolean {
+  return compareMonths(month, currentMonth) > 0;
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { countedMonths, defaultRecordsSince, isBeforeRecords, markRecordsStart } from '../../src/lib/records-start';
+import { countedMonths, defaultRecordsSince, headlineMonths, isBeforeRecords, isFutureMonth, markRecordsStart } from '../../src/lib/records-start';
 
 // The rule is Selfsown's own (issue 9, "Records start"): common practice (no published source).
 describe('records start', () => {
@@ -28,5 +28,13 @@ describe('records start', () => {
     expect(isBeforeRecords('2026-11', '2026-12')).toBe(true);
     expect(() => isBeforeRecords('2026-11', '2026-13')).toThrow(/YYYY-MM/);
     expect(() => defaultRecordsSince('2026-02-30', null)).toThrow(RangeError);
+  });
+
+  it('heads the report with the year so far and keeps future months apart', () => {
+    const year = ['2026-03', '2026-11', '2026-12', '2027-01', '2027-02'];
+    expect(headlineMonths(year, { recordsSince: '2026-11', currentMonth: '2026-12' })).toEqual(['2026-11', '2026-12']);
+    expect(isFutureMonth('2027-01', '2026-12')).toBe(true);
+    expect(isFutureMonth('2026-12', '2026-12')).toBe(false);
+    expect(() => headlineMonths(year, { recordsSince: null, currentMonth: 'December' })).toThrow(/YYYY-MM/);
   });
 });
