@@ -121,6 +121,22 @@ export function eatenSpan(entry: Pick<FoodEntry, 'date' | 'use' | 'source' | 'sp
   return eatenShares(entry).map((p) => p.offset);
 }
 
+/**
+ * The share of an entry eaten within [from, to] (months 'YYYY-MM', both included), by day like
+ * allocate(), e.g. fractionEatenIn({ date: '2026-11-30', use: 'stored', source: 'home', spreadMonths: 3 }, { from: '2026-12', to: '2027-12' }) → 89/90.
+ */
+export function fractionEatenIn(
+  entry: Pick<FoodEntry, 'date' | 'use' | 'source' | 'spreadMonths'>,
+  { from, to }: { from: string; to: string },
+): number {
+  const first = dateMonthIndex(entry.date);
+  const start = monthIndex(from);
+  const end = monthIndex(to);
+  return eatenShares(entry)
+    .filter(({ offset }) => first + offset >= start && first + offset <= end)
+    .reduce((sum, p) => sum + p.fraction, 0);
+}
+
 /** Month index (year × 12 + month − 1) of a 'YYYY-MM-DD' date, checked once. */
 export function dateMonthIndex(date: string): number {
   return monthIndex(monthOf(date));

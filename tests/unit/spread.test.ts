@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { fractionEatenIn } from '../../src/lib/allocate';
 import { spreadByDay } from '../../src/lib/spread';
 
 const days = (date: string, n: number, total: number) => spreadByDay(date, n).map((p) => Math.round(p.fraction * total * 1e9) / 1e9);
@@ -38,5 +39,12 @@ describe('spreading a lot by day', () => {
     expect(() => spreadByDay('2026-05-31', 0)).toThrow(/whole number of months/);
     expect(() => spreadByDay('2026-05-31', 2.5)).toThrow(RangeError);
     expect(() => spreadByDay('2026-02-30', 2)).toThrow(RangeError);
+  });
+
+  it('tells how much of a lot is eaten within a range, by day', () => {
+    const lot = { date: '2026-11-30', use: 'stored', source: 'home', spreadMonths: 3 } as const;
+    // 1 Dec 2026 – 27 Feb 2027: 31 + 31 + 27 = 89 of the lot's 90 days (Gregorian calendar)
+    expect(fractionEatenIn(lot, { from: '2026-12', to: '2027-12' })).toBeCloseTo(89 / 90, 12);
+    expect(fractionEatenIn({ ...lot, use: 'sold' }, { from: '2026-01', to: '2027-12' })).toBe(0);
   });
 });
