@@ -107,38 +107,24 @@ export function personMonthNeeds<K extends NutrientKey>(person: Person, month: s
  */
 export function monthlyNeedDetails<K extends NutrientKey>(people: readonly Person[], month: string, keys: readonly K[]): Record<K, MonthNeed> {
   daysInMonth(month); // validates the month even for an empty household
-  const out = {} as Record<K, MonthNeed & { present: number; known: number; ranged: boolean; high: number }>;
-  for (const key of keys) out[key] = { need: 0, needLow: 0, needHigh: null, peopleWithoutValue: 0, present: 0, known: 0, ranged: false, high: 0 };
-  for (const person of people) {
-    const details = personMonthDetails(person, month, keys);
-    if (details === 'absent') continue;
-    for (const key of keys) {
-      const acc = out[key];
-      const add = details[key];
-      acc.present += 1;
-      if (add === null) {
-        acc.peopleWithoutValue += 1;
-        continue;
-      }
-      acc.known += 1;
-      acc.need! += add.need;
-      acc.needLow! += add.low;
-      acc.high += add.high ?? add.need;
-      if (add.high !== null) acc.ranged = true;
-    }
-  }
-  const result = {} as Record<K, MonthNeed>;
+  const perPerson = people.map((person) => personMonthDetails(person, month, keys)).filter((d) => d !== 'absent');
+  const out = {} as Record<K, MonthNeed>;
   for (const key of keys) {
-    const acc = out[key];
-    const unknown = acc.present > 0 && acc.known === 0;
-    result[key] = {
-      need: unknown ? null : acc.need,
-      needLow: unknown || !acc.ranged ? null : acc.needLow,
-      needHigh: unknown || !acc.ranged ? null : acc.high,
-      peopleWithoutValue: acc.peopleWithoutValue,
+    const known = perPerson.map((d) => d[key]).filter((n) => n !== null);
+    const withoutValue = perPerson.length - known.length;
+    if (perPerson.length > 0 && known.length === 0) {
+      out[key] = { need: null, needLow: null, needHigh: null, peopleWithoutValue: withoutValue };
+      continue;
+    }
+    const ranged = known.some((n) => n.high !== null);
+    out[key] = {
+      need: known.reduce((sum, n) => sum + n.need, 0),
+      needLow: ranged ? known.reduce((sum, n) => sum + n.low, 0) : null,
+      needHigh: ranged ? known.reduce((sum, n) => sum + (n.high ?? n.need), 0) : null,
+      peopleWithoutValue: withoutValue,
     };
   }
-  return result;
+  return out;
 }
 
 /**
