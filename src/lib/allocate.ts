@@ -1,10 +1,11 @@
 /**
- * When food is eaten: an entry's nutrients spread over the months the household eats it, kept
- * apart for home-grown and bought food, with the weight whose nutrient value is unknown counted
+ * When food is eaten: an entry's nutrients spread over the months the household eats it (by day,
+ * see spread.ts), kept apart for home-grown and bought food, with the weight whose nutrient value is unknown counted
  * beside the sums (an unknown value is never read as zero).
  */
 import { listMonths, monthIndex, monthOf, addMonths } from './months';
 import type { NutrientKey } from './nutrients';
+import { spreadByDay, type SpreadPart } from './spread';
 
 import { EATEN_USES, USES, type Use } from './entry-schemas';
 
@@ -21,7 +22,7 @@ export interface FoodEntry {
   date: string;
   use: Use;
   source: Source;
-  /** Whole months the food is eaten over, from the entry's month (≥ 1). */
+  /** Whole months the food is eaten over, from the entry's date (≥ 1); see spread.ts. */
   spreadMonths: number;
   nutrients: NutrientAmounts;
   edibleGrams: number;
@@ -84,25 +85,56 @@ export function isEaten(use: Use): boolean {
 }
 
 /**
- * The months an entry is eaten in: fresh home food in its own month; stored or preserved food,
- * and all bought food, evenly over `spreadMonths` calendar months from the entry's month (each
- * month the same share, whatever its length); nothing for seed, given, sold or lost,
- * e.g. eatenParts({ date: '2026-11-05', use: 'stored', source: 'home', spreadMonths: 4, … }) →
- * 2026-11, 2026-12, 2027-01, 2027-02 at 0.25 each.
+ * The months an entry is eaten in and the share in each: fresh home food, and anything with a
+ * spread of one month, wholly in its own month; stored or preserved food and bought food with a
+ * spread of 2 months or more evenly per day from its date to the same date `spreadMonths` months
+ * later (see spread.ts); nothing for seed, given, sold or lost,
+ * e.g. eatenParts({ date: '2026-11-01', use: 'stored', source: 'home', spreadMonths: 3 }) →
+ * 2026-11 30/92, 2026-12 31/92, 2027-01 31/92.
  */
 export function eatenParts(entry: Pick<FoodEntry, 'date' | 'use' | 'source' | 'spreadMonths'>): EatenPart[] {
-  return eatenSpan(entry).map((i, _, all) => ({ month: addMonths(monthOf(entry.date), i), fraction: 1 / all.length }));
+  const month = monthOf(entry.date);
+  return eatenShares(entry).map(({ offset, fraction }) => ({ month: addMonths(month, offset), fraction }));
 }
 
 /**
- * The same months as offsets from the entry's month (0, 1, …), without building month strings:
- * the share report calls this for every entry, e.g. a stored entry with spreadMonths 3 → [0, 1, 2].
+ * The same as offsets from the entry's month (0, 1, …) with their shares, without building month
+ * strings: the share report calls this for every entry,
+ * e.g. eatenShares({ date: '2026-11-30', use: 'stored', source: 'home', spreadMonths: 3 })[0] → { offset: 0, fraction: 1/90 }.
  */
-export function eatenSpan(entry: Pick<FoodEntry, 'date' | 'use' | 'source' | 'spreadMonths'>): number[] {
+export function eatenShares(entry: Pick<FoodEntry, 'date' | 'use' | 'source' | 'spreadMonths'>): SpreadPart[] {
   checkSpread(entry.spreadMonths);
   if (!isEaten(entry.use)) return [];
-  const spread = entry.use === 'fresh' && entry.source === 'home' ? 1 : entry.spreadMonths;
-  return Array.from({ length: spread }, (_, i) => i);
+  if (entry.use === 'fresh' && entry.source === 'home') {
+    monthOf(entry.date); // checks the date
+    return [{ offset: 0, fraction: 1 }];
+  }
+  return spreadByDay(entry.date, entry.spreadMonths);
+}
+
+/**
+ * The months an entry touches, as offsets from its month; a lot spread by day from a late date
+ * touches one month more than its spread, e.g. a stored entry of 30 November with spreadMonths 3
+ * → [0, 1, 2, 3]. Use eatenShares for how much falls in each.
+ */
+export function eatenSpan(entry: Pick<FoodEntry, 'date' | 'use' | 'source' | 'spreadMonths'>): number[] {
+  return eatenShares(entry).map((p) => p.offset);
+}
+
+/**
+ * The share of an entry eaten within [from, to] (months 'YYYY-MM', both included), by day like
+ * allocate(), e.g. fractionEatenIn({ date: '2026-11-30', use: 'stored', source: 'home', spreadMonths: 3 }, { from: '2026-12', to: '2027-12' }) → 89/90.
+ */
+export function fractionEatenIn(
+  entry: Pick<FoodEntry, 'date' | 'use' | 'source' | 'spreadMonths'>,
+  { from, to }: { from: string; to: string },
+): number {
+  const first = dateMonthIndex(entry.date);
+  const start = monthIndex(from);
+  const end = monthIndex(to);
+  return eatenShares(entry)
+    .filter(({ offset }) => first + offset >= start && first + offset <= end)
+    .reduce((sum, p) => sum + p.fraction, 0);
 }
 
 /** Month index (year × 12 + month − 1) of a 'YYYY-MM-DD' date, checked once. */
@@ -177,13 +209,13 @@ export function allocate<K extends NutrientKey>(
   });
   for (const entry of entries) {
     checkGrams(entry.edibleGrams);
-    const span = eatenSpan(entry);
-    if (span.length === 0) continue;
+    const shares = eatenShares(entry);
+    if (shares.length === 0) continue;
     const first = dateMonthIndex(entry.date) - start;
-    for (const offset of span) {
+    for (const { offset, fraction } of shares) {
       const slot = result[first + offset];
       if (!slot) continue; // eaten outside the report's range
-      for (const key of keys) addEntryPart(slot.sums[key], entry, key, 1 / span.length);
+      for (const key of keys) addEntryPart(slot.sums[key], entry, key, fraction);
     }
   }
   return result;

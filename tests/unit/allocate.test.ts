@@ -48,27 +48,29 @@ describe('when food is eaten', () => {
     expect(aug!.sums.energy_kcal.home).toBe(0);
   });
 
-  it('spreads a stored harvest evenly over its months, across the year end', () => {
+  it('spreads a stored harvest evenly per day over its months, across the year end', () => {
     const e = crop(BUTTERNUT, 1000, { date: '2026-11-20', use: 'stored', spreadMonths: 4 });
     const months = allocate([e], { from: '2026-10', to: '2027-03', keys: ['energy_kcal'] });
     expect(months.map((m) => m.month)).toEqual(['2026-10', '2026-11', '2026-12', '2027-01', '2027-02', '2027-03']);
-    // 378 kcal (840 g edible × 45 kcal/100 g) ÷ 4 months = 94.5 kcal in Nov, Dec, Jan and Feb
-    expect(months.map((m) => m.sums.energy_kcal.home)).toEqual([0, 94.5, 94.5, 94.5, 94.5, 0]);
+    // 378 kcal (840 g edible × 45 kcal/100 g) over 20 Nov 2026 – 19 Mar 2027: 11 + 31 + 31 + 28 + 19 = 120 days (Gregorian calendar)
+    const expected = [0, 11, 31, 31, 28, 19].map((days) => (378 * days) / 120);
+    months.forEach((m, i) => expect(m.sums.energy_kcal.home).toBeCloseTo(expected[i]!, 9));
   });
 
-  it('gives February the same share as a 31-day month', () => {
+  it('gives February its 28 days, not a whole month\u2019s share', () => {
     const parts = eatenParts({ date: '2027-01-03', use: 'preserved', source: 'home', spreadMonths: 2 });
-    expect(parts).toEqual([
-      { month: '2027-01', fraction: 0.5 },
-      { month: '2027-02', fraction: 0.5 },
-    ]);
+    // 3 Jan – 2 Mar 2027: 29 + 28 + 2 = 59 days (Gregorian calendar)
+    expect(parts.map((p) => p.month)).toEqual(['2027-01', '2027-02', '2027-03']);
+    expect(parts.map((p) => p.fraction * 59)).toEqual([29, 28, 2].map((d) => expect.closeTo(d, 9)));
   });
 
   it('spreads a bulk purchase over its months and keeps it apart from home food', () => {
-    const bought = crop(POTATO, 1000, { date: '2026-01-31', source: 'bought', spreadMonths: 3 });
+    const bought = crop(POTATO, 1000, { date: '2026-01-01', source: 'bought', spreadMonths: 3 });
     const home = crop(POTATO, 1000, { date: '2026-02-01' });
     const months = allocate([bought, home], { from: '2026-01', to: '2026-03', keys: ['energy_kcal'] });
-    expect(months.map((m) => m.sums.energy_kcal.bought)).toEqual([192.5, 192.5, 192.5]); // 577.5 ÷ 3
+    // 577.5 kcal over 1 Jan – 31 Mar 2026: 31 + 28 + 31 = 90 days (Gregorian calendar)
+    const expected = [31, 28, 31].map((days) => (577.5 * days) / 90);
+    months.forEach((m, i) => expect(m.sums.energy_kcal.bought).toBeCloseTo(expected[i]!, 9));
     expect(months.map((m) => m.sums.energy_kcal.home)).toEqual([0, 577.5, 0]);
   });
 
@@ -100,8 +102,9 @@ describe('when food is eaten', () => {
   it('counts food stored before the range in the months of the range it is eaten in', () => {
     const e = crop(BUTTERNUT, 1000, { date: '2025-10-10', use: 'stored', spreadMonths: 6 });
     const months = allocate([e], { from: '2026-01', to: '2026-06', keys: ['energy_kcal'] });
-    // Oct 2025 – Mar 2026 at 378 ÷ 6 = 63 kcal a month; Jan–Mar fall in the range
-    expect(months.map((m) => m.sums.energy_kcal.home)).toEqual([63, 63, 63, 0, 0, 0]);
+    // 10 Oct 2025 – 9 Apr 2026: 22 + 30 + 31 + 31 + 28 + 31 + 9 = 182 days; Jan–Apr fall in the range (Gregorian calendar)
+    const expected = [31, 28, 31, 9, 0, 0].map((days) => (378 * days) / 182);
+    months.forEach((m, i) => expect(m.sums.energy_kcal.home).toBeCloseTo(expected[i]!, 9));
   });
 
   it('tracks the weight whose nutrient value is unknown instead of counting it as zero', () => {
@@ -123,7 +126,9 @@ describe('when food is eaten', () => {
   it('spreads the unknown weight with the food', () => {
     const e = crop(BUTTERNUT, 1000, { date: '2026-11-01', use: 'stored', spreadMonths: 4 });
     const months = allocate([e], { from: '2026-11', to: '2027-02', keys: ['choline_mg'] });
-    expect(months.map((m) => m.sums.choline_mg.homeUnknownGrams)).toEqual([210, 210, 210, 210]); // 840 g ÷ 4
+    // 840 g over 1 Nov 2026 – 28 Feb 2027: 30 + 31 + 31 + 28 = 120 days (Gregorian calendar)
+    const expected = [30, 31, 31, 28].map((days) => (840 * days) / 120);
+    months.forEach((m, i) => expect(m.sums.choline_mg.homeUnknownGrams).toBeCloseTo(expected[i]!, 9));
   });
 
   it('refuses a spread that is not a whole number of months from 1', () => {

@@ -32,9 +32,12 @@ describe('monthly need', () => {
     expect(monthlyNeeds([teen, { sex: 'male', ageYears: 25 }], '2027-01', ['iron_mg']).iron_mg).toBe((18 + 8) * 31);
   });
 
-  it('is unknown when anyone at home has no published need, and 0 with nobody at home', () => {
-    const household = [{ sex: 'female', ageYears: 0.3 }, { sex: 'male', ageYears: 30 }] as const;
-    expect(monthlyNeeds(household, '2026-01', ['fat_g']).fat_g).toBeNull(); // adults: no fat RDA/AI
+  it('is unknown only when nobody at home has a published need, and 0 with nobody at home', () => {
+    // total fibre: infants "ND"; AI men 19–30 y 38 g/day (DRI Macronutrients table): the baby adds nothing (issue 9)
+    const household = [{ sex: 'female', ageYears: 0.7 }, { sex: 'male', ageYears: 30 }] as const;
+    expect(monthlyNeeds(household, '2026-01', ['fiber_g']).fiber_g).toBe(38 * 31);
+    expect(monthlyNeeds([{ sex: 'female', ageYears: 0.7 }], '2026-01', ['fiber_g']).fiber_g).toBeNull();
+    expect(monthlyNeeds([{ sex: 'male', ageYears: 30 }], '2026-01', ['sugars_g']).sugars_g).toBeNull(); // sugars: no RDA or AI
     const away = [{ sex: 'male', ageYears: 30, presentTo: '2025-12-31' }] as const;
     expect(monthlyNeeds(away, '2026-01', ['fat_g', 'protein_g'])).toEqual({ fat_g: 0, protein_g: 0 });
     expect(monthlyNeeds([], '2026-01', ['protein_g'])).toEqual({ protein_g: 0 });

@@ -87,10 +87,12 @@ describe('home share', () => {
 
   it('has no share of need where the DRI set no need or nobody is at home', () => {
     const entries = [harvest(POTATO, 1000, { date: '2026-01-10' })];
-    const fat = computeShare({ from: '2026-01', to: '2026-01', people: [woman25], nutrients: ['fat_g'], entries });
-    expect(fat.months[0]!.values.fat_g.need).toBeNull(); // total fat: no RDA or AI for adults (DRI Macronutrients table, "ND")
-    expect(fat.months[0]!.values.fat_g.shareOfNeed).toBeNull();
-    expect(fat.months[0]!.values.fat_g.shareOfIntake).toBe(1);
+    // total sugars: no RDA, AI or AMDR (DRI Macronutrients table); 0.78 g/100 g from memory: USDA SR28 NDB 11352
+    const sugary = [{ ...entries[0]!, nutrients: { sugars_g: 5.85 } }];
+    const sugars = computeShare({ from: '2026-01', to: '2026-01', people: [woman25], nutrients: ['sugars_g'], entries: sugary });
+    expect(sugars.months[0]!.values.sugars_g.need).toBeNull();
+    expect(sugars.months[0]!.values.sugars_g.shareOfNeed).toBeNull();
+    expect(sugars.months[0]!.values.sugars_g.shareOfIntake).toBe(1);
     const empty = computeShare({ from: '2026-01', to: '2026-01', people: [], nutrients: ['protein_g'], entries });
     expect(empty.months[0]!.values.protein_g.need).toBe(0);
     expect(empty.months[0]!.values.protein_g.shareOfNeed).toBeNull();
@@ -99,11 +101,13 @@ describe('home share', () => {
   it('totals the months of the range, stored food in the months it is eaten', () => {
     const report = computeShare({
       from: '2026-11', to: '2027-02', people: [woman25], nutrients: ['energy_kcal', 'protein_g'],
-      entries: [harvest(BUTTERNUT, 1000, { date: '2026-11-20', use: 'stored', spreadMonths: 4 })], // 378 kcal, 8.4 g protein
+      entries: [harvest(BUTTERNUT, 1000, { date: '2026-11-01', use: 'stored', spreadMonths: 4 })], // 378 kcal, 8.4 g protein
     });
-    expect(report.months.map((m) => m.values.energy_kcal.home)).toEqual([94.5, 94.5, 94.5, 94.5]);
+    // eaten per day over 1 Nov 2026 – 28 Feb 2027: 30 + 31 + 31 + 28 = 120 days (Gregorian calendar)
+    const expected = [30, 31, 31, 28].map((days) => (378 * days) / 120);
+    report.months.forEach((m, i) => expect(m.values.energy_kcal.home).toBeCloseTo(expected[i]!, 9));
     expect(report.months.map((m) => m.days)).toEqual([30, 31, 31, 28]); // Nov, Dec, Jan, Feb 2027 (Gregorian calendar)
-    expect(report.total.values.energy_kcal.home).toBe(378);
+    expect(report.total.values.energy_kcal.home).toBeCloseTo(378, 9);
     // RDA protein 46 g/day × (30 + 31 + 31 + 28) days = 5520 g
     expect(report.total.values.protein_g.need).toBe(5520);
     expect(report.total.values.protein_g.shareOfNeed).toBeCloseTo(8.4 / 5520, 12);
