@@ -6,6 +6,7 @@
  */
 import { toNestErrors } from '@hookform/resolvers';
 import type { FieldError, FieldErrors, FieldValues, ResolverOptions } from 'react-hook-form';
+import { FORM_FIELD } from '../../lib/error-body';
 
 /** Field path → first message, in the order the problems were found. */
 export type FlatErrors = Record<string, string>;
@@ -16,14 +17,15 @@ function isLeaf(node: unknown): node is FieldError {
 
 /**
  * react-hook-form's nested errors as a flat record; a field array's own error (`parts.root`) is
- * listed under the array's name. Example: `flatErrors({ parts: [{ use: { type: 'x', message: 'M' } }] })`
+ * listed under the array's name, one about the whole input under `_form`. Example: `flatErrors({ parts: [{ use: { type: 'x', message: 'M' } }] })`
  *   → { 'parts.0.use': 'M' }
  */
 export function flatErrors(errors: FieldErrors | undefined): FlatErrors {
   const out: FlatErrors = {};
   const walk = (node: unknown, path: string[]) => {
     if (isLeaf(node)) {
-      const key = (path[path.length - 1] === 'root' ? path.slice(0, -1) : path).join('.');
+      // A problem with the whole input (a schema's root path, '') is listed as the API lists it.
+      const key = (path[path.length - 1] === 'root' ? path.slice(0, -1) : path).join('.') || FORM_FIELD;
       if (node.message && !(key in out)) out[key] = String(node.message);
     }
     if (typeof node !== 'object' || node === null) return;
