@@ -7,25 +7,25 @@
  * is kept, shown as waiting and sent again later without ever being stored twice. What was just
  * saved is shown with an Undo.
  */
-import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useQuery } from '@tanstack/react-query';
 import { useMemo, useRef, useState, type FormEvent } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { defaultSpreadMonths } from '../../lib/crop-categories';
 import { isEatenUse, USES, type Use } from '../../lib/entry-schemas';
-import type { WeightUnit } from '../../lib/units';
-import { ApiError, canWrite, get, keys, newIdempotencyKey, request, urls, type Crop, type Harvest, type HarvestPage, type HouseholdInfo } from './api';
+import { ApiError, canWrite, get, keys, newIdempotencyKey, urls, type Crop, type HarvestPage, type HouseholdInfo } from './api';
 import { cropDefaultUse, orderCrops } from './crop-order';
 import { CropChips } from './CropChips';
 import { flatErrors } from './form-errors';
 import { emptyHarvestValues, harvestLabel, harvestResolver, restOf, spreadUsesOf, type HarvestBody, type HarvestFormContext, type HarvestFormValues, type PartValues } from './harvest-form-values';
-import { SavedList, WaitingList, type SavedEntry } from './HarvestSaved';
+import { SavedList, WaitingList } from './HarvestSaved';
 import { monthRange, shiftYear, todayIn } from './local-date';
-import { useOutbox, type OutboxItem } from './outbox';
+import { useOutbox } from './outbox';
 import { QueryProvider } from './QueryProvider';
-import { formatInUnit } from './quantity-text';
 import { SplitParts } from './SplitParts';
+import { SpreadField } from './SpreadField';
 import { Alert, ErrorText, invalidProps, UseChips, useRememberedUnit, type Errors } from './ui';
 import { UseCautions } from './UseCautions';
+import { useSavedHarvests, type CreateAnswer } from './use-saved-harvests';
 import { WeightField } from './WeightField';
 
 interface Props {
@@ -42,13 +42,9 @@ export default function HarvestForm(props: Props) {
   );
 }
 
-type CreateAnswer = { harvest: Harvest } | { harvests: Harvest[] };
-const answerHarvests = (a: CreateAnswer): Harvest[] => ('harvests' in a ? a.harvests : [a.harvest]);
-
 function HarvestFormInner({ household, today: serverToday }: Props) {
   const hid = household.id;
   const api = urls(hid);
-  const qc = useQueryClient();
   const formRef = useRef<HTMLFormElement>(null);
   const [today] = useState(() => (typeof window === 'undefined' ? serverToday : todayIn(household.timezone)));
 
@@ -66,7 +62,6 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
 
   const [unit, setUnit] = useRememberedUnit(hid, household.units);
   const [alert, setAlert] = useState<string | null>(null);
-  const [saved, setSaved] = useState<SavedEntry[]>([]);
   const nextPartId = useRef(1);
 
   const form = useForm<HarvestFormValues, HarvestFormContext, HarvestBody>({
@@ -85,40 +80,8 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
   const errors: Errors = flatErrors(form.formState.errors);
   const busy = form.formState.isSubmitting;
 
-  const edibleText = (hs: Harvest[]) =>
-    formatInUnit(
-      hs.reduce((a, h) => a + h.edibleGrams, 0),
-      (hs[0]?.unit ?? unit) as WeightUnit,
-    );
-
-  const onSent = (item: OutboxItem, data: CreateAnswer) => {
-    const hs = answerHarvests(data);
-    setSaved((s) => [{ key: item.key, label: item.label, edible: edibleText(hs), harvests: hs, later: true }, ...s].slice(0, 5));
-    void qc.invalidateQueries({ queryKey: keys.harvests(hid) });
-    void qc.invalidateQueries({ queryKey: keys.allCrops(hid) });
-  };
-  const outbox = useOutbox<CreateAnswer>('harvests', hid, onSent);
-
-  const undo = useMutation({
-    mutationFn: async (entry: SavedEntry) => {
-      for (const h of entry.harvests) {
-        try {
-          await request<null>('DELETE', api.harvest(h.id));
-        } catch (e) {
-          // Already gone (undone in another tab): that is what Undo wanted.
-          if (!(e instanceof ApiError && e.status === 404)) throw e;
-        }
-      }
-      return entry;
-    },
-    onSuccess: (entry) => {
-      setSaved((s) => s.filter((x) => x.key !== entry.key));
-      setAlert(null);
-      void qc.invalidateQueries({ queryKey: keys.harvests(hid) });
-      void qc.invalidateQueries({ queryKey: keys.allCrops(hid) });
-    },
-    onError: (e) => setAlert(`Could not undo: ${(e as Error).message}`),
-  });
+  const { saved, add, undo, undoing } = useSavedHarvests(hid, unit, setAlert);
+  const outbox = useOutbox<CreateAnswer>('harvests', hid, (item, data) => add(item.key, item.label, data, true));
 
   if (!canWrite(household.role)) {
     return <p className="card">Your role in this household is viewer: you can read the harvest log but not add to it.</p>;
@@ -155,12 +118,7 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
     const text = harvestLabel(getValues(), unit, crop?.displayName);
     try {
       const r = await outbox.submit(api.harvests(), body, text, key);
-      if (r.status === 'saved') {
-        const hs = answerHarvests(r.data);
-        setSaved((s) => [{ key, label: text, edible: edibleText(hs), harvests: hs }, ...s].slice(0, 5));
-        void qc.invalidateQueries({ queryKey: keys.harvests(hid) });
-        void qc.invalidateQueries({ queryKey: keys.allCrops(hid) });
-      }
+      if (r.status === 'saved') add(key, text, r.data);
       // The next weighing keeps the crop, the date and the trimmed flag.
       reset({ ...getValues(), quantity: '', note: '', splitting: false, parts: [], spreadMonths: '', use: cropDefaultUse(crop) });
     } catch (err) {
@@ -206,33 +164,11 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
         )}
 
         {spreadUses.length > 0 ? (
-          <div className="mt-4">
-            <label htmlFor="spreadMonths" className="block font-semibold">
-              Eaten over how many months?
-            </label>
-            <p id="spreadMonths-hint" className="text-sm text-loam-700">
-              {crop
-                ? `Leave empty for this crop's usual: ${[...new Set(spreadUses)].map((u) => `${defaultSpreadFor(u)} months ${u}`).join(', ')}.`
-                : 'Stored and preserved food is counted in the months it is eaten.'}
-            </p>
-            <Controller
-              control={control}
-              name="spreadMonths"
-              render={({ field }) => (
-                <input
-                  {...invalidProps('spreadMonths', errors.spreadMonths, true)}
-                  name="spreadMonths"
-                  type="text"
-                  inputMode="numeric"
-                  className="field mt-1 w-32 text-xl"
-                  placeholder={crop ? String(defaultSpreadFor(spreadUses[0]!)) : ''}
-                  value={field.value}
-                  onChange={(e) => field.onChange(e.target.value.replace(/[^\d]/g, ''))}
-                />
-              )}
-            />
-            <ErrorText id="spreadMonths" error={errors.spreadMonths} />
-          </div>
+          <Controller
+            control={control}
+            name="spreadMonths"
+            render={({ field }) => <SpreadField value={field.value} onChange={field.onChange} uses={spreadUses} usual={crop ? defaultSpreadFor : undefined} error={errors.spreadMonths} />}
+          />
         ) : null}
 
         <UseCautions uses={splitting ? values.parts.map((p) => p.use) : [values.use]} />
@@ -280,7 +216,7 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
         <Alert message={alert} />
       </form>
 
-      <SavedList saved={saved} onUndo={(s) => undo.mutate(s)} undoing={undo.isPending ? undo.variables?.key : undefined} />
+      <SavedList saved={saved} onUndo={undo} undoing={undoing} />
       <WaitingList items={outbox.items} onRetry={() => void outbox.flush()} onDiscard={outbox.discard} />
     </div>
   );

@@ -6,57 +6,16 @@
  * harvest form, so a dropped connection keeps the entry and never stores it twice.
  */
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { useEffect, useRef, useState, type FormEvent } from 'react';
+import { useRef, useState, type FormEvent } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { stapleInput, type PurchaseInput } from '../../lib/entry-schemas';
-import { ApiError, keys, newIdempotencyKey, request, urls, type HouseholdInfo, type Purchase, type Staple } from './api';
+import { ApiError, keys, newIdempotencyKey, request, urls, type HouseholdInfo, type Staple } from './api';
 import { FoodPicker } from './FoodPicker';
 import { flatErrors } from './form-errors';
-import type { Outbox } from './outbox';
+import { purchaseLabel, savedPurchase, type PurchaseOutbox, type SavedPurchase } from './PurchaseSaved';
 import { emptyPurchaseValues, purchaseResolver, type PurchaseFormContext, type PurchaseFormValues } from './purchase-form-values';
-import { formatInUnit, formatQuantity } from './quantity-text';
-import { Alert, ErrorText, invalidProps, useRememberedUnit, type Errors } from './ui';
+import { Alert, ErrorText, invalidProps, useRememberedCurrency, useRememberedUnit, type Errors } from './ui';
 import { WeightField } from './WeightField';
-
-export interface SavedPurchase {
-  key: string;
-  label: string;
-  edible: string;
-  purchase: Purchase;
-  later?: boolean;
-}
-
-/** "25 kg Wheat flour — over 6 months". */
-export function purchaseLabel(quantity: number, unit: Purchase['unit'], name: string, spread: number): string {
-  return `${formatQuantity(quantity, unit)} ${name}${spread > 1 ? ` — over ${spread} months` : ''}`;
-}
-
-export function savedPurchase(key: string, label: string, p: Purchase, later = false): SavedPurchase {
-  return { key, label, edible: formatInUnit(p.edibleGrams, p.unit), purchase: p, later };
-}
-
-function useRememberedCurrency(householdId: number, fallback: string): [string, (c: string) => void] {
-  const key = `selfsown:currency:${householdId}`;
-  const [c, setC] = useState(fallback);
-  useEffect(() => {
-    try {
-      const saved = localStorage.getItem(key);
-      if (saved && /^[A-Z]{3}$/.test(saved)) setC(saved);
-    } catch {
-      /* storage unavailable */
-    }
-  }, [key]);
-  const remember = (v: string) => {
-    try {
-      if (/^[A-Z]{3}$/.test(v)) localStorage.setItem(key, v);
-    } catch {
-      /* storage unavailable */
-    }
-  };
-  return [c, (v) => (setC(v), remember(v.toUpperCase()))];
-}
-
-export type PurchaseOutbox = Outbox<{ purchase: Purchase }>;
 
 export function PurchaseForm({ household, today, outbox, onSaved }: { household: HouseholdInfo; today: string; outbox: PurchaseOutbox; onSaved: (s: SavedPurchase) => void }) {
   const hid = household.id;
@@ -229,34 +188,5 @@ export function PurchaseForm({ household, today, outbox, onSaved }: { household:
       </button>
       {alert ? <Alert tone={alert.tone} message={alert.text} /> : null}
     </form>
-  );
-}
-
-/** Bought food kept on this device until Selfsown can be reached (or refused, to discard). */
-export function PurchaseWaiting({ outbox }: { outbox: PurchaseOutbox }) {
-  if (outbox.items.length === 0) return null;
-  return (
-    <section aria-label="Waiting to send" className="mt-4 rounded-2xl border-l-4 border-rind-500 bg-rind-100 p-4" data-testid="purchase-waiting">
-      <ul className="space-y-2">
-        {outbox.items.map((i) => (
-          <li key={i.key}>
-            <span className="font-semibold">{i.label}</span>{' '}
-            {i.refused ? (
-              <>
-                <span className="text-berry-700">— not saved: {i.lastError}</span>{' '}
-                <button type="button" className="btn-quiet ml-2" onClick={() => outbox.discard(i.key)}>
-                  Discard
-                </button>
-              </>
-            ) : (
-              <span className="text-sm text-loam-700">· waiting to send</span>
-            )}
-          </li>
-        ))}
-      </ul>
-      <button type="button" className="btn-quiet mt-3" onClick={() => void outbox.flush()}>
-        Send now
-      </button>
-    </section>
   );
 }
