@@ -5,7 +5,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { get, keys, newIdempotencyKey, request, urls, type HouseholdInfo, type Staple } from './api';
-import { purchaseLabel, savedPurchase, type PurchaseOutbox, type SavedPurchase } from './PurchaseForm';
+import { purchaseLabel, savedPurchase, type PurchaseOutbox, type SavedPurchase } from './PurchaseSaved';
 import { Alert, ConfirmDelete } from './ui';
 
 export function StapleList({ household, today, outbox, onSaved, writer }: { household: HouseholdInfo; today: string; outbox: PurchaseOutbox; onSaved: (s: SavedPurchase) => void; writer: boolean }) {

@@ -1,6 +1,7 @@
 /**
  * Small pieces the entry islands share: a labelled field shell with its error, the unit toggle,
- * the use chips, a two-step delete button and the hook that remembers a unit per household.
+ * the use chips, a two-step delete button and the hooks that remember a unit and a currency per
+ * household.
  * Touch targets are at least 48 px (min-h-12) so they work with one thumb outdoors.
  */
 import { useEffect, useState, type ReactNode } from 'react';
@@ -124,6 +125,28 @@ export function useRememberedUnit(householdId: number, system: UnitSystem, what 
     }
   };
   return [unit, choose];
+}
+
+/** The currency last used in this household on this device (localStorage), else `fallback`; kept only when it is a three-letter code. */
+export function useRememberedCurrency(householdId: number, fallback: string): [string, (c: string) => void] {
+  const key = `selfsown:currency:${householdId}`;
+  const [c, setC] = useState(fallback);
+  useEffect(() => {
+    try {
+      const saved = localStorage.getItem(key);
+      if (saved && /^[A-Z]{3}$/.test(saved)) setC(saved);
+    } catch {
+      /* storage unavailable */
+    }
+  }, [key]);
+  const remember = (v: string) => {
+    try {
+      if (/^[A-Z]{3}$/.test(v)) localStorage.setItem(key, v);
+    } catch {
+      /* storage unavailable */
+    }
+  };
+  return [c, (v) => (setC(v), remember(v.toUpperCase()))];
 }
 
 /** A value that follows `value` after it has stopped changing for `ms`. */

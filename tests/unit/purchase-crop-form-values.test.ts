@@ -1,0 +1,49 @@
+/**
+ * The bought-food and crop forms' resolvers: typed text becomes the endpoint's body and is checked
+ * by the endpoint's own schemas, with the form's own sentences where only the form can tell.
+ */
+import { describe, expect, it } from 'vitest';
+import { cropBody, cropFormValues, cropResolver } from '../../src/components/entries/crop-form-values';
+import { flatErrors } from '../../src/components/entries/form-errors';
+import { emptyPurchaseValues, purchaseResolver, type PurchaseFormValues } from '../../src/components/entries/purchase-form-values';
+
+const options = { fields: {}, shouldUseNativeValidation: false };
+const flour = { id: 5, name: 'Wheat flour, whole-grain', code: '20080' };
+const purchase = (patch: Partial<PurchaseFormValues>): PurchaseFormValues => ({ ...emptyPurchaseValues('2026-03-02'), ...patch });
+
+describe('purchaseResolver', () => {
+  it('sends a bulk buy with its months, the remembered unit and the currency of its price', async () => {
+    const r = await purchaseResolver(purchase({ food: flour, quantity: '25', price: '31,5', spreadMonths: '6' }), { unit: 'kg', currency: 'EUR' }, options);
+    expect(flatErrors(r.errors)).toEqual({});
+    expect(r.values).toEqual({ date: '2026-03-02', foodId: 5, quantity: 25, unit: 'kg', price: 31.5, currency: 'EUR', spreadMonths: 6, trimmed: false });
+  });
+
+  it('asks for the food in the form’s words', async () => {
+    const r = await purchaseResolver(purchase({ quantity: '1' }), { unit: 'kg', currency: '' }, options);
+    expect(flatErrors(r.errors)).toEqual({ foodId: 'Choose the food you bought from the reference foods.' });
+  });
+
+  it('asks for the currency of a price', async () => {
+    const r = await purchaseResolver(purchase({ food: flour, quantity: '1', price: '2' }), { unit: 'kg', currency: ' ' }, options);
+    expect(flatErrors(r.errors).currency).toBe('Give the currency of the price, e.g. EUR or USD.');
+  });
+});
+
+describe('cropResolver', () => {
+  it('gives the schema’s sentence for a crop without a name', async () => {
+    const r = await cropResolver(cropFormValues(), { editing: false }, options);
+    expect(flatErrors(r.errors).name).toBe('Give the crop a name.');
+  });
+
+  it('reads the eaten share in % as a fraction', async () => {
+    const r = await cropResolver({ ...cropFormValues(), name: 'Leek', eatenPct: '62,5' }, { editing: false }, options);
+    expect(flatErrors(r.errors)).toEqual({});
+    expect(r.values).toMatchObject({ name: 'Leek', edibleFraction: 0.625, foodId: null, notFood: false });
+  });
+
+  it('clears blank fields when a crop is changed, and leaves them out when it is new', () => {
+    const values = { ...cropFormValues(), name: 'Leek' };
+    expect(cropBody(values, true)).toMatchObject({ variety: null, edibleFraction: null, defaultUse: null, defaultSpreadMonths: null });
+    expect(cropBody(values, false)).toMatchObject({ variety: '', edibleFraction: undefined, defaultUse: undefined, defaultSpreadMonths: undefined });
+  });
+});
