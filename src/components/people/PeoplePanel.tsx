@@ -7,7 +7,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useId, useState, type FormEvent } from 'react';
 import { formatAmount } from '../../lib/format-number';
 import { ACTIVITY_LABELS, ACTIVITY_LEVELS, personInput, type PersonFields } from '../../lib/people-schemas';
-import type { PersonJson } from '../../server/people';
+import type { PersonJson } from '../../lib/api-types';
 import { ApiError, get, request } from '../entries/api';
 import { QueryProvider } from '../entries/QueryProvider';
 import { parseDecimal } from '../entries/quantity-text';
