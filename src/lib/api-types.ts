@@ -1,11 +1,12 @@
 /**
- * The JSON shapes the household API answers with for crops, staples, people and CSV imports. They
+ * The JSON shapes the household API answers with for crops, staples, people, members and CSV imports. They
  * live here, as pure types, so that the server modules that build them and the browser islands
  * that read them share one definition without the browser importing anything from `src/server`.
  */
 import type { CropCategory } from './crop-categories';
 import type { CsvError } from './csv-import';
 import type { Use } from './entry-schemas';
+import type { RoleValue } from './household-schemas';
 import type { PersonFields } from './people-schemas';
 import type { PersonEnergy } from './person-energy';
 import type { WeightUnit } from './units';
@@ -98,4 +99,20 @@ export interface ImportAnswerBody {
 export interface ImportAnswer {
   status: number;
   body: ImportAnswerBody;
+}
+
+/** A member of a household as GET /api/households/{id}/members lists them. */
+export interface MemberJson {
+  userId: string;
+  role: RoleValue;
+  name: string;
+  email: string;
+}
+
+/** A pending invitation as GET /api/households/{id}/invitations lists it. */
+export interface InvitationJson {
+  id: number;
+  email: string;
+  role: RoleValue;
+  expiresAt: string;
 }
