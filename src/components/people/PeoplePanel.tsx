@@ -238,6 +238,7 @@ const checkPerson = zodResolver(personInput);
  * that is the box on show.
  */
 const personResolver: Resolver<Draft, unknown, PersonInput> = async (draft, context, options) => {
+  // The zod resolver is typed for the API body; it is handed exactly that, built from the draft.
   const result = await checkPerson(bodyOf(draft) as never, context, options as never);
   const errors = result.errors as FieldErrorsOf<Draft>;
   if (draft.ageKind === 'birthYear' && errors.ageYears) {
