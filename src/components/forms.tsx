@@ -1,9 +1,14 @@
 /**
- * Small pieces every form shares (account, household and entry islands): a labelled field with
- * its hint and inline error (aria-invalid + aria-describedby), a form-level alert, and a JSON POST
- * that never throws.
+ * Small pieces every form shares (account, household, people and entry islands): a labelled field
+ * with its hint and inline error (aria-invalid + aria-describedby), a form-level alert, and the
+ * react-hook-form setup that checks a form with the same zod schema its endpoint uses and shows the
+ * server's own field errors beside the fields.
  */
+import { zodResolver } from '@hookform/resolvers/zod';
 import type { ReactNode } from 'react';
+import { useForm, type DefaultValues, type FieldValues, type Path, type UseFormRegisterReturn, type UseFormReturn } from 'react-hook-form';
+import type { z } from 'zod';
+import { ApiError } from './request';
 
 export type FieldErrors = Record<string, string>;
 
@@ -54,16 +59,19 @@ interface FieldProps {
   defaultValue?: string;
   required?: boolean;
   inputMode?: 'email' | 'text';
+  /** The input's react-hook-form registration (`register(name)`); its name is the field's. */
+  registration?: UseFormRegisterReturn;
 }
 
 /** A text-like input with a visible label, an optional hint and its error right below it. */
-export function Field({ id, label, error, hint, type = 'text', autoComplete, defaultValue, required = true, inputMode }: FieldProps) {
+export function Field({ id, label, error, hint, type = 'text', autoComplete, defaultValue, required = true, inputMode, registration }: FieldProps) {
   return (
     <div className="mt-4">
       <LabelAndHint id={id} label={label} hint={hint} />
       <input
-        {...invalidProps(id, error, Boolean(hint))}
         name={id}
+        {...registration}
+        {...invalidProps(id, error, Boolean(hint))}
         type={type}
         className={`field mt-1 ${error ? 'border-berry-700 ring-1 ring-berry-700' : ''}`}
         autoComplete={autoComplete}
@@ -96,43 +104,47 @@ export function FormAlert({ message, tone = 'error' }: { message: string | null;
   );
 }
 
-export interface JsonAnswer {
-  status: number;
-  body: any;
-  headers: Headers;
+/** A zod schema whose input is a form's values (what `useSchemaForm` accepts). */
+type FormSchema<Values extends FieldValues, Output> = z.ZodType<Output, Values>;
+
+/**
+ * A react-hook-form form checked by `schema` — the same zod schema the endpoint parses with — on
+ * submit. Problems show beside their fields and the first one gets the focus; they are checked
+ * again at the next submit, not on every key press. `handleSubmit` hands over the parsed values.
+ * Example: `const form = useSchemaForm(signInInput, { email: '', password: '' })`
+ */
+export function useSchemaForm<Values extends FieldValues, Output>(schema: FormSchema<Values, Output>, defaultValues?: DefaultValues<Values>): UseFormReturn<Values, unknown, Output> {
+  return useForm<Values, unknown, Output>({
+    resolver: zodResolver(schema),
+    reValidateMode: 'onSubmit',
+    ...(defaultValues ? { defaultValues } : {}),
+  });
 }
 
-/** Sends JSON and reads JSON back; a network failure is status 0 with a sentence. */
-export async function sendJson(method: string, url: string, body?: unknown): Promise<JsonAnswer> {
-  try {
-    const res = await fetch(url, {
-      method,
-      headers: body === undefined ? {} : { 'content-type': 'application/json' },
-      body: body === undefined ? undefined : JSON.stringify(body),
-      credentials: 'same-origin',
-    });
-    const text = await res.text();
-    let parsed: unknown = null;
-    try {
-      parsed = text ? JSON.parse(text) : null;
-    } catch {
-      parsed = { message: text };
-    }
-    return { status: res.status, body: parsed, headers: res.headers };
-  } catch {
-    return { status: 0, body: { message: 'Could not reach Selfsown. Check your connection and try again.' }, headers: new Headers() };
-  }
+/** The key of a message about the whole form (react-hook-form clears root errors at each submit). */
+const FORM_MESSAGE = 'root.server';
+
+/** The form-level message set by `showFormMessage`/`showFailure`, or null. */
+export function formMessage<Values extends FieldValues>(form: UseFormReturn<Values, unknown, unknown>): string | null {
+  return form.formState.errors.root?.server?.message ?? null;
 }
 
-/** The sentence of an error answer, in either shape (ours: {error:{message}}, better-auth's: {message}). */
-export function answerMessage(a: JsonAnswer, fallback = 'Something went wrong. Please try again.'): string {
-  return a.body?.error?.message ?? a.body?.message ?? fallback;
+/** Shows one sentence about the whole form in its alert. */
+export function showFormMessage<Values extends FieldValues>(form: UseFormReturn<Values, unknown, unknown>, message: string): void {
+  form.setError(FORM_MESSAGE as Path<Values>, { type: 'server', message });
 }
 
-/** Moves focus to the first field with an error, so keyboard and screen-reader users land on it. */
-export function focusFirstError(form: HTMLFormElement | null, errors: FieldErrors): void {
-  const first = Object.keys(errors)[0];
-  if (!form || !first) return;
-  const el = form.querySelector<HTMLElement>(`[name="${CSS.escape(first)}"]`);
-  el?.focus();
+/** Shows one field's problem (from the server) beside the field, and focuses it. */
+export function showFieldProblem<Values extends FieldValues>(form: UseFormReturn<Values, unknown, unknown>, field: Path<Values>, message: string): void {
+  form.setError(field, { type: 'server', message }, { shouldFocus: true });
+}
+
+/**
+ * Shows a failed API call on the form: each of the API's `fields` beside its field (the first one
+ * focused) and the error's sentence in the form's alert; anything but an ApiError shows `fallback`.
+ */
+export function showFailure<Values extends FieldValues>(form: UseFormReturn<Values, unknown, unknown>, err: unknown, fallback = 'Something went wrong. Please try again.'): void {
+  if (!(err instanceof ApiError)) return showFormMessage(form, fallback);
+  Object.entries(err.fields).forEach(([field, message], i) => form.setError(field as Path<Values>, { type: 'server', message }, { shouldFocus: i === 0 }));
+  showFormMessage(form, err.message);
 }

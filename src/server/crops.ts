@@ -5,39 +5,13 @@
 import { and, asc, count, desc, eq, inArray, max, sql } from 'drizzle-orm';
 import { getDb } from '../db/client';
 import { crops, datasets, foods, harvests, type Crop } from '../db/schema';
-import type { CropCategory } from '../lib/crop-categories';
+import type { CropJson, FoodSummary } from '../lib/api-types';
 import { edibleFactor } from '../lib/edible';
-import { EATEN_USES, mergeCropPatch, type CropInput, type CropPatch, type Use } from '../lib/entry-schemas';
+import { EATEN_USES, mergeCropPatch, type CropInput, type CropPatch } from '../lib/entry-schemas';
 import { HttpError } from './http';
 import { fieldError, invalidInput, isDuplicateKey, isRowReferenced, type Executor, type Tx } from './entry-input';
 
-/** A reference food as a crop shows it: enough to judge the match. */
-export interface FoodSummary {
-  id: number;
-  dataset: string;
-  code: string;
-  name: string;
-  refusePct: number | null;
-  kcalPer100g: number | null;
-  proteinPer100g: number | null;
-}
-
-export interface CropJson {
-  id: number;
-  name: string;
-  variety: string | null;
-  displayName: string;
-  foodId: number | null;
-  food: FoodSummary | null;
-  category: CropCategory;
-  edibleFraction: number | null;
-  defaultUse: Use | null;
-  defaultSpreadMonths: number | null;
-  notFood: boolean;
-  archived: boolean;
-  harvestCount: number;
-  lastHarvestDate: string | null;
-}
+export type { CropJson, FoodSummary } from '../lib/api-types';
 
 /** "Name (variety)", or the name alone. Example: `cropDisplayName('Potato', 'Pink Fir')` → 'Potato (Pink Fir)' */
 export function cropDisplayName(name: string, variety: string | null | undefined): string {

@@ -8,6 +8,7 @@ import { asc, inArray } from 'drizzle-orm';
 import { z } from 'zod';
 import { getDb } from '../db/client';
 import { foods, harvests, purchases, type Crop } from '../db/schema';
+import type { ImportAnswer, PreviewRow } from '../lib/api-types';
 import {
   CSV_LIMITS,
   cropNameKey,
@@ -18,12 +19,14 @@ import {
   type CsvError,
 } from '../lib/csv-import';
 import { cropInput, type CropInput, type HarvestInput, type PurchaseInput } from '../lib/entry-schemas';
-import { toGrams, type WeightUnit } from '../lib/units';
+import { toGrams } from '../lib/units';
 import { cropDisplayName, cropRows, insertCrop } from './crops';
 import { HttpError, readBodyBytes } from './http';
 import { parseInput, type Executor, type Tx } from './entry-input';
 import { harvestValues, type HarvestBasis } from './harvests';
 import { purchaseValues } from './purchases';
+
+export type { ImportAnswer, ImportAnswerBody, PreviewRow } from '../lib/api-types';
 
 /** Rows shown in a preview answer; the counts and totals always cover the whole file. */
 export const PREVIEW_ROW_LIMIT = 500;
@@ -160,44 +163,6 @@ function cropFromInput(id: number, input: CropInput): ImportCrop {
     edibleFraction: input.edibleFraction ?? null,
     defaultSpreadMonths: input.defaultSpreadMonths ?? null,
     notFood: input.notFood,
-  };
-}
-
-/** A row of the preview as it would be stored. */
-export interface PreviewRow {
-  row: number;
-  date: string;
-  crop: string | null;
-  foodCode: string | null;
-  foodName: string | null;
-  quantity: number;
-  unit: WeightUnit;
-  grams: number;
-  edibleGrams: number;
-  use?: string;
-  spreadMonths: number;
-  trimmed: boolean;
-  note: string | null;
-  price?: number | null;
-  currency?: string | null;
-}
-
-export interface ImportAnswer {
-  status: number;
-  body: {
-    ok: boolean;
-    kind: 'harvests' | 'purchases';
-    mode: 'preview' | 'commit';
-    /** The first rows as they would be stored (at most PREVIEW_ROW_LIMIT). */
-    rows: PreviewRow[];
-    rowCount: number;
-    totals: { grams: number; edibleGrams: number };
-    errors: CsvError[];
-    unknownCrops: { name: string; variety?: string }[];
-    unknownFoodCodes: string[];
-    ignoredColumns: string[];
-    created?: number;
-    error?: { code: string; message: string; fields: Record<string, string> };
   };
 }
 

@@ -5,23 +5,14 @@
 import { and, asc, eq } from 'drizzle-orm';
 import { getDb } from '../db/client';
 import { foods, staples, type Household } from '../db/schema';
+import type { StapleJson } from '../lib/api-types';
 import type { StapleInput } from '../lib/entry-schemas';
-import type { WeightUnit } from '../lib/units';
 import { requireFood } from './crops';
 import { HttpError } from './http';
 import { isDuplicateKey, todayIn, type Executor, type Tx } from './entry-input';
 import { createPurchase, type PurchaseJson } from './purchases';
 
-export interface StapleJson {
-  id: number;
-  foodId: number;
-  foodName: string;
-  foodCode: string;
-  label: string;
-  quantity: number;
-  unit: WeightUnit;
-  spreadMonths: number;
-}
+export type { StapleJson } from '../lib/api-types';
 
 function joined(ex: Executor) {
   return ex

@@ -1,21 +1,13 @@
 /**
- * The sign-up, sign-in, forgot-password and reset-password forms (React islands). They post to
- * better-auth's endpoints under /api/auth and validate first with the shared zod rules.
+ * The sign-up, sign-in, forgot-password and reset-password forms (React islands). Each is a
+ * react-hook-form form checked with the shared zod rules of src/lib/account-schemas.ts (the ones
+ * auth.ts uses) and sends through better-auth's own client (./auth-client.ts).
  */
-import { useRef, useState, type FormEvent, type ReactNode } from 'react';
-import type { z } from 'zod';
-import { fieldErrors, forgotPasswordInput, PASSWORD_MIN, resetPasswordInput, signInInput, signUpInput } from '../../lib/account-schemas';
+import { useState, type ReactNode } from 'react';
+import { forgotPasswordInput, PASSWORD_MIN, resetPasswordInput, signInInput, signUpInput } from '../../lib/account-schemas';
 import { safeNext, withNext } from '../../lib/safe-next';
-import { answerMessage, Field, FormAlert, focusFirstError, sendJson, type FieldErrors } from '../forms';
-
-function formValues(form: HTMLFormElement): Record<string, string> {
-  return Object.fromEntries([...new FormData(form).entries()].map(([k, v]) => [k, String(v)]));
-}
-
-function tooMany(retryAfter: string | null): string {
-  const s = Number(retryAfter);
-  return `Too many attempts from here. Wait ${s > 0 ? `${s} second${s === 1 ? '' : 's'}` : 'a minute'} and try again.`;
-}
+import { Field, FormAlert, formMessage, showFieldProblem, showFormMessage, useSchemaForm } from '../forms';
+import { authCall, authClient, tooMany } from './auth-client';
 
 function OutboxHint({ outbox }: { outbox: boolean }) {
   return outbox ? (
@@ -23,36 +15,6 @@ function OutboxHint({ outbox }: { outbox: boolean }) {
       This install keeps mail locally: open the <a className="text-sprout-700 underline" href="/dev/mail">outbox</a> to read it.
     </p>
   ) : null;
-}
-
-/**
- * The state every account form shares, and its first step on submit: check the fields with the
- * shared zod rules, show each problem beside its field and focus the first. Returns the parsed
- * values, or null when something is wrong.
- */
-function useCheckedForm() {
-  const formRef = useRef<HTMLFormElement>(null);
-  const [errors, setErrors] = useState<FieldErrors>({});
-  const [alert, setAlert] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
-  function check<T>(e: FormEvent<HTMLFormElement>, schema: { safeParse: (v: unknown) => z.ZodSafeParseResult<T> }): T | null {
-    e.preventDefault();
-    setAlert(null);
-    const parsed = schema.safeParse(formValues(e.currentTarget));
-    const errs = fieldErrors(parsed);
-    setErrors(errs);
-    if (!parsed.success) {
-      focusFirstError(formRef.current, errs);
-      return null;
-    }
-    return parsed.data;
-  }
-  /** Shows one field's problem from the server, focused. */
-  function fieldProblem(field: string, message: string) {
-    setErrors({ [field]: message });
-    focusFirstError(formRef.current, { [field]: message });
-  }
-  return { formRef, errors, alert, setAlert, busy, setBusy, check, fieldProblem };
 }
 
 /** The "check your mail" card after a form sent a link. */
@@ -67,22 +29,18 @@ function SentCard({ title, children, outbox }: { title?: string; children: React
 }
 
 export function SignUpForm({ next, email, outbox }: { next: string | null; email?: string; outbox: boolean }) {
-  const { formRef, errors, alert, setAlert, busy, setBusy, check, fieldProblem } = useCheckedForm();
+  const form = useSchemaForm(signUpInput, { name: '', email: email ?? '', password: '' });
+  const { errors, isSubmitting } = form.formState;
   const [sentTo, setSentTo] = useState<string | null>(null);
 
-  async function submit(e: FormEvent<HTMLFormElement>) {
-    const data = check(e, signUpInput);
-    if (!data) return;
-    setBusy(true);
-    const a = await sendJson('POST', '/api/auth/sign-up/email', { ...data, callbackURL: safeNext(next) });
-    setBusy(false);
-    if (a.status === 200) return setSentTo(data.email);
-    if (a.status === 429) return setAlert(tooMany(a.headers.get('x-retry-after')));
-    const code: string = a.body?.code ?? '';
-    if (code.startsWith('PASSWORD')) return fieldProblem('password', `Use ${PASSWORD_MIN} to 128 characters.`);
-    if (code === 'INVALID_EMAIL') return fieldProblem('email', 'Enter an e-mail address, e.g. robin@example.org.');
-    setAlert(answerMessage(a));
-  }
+  const submit = form.handleSubmit(async (data) => {
+    const failure = await authCall((o) => authClient.signUp.email({ ...data, callbackURL: safeNext(next) }, o));
+    if (!failure) return setSentTo(data.email);
+    if (failure.status === 429) return showFormMessage(form, tooMany(failure.retryAfter));
+    if (failure.code.startsWith('PASSWORD')) return showFieldProblem(form, 'password', `Use ${PASSWORD_MIN} to 128 characters.`);
+    if (failure.code === 'INVALID_EMAIL') return showFieldProblem(form, 'email', 'Enter an e-mail address, e.g. robin@example.org.');
+    showFormMessage(form, failure.message);
+  });
 
   if (sentTo) {
     return (
@@ -95,15 +53,15 @@ export function SignUpForm({ next, email, outbox }: { next: string | null; email
     );
   }
   return (
-    <form ref={formRef} onSubmit={submit} noValidate className="card mt-6 max-w-md" aria-describedby="sign-up-alert">
-      <Field id="name" label="Your name" autoComplete="name" error={errors.name} hint="Shown to the people in your households." />
-      <Field id="email" label="E-mail" type="email" inputMode="email" autoComplete="email" defaultValue={email} error={errors.email} />
-      <Field id="password" label="Password" type="password" autoComplete="new-password" error={errors.password} hint={`At least ${PASSWORD_MIN} characters. A few unrelated words work well.`} />
+    <form onSubmit={submit} noValidate className="card mt-6 max-w-md" aria-describedby="sign-up-alert">
+      <Field id="name" label="Your name" autoComplete="name" registration={form.register('name')} error={errors.name?.message} hint="Shown to the people in your households." />
+      <Field id="email" label="E-mail" type="email" inputMode="email" autoComplete="email" defaultValue={email} registration={form.register('email')} error={errors.email?.message} />
+      <Field id="password" label="Password" type="password" autoComplete="new-password" registration={form.register('password')} error={errors.password?.message} hint={`At least ${PASSWORD_MIN} characters. A few unrelated words work well.`} />
       <div id="sign-up-alert">
-        <FormAlert message={alert} />
+        <FormAlert message={formMessage(form)} />
       </div>
-      <button className="btn-primary mt-6 w-full" type="submit" disabled={busy}>
-        {busy ? 'Creating your account…' : 'Create my account'}
+      <button className="btn-primary mt-6 w-full" type="submit" disabled={isSubmitting}>
+        {isSubmitting ? 'Creating your account…' : 'Create my account'}
       </button>
       <p className="mt-4 text-center">
         Already have an account? <a className="text-sprout-700 underline" href={withNext('/sign-in', next)}>Sign in</a>
@@ -113,35 +71,40 @@ export function SignUpForm({ next, email, outbox }: { next: string | null; email
 }
 
 export function SignInForm({ next, outbox }: { next: string | null; outbox: boolean }) {
-  const { formRef, errors, alert, setAlert, busy, setBusy, check } = useCheckedForm();
+  const form = useSchemaForm(signInInput, { email: '', password: '' });
+  const { errors, isSubmitting, isSubmitSuccessful } = form.formState;
   const [unverified, setUnverified] = useState(false);
 
-  async function submit(e: FormEvent<HTMLFormElement>) {
-    setUnverified(false);
-    const data = check(e, signInInput);
-    if (!data) return;
-    setBusy(true);
+  const check = form.handleSubmit(async (data) => {
     const target = safeNext(next);
-    const a = await sendJson('POST', '/api/auth/sign-in/email', { ...data, callbackURL: target });
-    if (a.status === 200) {
+    const failure = await authCall((o) => authClient.signIn.email({ ...data, callbackURL: target }, o));
+    if (!failure) {
       window.location.assign(target);
       return;
     }
-    setBusy(false);
-    if (a.status === 429) return setAlert(tooMany(a.headers.get('x-retry-after')));
-    if (a.status === 403 && a.body?.code === 'EMAIL_NOT_VERIFIED') {
+    if (failure.status === 429) return showFormMessage(form, tooMany(failure.retryAfter));
+    if (failure.status === 403 && failure.code === 'EMAIL_NOT_VERIFIED') {
       setUnverified(true);
-      return setAlert(`Confirm your address first: we have just sent a new link to ${data.email}.`);
+      return showFormMessage(form, `Confirm your address first: we have just sent a new link to ${data.email}.`);
     }
-    if (a.status === 401) return setAlert('That e-mail and password do not match an account. Check both, or reset the password.');
-    setAlert(answerMessage(a));
-  }
+    if (failure.status === 401) return showFormMessage(form, 'That e-mail and password do not match an account. Check both, or reset the password.');
+    showFormMessage(form, failure.message);
+  });
+  // A successful sign-in keeps the button busy while the next page loads.
+  const busy = isSubmitting || isSubmitSuccessful;
 
   return (
-    <form ref={formRef} onSubmit={submit} noValidate className="card mt-6 max-w-md">
-      <Field id="email" label="E-mail" type="email" inputMode="email" autoComplete="email" error={errors.email} />
-      <Field id="password" label="Password" type="password" autoComplete="current-password" error={errors.password} />
-      <FormAlert message={alert} />
+    <form
+      onSubmit={(e) => {
+        setUnverified(false);
+        void check(e);
+      }}
+      noValidate
+      className="card mt-6 max-w-md"
+    >
+      <Field id="email" label="E-mail" type="email" inputMode="email" autoComplete="email" registration={form.register('email')} error={errors.email?.message} />
+      <Field id="password" label="Password" type="password" autoComplete="current-password" registration={form.register('password')} error={errors.password?.message} />
+      <FormAlert message={formMessage(form)} />
       {unverified ? <OutboxHint outbox={outbox} /> : null}
       <button className="btn-primary mt-6 w-full" type="submit" disabled={busy}>
         {busy ? 'Signing in…' : 'Sign in'}
@@ -155,19 +118,16 @@ export function SignInForm({ next, outbox }: { next: string | null; outbox: bool
 }
 
 export function ForgotPasswordForm({ outbox }: { outbox: boolean }) {
-  const { formRef, errors, alert, setAlert, busy, setBusy, check } = useCheckedForm();
+  const form = useSchemaForm(forgotPasswordInput, { email: '' });
+  const { errors, isSubmitting } = form.formState;
   const [sentTo, setSentTo] = useState<string | null>(null);
 
-  async function submit(e: FormEvent<HTMLFormElement>) {
-    const data = check(e, forgotPasswordInput);
-    if (!data) return;
-    setBusy(true);
-    const a = await sendJson('POST', '/api/auth/request-password-reset', { email: data.email, redirectTo: '/reset-password' });
-    setBusy(false);
-    if (a.status === 200) return setSentTo(data.email);
-    if (a.status === 429) return setAlert(tooMany(a.headers.get('x-retry-after')));
-    setAlert(answerMessage(a));
-  }
+  const submit = form.handleSubmit(async (data) => {
+    const failure = await authCall((o) => authClient.requestPasswordReset({ email: data.email, redirectTo: '/reset-password' }, o));
+    if (!failure) return setSentTo(data.email);
+    if (failure.status === 429) return showFormMessage(form, tooMany(failure.retryAfter));
+    showFormMessage(form, failure.message);
+  });
 
   if (sentTo) {
     return (
@@ -179,30 +139,27 @@ export function ForgotPasswordForm({ outbox }: { outbox: boolean }) {
     );
   }
   return (
-    <form ref={formRef} onSubmit={submit} noValidate className="card mt-6 max-w-md">
-      <Field id="email" label="E-mail of your account" type="email" inputMode="email" autoComplete="email" error={errors.email} />
-      <FormAlert message={alert} />
-      <button className="btn-primary mt-6 w-full" type="submit" disabled={busy}>
-        {busy ? 'Sending…' : 'Send me a link'}
+    <form onSubmit={submit} noValidate className="card mt-6 max-w-md">
+      <Field id="email" label="E-mail of your account" type="email" inputMode="email" autoComplete="email" registration={form.register('email')} error={errors.email?.message} />
+      <FormAlert message={formMessage(form)} />
+      <button className="btn-primary mt-6 w-full" type="submit" disabled={isSubmitting}>
+        {isSubmitting ? 'Sending…' : 'Send me a link'}
       </button>
     </form>
   );
 }
 
 export function ResetPasswordForm({ token }: { token: string }) {
-  const { formRef, errors, alert, setAlert, busy, setBusy, check } = useCheckedForm();
+  const form = useSchemaForm(resetPasswordInput, { password: '', confirm: '' });
+  const { errors, isSubmitting } = form.formState;
   const [done, setDone] = useState(false);
 
-  async function submit(e: FormEvent<HTMLFormElement>) {
-    const data = check(e, resetPasswordInput);
-    if (!data) return;
-    setBusy(true);
-    const a = await sendJson('POST', '/api/auth/reset-password', { token, newPassword: data.password });
-    setBusy(false);
-    if (a.status === 200) return setDone(true);
-    if (a.body?.code === 'INVALID_TOKEN') return setAlert('This link has expired or was already used. Ask for a new one below.');
-    setAlert(answerMessage(a));
-  }
+  const submit = form.handleSubmit(async (data) => {
+    const failure = await authCall((o) => authClient.resetPassword({ token, newPassword: data.password }, o));
+    if (!failure) return setDone(true);
+    if (failure.code === 'INVALID_TOKEN') return showFormMessage(form, 'This link has expired or was already used. Ask for a new one below.');
+    showFormMessage(form, failure.message);
+  });
 
   if (done) {
     return (
@@ -214,12 +171,12 @@ export function ResetPasswordForm({ token }: { token: string }) {
     );
   }
   return (
-    <form ref={formRef} onSubmit={submit} noValidate className="card mt-6 max-w-md">
-      <Field id="password" label="New password" type="password" autoComplete="new-password" error={errors.password} hint={`At least ${PASSWORD_MIN} characters.`} />
-      <Field id="confirm" label="The same password again" type="password" autoComplete="new-password" error={errors.confirm} />
-      <FormAlert message={alert} />
-      <button className="btn-primary mt-6 w-full" type="submit" disabled={busy}>
-        {busy ? 'Saving…' : 'Set the new password'}
+    <form onSubmit={submit} noValidate className="card mt-6 max-w-md">
+      <Field id="password" label="New password" type="password" autoComplete="new-password" registration={form.register('password')} error={errors.password?.message} hint={`At least ${PASSWORD_MIN} characters.`} />
+      <Field id="confirm" label="The same password again" type="password" autoComplete="new-password" registration={form.register('confirm')} error={errors.confirm?.message} />
+      <FormAlert message={formMessage(form)} />
+      <button className="btn-primary mt-6 w-full" type="submit" disabled={isSubmitting}>
+        {isSubmitting ? 'Saving…' : 'Set the new password'}
       </button>
       <p className="mt-4">
         <a className="text-sprout-700 underline" href="/forgot-password">Ask for a new link</a>
@@ -230,19 +187,16 @@ export function ResetPasswordForm({ token }: { token: string }) {
 
 /** On /verify after a failed link: sends a fresh verification mail. */
 export function ResendVerification({ next, outbox }: { next: string | null; outbox: boolean }) {
-  const { formRef, errors, alert, setAlert, busy, setBusy, check } = useCheckedForm();
+  const form = useSchemaForm(forgotPasswordInput, { email: '' });
+  const { errors, isSubmitting } = form.formState;
   const [sent, setSent] = useState(false);
 
-  async function submit(e: FormEvent<HTMLFormElement>) {
-    const data = check(e, forgotPasswordInput);
-    if (!data) return;
-    setBusy(true);
-    const a = await sendJson('POST', '/api/auth/send-verification-email', { email: data.email, callbackURL: safeNext(next) });
-    setBusy(false);
-    if (a.status === 200) return setSent(true);
-    if (a.status === 429) return setAlert(tooMany(a.headers.get('x-retry-after')));
-    setAlert(answerMessage(a));
-  }
+  const submit = form.handleSubmit(async (data) => {
+    const failure = await authCall((o) => authClient.sendVerificationEmail({ email: data.email, callbackURL: safeNext(next) }, o));
+    if (!failure) return setSent(true);
+    if (failure.status === 429) return showFormMessage(form, tooMany(failure.retryAfter));
+    showFormMessage(form, failure.message);
+  });
   if (sent) {
     return (
       <SentCard outbox={outbox}>
@@ -251,11 +205,11 @@ export function ResendVerification({ next, outbox }: { next: string | null; outb
     );
   }
   return (
-    <form ref={formRef} onSubmit={submit} noValidate className="card mt-6 max-w-md">
-      <Field id="email" label="Your e-mail" type="email" inputMode="email" autoComplete="email" error={errors.email} />
-      <FormAlert message={alert} />
-      <button className="btn-primary mt-6 w-full" type="submit" disabled={busy}>
-        {busy ? 'Sending…' : 'Send a new link'}
+    <form onSubmit={submit} noValidate className="card mt-6 max-w-md">
+      <Field id="email" label="Your e-mail" type="email" inputMode="email" autoComplete="email" registration={form.register('email')} error={errors.email?.message} />
+      <FormAlert message={formMessage(form)} />
+      <button className="btn-primary mt-6 w-full" type="submit" disabled={isSubmitting}>
+        {isSubmitting ? 'Sending…' : 'Send a new link'}
       </button>
     </form>
   );

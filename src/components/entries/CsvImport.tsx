@@ -15,7 +15,7 @@ import { formatDay } from './local-date';
 import { QueryProvider } from './QueryProvider';
 import { formatQuantity } from './quantity-text';
 import { Alert } from './ui';
-import type { ImportAnswer as ImportAnswerOf } from '../../server/entry-import';
+import type { ImportAnswer as ImportAnswerOf } from '../../lib/api-types';
 
 type Kind = 'harvests' | 'purchases';
 

@@ -1,26 +1,2 @@
-/**
- * One TanStack Query client per island root. Each Astro island hydrates on its own, so each wraps
- * its content in this provider; the client lives in state so a re-render never replaces it.
- */
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { useState, type ReactNode } from 'react';
-import { ApiError } from './api';
-
-function makeClient(): QueryClient {
-  return new QueryClient({
-    defaultOptions: {
-      queries: {
-        staleTime: 30_000,
-        refetchOnWindowFocus: false,
-        // Retrying a 4xx only repeats the same answer; retry network and server trouble twice.
-        retry: (count, err) => count < 2 && (!(err instanceof ApiError) || err.retryable),
-      },
-      mutations: { retry: false },
-    },
-  });
-}
-
-export function QueryProvider({ children }: { children: ReactNode }) {
-  const [client] = useState(makeClient);
-  return <QueryClientProvider client={client}>{children}</QueryClientProvider>;
-}
+/** The entry islands' import path for the one TanStack Query provider, which lives in ../QueryProvider. */
+export { QueryProvider } from '../QueryProvider';

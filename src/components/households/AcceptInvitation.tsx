@@ -1,27 +1,35 @@
-/** The "join this household" button on /invite/{token} (React island). */
-import { useState } from 'react';
-import { answerMessage, FormAlert, sendJson } from '../forms';
+/** The "join this household" button on /invite/{token} (React island), a TanStack Query mutation. */
+import { useMutation } from '@tanstack/react-query';
+import { FormAlert } from '../forms';
+import { QueryProvider } from '../QueryProvider';
+import { request } from '../request';
 
-export function AcceptInvitation({ token, householdName }: { token: string; householdName: string }) {
-  const [busy, setBusy] = useState(false);
-  const [alert, setAlert] = useState<string | null>(null);
-  async function accept() {
-    setBusy(true);
-    setAlert(null);
-    const a = await sendJson('POST', '/api/invitations/accept', { token });
-    if (a.status === 200) {
-      window.location.assign(`/households/${a.body.householdId}`);
-      return;
-    }
-    setBusy(false);
-    setAlert(answerMessage(a));
-  }
+interface Props {
+  token: string;
+  householdName: string;
+}
+
+export function AcceptInvitation(props: Props) {
+  return (
+    <QueryProvider>
+      <AcceptButton {...props} />
+    </QueryProvider>
+  );
+}
+
+function AcceptButton({ token, householdName }: Props) {
+  const accept = useMutation({
+    mutationFn: () => request<{ householdId: number }>('POST', '/api/invitations/accept', { token }),
+    onSuccess: (a) => window.location.assign(`/households/${a.householdId}`),
+  });
+  // Joined: the button stays busy while the household's page loads.
+  const busy = accept.isPending || accept.isSuccess;
   return (
     <div>
-      <button type="button" className="btn-primary mt-6" onClick={accept} disabled={busy}>
+      <button type="button" className="btn-primary mt-6" onClick={() => accept.mutate()} disabled={busy}>
         {busy ? 'Joining…' : `Join ${householdName}`}
       </button>
-      <FormAlert message={alert} />
+      <FormAlert message={accept.error?.message ?? null} />
     </div>
   );
 }

@@ -2,50 +2,31 @@
  * The members page of a household (React island): everyone sees the members and can leave; owners
  * also invite by e-mail, withdraw pending invitations, change roles and remove members.
  */
-import { QueryClient, QueryClientProvider, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { useRef, useState, type FormEvent } from 'react';
-import { fieldErrors } from '../../lib/account-schemas';
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useState } from 'react';
+import type { InvitationJson, MemberJson } from '../../lib/api-types';
 import { invitationInput, ROLE_LABELS, ROLE_VALUES, type RoleValue } from '../../lib/household-schemas';
-import { answerMessage, Field, FieldError, FormAlert, focusFirstError, sendJson, type FieldErrors, type JsonAnswer } from '../forms';
+import { Field, FieldError, FormAlert, formMessage, showFailure, useSchemaForm } from '../forms';
+import { QueryProvider } from '../QueryProvider';
+import { get, request } from '../request';
 
-interface Member {
-  userId: string;
-  role: RoleValue;
-  name: string;
-  email: string;
-}
-interface Invitation {
-  id: number;
-  email: string;
-  role: RoleValue;
-  expiresAt: string;
-}
 interface Props {
   householdId: number;
   me: string;
   myRole: RoleValue;
 }
 
-class AnswerError extends Error {
-  constructor(readonly answer: JsonAnswer) {
-    super(answerMessage(answer));
-  }
-}
-
-async function call(method: string, url: string, body?: unknown, ok = [200, 201, 204]): Promise<JsonAnswer> {
-  const a = await sendJson(method, url, body);
-  if (!ok.includes(a.status)) throw new AnswerError(a);
-  return a;
-}
-
 export function MembersPanel(props: Props) {
-  const [client] = useState(() => new QueryClient({ defaultOptions: { queries: { retry: false, refetchOnWindowFocus: true } } }));
   return (
-    <QueryClientProvider client={client}>
+    <QueryProvider>
       <Members {...props} />
-    </QueryClientProvider>
+    </QueryProvider>
   );
 }
+
+// Members and invitations change under other people's hands: ask again when the window comes back,
+// and show a failure at once rather than retrying it.
+const LIVE = { retry: false, refetchOnWindowFocus: true, staleTime: 0 } as const;
 
 function Members({ householdId, me, myRole }: Props) {
   const qc = useQueryClient();
@@ -53,17 +34,18 @@ function Members({ householdId, me, myRole }: Props) {
   const isOwner = myRole === 'owner';
   const [notice, setNotice] = useState<{ text: string; tone: 'ok' | 'error' } | null>(null);
 
-  const members = useQuery({ queryKey: ['members', householdId], queryFn: async () => (await call('GET', `${base}/members`)).body.members as Member[] });
+  const members = useQuery({ ...LIVE, queryKey: ['members', householdId], queryFn: async () => (await get<{ members: MemberJson[] }>(`${base}/members`)).members });
   const invitations = useQuery({
+    ...LIVE,
     queryKey: ['invitations', householdId],
     enabled: isOwner,
-    queryFn: async () => (await call('GET', `${base}/invitations`)).body.invitations as Invitation[],
+    queryFn: async () => (await get<{ invitations: InvitationJson[] }>(`${base}/invitations`)).invitations,
   });
   const refresh = () => qc.invalidateQueries({ queryKey: ['members', householdId] });
   const fail = (e: unknown) => setNotice({ text: e instanceof Error ? e.message : String(e), tone: 'error' });
 
   const setRole = useMutation({
-    mutationFn: ({ userId, role }: { userId: string; role: RoleValue }) => call('PATCH', `${base}/members/${encodeURIComponent(userId)}`, { role }),
+    mutationFn: ({ userId, role }: { userId: string; role: RoleValue }) => request<unknown>('PATCH', `${base}/members/${encodeURIComponent(userId)}`, { role }),
     onSuccess: (_a, v) => {
       setNotice({ text: `Role changed to ${v.role}.`, tone: 'ok' });
       if (v.userId === me) window.location.reload();
@@ -72,7 +54,7 @@ function Members({ householdId, me, myRole }: Props) {
     onError: fail,
   });
   const remove = useMutation({
-    mutationFn: (userId: string) => call('DELETE', `${base}/members/${encodeURIComponent(userId)}`),
+    mutationFn: (userId: string) => request<unknown>('DELETE', `${base}/members/${encodeURIComponent(userId)}`),
     onSuccess: (_a, userId) => {
       if (userId === me) {
         window.location.assign('/households');
@@ -84,7 +66,7 @@ function Members({ householdId, me, myRole }: Props) {
     onError: fail,
   });
   const revoke = useMutation({
-    mutationFn: (id: number) => call('DELETE', `${base}/invitations/${id}`),
+    mutationFn: (id: number) => request<unknown>('DELETE', `${base}/invitations/${id}`),
     onSuccess: () => {
       setNotice({ text: 'Invitation withdrawn: its link no longer works.', tone: 'ok' });
       void qc.invalidateQueries({ queryKey: ['invitations', householdId] });
@@ -144,7 +126,7 @@ function Members({ householdId, me, myRole }: Props) {
   );
 }
 
-function MemberRow({ m, isMe, isOwner, busy, onRole, onRemove }: { m: Member; isMe: boolean; isOwner: boolean; busy: boolean; onRole: (r: RoleValue) => void; onRemove: () => void }) {
+function MemberRow({ m, isMe, isOwner, busy, onRole, onRemove }: { m: MemberJson; isMe: boolean; isOwner: boolean; busy: boolean; onRole: (r: RoleValue) => void; onRemove: () => void }) {
   const [role, setRole] = useState<RoleValue>(m.role);
   const selectId = `role-${m.userId}`;
   return (
@@ -170,45 +152,31 @@ function MemberRow({ m, isMe, isOwner, busy, onRole, onRemove }: { m: Member; is
 }
 
 function InviteForm({ base, onSent }: { base: string; onSent: (email: string) => void }) {
-  const formRef = useRef<HTMLFormElement>(null);
-  const [errors, setErrors] = useState<FieldErrors>({});
-  const [alert, setAlert] = useState<string | null>(null);
+  const form = useSchemaForm(invitationInput, { email: '', role: 'grower' });
+  const { errors } = form.formState;
   const invite = useMutation({
-    mutationFn: (v: { email: string; role: RoleValue }) => call('POST', `${base}/invitations`, v),
+    mutationFn: (v: { email: string; role: RoleValue }) => request<unknown>('POST', `${base}/invitations`, v),
     onSuccess: (_a, v) => {
-      formRef.current?.reset();
+      form.reset();
       onSent(v.email);
     },
-    onError: (e) => {
-      if (e instanceof AnswerError && e.answer.body?.error?.fields) setErrors(e.answer.body.error.fields);
-      setAlert(e.message);
-    },
+    onError: (e) => showFailure(form, e),
   });
-
-  function submit(e: FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    setAlert(null);
-    const f = new FormData(e.currentTarget);
-    const parsed = invitationInput.safeParse({ email: String(f.get('email') ?? ''), role: String(f.get('role') ?? '') });
-    const errs = fieldErrors(parsed);
-    setErrors(errs);
-    if (!parsed.success) return focusFirstError(formRef.current, errs);
-    invite.mutate(parsed.data);
-  }
+  const submit = form.handleSubmit((data) => invite.mutate(data));
 
   return (
-    <form ref={formRef} onSubmit={submit} noValidate className="card" aria-labelledby="invite-h">
+    <form onSubmit={submit} noValidate className="card" aria-labelledby="invite-h">
       <h2 id="invite-h" className="text-xl font-bold">Invite someone</h2>
       <p className="text-loam-700">They get an e-mail with a link that works once, for 7 days.</p>
-      <Field id="email" label="Their e-mail" type="email" inputMode="email" autoComplete="off" error={errors.email} />
+      <Field id="email" label="Their e-mail" type="email" inputMode="email" autoComplete="off" registration={form.register('email')} error={errors.email?.message} />
       <div className="mt-4">
         <label htmlFor="role" className="block font-semibold">Their role</label>
-        <select id="role" name="role" className="field mt-1" defaultValue="grower" aria-invalid={errors.role ? true : undefined} aria-describedby={errors.role ? 'role-error' : undefined}>
+        <select id="role" {...form.register('role')} className="field mt-1" defaultValue="grower" aria-invalid={errors.role ? true : undefined} aria-describedby={errors.role ? 'role-error' : undefined}>
           {ROLE_VALUES.map((r) => <option key={r} value={r}>{ROLE_LABELS[r]}</option>)}
         </select>
-        <FieldError id="role" error={errors.role} />
+        <FieldError id="role" error={errors.role?.message} />
       </div>
-      <FormAlert message={alert} />
+      <FormAlert message={formMessage(form)} />
       <button type="submit" className="btn-primary mt-6" disabled={invite.isPending}>{invite.isPending ? 'Sending…' : 'Send the invitation'}</button>
     </form>
   );

@@ -1,17 +1,20 @@
 /**
  * People who eat in the household: list, add, edit and remove (owners and growers), each with
- * their daily energy need and what it rests on. Validation is the shared zod schema of
- * src/lib/people-schemas.ts, run here before sending and again by the API.
+ * their daily energy need and what it rests on. The form is react-hook-form, checked with the shared
+ * zod schema of src/lib/people-schemas.ts before sending and again by the API.
  */
+import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { useId, useState, type FormEvent } from 'react';
+import { useId, useState } from 'react';
+import { useForm, useWatch, type FieldErrors as FieldErrorsOf, type Resolver, type ResolverResult } from 'react-hook-form';
+import type { PersonJson } from '../../lib/api-types';
 import { formatAmount } from '../../lib/format-number';
-import { ACTIVITY_LABELS, ACTIVITY_LEVELS, personInput, type PersonFields } from '../../lib/people-schemas';
-import type { PersonJson } from '../../server/people';
-import { ApiError, get, request } from '../entries/api';
-import { QueryProvider } from '../entries/QueryProvider';
+import { ACTIVITY_LABELS, ACTIVITY_LEVELS, personInput, type PersonFields, type PersonInput } from '../../lib/people-schemas';
 import { parseDecimal } from '../entries/quantity-text';
-import { Alert, ConfirmDelete, FieldShell, invalidProps, type Errors } from '../entries/ui';
+import { Alert, ConfirmDelete } from '../entries/ui';
+import { FieldShell, formMessage, invalidProps, showFailure } from '../forms';
+import { QueryProvider } from '../QueryProvider';
+import { get, request } from '../request';
 
 interface Props {
   householdId: number;
@@ -185,7 +188,9 @@ function PersonCard({ person: p }: { person: PersonJson }) {
   );
 }
 
-type Draft = Record<'name' | 'sex' | 'ageKind' | 'age' | 'birthYear' | 'heightCm' | 'weightKg' | 'activity' | 'condition' | 'kcalPerDay' | 'atHomePct' | 'presentFrom' | 'presentTo', string>;
+// The form's values are the typed text, named as the API names the fields; `ageKind` says which of
+// age and birth year is being given.
+type Draft = Record<'name' | 'sex' | 'ageKind' | 'ageYears' | 'birthYear' | 'heightCm' | 'weightKg' | 'activity' | 'condition' | 'kcalPerDay' | 'atHomePct' | 'presentFrom' | 'presentTo', string>;
 
 function draftOf(p?: PersonFields): Draft {
   const s = (v: number | string | null | undefined) => (v == null ? '' : String(v));
@@ -193,7 +198,7 @@ function draftOf(p?: PersonFields): Draft {
     name: p?.name ?? '',
     sex: p?.sex ?? 'female',
     ageKind: p?.birthYear != null ? 'birthYear' : 'age',
-    age: s(p?.ageYears),
+    ageYears: s(p?.ageYears),
     birthYear: s(p?.birthYear),
     heightCm: s(p?.heightCm),
     weightKg: s(p?.weightKg),
@@ -212,7 +217,7 @@ function bodyOf(d: Draft): Record<string, unknown> {
   return {
     name: d.name,
     sex: d.sex,
-    ageYears: d.ageKind === 'age' ? num(d.age) : null,
+    ageYears: d.ageKind === 'age' ? num(d.ageYears) : null,
     birthYear: d.ageKind === 'birthYear' ? num(d.birthYear) : null,
     heightCm: num(d.heightCm),
     weightKg: num(d.weightKg),
@@ -225,42 +230,42 @@ function bodyOf(d: Draft): Record<string, unknown> {
   };
 }
 
+const checkPerson = zodResolver(personInput);
+
+/**
+ * Checks the typed draft with `personInput`, the schema the people API parses with, after turning
+ * the text into the API's body. "Give the age or the birth year" stands beside the birth year when
+ * that is the box on show.
+ */
+const personResolver: Resolver<Draft, unknown, PersonInput> = async (draft, context, options) => {
+  // The zod resolver is typed for the API body; it is handed exactly that, built from the draft.
+  const result = await checkPerson(bodyOf(draft) as never, context, options as never);
+  const errors = result.errors as FieldErrorsOf<Draft>;
+  if (draft.ageKind === 'birthYear' && errors.ageYears) {
+    errors.birthYear ??= { ...errors.ageYears, ref: options.fields.birthYear?.ref };
+    delete errors.ageYears;
+  }
+  return result as ResolverResult<Draft, PersonInput>;
+};
+
 function PersonForm({ title, initial, onSave, onCancel }: { title: string; initial?: PersonFields; onSave: (body: PersonFields) => Promise<void>; onCancel: () => void }) {
   const id = useId();
-  const [d, setD] = useState<Draft>(() => draftOf(initial));
-  const [errors, setErrors] = useState<Errors>({});
-  const [failure, setFailure] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
-  const set = (k: keyof Draft) => (e: { target: { value: string } }) => setD((x) => ({ ...x, [k]: e.target.value }));
+  const form = useForm<Draft, unknown, PersonInput>({ resolver: personResolver, reValidateMode: 'onSubmit', defaultValues: draftOf(initial) });
+  const { errors, isSubmitting } = form.formState;
+  const [sex, ageKind] = useWatch({ control: form.control, name: ['sex', 'ageKind'] });
   const f = (name: string) => `${id}-${name}`;
 
-  async function submit(e: FormEvent) {
-    e.preventDefault();
-    setFailure(null);
-    const parsed = personInput.safeParse(bodyOf(d));
-    if (!parsed.success) {
-      const errs: Errors = {};
-      for (const i of parsed.error.issues) errs[String(i.path[0] ?? '_')] ??= i.message;
-      if (errs.ageYears && d.ageKind === 'birthYear') errs.birthYear ??= errs.ageYears;
-      setErrors(errs);
-      return;
-    }
-    setErrors({});
-    setBusy(true);
+  const submit = form.handleSubmit(async (body) => {
     try {
-      await onSave(parsed.data);
+      await onSave(body);
     } catch (err) {
-      if (err instanceof ApiError) {
-        setErrors(err.fields);
-        setFailure(err.message);
-      } else setFailure('Could not save. Please try again.');
-    } finally {
-      setBusy(false);
+      showFailure(form, err, 'Could not save. Please try again.');
     }
-  }
+  });
 
-  const input = (name: keyof Draft, apiName: string, extra: Record<string, unknown> = {}) => (
-    <input {...invalidProps(f(name), errors[apiName])} name={name} className="field" value={d[name]} onChange={set(name)} {...extra} />
+  // A text box registered under its API name; `idName` keeps the element ids the form always had.
+  const input = (name: keyof Draft, idName: string, extra: Record<string, unknown> = {}) => (
+    <input {...invalidProps(f(idName), errors[name]?.message)} {...form.register(name)} className="field" {...extra} />
   );
 
   return (
@@ -268,7 +273,7 @@ function PersonForm({ title, initial, onSave, onCancel }: { title: string; initi
       <h2 id={`${id}-title`} className="text-xl font-extrabold">
         {title}
       </h2>
-      <FieldShell id={f('name')} label="Name" error={errors.name}>
+      <FieldShell id={f('name')} label="Name" error={errors.name?.message}>
         {input('name', 'name', { autoComplete: 'off' })}
       </FieldShell>
       <fieldset className="mt-4">
@@ -276,8 +281,8 @@ function PersonForm({ title, initial, onSave, onCancel }: { title: string; initi
         <p className="text-sm text-loam-700">The reference intakes are published by sex.</p>
         <div className="mt-1 flex gap-2">
           {(['female', 'male'] as const).map((s) => (
-            <label key={s} className={`btn-quiet cursor-pointer ${d.sex === s ? 'border-sprout-700 bg-sprout-100' : ''}`}>
-              <input type="radio" name={`${id}-sex`} value={s} checked={d.sex === s} onChange={set('sex')} className="h-5 w-5" /> {s}
+            <label key={s} className={`btn-quiet cursor-pointer ${sex === s ? 'border-sprout-700 bg-sprout-100' : ''}`}>
+              <input type="radio" {...form.register('sex')} value={s} className="h-5 w-5" /> {s}
             </label>
           ))}
         </div>
@@ -286,34 +291,34 @@ function PersonForm({ title, initial, onSave, onCancel }: { title: string; initi
         <legend className="font-semibold">Age</legend>
         <div className="mt-1 flex flex-wrap gap-2">
           <label className="inline-flex min-h-12 items-center gap-2">
-            <input type="radio" name={`${id}-agekind`} value="age" checked={d.ageKind === 'age'} onChange={set('ageKind')} className="h-5 w-5" /> Age in years
+            <input type="radio" {...form.register('ageKind')} value="age" className="h-5 w-5" /> Age in years
           </label>
           <label className="inline-flex min-h-12 items-center gap-2">
-            <input type="radio" name={`${id}-agekind`} value="birthYear" checked={d.ageKind === 'birthYear'} onChange={set('ageKind')} className="h-5 w-5" /> Birth year (the age then
+            <input type="radio" {...form.register('ageKind')} value="birthYear" className="h-5 w-5" /> Birth year (the age then
             follows the calendar)
           </label>
         </div>
-        {d.ageKind === 'age' ? (
-          <FieldShell id={f('age')} label="Age in years" hint="For a baby, a fraction: 0.5 is six months." error={errors.ageYears} className="mt-2">
-            {input('age', 'ageYears', { inputMode: 'decimal' })}
+        {ageKind === 'age' ? (
+          <FieldShell id={f('age')} label="Age in years" hint="For a baby, a fraction: 0.5 is six months." error={errors.ageYears?.message} className="mt-2">
+            {input('ageYears', 'age', { inputMode: 'decimal' })}
           </FieldShell>
         ) : (
-          <FieldShell id={f('birthYear')} label="Birth year" error={errors.birthYear} className="mt-2">
+          <FieldShell id={f('birthYear')} label="Birth year" error={errors.birthYear?.message} className="mt-2">
             {input('birthYear', 'birthYear', { inputMode: 'numeric' })}
           </FieldShell>
         )}
       </fieldset>
       <div className="grid gap-x-4 sm:grid-cols-2">
-        <FieldShell id={f('heightCm')} label="Height, cm (optional)" error={errors.heightCm}>
+        <FieldShell id={f('heightCm')} label="Height, cm (optional)" error={errors.heightCm?.message}>
           {input('heightCm', 'heightCm', { inputMode: 'decimal' })}
         </FieldShell>
-        <FieldShell id={f('weightKg')} label="Weight, kg (optional)" error={errors.weightKg}>
+        <FieldShell id={f('weightKg')} label="Weight, kg (optional)" error={errors.weightKg?.message}>
           {input('weightKg', 'weightKg', { inputMode: 'decimal' })}
         </FieldShell>
       </div>
       <p className="mt-1 text-sm text-loam-700">Without height or weight the estimate uses the reference body of the person’s age group.</p>
-      <FieldShell id={f('activity')} label="Activity" error={errors.activity}>
-        <select {...invalidProps(f('activity'), errors.activity)} className="field" value={d.activity} onChange={set('activity')}>
+      <FieldShell id={f('activity')} label="Activity" error={errors.activity?.message}>
+        <select {...invalidProps(f('activity'), errors.activity?.message)} {...form.register('activity')} className="field">
           {ACTIVITY_LEVELS.map((a) => (
             <option key={a} value={a}>
               {ACTIVITY_LABELS[a]}
@@ -321,9 +326,9 @@ function PersonForm({ title, initial, onSave, onCancel }: { title: string; initi
           ))}
         </select>
       </FieldShell>
-      {d.sex === 'female' ? (
-        <FieldShell id={f('condition')} label="Pregnant or breastfeeding" error={errors.condition}>
-          <select {...invalidProps(f('condition'), errors.condition)} className="field" value={d.condition} onChange={set('condition')}>
+      {sex === 'female' ? (
+        <FieldShell id={f('condition')} label="Pregnant or breastfeeding" error={errors.condition?.message}>
+          <select {...invalidProps(f('condition'), errors.condition?.message)} {...form.register('condition')} className="field">
             <option value="none">Neither</option>
             <option value="pregnancy">Pregnant</option>
             <option value="lactation">Breastfeeding</option>
@@ -334,25 +339,25 @@ function PersonForm({ title, initial, onSave, onCancel }: { title: string; initi
         id={f('kcalPerDay')}
         label="Energy need, kcal a day (optional)"
         hint="Leave empty to estimate it. A figure from a dietitian or physician wins over the estimate."
-        error={errors.kcalPerDay}
+        error={errors.kcalPerDay?.message}
       >
         {input('kcalPerDay', 'kcalPerDay', { inputMode: 'decimal' })}
       </FieldShell>
-      <FieldShell id={f('atHomePct')} label="Share of meals from the household’s food, %" hint="100 for everyday eaters; 50 for someone who eats half their meals elsewhere." error={errors.atHomePct}>
+      <FieldShell id={f('atHomePct')} label="Share of meals from the household’s food, %" hint="100 for everyday eaters; 50 for someone who eats half their meals elsewhere." error={errors.atHomePct?.message}>
         {input('atHomePct', 'atHomePct', { inputMode: 'decimal' })}
       </FieldShell>
       <div className="grid gap-x-4 sm:grid-cols-2">
-        <FieldShell id={f('presentFrom')} label="Eats here from (optional)" error={errors.presentFrom}>
+        <FieldShell id={f('presentFrom')} label="Eats here from (optional)" error={errors.presentFrom?.message}>
           {input('presentFrom', 'presentFrom', { type: 'date' })}
         </FieldShell>
-        <FieldShell id={f('presentTo')} label="Eats here until (optional)" error={errors.presentTo}>
+        <FieldShell id={f('presentTo')} label="Eats here until (optional)" error={errors.presentTo?.message}>
           {input('presentTo', 'presentTo', { type: 'date' })}
         </FieldShell>
       </div>
-      <Alert message={failure} />
+      <Alert message={formMessage(form)} />
       <div className="mt-5 flex flex-wrap gap-2">
-        <button type="submit" className="btn-primary" disabled={busy}>
-          {busy ? 'Saving…' : 'Save'}
+        <button type="submit" className="btn-primary" disabled={isSubmitting}>
+          {isSubmitting ? 'Saving…' : 'Save'}
         </button>
         <button type="button" className="btn-quiet" onClick={onCancel}>
           Cancel

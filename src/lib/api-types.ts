@@ -1,0 +1,118 @@
+/**
+ * The JSON shapes the household API answers with for crops, staples, people, members and CSV imports. They
+ * live here, as pure types, so that the server modules that build them and the browser islands
+ * that read them share one definition without the browser importing anything from `src/server`.
+ */
+import type { CropCategory } from './crop-categories';
+import type { CsvError } from './csv-import';
+import type { Use } from './entry-schemas';
+import type { RoleValue } from './household-schemas';
+import type { PersonFields } from './people-schemas';
+import type { PersonEnergy } from './person-energy';
+import type { WeightUnit } from './units';
+
+/** A reference food as a crop shows it: enough to judge the match. */
+export interface FoodSummary {
+  id: number;
+  dataset: string;
+  code: string;
+  name: string;
+  refusePct: number | null;
+  kcalPer100g: number | null;
+  proteinPer100g: number | null;
+}
+
+/** A crop of the household's catalogue, with its food match and harvest count. */
+export interface CropJson {
+  id: number;
+  name: string;
+  variety: string | null;
+  displayName: string;
+  foodId: number | null;
+  food: FoodSummary | null;
+  category: CropCategory;
+  edibleFraction: number | null;
+  defaultUse: Use | null;
+  defaultSpreadMonths: number | null;
+  notFood: boolean;
+  archived: boolean;
+  harvestCount: number;
+  lastHarvestDate: string | null;
+}
+
+/** A food on the household's staples list, logged again with one tap. */
+export interface StapleJson {
+  id: number;
+  foodId: number;
+  foodName: string;
+  foodCode: string;
+  label: string;
+  quantity: number;
+  unit: WeightUnit;
+  spreadMonths: number;
+}
+
+/** A person who eats in the household, as the API answers: stored fields plus this month's energy need. */
+export interface PersonJson extends PersonFields {
+  id: number;
+  /** Daily energy need this month (household time zone), or null when not yet born. */
+  energy: PersonEnergy | null;
+}
+
+/** A row of a CSV import preview as it would be stored. */
+export interface PreviewRow {
+  row: number;
+  date: string;
+  crop: string | null;
+  foodCode: string | null;
+  foodName: string | null;
+  quantity: number;
+  unit: WeightUnit;
+  grams: number;
+  edibleGrams: number;
+  use?: string;
+  spreadMonths: number;
+  trimmed: boolean;
+  note: string | null;
+  price?: number | null;
+  currency?: string | null;
+}
+
+/** The body of an import answer (preview or commit, accepted or refused with its rows). */
+export interface ImportAnswerBody {
+  ok: boolean;
+  kind: 'harvests' | 'purchases';
+  mode: 'preview' | 'commit';
+  /** The first rows as they would be stored (at most the preview limit). */
+  rows: PreviewRow[];
+  rowCount: number;
+  totals: { grams: number; edibleGrams: number };
+  errors: CsvError[];
+  unknownCrops: { name: string; variety?: string }[];
+  unknownFoodCodes: string[];
+  ignoredColumns: string[];
+  created?: number;
+  error?: { code: string; message: string; fields: Record<string, string> };
+}
+
+/** An import answer: its HTTP status and body. */
+export interface ImportAnswer {
+  status: number;
+  body: ImportAnswerBody;
+}
+
+/** A member of a household as GET /api/households/{id}/members lists them. */
+export interface MemberJson {
+  userId: string;
+  role: RoleValue;
+  name: string;
+  email: string;
+}
+
+/** A pending invitation as GET /api/households/{id}/invitations lists it. */
+export interface InvitationJson {
+  id: number;
+  email: string;
+  role: RoleValue;
+  expiresAt: string;
+}
