@@ -11,44 +11,12 @@ import { z } from 'zod';
 import { isPlainLine, PLAIN_LINE_MESSAGE } from './plain-text';
 import { CROP_CATEGORIES } from './crop-categories';
 import { WEIGHT_UNITS } from './units';
+import { isEatenUse, isSpreadUse, USES, type Use } from './uses';
 
 // ---------------------------------------------------------------------------------------------
-// Uses
+// Uses (defined in ./uses; re-exported for the forms and routes that import them from here)
 
-/** What happens to a harvest or purchase. Example: `USES[0]` → 'fresh' */
-export const USES = ['fresh', 'stored', 'preserved', 'seed', 'given', 'sold', 'lost'] as const;
-
-export type Use = (typeof USES)[number];
-
-/** Display names for the uses, in our own words. Example: `USE_LABELS.lost` → 'Lost or composted' */
-export const USE_LABELS: Readonly<Record<Use, string>> = {
-  fresh: 'Eaten fresh',
-  stored: 'Stored (cellar, clamp, shelf)',
-  preserved: 'Preserved (dried, frozen, bottled)',
-  seed: 'Kept as seed',
-  given: 'Given away',
-  sold: 'Sold',
-  lost: 'Lost or composted',
-};
-
-/** Uses the household eats. Example: `EATEN_USES.includes('stored')` → true */
-export const EATEN_USES = ['fresh', 'stored', 'preserved'] as const satisfies readonly Use[];
-
-/** Uses the household does not eat. Example: `NOT_EATEN_USES.includes('sold')` → true */
-export const NOT_EATEN_USES = ['seed', 'given', 'sold', 'lost'] as const satisfies readonly Use[];
-
-/** Uses whose food is eaten over several months. Example: `SPREAD_USES.includes('fresh')` → false */
-export const SPREAD_USES = ['stored', 'preserved'] as const satisfies readonly Use[];
-
-/** True when the household eats food with this use. Example: `isEatenUse('given')` → false */
-export function isEatenUse(use: Use): boolean {
-  return (EATEN_USES as readonly Use[]).includes(use);
-}
-
-/** True when food with this use is spread over months. Example: `isSpreadUse('preserved')` → true */
-export function isSpreadUse(use: Use): boolean {
-  return (SPREAD_USES as readonly Use[]).includes(use);
-}
+export { EATEN_USES, isEatenUse, isSpreadUse, NOT_EATEN_USES, SPREAD_USES, USE_LABELS, USES, type Use } from './uses';
 
 // ---------------------------------------------------------------------------------------------
 // Limits
