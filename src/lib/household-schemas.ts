@@ -1,6 +1,7 @@
 /** Input rules for households and memberships, shared by the forms and the API. */
 import { z } from 'zod';
 import { isPlainLine, PLAIN_LINE_MESSAGE } from './plain-text';
+import { UNIT_SYSTEMS } from './units';
 
 export const ROLE_VALUES = ['owner', 'grower', 'viewer'] as const;
 export type RoleValue = (typeof ROLE_VALUES)[number];
@@ -41,7 +42,7 @@ export function isTimeZone(tz: string): boolean {
 const householdFields = {
   name: z.string().trim().min(1, 'Give the household a name.').max(120, 'At most 120 characters.').refine(isPlainLine, PLAIN_LINE_MESSAGE),
   timezone: z.string().trim().refine(isTimeZone, 'Not a known IANA time zone (e.g. Europe/Berlin).'),
-  units: z.enum(['metric', 'us'], { error: 'Choose metric or us.' }),
+  units: z.enum(UNIT_SYSTEMS, { error: 'Choose metric or us.' }),
   yearStartMonth: z.number({ error: 'A month number from 1 to 12.' }).int('A month number from 1 to 12.').min(1, 'A month number from 1 to 12.').max(12, 'A month number from 1 to 12.'),
 };
 
