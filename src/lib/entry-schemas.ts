@@ -8,6 +8,7 @@
  * - In a patch, `null` clears an optional field (note, price, currency, variety, …).
  */
 import { z } from 'zod';
+import { isDate } from './months';
 import { isPlainLine, PLAIN_LINE_MESSAGE } from './plain-text';
 import { CROP_CATEGORIES } from './crop-categories';
 import { WEIGHT_UNITS } from './units';
@@ -42,20 +43,8 @@ const L = ENTRY_LIMITS;
 // ---------------------------------------------------------------------------------------------
 // Field schemas
 
-function daysInMonth(year: number, month: number): number {
-  // Day 0 of the next month is the last day of this one; UTC avoids time-zone shifts.
-  return new Date(Date.UTC(year, month, 0)).getUTCDate();
-}
-
-/** True for 'YYYY-MM-DD' naming a day that exists. Example: `isRealIsoDate('2026-02-30')` → false */
-export function isRealIsoDate(text: string): boolean {
-  const match = /^(\d{4})-(\d{2})-(\d{2})$/.exec(text);
-  if (!match) return false;
-  const year = Number(match[1]);
-  const month = Number(match[2]);
-  const day = Number(match[3]);
-  return month >= 1 && month <= 12 && day >= 1 && day <= daysInMonth(year, month);
-}
+/** True for 'YYYY-MM-DD' naming a day that exists (months.ts's isDate). Example: `isRealIsoDate('2026-02-30')` → false */
+export const isRealIsoDate: (text: string) => boolean = isDate;
 
 /** A calendar date written 'YYYY-MM-DD', between 1900 and 2199. Example: `isoDate.parse('2028-02-29')` → '2028-02-29' */
 export const isoDate = z

@@ -19,7 +19,8 @@ export function timeZoneList(): string[] {
   return [...zones].sort();
 }
 
-export const MONTH_NAMES = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'] as const;
+// Month names live with the other calendar code in ./months; re-exported for the household forms.
+export { MONTH_NAMES } from './months';
 
 const ZONE_SHAPE = /^[A-Za-z][A-Za-z0-9_+-]*(\/[A-Za-z0-9][A-Za-z0-9_+-]*)*$/;
 
