@@ -9,6 +9,7 @@
  */
 import { z } from 'zod';
 import { isDate } from './months';
+import { formatCount } from './format-number';
 import { isPlainLine, PLAIN_LINE_MESSAGE } from './plain-text';
 import { CROP_CATEGORIES } from './crop-categories';
 import { WEIGHT_UNITS } from './units';
@@ -66,7 +67,7 @@ export const recordId = z
 export const quantity = z
   .number({ error: (iss) => (iss.input === undefined ? 'Enter the weight.' : 'The weight must be a number.') })
   .positive({ error: 'The weight must be more than 0.' })
-  .max(L.maxQuantity, { error: `The weight is too large (at most ${L.maxQuantity.toLocaleString('en')} in its unit); check the unit.` });
+  .max(L.maxQuantity, { error: `The weight is too large (at most ${formatCount(L.maxQuantity)} in its unit); check the unit.` });
 
 /** One of g, kg, oz, lb. Example: `weightUnit.parse('lb')` → 'lb' */
 export const weightUnit = z.enum(WEIGHT_UNITS, { error: `The unit must be one of ${WEIGHT_UNITS.join(', ')}.` });

@@ -7,6 +7,7 @@
  * with `personInput` again, so rules across fields (age or birth year, from ≤ to) always hold.
  */
 import { z } from 'zod';
+import { formatCount } from './format-number';
 import { isPlainLine, PLAIN_LINE_MESSAGE } from './plain-text';
 import { isDate } from './months';
 import type { Person } from './needs';
@@ -59,7 +60,7 @@ function optionalNumber(what: string, min: number, max: number, unit: string, in
   if (int) n = n.int({ error: `${what} must be a whole number.` });
   n = n
     .min(min, { error: `${what} must be at least ${min}${unit}.` })
-    .max(max, { error: `${what} can be at most ${max.toLocaleString('en')}${unit}.` });
+    .max(max, { error: `${what} can be at most ${formatCount(max)}${unit}.` });
   return z.preprocess(blankToNull, n.nullable().optional());
 }
 
