@@ -34,16 +34,5 @@ export const resetPasswordInput = z
   .object({ password, confirm: z.string() })
   .refine((v) => v.password === v.confirm, { message: 'The two passwords differ.', path: ['confirm'] });
 
-/**
- * First message per field of a failed parse, for inline form errors.
- * @example fieldErrors(signInInput.safeParse({ email: 'x', password: '' })) // { email: 'Enter an e-mail…', password: 'Enter your password.' }
- */
-export function fieldErrors(result: { success: boolean; error?: z.ZodError }): Record<string, string> {
-  const out: Record<string, string> = {};
-  if (result.success || !result.error) return out;
-  for (const issue of result.error.issues) {
-    const key = issue.path.map(String).join('.') || '_';
-    out[key] ??= issue.message;
-  }
-  return out;
-}
+// The one zod-error flattener lives in ./error-body; re-exported for the account and household forms.
+export { fieldErrors } from './error-body';

@@ -5,7 +5,7 @@
  */
 import type { z } from 'zod';
 import type { Db } from '../db/client';
-import { zodErrorBody } from '../lib/entry-schemas';
+import { zodErrorBody } from '../lib/error-body';
 import { HttpError } from './http';
 
 /** A Drizzle transaction (what `db.transaction(fn)` hands to fn). */
