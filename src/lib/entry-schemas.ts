@@ -8,6 +8,7 @@
  * - In a patch, `null` clears an optional field (note, price, currency, variety, …).
  */
 import { z } from 'zod';
+import { atMostChars, mustBeNumber, mustBeText, mustBeWhole, oneOf, trueOrFalse } from './zod-messages';
 import { isDate } from './months';
 import { formatCount } from './format-number';
 import { isPlainLine, PLAIN_LINE_MESSAGE } from './plain-text';
@@ -65,15 +66,15 @@ export const recordId = z
 
 /** An amount in the entry's unit, more than 0. Example: `quantity.parse(1.5)` → 1.5 */
 export const quantity = z
-  .number({ error: (iss) => (iss.input === undefined ? 'Enter the weight.' : 'The weight must be a number.') })
+  .number({ error: (iss) => (iss.input === undefined ? 'Enter the weight.' : mustBeNumber('The weight')) })
   .positive({ error: 'The weight must be more than 0.' })
   .max(L.maxQuantity, { error: `The weight is too large (at most ${formatCount(L.maxQuantity)} in its unit); check the unit.` });
 
 /** One of g, kg, oz, lb. Example: `weightUnit.parse('lb')` → 'lb' */
-export const weightUnit = z.enum(WEIGHT_UNITS, { error: `The unit must be one of ${WEIGHT_UNITS.join(', ')}.` });
+export const weightUnit = z.enum(WEIGHT_UNITS, { error: oneOf('The unit', WEIGHT_UNITS) });
 
 /** One of the uses. Example: `use.parse('seed')` → 'seed' */
-export const use = z.enum(USES, { error: `The use must be one of ${USES.join(', ')}.` });
+export const use = z.enum(USES, { error: oneOf('The use', USES) });
 
 /** Whole months from 1 to 24. Example: `spreadMonths.parse(6)` → 6 */
 export const spreadMonths = z
@@ -83,9 +84,9 @@ export const spreadMonths = z
   .max(L.maxSpreadMonths, { error: `The spread can be at most ${L.maxSpreadMonths} months.` });
 
 const noteText = z
-  .string({ error: 'The note must be text.' })
+  .string({ error: mustBeText('The note') })
   .trim()
-  .max(L.maxNoteLength, { error: `The note can be at most ${L.maxNoteLength} characters.` });
+  .max(L.maxNoteLength, { error: atMostChars('The note', L.maxNoteLength) });
 
 /** A free-text note up to 500 characters; blank becomes no note. Example: `note.parse('  ')` → undefined */
 export const note = noteText.transform((s) => (s === '' ? undefined : s));
@@ -93,11 +94,11 @@ export const note = noteText.transform((s) => (s === '' ? undefined : s));
 // In a patch: null or blank clears the note.
 const noteOrClear = z.union([noteText.transform((s) => (s === '' ? null : s)), z.null()]);
 
-const trimmedFlag = z.boolean({ error: 'Trimmed must be true or false.' });
+const trimmedFlag = z.boolean({ error: trueOrFalse('Trimmed') });
 
 /** Price paid, 0 or more. Example: `price.parse(3.49)` → 3.49 */
 export const price = z
-  .number({ error: 'The price must be a number.' })
+  .number({ error: mustBeNumber('The price') })
   .min(0, { error: 'The price cannot be negative.' })
   .max(L.maxPrice, { error: 'The price is too large; check it.' });
 
@@ -110,9 +111,9 @@ export const currency = z
 
 const nameText = (what: string) =>
   z
-    .string({ error: `The ${what} must be text.` })
+    .string({ error: mustBeText(`The ${what}`) })
     .trim()
-    .max(L.maxNameLength, { error: `The ${what} can be at most ${L.maxNameLength} characters.` })
+    .max(L.maxNameLength, { error: atMostChars(`The ${what}`, L.maxNameLength) })
     .refine(isPlainLine, { error: PLAIN_LINE_MESSAGE });
 
 // ---------------------------------------------------------------------------------------------
@@ -397,13 +398,13 @@ const queryId = z.preprocess(
 const queryDate = z.preprocess(blankToUndefined, isoDate.optional());
 const page = z.preprocess(
   blankToUndefined,
-  z.coerce.number({ error: 'The page must be a number.' }).int({ error: 'The page must be a whole number.' }).min(1, { error: 'Pages start at 1.' }).default(1),
+  z.coerce.number({ error: mustBeNumber('The page') }).int({ error: mustBeWhole('The page') }).min(1, { error: 'Pages start at 1.' }).default(1),
 );
 const pageSize = z.preprocess(
   blankToUndefined,
   z.coerce
-    .number({ error: 'The page size must be a number.' })
-    .int({ error: 'The page size must be a whole number.' })
+    .number({ error: mustBeNumber('The page size') })
+    .int({ error: mustBeWhole('The page size') })
     .min(1, { error: 'The page size must be at least 1.' })
     .max(L.maxPageSize, { error: `The page size can be at most ${L.maxPageSize}.` })
     .default(L.defaultPageSize),
@@ -437,7 +438,7 @@ export const harvestQuery = z
     cropId: queryId,
     foodId: queryId,
     use: z.preprocess(blankToUndefined, use.optional()),
-    sort: z.preprocess(blankToUndefined, z.enum(HARVEST_SORTS, { error: `The sort must be one of ${HARVEST_SORTS.join(', ')}.` }).optional()),
+    sort: z.preprocess(blankToUndefined, z.enum(HARVEST_SORTS, { error: oneOf('The sort', HARVEST_SORTS) }).optional()),
     page,
     pageSize,
   })
@@ -451,7 +452,7 @@ export const purchaseQuery = z
     from: queryDate,
     to: queryDate,
     foodId: queryId,
-    sort: z.preprocess(blankToUndefined, z.enum(PURCHASE_SORTS, { error: `The sort must be one of ${PURCHASE_SORTS.join(', ')}.` }).optional()),
+    sort: z.preprocess(blankToUndefined, z.enum(PURCHASE_SORTS, { error: oneOf('The sort', PURCHASE_SORTS) }).optional()),
     page,
     pageSize,
   })
@@ -468,14 +469,14 @@ const cropFields = {
     .transform((s) => (s === '' ? undefined : s))
     .optional(),
   foodId: recordId.nullable(),
-  category: z.enum(CROP_CATEGORIES, { error: `The category must be one of ${CROP_CATEGORIES.join(', ')}.` }),
+  category: z.enum(CROP_CATEGORIES, { error: oneOf('The category', CROP_CATEGORIES) }),
   edibleFraction: z
-    .number({ error: 'The edible fraction must be a number.' })
+    .number({ error: mustBeNumber('The edible fraction') })
     .gt(0, { error: 'The edible fraction must be more than 0.' })
     .max(1, { error: 'The edible fraction can be at most 1 (all of it eaten).' }),
   defaultUse: use,
   defaultSpreadMonths: spreadMonths,
-  notFood: z.boolean({ error: 'Not food must be true or false.' }),
+  notFood: z.boolean({ error: trueOrFalse('Not food') }),
 };
 
 // A crop marked not food (ornamental, or toxic parts) is never counted as food: it links to no
@@ -526,7 +527,7 @@ export const cropPatch = z
     defaultUse: cropFields.defaultUse.nullable(),
     defaultSpreadMonths: cropFields.defaultSpreadMonths.nullable(),
     // Archived crops are hidden from the entry form but keep their harvests.
-    archived: z.boolean({ error: 'Archived must be true or false.' }),
+    archived: z.boolean({ error: trueOrFalse('Archived') }),
   })
   .partial()
   .superRefine(checkNotEmpty)

@@ -1,5 +1,6 @@
 /** Input rules for households and memberships, shared by the forms and the API. */
 import { z } from 'zod';
+import { atMostCharsShort } from './zod-messages';
 import { isPlainLine, PLAIN_LINE_MESSAGE } from './plain-text';
 import { UNIT_SYSTEMS } from './units';
 
@@ -41,7 +42,7 @@ export function isTimeZone(tz: string): boolean {
 }
 
 const householdFields = {
-  name: z.string().trim().min(1, 'Give the household a name.').max(120, 'At most 120 characters.').refine(isPlainLine, PLAIN_LINE_MESSAGE),
+  name: z.string().trim().min(1, 'Give the household a name.').max(120, atMostCharsShort(120)).refine(isPlainLine, PLAIN_LINE_MESSAGE),
   timezone: z.string().trim().refine(isTimeZone, 'Not a known IANA time zone (e.g. Europe/Berlin).'),
   units: z.enum(UNIT_SYSTEMS, { error: 'Choose metric or us.' }),
   yearStartMonth: z.number({ error: 'A month number from 1 to 12.' }).int('A month number from 1 to 12.').min(1, 'A month number from 1 to 12.').max(12, 'A month number from 1 to 12.'),
@@ -62,7 +63,7 @@ export const householdPatch = z
 export const roleInput = z.object({ role: z.enum(ROLE_VALUES) });
 
 export const invitationInput = z.object({
-  email: z.string({ error: 'Not an e-mail address.' }).trim().toLowerCase().max(255, 'At most 255 characters.').pipe(z.email('Not an e-mail address.')),
+  email: z.string({ error: 'Not an e-mail address.' }).trim().toLowerCase().max(255, atMostCharsShort(255)).pipe(z.email('Not an e-mail address.')),
   role: z.enum(ROLE_VALUES),
 });
 
