@@ -20,6 +20,11 @@ import {
   uniqueIndex,
   varchar,
 } from 'drizzle-orm/mysql-core';
+import { CROP_CATEGORIES } from '../lib/crop-categories';
+import { ROLE_VALUES } from '../lib/household-schemas';
+import { ACTIVITY_LEVELS, CONDITIONS, SEXES } from '../lib/people-schemas';
+import { UNIT_SYSTEMS, WEIGHT_UNITS } from '../lib/units';
+import { USES } from '../lib/uses';
 
 // ── Reference data: food composition datasets ────────────────────────────────────────────────
 
@@ -191,7 +196,8 @@ export const siteAdmins = mysqlTable('site_admins', {
 
 // ── Households, members and invitations ──────────────────────────────────────────────────
 
-export const ROLES = ['owner', 'grower', 'viewer'] as const;
+/** The roles, from the one list in src/lib/household-schemas.ts. */
+export const ROLES = ROLE_VALUES;
 export type Role = (typeof ROLES)[number];
 
 export const households = mysqlTable('households', {
@@ -199,7 +205,7 @@ export const households = mysqlTable('households', {
   name: varchar('name', { length: 120 }).notNull(),
   /** IANA time zone; entry dates are the household's local dates. */
   timezone: varchar('timezone', { length: 64 }).notNull(),
-  units: mysqlEnum('units', ['metric', 'us']).notNull().default('metric'),
+  units: mysqlEnum('units', UNIT_SYSTEMS).notNull().default('metric'),
   /** Month (1–12) the household's growing year starts. */
   yearStartMonth: tinyint('year_start_month').notNull().default(1),
   createdAt: timestamp('created_at').notNull().defaultNow(),
@@ -246,9 +252,6 @@ export type Membership = typeof memberships.$inferSelect;
 
 // ── The household's records: crops, harvests, bought food, staples, people ──────────────────
 
-export const USE_VALUES = ['fresh', 'stored', 'preserved', 'seed', 'given', 'sold', 'lost'] as const;
-export const UNIT_VALUES = ['g', 'kg', 'oz', 'lb'] as const;
-export const CATEGORY_VALUES = ['grain', 'legume', 'root_tuber', 'squash', 'leafy_green', 'fruit', 'nut_seed', 'herb', 'animal_product', 'other'] as const;
 
 /** The household's own catalogue of what it grows or keeps, each matched to one reference food. */
 export const crops = mysqlTable(
@@ -261,10 +264,10 @@ export const crops = mysqlTable(
     name: varchar('name', { length: 120 }).notNull(),
     variety: varchar('variety', { length: 120 }).notNull().default(''),
     foodId: int('food_id').references(() => foods.id, { onDelete: 'restrict' }),
-    category: mysqlEnum('category', CATEGORY_VALUES).notNull().default('other'),
+    category: mysqlEnum('category', CROP_CATEGORIES).notNull().default('other'),
     /** Share of the weight the household eats, overriding the food's refuse (0–1). */
     edibleFraction: double('edible_fraction'),
-    defaultUse: mysqlEnum('default_use', USE_VALUES),
+    defaultUse: mysqlEnum('default_use', USES),
     defaultSpreadMonths: tinyint('default_spread_months'),
     /** Ornamental or toxic: never counted as food. */
     notFood: boolean('not_food').notNull().default(false),
@@ -287,10 +290,10 @@ export const harvests = mysqlTable(
     foodId: int('food_id').references(() => foods.id, { onDelete: 'restrict' }),
     date: date('date', { mode: 'string' }).notNull(),
     quantity: double('quantity').notNull(),
-    unit: mysqlEnum('unit', UNIT_VALUES).notNull(),
+    unit: mysqlEnum('unit', WEIGHT_UNITS).notNull(),
     grams: double('grams').notNull(),
     edibleGrams: double('edible_grams').notNull(),
-    use: mysqlEnum('use', USE_VALUES).notNull(),
+    use: mysqlEnum('use', USES).notNull(),
     spreadMonths: tinyint('spread_months').notNull().default(1),
     trimmed: boolean('trimmed').notNull().default(false),
     note: varchar('note', { length: 500 }),
@@ -319,7 +322,7 @@ export const purchases = mysqlTable(
       .references(() => foods.id, { onDelete: 'restrict' }),
     date: date('date', { mode: 'string' }).notNull(),
     quantity: double('quantity').notNull(),
-    unit: mysqlEnum('unit', UNIT_VALUES).notNull(),
+    unit: mysqlEnum('unit', WEIGHT_UNITS).notNull(),
     grams: double('grams').notNull(),
     edibleGrams: double('edible_grams').notNull(),
     price: decimal('price', { precision: 12, scale: 2 }),
@@ -363,7 +366,7 @@ export const staples = mysqlTable(
       .references(() => foods.id, { onDelete: 'restrict' }),
     label: varchar('label', { length: 120 }).notNull(),
     quantity: double('quantity').notNull(),
-    unit: mysqlEnum('unit', UNIT_VALUES).notNull(),
+    unit: mysqlEnum('unit', WEIGHT_UNITS).notNull(),
     spreadMonths: tinyint('spread_months').notNull().default(1),
     createdAt: timestamp('created_at').notNull().defaultNow(),
   },
@@ -379,13 +382,13 @@ export const people = mysqlTable(
       .notNull()
       .references(() => households.id, { onDelete: 'cascade' }),
     name: varchar('name', { length: 120 }).notNull(),
-    sex: mysqlEnum('sex', ['female', 'male']).notNull(),
+    sex: mysqlEnum('sex', SEXES).notNull(),
     ageYears: double('age_years'),
     birthYear: smallint('birth_year'),
     heightCm: double('height_cm'),
     weightKg: double('weight_kg'),
-    activity: mysqlEnum('activity', ['sedentary', 'low', 'active', 'very']).notNull().default('low'),
-    condition: mysqlEnum('condition', ['none', 'pregnancy', 'lactation']).notNull().default('none'),
+    activity: mysqlEnum('activity', ACTIVITY_LEVELS).notNull().default('low'),
+    condition: mysqlEnum('condition', CONDITIONS).notNull().default('none'),
     kcalPerDay: double('kcal_per_day'),
     atHomePct: double('at_home_pct').notNull().default(100),
     presentFrom: date('present_from', { mode: 'string' }),

@@ -1,5 +1,6 @@
 /** Input rules for the account forms (sign-up, sign-in, reset), shared by the pages and auth.ts. */
 import { z } from 'zod';
+import { atMostCharsShort } from './zod-messages';
 
 /** Passwords: long enough to resist guessing, short enough to hash quickly. */
 export const PASSWORD_MIN = 10;
@@ -10,7 +11,7 @@ const email = z
   .string({ error: 'Enter an e-mail address, e.g. robin@example.org.' })
   .trim()
   .toLowerCase()
-  .max(255, 'At most 255 characters.')
+  .max(255, atMostCharsShort(255))
   .pipe(z.email('Enter an e-mail address, e.g. robin@example.org.'));
 const password = z
   .string()
@@ -18,7 +19,7 @@ const password = z
   .max(PASSWORD_MAX, `Use at most ${PASSWORD_MAX} characters.`);
 
 export const signUpInput = z.object({
-  name: z.string().trim().min(1, 'Tell us what to call you.').max(200, 'At most 200 characters.'),
+  name: z.string().trim().min(1, 'Tell us what to call you.').max(200, atMostCharsShort(200)),
   email,
   password,
 });
@@ -34,16 +35,5 @@ export const resetPasswordInput = z
   .object({ password, confirm: z.string() })
   .refine((v) => v.password === v.confirm, { message: 'The two passwords differ.', path: ['confirm'] });
 
-/**
- * First message per field of a failed parse, for inline form errors.
- * @example fieldErrors(signInInput.safeParse({ email: 'x', password: '' })) // { email: 'Enter an e-mail…', password: 'Enter your password.' }
- */
-export function fieldErrors(result: { success: boolean; error?: z.ZodError }): Record<string, string> {
-  const out: Record<string, string> = {};
-  if (result.success || !result.error) return out;
-  for (const issue of result.error.issues) {
-    const key = issue.path.map(String).join('.') || '_';
-    out[key] ??= issue.message;
-  }
-  return out;
-}
+// The one zod-error flattener lives in ./error-body; re-exported for the account and household forms.
+export { fieldErrors } from './error-body';

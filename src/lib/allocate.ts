@@ -7,9 +7,9 @@ import { listMonths, monthIndex, monthOf, addMonths } from './months';
 import type { NutrientKey } from './nutrients';
 import { spreadByDay, type SpreadPart } from './spread';
 
-import { EATEN_USES, USES, type Use } from './entry-schemas';
+import { EATEN_USES, USES, type Use } from './uses';
 
-// The uses are defined once, with the entry rules; re-exported for the share code's callers.
+// The uses are defined once, in ./uses; re-exported for the share code's callers.
 export { EATEN_USES, USES, type Use };
 
 export type Source = 'home' | 'bought';

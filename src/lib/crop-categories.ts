@@ -3,7 +3,7 @@
  * and over how many months stored or preserved food of that kind is eaten. A crop's own settings
  * always win over these; these only fill the gap when the grower has not said.
  */
-import type { Use } from './entry-schemas';
+import type { Use } from './uses';
 
 /** Kinds of crop. Example: `CROP_CATEGORIES.includes('squash')` → true */
 export const CROP_CATEGORIES = [

@@ -8,47 +8,18 @@
  * - In a patch, `null` clears an optional field (note, price, currency, variety, …).
  */
 import { z } from 'zod';
+import { atMostChars, mustBeNumber, mustBeText, mustBeWhole, oneOf, trueOrFalse } from './zod-messages';
+import { isDate } from './months';
+import { formatCount } from './format-number';
 import { isPlainLine, PLAIN_LINE_MESSAGE } from './plain-text';
 import { CROP_CATEGORIES } from './crop-categories';
 import { WEIGHT_UNITS } from './units';
+import { isEatenUse, isSpreadUse, USES, type Use } from './uses';
 
 // ---------------------------------------------------------------------------------------------
-// Uses
+// Uses (defined in ./uses; re-exported for the forms and routes that import them from here)
 
-/** What happens to a harvest or purchase. Example: `USES[0]` → 'fresh' */
-export const USES = ['fresh', 'stored', 'preserved', 'seed', 'given', 'sold', 'lost'] as const;
-
-export type Use = (typeof USES)[number];
-
-/** Display names for the uses, in our own words. Example: `USE_LABELS.lost` → 'Lost or composted' */
-export const USE_LABELS: Readonly<Record<Use, string>> = {
-  fresh: 'Eaten fresh',
-  stored: 'Stored (cellar, clamp, shelf)',
-  preserved: 'Preserved (dried, frozen, bottled)',
-  seed: 'Kept as seed',
-  given: 'Given away',
-  sold: 'Sold',
-  lost: 'Lost or composted',
-};
-
-/** Uses the household eats. Example: `EATEN_USES.includes('stored')` → true */
-export const EATEN_USES = ['fresh', 'stored', 'preserved'] as const satisfies readonly Use[];
-
-/** Uses the household does not eat. Example: `NOT_EATEN_USES.includes('sold')` → true */
-export const NOT_EATEN_USES = ['seed', 'given', 'sold', 'lost'] as const satisfies readonly Use[];
-
-/** Uses whose food is eaten over several months. Example: `SPREAD_USES.includes('fresh')` → false */
-export const SPREAD_USES = ['stored', 'preserved'] as const satisfies readonly Use[];
-
-/** True when the household eats food with this use. Example: `isEatenUse('given')` → false */
-export function isEatenUse(use: Use): boolean {
-  return (EATEN_USES as readonly Use[]).includes(use);
-}
-
-/** True when food with this use is spread over months. Example: `isSpreadUse('preserved')` → true */
-export function isSpreadUse(use: Use): boolean {
-  return (SPREAD_USES as readonly Use[]).includes(use);
-}
+export { EATEN_USES, isEatenUse, isSpreadUse, NOT_EATEN_USES, SPREAD_USES, USE_LABELS, USES, type Use } from './uses';
 
 // ---------------------------------------------------------------------------------------------
 // Limits
@@ -74,20 +45,8 @@ const L = ENTRY_LIMITS;
 // ---------------------------------------------------------------------------------------------
 // Field schemas
 
-function daysInMonth(year: number, month: number): number {
-  // Day 0 of the next month is the last day of this one; UTC avoids time-zone shifts.
-  return new Date(Date.UTC(year, month, 0)).getUTCDate();
-}
-
-/** True for 'YYYY-MM-DD' naming a day that exists. Example: `isRealIsoDate('2026-02-30')` → false */
-export function isRealIsoDate(text: string): boolean {
-  const match = /^(\d{4})-(\d{2})-(\d{2})$/.exec(text);
-  if (!match) return false;
-  const year = Number(match[1]);
-  const month = Number(match[2]);
-  const day = Number(match[3]);
-  return month >= 1 && month <= 12 && day >= 1 && day <= daysInMonth(year, month);
-}
+/** True for 'YYYY-MM-DD' naming a day that exists (months.ts's isDate). Example: `isRealIsoDate('2026-02-30')` → false */
+export const isRealIsoDate: (text: string) => boolean = isDate;
 
 /** A calendar date written 'YYYY-MM-DD', between 1900 and 2199. Example: `isoDate.parse('2028-02-29')` → '2028-02-29' */
 export const isoDate = z
@@ -107,15 +66,15 @@ export const recordId = z
 
 /** An amount in the entry's unit, more than 0. Example: `quantity.parse(1.5)` → 1.5 */
 export const quantity = z
-  .number({ error: (iss) => (iss.input === undefined ? 'Enter the weight.' : 'The weight must be a number.') })
+  .number({ error: (iss) => (iss.input === undefined ? 'Enter the weight.' : mustBeNumber('The weight')) })
   .positive({ error: 'The weight must be more than 0.' })
-  .max(L.maxQuantity, { error: `The weight is too large (at most ${L.maxQuantity.toLocaleString('en')} in its unit); check the unit.` });
+  .max(L.maxQuantity, { error: `The weight is too large (at most ${formatCount(L.maxQuantity)} in its unit); check the unit.` });
 
 /** One of g, kg, oz, lb. Example: `weightUnit.parse('lb')` → 'lb' */
-export const weightUnit = z.enum(WEIGHT_UNITS, { error: `The unit must be one of ${WEIGHT_UNITS.join(', ')}.` });
+export const weightUnit = z.enum(WEIGHT_UNITS, { error: oneOf('The unit', WEIGHT_UNITS) });
 
 /** One of the uses. Example: `use.parse('seed')` → 'seed' */
-export const use = z.enum(USES, { error: `The use must be one of ${USES.join(', ')}.` });
+export const use = z.enum(USES, { error: oneOf('The use', USES) });
 
 /** Whole months from 1 to 24. Example: `spreadMonths.parse(6)` → 6 */
 export const spreadMonths = z
@@ -125,9 +84,9 @@ export const spreadMonths = z
   .max(L.maxSpreadMonths, { error: `The spread can be at most ${L.maxSpreadMonths} months.` });
 
 const noteText = z
-  .string({ error: 'The note must be text.' })
+  .string({ error: mustBeText('The note') })
   .trim()
-  .max(L.maxNoteLength, { error: `The note can be at most ${L.maxNoteLength} characters.` });
+  .max(L.maxNoteLength, { error: atMostChars('The note', L.maxNoteLength) });
 
 /** A free-text note up to 500 characters; blank becomes no note. Example: `note.parse('  ')` → undefined */
 export const note = noteText.transform((s) => (s === '' ? undefined : s));
@@ -135,11 +94,11 @@ export const note = noteText.transform((s) => (s === '' ? undefined : s));
 // In a patch: null or blank clears the note.
 const noteOrClear = z.union([noteText.transform((s) => (s === '' ? null : s)), z.null()]);
 
-const trimmedFlag = z.boolean({ error: 'Trimmed must be true or false.' });
+const trimmedFlag = z.boolean({ error: trueOrFalse('Trimmed') });
 
 /** Price paid, 0 or more. Example: `price.parse(3.49)` → 3.49 */
 export const price = z
-  .number({ error: 'The price must be a number.' })
+  .number({ error: mustBeNumber('The price') })
   .min(0, { error: 'The price cannot be negative.' })
   .max(L.maxPrice, { error: 'The price is too large; check it.' });
 
@@ -152,9 +111,9 @@ export const currency = z
 
 const nameText = (what: string) =>
   z
-    .string({ error: `The ${what} must be text.` })
+    .string({ error: mustBeText(`The ${what}`) })
     .trim()
-    .max(L.maxNameLength, { error: `The ${what} can be at most ${L.maxNameLength} characters.` })
+    .max(L.maxNameLength, { error: atMostChars(`The ${what}`, L.maxNameLength) })
     .refine(isPlainLine, { error: PLAIN_LINE_MESSAGE });
 
 // ---------------------------------------------------------------------------------------------
@@ -439,13 +398,13 @@ const queryId = z.preprocess(
 const queryDate = z.preprocess(blankToUndefined, isoDate.optional());
 const page = z.preprocess(
   blankToUndefined,
-  z.coerce.number({ error: 'The page must be a number.' }).int({ error: 'The page must be a whole number.' }).min(1, { error: 'Pages start at 1.' }).default(1),
+  z.coerce.number({ error: mustBeNumber('The page') }).int({ error: mustBeWhole('The page') }).min(1, { error: 'Pages start at 1.' }).default(1),
 );
 const pageSize = z.preprocess(
   blankToUndefined,
   z.coerce
-    .number({ error: 'The page size must be a number.' })
-    .int({ error: 'The page size must be a whole number.' })
+    .number({ error: mustBeNumber('The page size') })
+    .int({ error: mustBeWhole('The page size') })
     .min(1, { error: 'The page size must be at least 1.' })
     .max(L.maxPageSize, { error: `The page size can be at most ${L.maxPageSize}.` })
     .default(L.defaultPageSize),
@@ -479,7 +438,7 @@ export const harvestQuery = z
     cropId: queryId,
     foodId: queryId,
     use: z.preprocess(blankToUndefined, use.optional()),
-    sort: z.preprocess(blankToUndefined, z.enum(HARVEST_SORTS, { error: `The sort must be one of ${HARVEST_SORTS.join(', ')}.` }).optional()),
+    sort: z.preprocess(blankToUndefined, z.enum(HARVEST_SORTS, { error: oneOf('The sort', HARVEST_SORTS) }).optional()),
     page,
     pageSize,
   })
@@ -493,7 +452,7 @@ export const purchaseQuery = z
     from: queryDate,
     to: queryDate,
     foodId: queryId,
-    sort: z.preprocess(blankToUndefined, z.enum(PURCHASE_SORTS, { error: `The sort must be one of ${PURCHASE_SORTS.join(', ')}.` }).optional()),
+    sort: z.preprocess(blankToUndefined, z.enum(PURCHASE_SORTS, { error: oneOf('The sort', PURCHASE_SORTS) }).optional()),
     page,
     pageSize,
   })
@@ -510,14 +469,14 @@ const cropFields = {
     .transform((s) => (s === '' ? undefined : s))
     .optional(),
   foodId: recordId.nullable(),
-  category: z.enum(CROP_CATEGORIES, { error: `The category must be one of ${CROP_CATEGORIES.join(', ')}.` }),
+  category: z.enum(CROP_CATEGORIES, { error: oneOf('The category', CROP_CATEGORIES) }),
   edibleFraction: z
-    .number({ error: 'The edible fraction must be a number.' })
+    .number({ error: mustBeNumber('The edible fraction') })
     .gt(0, { error: 'The edible fraction must be more than 0.' })
     .max(1, { error: 'The edible fraction can be at most 1 (all of it eaten).' }),
   defaultUse: use,
   defaultSpreadMonths: spreadMonths,
-  notFood: z.boolean({ error: 'Not food must be true or false.' }),
+  notFood: z.boolean({ error: trueOrFalse('Not food') }),
 };
 
 // A crop marked not food (ornamental, or toxic parts) is never counted as food: it links to no
@@ -568,7 +527,7 @@ export const cropPatch = z
     defaultUse: cropFields.defaultUse.nullable(),
     defaultSpreadMonths: cropFields.defaultSpreadMonths.nullable(),
     // Archived crops are hidden from the entry form but keep their harvests.
-    archived: z.boolean({ error: 'Archived must be true or false.' }),
+    archived: z.boolean({ error: trueOrFalse('Archived') }),
   })
   .partial()
   .superRefine(checkNotEmpty)

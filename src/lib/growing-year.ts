@@ -5,18 +5,12 @@
  */
 import { addMonths, formatMonth, parseMonth } from './months';
 
+// todayIn lives with the other date functions in ./months; re-exported for the report's callers.
+export { todayIn } from './months';
+
 export interface MonthRange {
   from: string;
   to: string;
-}
-
-/**
- * Today's date 'YYYY-MM-DD' in an IANA time zone,
- * e.g. todayIn('Pacific/Auckland', new Date('2026-12-31T12:00:00Z')) → '2027-01-01'.
- */
-export function todayIn(timeZone: string, now: Date = new Date()): string {
-  // en-CA formats as YYYY-MM-DD.
-  return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(now);
 }
 
 /**

@@ -1,6 +1,8 @@
 /** Input rules for households and memberships, shared by the forms and the API. */
 import { z } from 'zod';
+import { atMostCharsShort } from './zod-messages';
 import { isPlainLine, PLAIN_LINE_MESSAGE } from './plain-text';
+import { UNIT_SYSTEMS } from './units';
 
 export const ROLE_VALUES = ['owner', 'grower', 'viewer'] as const;
 export type RoleValue = (typeof ROLE_VALUES)[number];
@@ -18,7 +20,8 @@ export function timeZoneList(): string[] {
   return [...zones].sort();
 }
 
-export const MONTH_NAMES = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'] as const;
+// Month names live with the other calendar code in ./months; re-exported for the household forms.
+export { MONTH_NAMES } from './months';
 
 const ZONE_SHAPE = /^[A-Za-z][A-Za-z0-9_+-]*(\/[A-Za-z0-9][A-Za-z0-9_+-]*)*$/;
 
@@ -39,9 +42,9 @@ export function isTimeZone(tz: string): boolean {
 }
 
 const householdFields = {
-  name: z.string().trim().min(1, 'Give the household a name.').max(120, 'At most 120 characters.').refine(isPlainLine, PLAIN_LINE_MESSAGE),
+  name: z.string().trim().min(1, 'Give the household a name.').max(120, atMostCharsShort(120)).refine(isPlainLine, PLAIN_LINE_MESSAGE),
   timezone: z.string().trim().refine(isTimeZone, 'Not a known IANA time zone (e.g. Europe/Berlin).'),
-  units: z.enum(['metric', 'us'], { error: 'Choose metric or us.' }),
+  units: z.enum(UNIT_SYSTEMS, { error: 'Choose metric or us.' }),
   yearStartMonth: z.number({ error: 'A month number from 1 to 12.' }).int('A month number from 1 to 12.').min(1, 'A month number from 1 to 12.').max(12, 'A month number from 1 to 12.'),
 };
 
@@ -60,7 +63,7 @@ export const householdPatch = z
 export const roleInput = z.object({ role: z.enum(ROLE_VALUES) });
 
 export const invitationInput = z.object({
-  email: z.string({ error: 'Not an e-mail address.' }).trim().toLowerCase().max(255, 'At most 255 characters.').pipe(z.email('Not an e-mail address.')),
+  email: z.string({ error: 'Not an e-mail address.' }).trim().toLowerCase().max(255, atMostCharsShort(255)).pipe(z.email('Not an e-mail address.')),
   role: z.enum(ROLE_VALUES),
 });
 

@@ -1,6 +1,8 @@
 /**
  * Calendar months as 'YYYY-MM' strings and dates as 'YYYY-MM-DD' strings (proleptic Gregorian
- * calendar, no time zones: a harvest belongs to the day it was written down for).
+ * calendar, no time zones: a harvest belongs to the day it was written down for). This is the one
+ * home of date arithmetic and month names, for the server, the reports and the forms alike; only
+ * `todayIn` looks at a clock, and then only at the one it is handed.
  */
 
 /** The longest range a share report covers: 10 years. */
@@ -23,6 +25,16 @@ const DATE_RE = /^(\d{4})-(\d{2})-(\d{2})$/;
 /** Leap year in the Gregorian calendar, e.g. isLeapYear(2028) → true, isLeapYear(2100) → false. */
 export function isLeapYear(year: number): boolean {
   return (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0;
+}
+
+/** Month names in English, January first; short names are their first three letters. Example: `MONTH_NAMES[8]` → 'September' */
+export const MONTH_NAMES = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'] as const;
+
+/** The name of a month number 1–12, long or short. Example: `monthName(9, 'short')` → 'Sep' */
+export function monthName(month: number, length: 'long' | 'short' = 'long'): string {
+  const name = MONTH_NAMES[month - 1];
+  if (!Number.isInteger(month) || name === undefined) throw new RangeError(`${month} is not a month number: use 1 to 12`);
+  return length === 'short' ? name.slice(0, 3) : name;
 }
 
 function daysIn(year: number, month: number): number {
@@ -69,6 +81,20 @@ export function formatMonth({ year, month }: YearMonth): string {
 /** Whether a value is a real date, e.g. isDate('2028-02-29') → true, isDate('2026-02-29') → false. */
 export function isDate(value: unknown): value is string {
   return typeof value === 'string' && splitDate(value) !== null;
+}
+
+/**
+ * Today's date 'YYYY-MM-DD' in an IANA time zone, e.g. todayIn('Pacific/Auckland',
+ * new Date('2026-12-31T12:00:00Z')) → '2027-01-01'. A zone the runtime does not know (an older
+ * browser) falls back to the UTC date rather than failing.
+ */
+export function todayIn(timeZone: string, now: Date = new Date()): string {
+  try {
+    // en-CA writes dates as YYYY-MM-DD.
+    return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(now);
+  } catch {
+    return now.toISOString().slice(0, 10);
+  }
 }
 
 /** Year, month and day of a 'YYYY-MM-DD' string, e.g. parseDate('2026-04-30'). Throws RangeError for an impossible date. */

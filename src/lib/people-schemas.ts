@@ -7,6 +7,8 @@
  * with `personInput` again, so rules across fields (age or birth year, from ≤ to) always hold.
  */
 import { z } from 'zod';
+import { atMostChars, mustBeNumber, mustBeWhole, oneOf } from './zod-messages';
+import { formatCount } from './format-number';
 import { isPlainLine, PLAIN_LINE_MESSAGE } from './plain-text';
 import { isDate } from './months';
 import type { Person } from './needs';
@@ -55,11 +57,11 @@ const L = PERSON_LIMITS;
 const blankToNull = (v: unknown) => (v === '' ? null : v);
 
 function optionalNumber(what: string, min: number, max: number, unit: string, int = false) {
-  let n = z.number({ error: `${what} must be a number.` });
-  if (int) n = n.int({ error: `${what} must be a whole number.` });
+  let n = z.number({ error: mustBeNumber(what) });
+  if (int) n = n.int({ error: mustBeWhole(what) });
   n = n
     .min(min, { error: `${what} must be at least ${min}${unit}.` })
-    .max(max, { error: `${what} can be at most ${max.toLocaleString('en')}${unit}.` });
+    .max(max, { error: `${what} can be at most ${formatCount(max)}${unit}.` });
   return z.preprocess(blankToNull, n.nullable().optional());
 }
 
@@ -83,7 +85,7 @@ const fields = {
     .string({ error: 'Give the person a name.' })
     .trim()
     .min(1, { error: 'Give the person a name.' })
-    .max(L.maxNameLength, { error: `The name can be at most ${L.maxNameLength} characters.` })
+    .max(L.maxNameLength, { error: atMostChars('The name', L.maxNameLength) })
     .refine(isPlainLine, { error: PLAIN_LINE_MESSAGE }),
   sex: z.enum(SEXES, { error: 'Choose female or male (the reference intakes are given by sex).' }),
   ageYears: optionalNumber('The age', 0, L.maxAgeYears, ' years'),
@@ -92,11 +94,11 @@ const fields = {
   weightKg: optionalNumber('The weight', L.minWeightKg, L.maxWeightKg, ' kg'),
   activity: z.preprocess(
     (v) => (v === '' || v == null ? undefined : v),
-    z.enum(ACTIVITY_LEVELS, { error: `The activity must be one of ${ACTIVITY_LEVELS.join(', ')}.` }).default('low'),
+    z.enum(ACTIVITY_LEVELS, { error: oneOf('The activity', ACTIVITY_LEVELS) }).default('low'),
   ),
   condition: z.preprocess(
     (v) => (v === '' || v == null ? undefined : v),
-    z.enum(CONDITIONS, { error: `The condition must be one of ${CONDITIONS.join(', ')}.` }).default('none'),
+    z.enum(CONDITIONS, { error: oneOf('The condition', CONDITIONS) }).default('none'),
   ),
   kcalPerDay: optionalNumber('The stated energy need', L.minKcalPerDay, L.maxKcalPerDay, ' kcal a day'),
   atHomePct: z.preprocess(
@@ -171,8 +173,8 @@ export const personPatch = z
     birthYear: fields.birthYear,
     heightCm: fields.heightCm,
     weightKg: fields.weightKg,
-    activity: z.enum(ACTIVITY_LEVELS, { error: `The activity must be one of ${ACTIVITY_LEVELS.join(', ')}.` }).optional(),
-    condition: z.enum(CONDITIONS, { error: `The condition must be one of ${CONDITIONS.join(', ')}.` }).optional(),
+    activity: z.enum(ACTIVITY_LEVELS, { error: oneOf('The activity', ACTIVITY_LEVELS) }).optional(),
+    condition: z.enum(CONDITIONS, { error: oneOf('The condition', CONDITIONS) }).optional(),
     kcalPerDay: fields.kcalPerDay,
     atHomePct: z
       .number({ error: 'The share of meals at home must be a number of percent.' })

@@ -3,6 +3,7 @@
  * weight is written back to the household in its unit system. Everything is stored in the entry's
  * own unit and converted to grams only when it is counted.
  */
+import { trimmedDecimal } from './format-number';
 
 /** Weight units an entry can be logged in. Example: `WEIGHT_UNITS.includes('lb')` → true */
 export const WEIGHT_UNITS = ['g', 'kg', 'oz', 'lb'] as const;
@@ -81,12 +82,6 @@ export function fromGrams(grams: number, unit: WeightUnit | string): number {
   return grams / factor;
 }
 
-// Fixed decimals with trailing zeros dropped: 1.50 → "1.5", 2.00 → "2".
-function trimmedFixed(value: number, decimals: number): string {
-  const text = value.toFixed(decimals);
-  return text.includes('.') ? text.replace(/\.?0+$/, '') : text;
-}
-
 /**
  * Writes a weight for people, always with its unit. Metric: grams below 1 kg, else kilograms with up
  * to 2 decimals. US: ounces (1 decimal) below 1 lb, else decimal pounds with up to 2 decimals — one
@@ -100,13 +95,13 @@ export function formatWeight(grams: number, system: UnitSystem): string {
   if (system === 'metric') {
     // Decide on the rounded value so that 999.7 g is written "1 kg", not "1000 g".
     const roundedGrams = abs < 10 ? Number(abs.toFixed(1)) : Math.round(abs);
-    if (roundedGrams < 1000) return `${sign}${trimmedFixed(abs, abs < 10 ? 1 : 0)} g`;
-    return `${sign}${trimmedFixed(abs / 1000, 2)} kg`;
+    if (roundedGrams < 1000) return `${sign}${trimmedDecimal(abs, abs < 10 ? 1 : 0)} g`;
+    return `${sign}${trimmedDecimal(abs / 1000, 2)} kg`;
   }
   if (system === 'us') {
     const ounces = abs / GRAMS_PER_UNIT.oz;
-    if (Number(ounces.toFixed(1)) < 16) return `${sign}${trimmedFixed(ounces, 1)} oz`;
-    return `${sign}${trimmedFixed(abs / GRAMS_PER_UNIT.lb, 2)} lb`;
+    if (Number(ounces.toFixed(1)) < 16) return `${sign}${trimmedDecimal(ounces, 1)} oz`;
+    return `${sign}${trimmedDecimal(abs / GRAMS_PER_UNIT.lb, 2)} lb`;
   }
   throw new Error(`Unknown unit system "${String(system)}": use metric or us.`);
 }

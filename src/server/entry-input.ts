@@ -5,7 +5,7 @@
  */
 import type { z } from 'zod';
 import type { Db } from '../db/client';
-import { zodErrorBody } from '../lib/entry-schemas';
+import { zodErrorBody } from '../lib/error-body';
 import { HttpError } from './http';
 
 /** A Drizzle transaction (what `db.transaction(fn)` hands to fn). */
@@ -64,11 +64,8 @@ export function isRetryableLock(e: unknown): boolean {
   return code === 'ER_LOCK_DEADLOCK' || code === 'ER_LOCK_WAIT_TIMEOUT';
 }
 
-/** Today's date in a time zone, as YYYY-MM-DD. Example: `todayIn('Pacific/Auckland')` → '2026-07-15' */
-export function todayIn(timeZone: string, now = new Date()): string {
-  // en-CA formats dates as YYYY-MM-DD.
-  return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(now);
-}
+// todayIn lives with the other date functions in src/lib/months.ts; re-exported for the data layer.
+export { todayIn } from '../lib/months';
 
 /** A route parameter holding a record id, or a 404 when it is not one. */
 export function idParam(value: string | undefined, what: string): number {

@@ -9,9 +9,12 @@ import {
   isLeapYear,
   isMonth,
   listMonths,
+  monthName,
+  MONTH_NAMES,
   monthOf,
   overlapDays,
   parseMonth,
+  todayIn,
 } from '../../src/lib/months';
 
 describe('months', () => {
@@ -99,5 +102,19 @@ describe('months', () => {
 
   it('refuses an interval whose start is after its end', () => {
     expect(() => overlapDays('2026-03', '2026-03-20', '2026-03-10')).toThrow(RangeError);
+  });
+
+  it('names months long and short from one list', () => {
+    expect(MONTH_NAMES).toHaveLength(12);
+    expect(monthName(1)).toBe('January');
+    expect(monthName(9, 'short')).toBe('Sep');
+    expect(MONTH_NAMES.map((_, i) => monthName(i + 1, 'short'))).toEqual(['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec']);
+    expect(() => monthName(13)).toThrow(RangeError);
+  });
+
+  it('reads today in a time zone, and falls back to the UTC date for a zone the runtime does not know', () => {
+    // Pacific/Auckland is UTC+13 in (southern) summer (IANA tz database: NZDT)
+    expect(todayIn('Pacific/Auckland', new Date('2026-12-31T12:00:00Z'))).toBe('2027-01-01');
+    expect(todayIn('Mars/Olympus', new Date('2026-12-31T23:00:00Z'))).toBe('2026-12-31');
   });
 });

@@ -1,19 +1,20 @@
-/** How the share dashboard writes months, amounts and shares: always with their unit. */
+/**
+ * How the share dashboard writes months, amounts and shares: always with their unit. Month names
+ * come from src/lib/months.ts and numbers from src/lib/format-number.ts, so the dashboard writes
+ * them as the rest of the app does.
+ */
 import { formatAmount } from '../../lib/format-number';
-import { parseMonth } from '../../lib/months';
-
-const MONTH_NAMES = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
-const LONG_MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
+import { monthName, parseMonth } from '../../lib/months';
 
 /** Example: `shortMonth('2027-01')` → 'Jan' */
 export function shortMonth(month: string): string {
-  return MONTH_NAMES[parseMonth(month).month - 1]!;
+  return monthName(parseMonth(month).month, 'short');
 }
 
 /** Example: `longMonth('2027-01')` → 'January 2027' */
 export function longMonth(month: string): string {
   const { year, month: m } = parseMonth(month);
-  return `${LONG_MONTHS[m - 1]!} ${year}`;
+  return `${monthName(m)} ${year}`;
 }
 
 /** Example: `rangeText('2026-10', '2027-09')` → 'October 2026 – September 2027' */
