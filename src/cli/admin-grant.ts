@@ -4,10 +4,10 @@
  */
 import { eq } from 'drizzle-orm';
 import { drizzle } from 'drizzle-orm/mysql2';
-import { createPool } from '../db/client';
-import { migrateDatabase } from '../db/migrate';
-import * as schema from '../db/schema';
-import { databaseUrl, loadDotEnv } from '../server/config';
+import { createPool } from '@/db/client';
+import { migrateDatabase } from '@/db/migrate';
+import * as schema from '@/db/schema';
+import { databaseUrl, loadDotEnv } from '@/server/config';
 import { dbUp } from './db';
 import { isMain } from './is-main';
 

@@ -2,8 +2,8 @@
  * npm run db:up | db:stop | db:migrate | db:status
  * Manages the private MariaDB server and the app's database (see src/cli/mariadb.ts).
  */
-import { databaseUrl, loadDotEnv, parseDatabaseUrl, testDatabaseUrl } from '../server/config';
-import { migrateDatabase } from '../db/migrate';
+import { databaseUrl, loadDotEnv, parseDatabaseUrl, testDatabaseUrl } from '@/server/config';
+import { migrateDatabase } from '@/db/migrate';
 import { isMain } from './is-main';
 import { ensureDatabase, ensureInstalled, serverPaths, startServer, stopServer } from './mariadb';
 

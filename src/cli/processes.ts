@@ -1,6 +1,6 @@
 /** Child processes for the start and test commands: started in their own group, stopped by pid. */
 import { spawn, type ChildProcess } from 'node:child_process';
-import { childEnv } from '../server/config';
+import { childEnv } from '@/server/config';
 
 export function run(cmd: string, args: string[], env: NodeJS.ProcessEnv = childEnv()): Promise<number> {
   return new Promise((resolve) => {

@@ -9,13 +9,13 @@
  */
 import { randomUUID } from 'node:crypto';
 import { and, eq, inArray } from 'drizzle-orm';
-import * as schema from '../db/schema';
-import type { CropCategory } from '../lib/crop-categories';
-import type { HarvestInput, PurchaseInput, Use } from '../lib/entry-schemas';
-import type { WeightUnit } from '../lib/units';
-import type { Executor } from '../server/entry-input';
-import { harvestValues, type HarvestBasis } from '../server/harvests';
-import { purchaseValues } from '../server/purchases';
+import * as schema from '@/db/schema';
+import type { CropCategory } from '@/lib/crop-categories';
+import type { HarvestInput, PurchaseInput, Use } from '@/lib/entry-schemas';
+import type { WeightUnit } from '@/lib/units';
+import type { Executor } from '@/server/entry-input';
+import { harvestValues, type HarvestBasis } from '@/server/harvests';
+import { purchaseValues } from '@/server/purchases';
 
 const SR28 = 'usda-sr28';
 

@@ -11,9 +11,9 @@ import { randomUUID } from 'node:crypto';
 import { hashPassword } from 'better-auth/crypto';
 import { eq } from 'drizzle-orm';
 import { drizzle } from 'drizzle-orm/mysql2';
-import { createPool } from '../db/client';
-import * as schema from '../db/schema';
-import { databaseUrl, loadDotEnv } from '../server/config';
+import { createPool } from '@/db/client';
+import * as schema from '@/db/schema';
+import { databaseUrl, loadDotEnv } from '@/server/config';
 import { isMain } from './is-main';
 import { seedDemoRecords } from './seed-demo-records';
 

@@ -7,7 +7,7 @@
  */
 import { existsSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { bindHost, bindPort, childEnv, databaseUrl, hasAuthSecret, loadDotEnv, mailConfig, outDir, publicOrigin } from '../server/config';
+import { bindHost, bindPort, childEnv, databaseUrl, hasAuthSecret, loadDotEnv, mailConfig, outDir, publicOrigin } from '@/server/config';
 import { serverPaths, stopServer } from './mariadb';
 import { importFoods } from './import-foods';
 import { startMailFake, type MailFake } from './mail-fake';

@@ -1,7 +1,7 @@
 /** Finding and installing the Debian packages the start and test commands need. */
 import { execFileSync, spawnSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
-import { childEnv, searchPath } from '../server/config';
+import { childEnv, searchPath } from '@/server/config';
 
 const SEARCH = ['/usr/sbin', '/usr/bin', '/usr/local/sbin', '/usr/local/bin', '/sbin', '/bin'];
 

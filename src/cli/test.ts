@@ -5,8 +5,8 @@
  */
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { childEnv, loadDotEnv, outDir as buildDir, parseDatabaseUrl, testDatabaseUrl, testRunConfig } from '../server/config';
-import { migrateDatabase } from '../db/migrate';
+import { childEnv, loadDotEnv, outDir as buildDir, parseDatabaseUrl, testDatabaseUrl, testRunConfig } from '@/server/config';
+import { migrateDatabase } from '@/db/migrate';
 import { recreateDatabase, serverPaths, stopServer } from './mariadb';
 import { dbUp } from './db';
 import { importFoods } from './import-foods';

@@ -5,7 +5,7 @@
 import mysql from 'mysql2/promise';
 import { drizzle, type MySql2Database } from 'drizzle-orm/mysql2';
 import * as schema from './schema';
-import { databaseUrl, dbPoolSize, parseDatabaseUrl } from '../server/config';
+import { databaseUrl, dbPoolSize, parseDatabaseUrl } from '@/server/config';
 
 export type Db = MySql2Database<typeof schema>;
 

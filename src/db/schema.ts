@@ -20,11 +20,11 @@ import {
   uniqueIndex,
   varchar,
 } from 'drizzle-orm/mysql-core';
-import { CROP_CATEGORIES } from '../lib/crop-categories';
-import { ROLE_VALUES } from '../lib/household-schemas';
-import { ACTIVITY_LEVELS, CONDITIONS, SEXES } from '../lib/people-schemas';
-import { UNIT_SYSTEMS, WEIGHT_UNITS } from '../lib/units';
-import { USES } from '../lib/uses';
+import { CROP_CATEGORIES } from '@/lib/crop-categories';
+import { ROLE_VALUES } from '@/lib/household-schemas';
+import { ACTIVITY_LEVELS, CONDITIONS, SEXES } from '@/lib/people-schemas';
+import { UNIT_SYSTEMS, WEIGHT_UNITS } from '@/lib/units';
+import { USES } from '@/lib/uses';
 
 // ── Reference data: food composition datasets ────────────────────────────────────────────────
 

@@ -8,10 +8,10 @@
  */
 import { betterAuth } from 'better-auth';
 import { drizzleAdapter } from 'better-auth/adapters/drizzle';
-import { getDb } from '../db/client';
-import { account, rateLimit, session, user, verification } from '../db/schema';
-import { PASSWORD_MAX, PASSWORD_MIN } from '../lib/account-schemas';
-import { safeNext } from '../lib/safe-next';
+import { getDb } from '@/db/client';
+import { account, rateLimit, session, user, verification } from '@/db/schema';
+import { PASSWORD_MAX, PASSWORD_MIN } from '@/lib/account-schemas';
+import { safeNext } from '@/lib/safe-next';
 import { authSecret, publicOrigin, rateLimitRule } from './config';
 import { linkMail, sendMail } from './mail';
 

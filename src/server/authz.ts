@@ -4,9 +4,9 @@
  */
 import type { APIContext, APIRoute } from 'astro';
 import { and, eq } from 'drizzle-orm';
-import { getDb } from '../db/client';
-import { households, memberships, type Household, type Role } from '../db/schema';
-import { roleAllows, type Access } from '../lib/household-schemas';
+import { getDb } from '@/db/client';
+import { households, memberships, type Household, type Role } from '@/db/schema';
+import { roleAllows, type Access } from '@/lib/household-schemas';
 import { HttpError, handle } from './http';
 
 export interface HouseholdAccess {

@@ -6,7 +6,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { parseCropTable, type CropTableRow } from '../lib/crop-table';
+import { parseCropTable, type CropTableRow } from '@/lib/crop-table';
 
 /** Where the table lives: reference-data/crops.csv under the project root (the working directory). */
 export function cropTablePath(root = process.cwd()): string {

@@ -3,15 +3,15 @@
  * or writes only that household's rows.
  */
 import { and, asc, count, desc, eq, inArray, max, sql } from 'drizzle-orm';
-import { getDb } from '../db/client';
-import { crops, datasets, foods, harvests, type Crop } from '../db/schema';
-import type { CropJson, FoodSummary } from '../lib/api-types';
-import { edibleFactor } from '../lib/edible';
-import { EATEN_USES, mergeCropPatch, type CropInput, type CropPatch } from '../lib/entry-schemas';
+import { getDb } from '@/db/client';
+import { crops, datasets, foods, harvests, type Crop } from '@/db/schema';
+import type { CropJson, FoodSummary } from '@/lib/api-types';
+import { edibleFactor } from '@/lib/edible';
+import { EATEN_USES, mergeCropPatch, type CropInput, type CropPatch } from '@/lib/entry-schemas';
 import { HttpError } from './http';
 import { fieldError, invalidInput, isDuplicateKey, isRowReferenced, type Executor, type Tx } from './entry-input';
 
-export type { CropJson, FoodSummary } from '../lib/api-types';
+export type { CropJson, FoodSummary } from '@/lib/api-types';
 
 /** "Name (variety)", or the name alone. Example: `cropDisplayName('Potato', 'Pink Fir')` → 'Potato (Pink Fir)' */
 export function cropDisplayName(name: string, variety: string | null | undefined): string {

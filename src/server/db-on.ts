@@ -5,8 +5,8 @@
  */
 import { drizzle } from 'drizzle-orm/mysql2';
 import type { Pool } from 'mysql2/promise';
-import type { Db } from '../db/client';
-import * as schema from '../db/schema';
+import type { Db } from '@/db/client';
+import * as schema from '@/db/schema';
 
 const clients = new WeakMap<Pool, Db>();
 

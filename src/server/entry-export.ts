@@ -4,9 +4,9 @@
  * the whole household as one JSON backup. Every query is scoped by the household id.
  */
 import { asc, eq } from 'drizzle-orm';
-import { getDb } from '../db/client';
-import { foods, harvests, people, purchases, type Household } from '../db/schema';
-import type { CsvDelimiter } from '../lib/csv-import';
+import { getDb } from '@/db/client';
+import { foods, harvests, people, purchases, type Household } from '@/db/schema';
+import type { CsvDelimiter } from '@/lib/csv-import';
 import {
   cropsToCsv,
   harvestRecord,
@@ -15,8 +15,8 @@ import {
   purchaseRecord,
   purchasesToCsv,
   type ExportLookups,
-} from '../lib/csv-export';
-import type { HarvestInput, PurchaseInput } from '../lib/entry-schemas';
+} from '@/lib/csv-export';
+import type { HarvestInput, PurchaseInput } from '@/lib/entry-schemas';
 import { cropRows, listCrops } from './crops';
 import { todayIn } from './entry-input';
 import { householdJson } from './households';

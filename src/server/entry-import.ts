@@ -6,9 +6,9 @@
  */
 import { asc, inArray } from 'drizzle-orm';
 import { z } from 'zod';
-import { getDb } from '../db/client';
-import { foods, harvests, purchases, type Crop } from '../db/schema';
-import type { ImportAnswer, PreviewRow } from '../lib/api-types';
+import { getDb } from '@/db/client';
+import { foods, harvests, purchases, type Crop } from '@/db/schema';
+import type { ImportAnswer, PreviewRow } from '@/lib/api-types';
 import {
   CSV_LIMITS,
   cropNameKey,
@@ -17,16 +17,16 @@ import {
   resolveHarvestRows,
   resolvePurchaseRows,
   type CsvError,
-} from '../lib/csv-import';
-import { cropInput, type CropInput, type HarvestInput, type PurchaseInput } from '../lib/entry-schemas';
-import { toGrams } from '../lib/units';
+} from '@/lib/csv-import';
+import { cropInput, type CropInput, type HarvestInput, type PurchaseInput } from '@/lib/entry-schemas';
+import { toGrams } from '@/lib/units';
 import { cropDisplayName, cropRows, insertCrop } from './crops';
 import { HttpError, readBodyBytes } from './http';
 import { parseInput, type Executor, type Tx } from './entry-input';
 import { harvestValues, type HarvestBasis } from './harvests';
 import { purchaseValues } from './purchases';
 
-export type { ImportAnswer, ImportAnswerBody, PreviewRow } from '../lib/api-types';
+export type { ImportAnswer, ImportAnswerBody, PreviewRow } from '@/lib/api-types';
 
 /** Rows shown in a preview answer; the counts and totals always cover the whole file. */
 export const PREVIEW_ROW_LIMIT = 500;

@@ -4,8 +4,8 @@
  * and the household's local date.
  */
 import type { z } from 'zod';
-import type { Db } from '../db/client';
-import { zodErrorBody } from '../lib/error-body';
+import type { Db } from '@/db/client';
+import { zodErrorBody } from '@/lib/error-body';
 import { HttpError } from './http';
 
 /** A Drizzle transaction (what `db.transaction(fn)` hands to fn). */
@@ -65,7 +65,7 @@ export function isRetryableLock(e: unknown): boolean {
 }
 
 // todayIn lives with the other date functions in src/lib/months.ts; re-exported for the data layer.
-export { todayIn } from '../lib/months';
+export { todayIn } from '@/lib/months';
 
 /** A route parameter holding a record id, or a 404 when it is not one. */
 export function idParam(value: string | undefined, what: string): number {

@@ -5,12 +5,12 @@
  * columns, the extra filters, the sort by name — comes in as an `EntryListSpec`.
  */
 import { and, asc, count, desc, eq, gte, lte, sum, type AnyColumn, type SQL } from 'drizzle-orm';
-import { getDb } from '../db/client';
-import type { harvests, purchases } from '../db/schema';
-import type { EntryPage } from '../lib/entry-types';
+import { getDb } from '@/db/client';
+import type { harvests, purchases } from '@/db/schema';
+import type { EntryPage } from '@/lib/entry-types';
 import type { Executor } from './entry-input';
 
-export type { EntryPage, EntryTotals } from '../lib/entry-types';
+export type { EntryPage, EntryTotals } from '@/lib/entry-types';
 
 /** The tables whose rows are entries: harvests and bought food. */
 export type EntryTable = typeof harvests | typeof purchases;

@@ -5,8 +5,8 @@
  * What differs between harvests and bought food comes in as an `EntryUpdateSpec`.
  */
 import { and, eq, type SQL } from 'drizzle-orm';
-import { getDb } from '../db/client';
-import type { Harvest, harvests, Purchase } from '../db/schema';
+import { getDb } from '@/db/client';
+import type { Harvest, harvests, Purchase } from '@/db/schema';
 import type { Executor, Tx } from './entry-input';
 import type { EntryTable } from './entry-list';
 import { HttpError } from './http';

@@ -7,10 +7,10 @@
 import { eq, sql } from 'drizzle-orm';
 import { drizzle } from 'drizzle-orm/mysql2';
 import type { Pool, PoolConnection } from 'mysql2/promise';
-import type { Db } from '../db/client';
-import * as schema from '../db/schema';
-import { datasets, foodWeights, foods as foodsTable, nutrients } from '../db/schema';
-import { NUTRIENTS } from '../lib/nutrients';
+import type { Db } from '@/db/client';
+import * as schema from '@/db/schema';
+import { datasets, foodWeights, foods as foodsTable, nutrients } from '@/db/schema';
+import { NUTRIENTS } from '@/lib/nutrients';
 import { dbOn } from './db-on';
 
 export interface DatasetInfo {

@@ -5,13 +5,13 @@
  */
 import { and, asc, desc, eq, like, sql, type SQL } from 'drizzle-orm';
 import type { Pool } from 'mysql2/promise';
-import { datasets, foodNutrients, foods, foodWeights } from '../db/schema';
-import type { FoodDetail, FoodHit } from '../lib/food-types';
-import { NUTRIENTS } from '../lib/nutrients';
+import { datasets, foodNutrients, foods, foodWeights } from '@/db/schema';
+import type { FoodDetail, FoodHit } from '@/lib/food-types';
+import { NUTRIENTS } from '@/lib/nutrients';
 import { dbOn } from './db-on';
 
 // Only for src/components/entries/api.ts until its import points at src/lib/food-types.ts: then delete.
-export type { FoodDetail, FoodHit } from '../lib/food-types';
+export type { FoodDetail, FoodHit } from '@/lib/food-types';
 
 /** The columns of a hit, as FoodHit names them. */
 const hitColumns = {

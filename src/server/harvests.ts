@@ -5,9 +5,9 @@
  */
 import { randomUUID } from 'node:crypto';
 import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
-import { getDb } from '../db/client';
-import { crops, foods, harvests, type Harvest } from '../db/schema';
-import { defaultSpreadMonths, type CropCategory } from '../lib/crop-categories';
+import { getDb } from '@/db/client';
+import { crops, foods, harvests, type Harvest } from '@/db/schema';
+import { defaultSpreadMonths, type CropCategory } from '@/lib/crop-categories';
 import {
   cropUseError,
   mergeHarvestPatch,
@@ -17,16 +17,16 @@ import {
   type HarvestQuery,
   type HarvestSplitInput,
   type Use,
-} from '../lib/entry-schemas';
-import type { HarvestJson, HarvestList } from '../lib/entry-types';
-import { toGrams, type WeightUnit } from '../lib/units';
+} from '@/lib/entry-schemas';
+import type { HarvestJson, HarvestList } from '@/lib/entry-types';
+import { toGrams, type WeightUnit } from '@/lib/units';
 import { cropDisplayName, cropRow, harvestEdibleGrams, requireFood } from './crops';
 import { HttpError } from './http';
 import { fieldError, invalidInput, type Executor, type Tx } from './entry-input';
 import { listEntries, type EntryListSpec } from './entry-list';
 import { deleteEntry, updateEntry, type EntryUpdateSpec } from './entry-update';
 
-export type { HarvestJson, HarvestList } from '../lib/entry-types';
+export type { HarvestJson, HarvestList } from '@/lib/entry-types';
 
 const NOT_FOUND = 'No such harvest in this household.';
 

@@ -1,7 +1,7 @@
 /** Households and memberships in the database. Every function is scoped by user or household id. */
 import { and, asc, eq, sql } from 'drizzle-orm';
-import { getDb } from '../db/client';
-import { crops, harvests, households, memberships, purchases, staples, user, type Household, type Role } from '../db/schema';
+import { getDb } from '@/db/client';
+import { crops, harvests, households, memberships, purchases, staples, user, type Household, type Role } from '@/db/schema';
 import { HttpError } from './http';
 
 export interface HouseholdInput {

@@ -3,7 +3,7 @@
  * { "error": { "code", "message", "fields"? } }. Bad input is 400/422, never a 500.
  */
 import { ZodError } from 'zod';
-import { zodErrorBody } from '../lib/error-body';
+import { zodErrorBody } from '@/lib/error-body';
 
 export class HttpError extends Error {
   constructor(

@@ -10,8 +10,8 @@
  * Only successful answers are stored: a refused request wrote nothing, so repeating it is harmless.
  */
 import { and, eq } from 'drizzle-orm';
-import { getDb } from '../db/client';
-import { idempotencyKeys } from '../db/schema';
+import { getDb } from '@/db/client';
+import { idempotencyKeys } from '@/db/schema';
 import { HttpError, json } from './http';
 import { isDuplicateKey, isRetryableLock, type Tx } from './entry-input';
 

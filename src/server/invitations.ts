@@ -9,9 +9,9 @@
  */
 import { createHash, randomBytes } from 'node:crypto';
 import { and, desc, eq, gt, isNull } from 'drizzle-orm';
-import { getDb } from '../db/client';
-import { households, invitations, memberships, user, type Household, type Role } from '../db/schema';
-import { ROLE_LABELS } from '../lib/household-schemas';
+import { getDb } from '@/db/client';
+import { households, invitations, memberships, user, type Household, type Role } from '@/db/schema';
+import { ROLE_LABELS } from '@/lib/household-schemas';
 import { publicOrigin } from './config';
 import { HttpError } from './http';
 import { linkMail, sendMail } from './mail';

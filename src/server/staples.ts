@@ -3,16 +3,16 @@
  * flour is one tap. Every function takes the household id and touches only that household's rows.
  */
 import { and, asc, eq } from 'drizzle-orm';
-import { getDb } from '../db/client';
-import { foods, staples, type Household } from '../db/schema';
-import type { StapleJson } from '../lib/api-types';
-import type { StapleInput } from '../lib/entry-schemas';
+import { getDb } from '@/db/client';
+import { foods, staples, type Household } from '@/db/schema';
+import type { StapleJson } from '@/lib/api-types';
+import type { StapleInput } from '@/lib/entry-schemas';
 import { requireFood } from './crops';
 import { HttpError } from './http';
 import { isDuplicateKey, todayIn, type Executor, type Tx } from './entry-input';
 import { createPurchase, type PurchaseJson } from './purchases';
 
-export type { StapleJson } from '../lib/api-types';
+export type { StapleJson } from '@/lib/api-types';
 
 function joined(ex: Executor) {
   return ex

@@ -5,13 +5,13 @@
  */
 import { performance } from 'node:perf_hooks';
 import type { Pool } from 'mysql2/promise';
-import { createPool } from '../../src/db/client';
-import { migrateDatabase } from '../../src/db/migrate';
-import { loadDotEnv, parseDatabaseUrl, testDatabaseUrl } from '../../src/server/config';
-import { dbUp } from '../../src/cli/db';
-import { importFoods } from '../../src/cli/import-foods';
-import { recreateDatabase, serverPaths } from '../../src/cli/mariadb';
-import { householdShare } from '../../src/server/share-data';
+import { createPool } from '@/db/client';
+import { migrateDatabase } from '@/db/migrate';
+import { loadDotEnv, parseDatabaseUrl, testDatabaseUrl } from '@/server/config';
+import { dbUp } from '@/cli/db';
+import { importFoods } from '@/cli/import-foods';
+import { recreateDatabase, serverPaths } from '@/cli/mariadb';
+import { householdShare } from '@/server/share-data';
 
 const YEARS = Number(process.env.BENCH_YEARS || 10);
 const HARVESTS_PER_YEAR = Number(process.env.BENCH_HARVESTS_PER_YEAR || 3000);

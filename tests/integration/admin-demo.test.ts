@@ -1,6 +1,6 @@
 import { afterAll, describe, expect, it } from 'vitest';
-import { grantAdmin } from '../../src/cli/admin-grant';
-import { DEMO_EMAIL, DEMO_HOUSEHOLD, DEMO_PASSWORD, seedDemo } from '../../src/cli/seed-demo';
+import { grantAdmin } from '@/cli/admin-grant';
+import { DEMO_EMAIL, DEMO_HOUSEHOLD, DEMO_PASSWORD, seedDemo } from '@/cli/seed-demo';
 import { TEST_DB_URL, testPool } from '../support/env';
 import { apiAs, newVerifiedUser, signIn } from '../support/users';
 

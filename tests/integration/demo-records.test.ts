@@ -1,7 +1,7 @@
 import { drizzle } from 'drizzle-orm/mysql2';
 import { afterAll, describe, expect, it } from 'vitest';
-import * as schema from '../../src/db/schema';
-import { demoSeasonYear, seedDemoRecords } from '../../src/cli/seed-demo-records';
+import * as schema from '@/db/schema';
+import { demoSeasonYear, seedDemoRecords } from '@/cli/seed-demo-records';
 import { allHarvests, allPurchases } from '../support/entries';
 import { testPool } from '../support/env';
 import { apiAs, createHousehold, newVerifiedUser } from '../support/users';

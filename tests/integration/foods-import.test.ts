@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Pool } from 'mysql2/promise';
-import { importDataset } from '../../src/server/food-import';
-import { loadSr28, SR28_INFO } from '../../src/server/sr28-source';
+import { importDataset } from '@/server/food-import';
+import { loadSr28, SR28_INFO } from '@/server/sr28-source';
 import { testPool } from '../support/env';
 
 // `npm test` has already run the importer (db:import-foods) against the test database.

@@ -1,5 +1,5 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { defaultSpreadMonths } from '../../src/lib/crop-categories';
+import { defaultSpreadMonths } from '@/lib/crop-categories';
 import { allHarvests, foodId, logHarvest, makeCrop } from '../support/entries';
 import { BASE_URL } from '../support/env';
 import { apiAs, createHousehold, householdWithRoles, type RoleFixture } from '../support/users';

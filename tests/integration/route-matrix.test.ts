@@ -26,8 +26,8 @@ import { readdirSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { GUARDED, householdRoute } from '../../src/server/authz';
-import { handle } from '../../src/server/http';
+import { GUARDED, householdRoute } from '@/server/authz';
+import { handle } from '@/server/http';
 import { addMember, apiAs, createHousehold, householdWithRoles, newVerifiedUser, type RoleFixture, type TestUser } from '../support/users';
 
 type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';

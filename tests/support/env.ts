@@ -1,6 +1,6 @@
 /** Where the integration tests find the built server and the test database (set by `npm test`). */
-import { createPool } from '../../src/db/client';
-import { loadDotEnv, testDatabaseUrl } from '../../src/server/config';
+import { createPool } from '@/db/client';
+import { loadDotEnv, testDatabaseUrl } from '@/server/config';
 
 loadDotEnv();
 

@@ -5,7 +5,7 @@
  *   const msg = await waitForMail('robin@test.selfsown.invalid', { subject: /Confirm/ });
  *   const link = linkTo(msg, '/api/auth/verify-email');
  */
-import { listMail, readMessage, type MailMessage } from '../../src/server/mail-outbox';
+import { listMail, readMessage, type MailMessage } from '@/server/mail-outbox';
 
 export type { MailMessage };
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { fieldErrors, PASSWORD_MIN, resetPasswordInput, signInInput, signUpInput } from '../../src/lib/account-schemas';
+import { fieldErrors, PASSWORD_MIN, resetPasswordInput, signInInput, signUpInput } from '@/lib/account-schemas';
 
 describe('account form rules', () => {
   it('needs a name, an e-mail address and a password of at least 10 characters to sign up', () => {

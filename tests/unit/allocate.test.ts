@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { allocate, eatenParts, nutrientsOf, type FoodEntry } from '../../src/lib/allocate';
+import { allocate, eatenParts, nutrientsOf, type FoodEntry } from '@/lib/allocate';
 
 // Edible portion as the product brief defines it: grams as harvested × (1 − refuse/100).
 const edible = (grams: number, refusePct: number) => grams * (1 - refusePct / 100);

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { amdrGrams, amdrPercent } from '../../src/lib/amdr';
-import { monthlyNeedDetails } from '../../src/lib/needs';
-import { dailyNeed } from '../../src/lib/requirements';
+import { amdrGrams, amdrPercent } from '@/lib/amdr';
+import { monthlyNeedDetails } from '@/lib/needs';
+import { dailyNeed } from '@/lib/requirements';
 
 describe('carbohydrate and fat as ranges of the energy need', () => {
   it('gives the AMDR in percent of energy by age', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { authCall, tooMany } from '../../src/components/account/auth-client';
+import { authCall, tooMany } from '@/components/account/auth-client';
 
 const headers = (h: Record<string, string>) => ({ response: new Response(null, { headers: h }) }) as never;
 

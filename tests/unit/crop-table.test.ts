@@ -11,12 +11,12 @@ import {
   nutrientPerYieldUnit,
   parseCropTable,
   type CropTableRow,
-} from '../../src/lib/crop-table';
-import { rawnessRank } from '../../src/lib/food-rows';
-import { parseSr28Row } from '../../src/lib/sr28-fields';
-import { sr28FoodGroup } from '../../src/lib/sr28-groups';
-import { expandSr28Name } from '../../src/lib/sr28-names';
-import { cropTablePath, loadCropTable } from '../../src/server/crop-table-file';
+} from '@/lib/crop-table';
+import { rawnessRank } from '@/lib/food-rows';
+import { parseSr28Row } from '@/lib/sr28-fields';
+import { sr28FoodGroup } from '@/lib/sr28-groups';
+import { expandSr28Name } from '@/lib/sr28-names';
+import { cropTablePath, loadCropTable } from '@/server/crop-table-file';
 
 const csvPath = fileURLToPath(new URL('../../reference-data/crops.csv', import.meta.url));
 const csvText = readFileSync(csvPath, 'utf8');

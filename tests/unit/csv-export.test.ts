@@ -9,7 +9,7 @@ import {
   purchasesToCsv,
   toCsv,
   type ExportLookups,
-} from '../../src/lib/csv-export';
+} from '@/lib/csv-export';
 import {
   cropNameKey,
   HARVEST_CSV_COLUMNS,
@@ -17,8 +17,8 @@ import {
   importPurchaseCsv,
   PURCHASE_CSV_COLUMNS,
   type HarvestResolvers,
-} from '../../src/lib/csv-import';
-import { harvestInput, purchaseInput, type HarvestInput, type PurchaseInput } from '../../src/lib/entry-schemas';
+} from '@/lib/csv-import';
+import { harvestInput, purchaseInput, type HarvestInput, type PurchaseInput } from '@/lib/entry-schemas';
 
 const crops = [
   { id: 1, name: 'Potato', variety: 'Charlotte' },

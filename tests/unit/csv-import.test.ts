@@ -11,7 +11,7 @@ import {
   resolveHarvestRows,
   resolvePurchaseRows,
   type HarvestResolvers,
-} from '../../src/lib/csv-import';
+} from '@/lib/csv-import';
 
 const crops = new Map([
   ['potato', { id: 1, notFood: false }],

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { dietFactor, VEGETARIAN_CAUTIONS } from '../../src/lib/diet';
-import { dailyNeed } from '../../src/lib/requirements';
+import { dietFactor, VEGETARIAN_CAUTIONS } from '@/lib/diet';
+import { dailyNeed } from '@/lib/requirements';
 
 describe('a vegetarian diet', () => {
   it('raises the iron need 1.8 times', () => {

@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { DRI_CSV_PATH, DRI_MODULE_PATH, driModuleText } from '../../src/cli/gen-dri';
-import { DRI_ROWS, DRI_SOURCES } from '../../src/lib/dri-table';
+import { DRI_CSV_PATH, DRI_MODULE_PATH, driModuleText } from '@/cli/gen-dri';
+import { DRI_ROWS, DRI_SOURCES } from '@/lib/dri-table';
 
 describe('dri-table', () => {
   it('is generated from reference-data/dri.csv as it is now (run npm run gen:dri after editing the CSV)', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { edibleFactor, edibleGrams } from '../../src/lib/edible';
+import { edibleFactor, edibleGrams } from '@/lib/edible';
 
 describe('edible portion', () => {
   it('takes the refuse off potatoes', () => {

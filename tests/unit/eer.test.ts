@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { estimatedEnergyRequirement as eer, paCoefficient, referenceBody } from '../../src/lib/eer';
+import { estimatedEnergyRequirement as eer, paCoefficient, referenceBody } from '@/lib/eer';
 
 describe('estimated energy requirement (IOM 2005)', () => {
   it('follows the adult man equation, worked by hand', () => {

@@ -22,8 +22,8 @@ import {
   USE_LABELS,
   USES,
   zodErrorBody,
-} from '../../src/lib/entry-schemas';
-import { CROP_CATEGORIES, CROP_CATEGORY_LABELS, defaultSpreadMonths, defaultUse } from '../../src/lib/crop-categories';
+} from '@/lib/entry-schemas';
+import { CROP_CATEGORIES, CROP_CATEGORY_LABELS, defaultSpreadMonths, defaultUse } from '@/lib/crop-categories';
 
 const harvest = { date: '2026-07-14', cropId: 3, quantity: 2.5, unit: 'kg' as const };
 

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
-import { fieldErrors, FORM_FIELD, zodErrorBody, zodFieldErrors } from '../../src/lib/error-body';
-import { fieldErrors as accountFieldErrors } from '../../src/lib/account-schemas';
-import { householdPatch } from '../../src/lib/household-schemas';
+import { fieldErrors, FORM_FIELD, zodErrorBody, zodFieldErrors } from '@/lib/error-body';
+import { fieldErrors as accountFieldErrors } from '@/lib/account-schemas';
+import { householdPatch } from '@/lib/household-schemas';
 
 describe('error-body', () => {
   const schema = z

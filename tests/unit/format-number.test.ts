@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { formatAmount, formatCount, trimmedDecimal } from '../../src/lib/format-number';
-import { amountText, longMonth, rangeText, shortMonth } from '../../src/components/share/format';
+import { formatAmount, formatCount, trimmedDecimal } from '@/lib/format-number';
+import { amountText, longMonth, rangeText, shortMonth } from '@/components/share/format';
 
 describe('format-number', () => {
   it('writes amounts with fewer decimals the larger they are', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { growingYear, growingYearLabel, lastTwelveMonths, todayIn } from '../../src/lib/growing-year';
+import { growingYear, growingYearLabel, lastTwelveMonths, todayIn } from '@/lib/growing-year';
 
 describe('growing year', () => {
   it('is the calendar year when it starts in January', () => {

@@ -3,8 +3,8 @@
  * own schemas, with the form's own sentences for what only the form can see.
  */
 import { describe, expect, it } from 'vitest';
-import { emptyHarvestValues, harvestLabel, harvestResolver, restOf, type HarvestFormContext, type HarvestFormValues } from '../../src/components/entries/harvest-form-values';
-import { firstWins, flatErrors } from '../../src/components/entries/form-errors';
+import { emptyHarvestValues, harvestLabel, harvestResolver, restOf, type HarvestFormContext, type HarvestFormValues } from '@/components/entries/harvest-form-values';
+import { firstWins, flatErrors } from '@/components/entries/form-errors';
 
 const options = { fields: {}, shouldUseNativeValidation: false };
 const context: HarvestFormContext = {

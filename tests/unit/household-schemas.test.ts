@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { householdInput, householdPatch, invitationInput, isTimeZone, roleAllows, timeZoneList } from '../../src/lib/household-schemas';
+import { householdInput, householdPatch, invitationInput, isTimeZone, roleAllows, timeZoneList } from '@/lib/household-schemas';
 
 describe('household rules', () => {
   it('accepts IANA time zone names and nothing else', () => {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { monthlyNeedDetails, monthlyNeeds, personMonthNeeds } from '../../src/lib/needs';
-import { personEnergy } from '../../src/lib/person-energy';
+import { monthlyNeedDetails, monthlyNeeds, personMonthNeeds } from '@/lib/needs';
+import { personEnergy } from '@/lib/person-energy';
 
 const mother = { sex: 'female', ageYears: 25 } as const;
 

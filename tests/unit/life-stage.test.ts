@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { ageInMonths, lactationPeriodIn, lifeStageIn, trimesterIn } from '../../src/lib/life-stage';
-import { homeDays, monthlyNeeds } from '../../src/lib/needs';
-import { personEnergy } from '../../src/lib/person-energy';
+import { ageInMonths, lactationPeriodIn, lifeStageIn, trimesterIn } from '@/lib/life-stage';
+import { homeDays, monthlyNeeds } from '@/lib/needs';
+import { personEnergy } from '@/lib/person-energy';
 
 const body = { sex: 'female', ageYears: 25, heightCm: 165, weightKg: 60, activity: 'low' } as const;
 

@@ -15,7 +15,7 @@ import {
   overlapDays,
   parseMonth,
   todayIn,
-} from '../../src/lib/months';
+} from '@/lib/months';
 
 describe('months', () => {
   it('accepts YYYY-MM with a month from 01 to 12 only', () => {

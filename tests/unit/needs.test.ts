@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { ageInMonth, homeDays, monthlyNeeds, personMonthNeeds } from '../../src/lib/needs';
+import { ageInMonth, homeDays, monthlyNeeds, personMonthNeeds } from '@/lib/needs';
 
 describe('monthly need', () => {
   it('is the daily need times the days of the month', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { NUTRIENTS, SHARE_NUTRIENTS, isNutrientKey, nutrientDef } from '../../src/lib/nutrients';
+import { NUTRIENTS, SHARE_NUTRIENTS, isNutrientKey, nutrientDef } from '@/lib/nutrients';
 
 describe('nutrient list', () => {
   it('has unique keys and unique SR28 fields', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { isLoopback, outboxAllowed } from '../../src/lib/outbox-access';
+import { isLoopback, outboxAllowed } from '@/lib/outbox-access';
 
 const local = { fake: true, bindHost: '127.0.0.1', clientAddress: '127.0.0.1', trustProxy: false };
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { mergePerson, needsPerson, personInput, personPatch } from '../../src/lib/people-schemas';
+import { mergePerson, needsPerson, personInput, personPatch } from '@/lib/people-schemas';
 
 const fieldsOf = (r: { success: boolean; error?: { issues: { path: PropertyKey[]; message: string }[] } }) =>
   Object.fromEntries((r.error?.issues ?? []).map((i) => [i.path.join('.') || '_', i.message]));

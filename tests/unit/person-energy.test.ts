@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { personEnergy } from '../../src/lib/person-energy';
+import { personEnergy } from '@/lib/person-energy';
 
 describe('personEnergy', () => {
   it('uses a stated kcal/day and scales the at-home part by the share of meals at home', () => {

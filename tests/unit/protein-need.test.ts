@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { proteinByWeight, proteinPerKg } from '../../src/lib/protein-need';
-import { dailyNeed } from '../../src/lib/requirements';
+import { proteinByWeight, proteinPerKg } from '@/lib/protein-need';
+import { dailyNeed } from '@/lib/requirements';
 
 describe('protein from the person\u2019s weight', () => {
   it('uses the RDA per kilogram of each age group', () => {

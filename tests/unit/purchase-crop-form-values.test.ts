@@ -3,9 +3,9 @@
  * by the endpoint's own schemas, with the form's own sentences where only the form can tell.
  */
 import { describe, expect, it } from 'vitest';
-import { cropBody, cropFormValues, cropResolver } from '../../src/components/entries/crop-form-values';
-import { flatErrors } from '../../src/components/entries/form-errors';
-import { emptyPurchaseValues, purchaseResolver, type PurchaseFormValues } from '../../src/components/entries/purchase-form-values';
+import { cropBody, cropFormValues, cropResolver } from '@/components/entries/crop-form-values';
+import { flatErrors } from '@/components/entries/form-errors';
+import { emptyPurchaseValues, purchaseResolver, type PurchaseFormValues } from '@/components/entries/purchase-form-values';
 
 const options = { fields: {}, shouldUseNativeValidation: false };
 const flour = { id: 5, name: 'Wheat flour, whole-grain', code: '20080' };

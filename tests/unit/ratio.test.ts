@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { selfSufficiency, ssrFraction, ssrPercent } from '../../src/lib/ratio';
-import type { FoodEntry } from '../../src/lib/allocate';
+import { selfSufficiency, ssrFraction, ssrPercent } from '@/lib/ratio';
+import type { FoodEntry } from '@/lib/allocate';
 
 // USDA SR28, NDB 11352 "Potatoes, flesh and skin, raw": 77 kcal per 100 g; refuse 25 %
 const potato = (edibleGrams: number, over: Partial<FoodEntry>): FoodEntry => ({

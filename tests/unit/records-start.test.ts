@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { countedMonths, defaultRecordsSince, headlineMonths, isBeforeRecords, isFutureMonth, markRecordsStart } from '../../src/lib/records-start';
+import { countedMonths, defaultRecordsSince, headlineMonths, isBeforeRecords, isFutureMonth, markRecordsStart } from '@/lib/records-start';
 
 // The rule is Selfsown's own (issue 9, "Records start"): common practice (no published source).
 describe('records start', () => {

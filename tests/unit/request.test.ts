@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { ApiError, qs, request } from '../../src/components/request';
+import { ApiError, qs, request } from '@/components/request';
 
 function answer(status: number, body: string) {
   return vi.fn(async () => new Response(body, { status, headers: { 'content-type': 'application/json' } }));

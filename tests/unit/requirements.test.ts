@@ -2,9 +2,9 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
-import { DRI_ROWS, type DriRow } from '../../src/lib/dri-table';
-import { dailyNeed, dailyNeeds, driRow } from '../../src/lib/requirements';
-import { isNutrientKey } from '../../src/lib/nutrients';
+import { DRI_ROWS, type DriRow } from '@/lib/dri-table';
+import { dailyNeed, dailyNeeds, driRow } from '@/lib/requirements';
+import { isNutrientKey } from '@/lib/nutrients';
 
 const csvPath = fileURLToPath(new URL('../../reference-data/dri.csv', import.meta.url));
 

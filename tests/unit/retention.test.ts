@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { applyRetention, parseRetentionCsv, retentionTable } from '../../src/lib/retention';
+import { applyRetention, parseRetentionCsv, retentionTable } from '@/lib/retention';
 
 const csv = readFileSync(new URL('../../reference-data/retention.csv', import.meta.url), 'utf8');
 const HEADER = 'method,nutrient_key,retention_pct,item,source';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { DEFAULT_NEXT, safeNext, withNext } from '../../src/lib/safe-next';
+import { DEFAULT_NEXT, safeNext, withNext } from '@/lib/safe-next';
 
 describe('safeNext', () => {
   it('keeps a path on this site with its query and fragment', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { contributorId, foodIdsOf, groupEntry, shareGroups, type FoodAmounts, type GroupRow } from '../../src/lib/share-groups';
+import { contributorId, foodIdsOf, groupEntry, shareGroups, type FoodAmounts, type GroupRow } from '@/lib/share-groups';
 
 // USDA SR28, NDB 11352 "Potatoes, flesh and skin, raw", per 100 g: 77 kcal, 2.05 g protein (no other share nutrients given here)
 const POTATO_ID = 1;

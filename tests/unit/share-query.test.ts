@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { shareQuery } from '../../src/lib/share-query';
+import { shareQuery } from '@/lib/share-query';
 
 describe('shareQuery', () => {
   it('passes a range of whole months through', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { SHARE_BANDS, UNKNOWN_BAND, contrastRatio, percentText, shareBand } from '../../src/lib/share-scale';
+import { SHARE_BANDS, UNKNOWN_BAND, contrastRatio, percentText, shareBand } from '@/lib/share-scale';
 
 describe('share colour scale', () => {
   it('puts a share in the band whose lower bound it reaches', () => {

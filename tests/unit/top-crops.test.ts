@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { shareGroups, type FoodAmounts, type GroupRow } from '../../src/lib/share-groups';
-import { TOP_CROPS_PER_NUTRIENT, topCrops } from '../../src/lib/top-crops';
+import { shareGroups, type FoodAmounts, type GroupRow } from '@/lib/share-groups';
+import { TOP_CROPS_PER_NUTRIENT, topCrops } from '@/lib/top-crops';
 
 // USDA SR28, NDB 11352 "Potatoes, flesh and skin, raw", per 100 g: 77 kcal, 2.05 g protein, 19.7 mg vitamin C
 const POTATO = 1;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatWeight, fromGrams, GRAMS_PER_UNIT, parseWeightUnit, toGrams, WEIGHT_UNITS } from '../../src/lib/units';
+import { formatWeight, fromGrams, GRAMS_PER_UNIT, parseWeightUnit, toGrams, WEIGHT_UNITS } from '@/lib/units';
 
 describe('converting weights to grams', () => {
   it('uses the exact international pound', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { harvestInput, harvestSplitInput, stapleLogInput, zodErrorBody } from '../../src/lib/entry-schemas';
+import { harvestInput, harvestSplitInput, stapleLogInput, zodErrorBody } from '@/lib/entry-schemas';
 
 describe('unknown fields in entry input', () => {
   it('refuses a misspelt field instead of storing the entry without it', () => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { USES } from '../../src/lib/allocate';
-import { shareGroups, type FoodAmounts, type GroupRow } from '../../src/lib/share-groups';
-import { useTotals } from '../../src/lib/use-totals';
+import { USES } from '@/lib/allocate';
+import { shareGroups, type FoodAmounts, type GroupRow } from '@/lib/share-groups';
+import { useTotals } from '@/lib/use-totals';
 
 // USDA SR28, NDB 11352 "Potatoes, flesh and skin, raw": 77 kcal per 100 g
 const POTATO = 1;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { EATEN_USES, isEatenUse, isSpreadUse, isUse, NOT_EATEN_USES, SPREAD_USES, USE_LABELS, USES } from '../../src/lib/uses';
+import { EATEN_USES, isEatenUse, isSpreadUse, isUse, NOT_EATEN_USES, SPREAD_USES, USE_LABELS, USES } from '@/lib/uses';
 
 describe('uses', () => {
   it('splits every use into eaten or not eaten, never both', () => {

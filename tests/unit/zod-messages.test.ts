@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
-import { atMostChars, mustBeNumber, oneOf, trueOrFalse } from '../../src/lib/zod-messages';
-import { roleInput } from '../../src/lib/household-schemas';
-import { price, weightUnit } from '../../src/lib/entry-schemas';
+import { atMostChars, mustBeNumber, oneOf, trueOrFalse } from '@/lib/zod-messages';
+import { roleInput } from '@/lib/household-schemas';
+import { price, weightUnit } from '@/lib/entry-schemas';
 
 const firstMessage = (r: { error?: z.ZodError }) => r.error?.issues[0]?.message;
 

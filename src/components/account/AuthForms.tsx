@@ -4,9 +4,9 @@
  * auth.ts uses) and sends through better-auth's own client (./auth-client.ts).
  */
 import { useState, type ReactNode } from 'react';
-import { forgotPasswordInput, PASSWORD_MIN, resetPasswordInput, signInInput, signUpInput } from '../../lib/account-schemas';
-import { safeNext, withNext } from '../../lib/safe-next';
-import { Field, FormAlert, formMessage, showFieldProblem, showFormMessage, useSchemaForm } from '../forms';
+import { forgotPasswordInput, PASSWORD_MIN, resetPasswordInput, signInInput, signUpInput } from '@/lib/account-schemas';
+import { safeNext, withNext } from '@/lib/safe-next';
+import { Field, FormAlert, formMessage, showFieldProblem, showFormMessage, useSchemaForm } from '@/components/forms';
 import { authCall, authClient, tooMany } from './auth-client';
 
 function OutboxHint({ outbox }: { outbox: boolean }) {

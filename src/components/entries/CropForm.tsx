@@ -7,8 +7,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useRef, useState, type FormEvent } from 'react';
 import { Controller, useForm } from 'react-hook-form';
-import { CROP_CATEGORIES, CROP_CATEGORY_LABELS, defaultSpreadMonths, defaultUse } from '../../lib/crop-categories';
-import { isEatenUse, USE_LABELS, USES, type CropInput, type CropPatch } from '../../lib/entry-schemas';
+import { CROP_CATEGORIES, CROP_CATEGORY_LABELS, defaultSpreadMonths, defaultUse } from '@/lib/crop-categories';
+import { isEatenUse, USE_LABELS, USES, type CropInput, type CropPatch } from '@/lib/entry-schemas';
 import { ApiError, keys, request, urls, type Crop, type HouseholdInfo } from './api';
 import { cropFormValues, cropResolver, type CropFormContext, type CropFormValues } from './crop-form-values';
 import { FoodPicker } from './FoodPicker';

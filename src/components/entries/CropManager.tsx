@@ -6,8 +6,8 @@
  */
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
-import { CROP_CATEGORY_LABELS, defaultSpreadMonths, defaultUse } from '../../lib/crop-categories';
-import { USE_LABELS } from '../../lib/entry-schemas';
+import { CROP_CATEGORY_LABELS, defaultSpreadMonths, defaultUse } from '@/lib/crop-categories';
+import { USE_LABELS } from '@/lib/entry-schemas';
 import { ApiError, canWrite, get, keys, request, urls, type Crop, type HouseholdInfo } from './api';
 import { CropForm } from './CropForm';
 import { FactsGrid } from './FoodPicker';

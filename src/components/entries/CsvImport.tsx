@@ -6,16 +6,16 @@
  */
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useRef, useState, type FormEvent } from 'react';
-import { CROP_CATEGORIES, CROP_CATEGORY_LABELS, type CropCategory } from '../../lib/crop-categories';
-import { CSV_LIMITS, HARVEST_CSV_COLUMNS, PURCHASE_CSV_COLUMNS } from '../../lib/csv-import';
-import { formatWeight } from '../../lib/units';
+import { CROP_CATEGORIES, CROP_CATEGORY_LABELS, type CropCategory } from '@/lib/crop-categories';
+import { CSV_LIMITS, HARVEST_CSV_COLUMNS, PURCHASE_CSV_COLUMNS } from '@/lib/csv-import';
+import { formatWeight } from '@/lib/units';
 import { ApiError, canWrite, keys, request, urls, type CsvError, type HouseholdInfo } from './api';
 import { FoodPicker, type FoodChoice } from './FoodPicker';
 import { formatDay } from './local-date';
 import { QueryProvider } from './QueryProvider';
 import { formatQuantity } from './quantity-text';
 import { Alert } from './ui';
-import type { ImportAnswer as ImportAnswerOf } from '../../lib/api-types';
+import type { ImportAnswer as ImportAnswerOf } from '@/lib/api-types';
 
 type Kind = 'harvests' | 'purchases';
 

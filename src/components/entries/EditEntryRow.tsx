@@ -7,7 +7,7 @@
 import { useMutation, useQueryClient, type QueryKey } from '@tanstack/react-query';
 import { useState, type FormEvent, type ReactNode } from 'react';
 import type { z } from 'zod';
-import { zodErrorBody } from '../../lib/entry-schemas';
+import { zodErrorBody } from '@/lib/entry-schemas';
 import { ApiError, request } from './api';
 import type { Errors } from './ui';
 

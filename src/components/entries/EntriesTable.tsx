@@ -20,7 +20,7 @@ import {
   type RowData,
 } from '@tanstack/react-table';
 import { useMemo, useState, type ComponentType, type ReactNode } from 'react';
-import type { EntryTotals } from '../../lib/entry-types';
+import type { EntryTotals } from '@/lib/entry-types';
 import { request, type HouseholdInfo } from './api';
 import { FilterBar, MessageRow, Pager, SortHeader, SortSelect, stack, TotalsLine } from './table-bits';
 import { paramFromSorting, sortingFromParam, type ColumnSortKeys, type Sorting } from './table-sort';

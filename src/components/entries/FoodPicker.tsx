@@ -5,7 +5,7 @@
  */
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
 import { useId, useState, type KeyboardEvent } from 'react';
-import { formatAmount } from '../../lib/format-number';
+import { formatAmount } from '@/lib/format-number';
 import { foodDetail, keys, nutrientAmount, searchFoods, type FoodHit } from './api';
 import { ErrorText, pct, useDebounced } from './ui';
 

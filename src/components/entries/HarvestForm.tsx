@@ -10,8 +10,8 @@
 import { useQuery } from '@tanstack/react-query';
 import { useMemo, useRef, useState, type FormEvent } from 'react';
 import { Controller, useForm } from 'react-hook-form';
-import { defaultSpreadMonths } from '../../lib/crop-categories';
-import { isEatenUse, USES, type Use } from '../../lib/entry-schemas';
+import { defaultSpreadMonths } from '@/lib/crop-categories';
+import { isEatenUse, USES, type Use } from '@/lib/entry-schemas';
 import { ApiError, canWrite, get, keys, newIdempotencyKey, urls, type Crop, type HarvestPage, type HouseholdInfo } from './api';
 import { cropDefaultUse, orderCrops } from './crop-order';
 import { CropChips } from './CropChips';

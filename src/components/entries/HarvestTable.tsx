@@ -5,8 +5,8 @@
  */
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
-import { harvestPatch, USE_LABELS, USES, type Use } from '../../lib/entry-schemas';
-import { formatWeight, WEIGHT_UNITS, type UnitSystem, type WeightUnit } from '../../lib/units';
+import { harvestPatch, USE_LABELS, USES, type Use } from '@/lib/entry-schemas';
+import { formatWeight, WEIGHT_UNITS, type UnitSystem, type WeightUnit } from '@/lib/units';
 import { canWrite, get, keys, urls, type Crop, type Harvest, type HarvestPage, type HouseholdInfo } from './api';
 import { EditRowShell, useEntryPatch } from './EditEntryRow';
 import { EntriesTable, entryColumns, type EntryColumn } from './EntriesTable';

@@ -8,7 +8,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useRef, useState, type FormEvent } from 'react';
 import { Controller, useForm } from 'react-hook-form';
-import { stapleInput, type PurchaseInput } from '../../lib/entry-schemas';
+import { stapleInput, type PurchaseInput } from '@/lib/entry-schemas';
 import { ApiError, keys, newIdempotencyKey, request, urls, type HouseholdInfo, type Staple } from './api';
 import { FoodPicker } from './FoodPicker';
 import { flatErrors } from './form-errors';

@@ -4,8 +4,8 @@
  * this file brings the bought-food columns, filters, edit row and words.
  */
 import { useState, type ReactNode } from 'react';
-import { purchasePatch } from '../../lib/entry-schemas';
-import { formatWeight, WEIGHT_UNITS, type UnitSystem, type WeightUnit } from '../../lib/units';
+import { purchasePatch } from '@/lib/entry-schemas';
+import { formatWeight, WEIGHT_UNITS, type UnitSystem, type WeightUnit } from '@/lib/units';
 import { get, keys, urls, type HouseholdInfo, type Purchase, type PurchasePage } from './api';
 import { EditRowShell, useEntryPatch } from './EditEntryRow';
 import { EntriesTable, entryColumns, type EntryColumn } from './EntriesTable';

@@ -4,8 +4,8 @@
  * The parts are a react-hook-form field array of the harvest form.
  */
 import { Controller, useFieldArray, type Control } from 'react-hook-form';
-import type { Use } from '../../lib/entry-schemas';
-import type { WeightUnit } from '../../lib/units';
+import type { Use } from '@/lib/entry-schemas';
+import type { WeightUnit } from '@/lib/units';
 import type { HarvestBody, HarvestFormContext, HarvestFormValues, PartValues } from './harvest-form-values';
 import { trimNumber } from './quantity-text';
 import { ErrorText, invalidProps, UseChips, type Errors } from './ui';

@@ -2,7 +2,7 @@
  * "Eaten over how many months?" for stored and preserved harvests: whole months only, blank for
  * the crop's usual (shown, per use, in the hint and as the placeholder).
  */
-import type { Use } from '../../lib/entry-schemas';
+import type { Use } from '@/lib/entry-schemas';
 import { ErrorText, invalidProps } from './ui';
 
 interface SpreadFieldProps {

@@ -1,5 +1,5 @@
 /** The usual cautions for what a grower is about to do with a harvest (preserving, selling). */
-import type { Use } from '../../lib/entry-schemas';
+import type { Use } from '@/lib/entry-schemas';
 
 export function UseCautions({ uses }: { uses: readonly Use[] }) {
   const preserved = uses.includes('preserved');

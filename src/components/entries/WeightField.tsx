@@ -3,7 +3,7 @@
  * weight is typed as text, so a decimal comma works). Used by the harvest and bought-food forms.
  */
 import type { UseFormRegisterReturn } from 'react-hook-form';
-import type { WeightUnit } from '../../lib/units';
+import type { WeightUnit } from '@/lib/units';
 import { ErrorText, invalidProps, UnitToggle } from './ui';
 
 interface WeightFieldProps {

@@ -4,12 +4,12 @@
  * the one client in ../request.ts, whose `request()` throws an ApiError carrying the API's error
  * body (`{ error: { code, message, fields } }`); a network failure is an ApiError with status 0.
  */
-import type { FoodDetail, FoodHit } from '../../server/food-search';
-import type { UnitSystem } from '../../lib/units';
-import { get, qs } from '../request';
+import type { FoodDetail, FoodHit } from '@/server/food-search';
+import type { UnitSystem } from '@/lib/units';
+import { get, qs } from '@/components/request';
 
 // The one HTTP client of the islands lives in ../request; re-exported so the entry islands keep one import.
-export { ApiError, get, qs, request, type ApiErrorBody } from '../request';
+export { ApiError, get, qs, request, type ApiErrorBody } from '@/components/request';
 
 /** What an island needs to know about the household it shows. */
 export interface HouseholdInfo {
@@ -27,12 +27,12 @@ export function canWrite(role: HouseholdInfo['role']): boolean {
 
 // The JSON shapes come from the server modules that send them; type-only imports are erased, so no
 // server code reaches the browser bundle.
-export type { FoodDetail, FoodHit } from '../../server/food-search';
-export type { CropJson as Crop, FoodSummary as CropFood, ImportAnswerBody, PersonJson } from '../../lib/api-types';
-export type { HarvestJson as Harvest, HarvestList as HarvestPage } from '../../server/harvests';
-export type { PurchaseJson as Purchase, PurchaseList as PurchasePage } from '../../server/purchases';
-export type { StapleJson as Staple } from '../../lib/api-types';
-export type { EntryTotals as Totals } from '../../server/entry-list';
+export type { FoodDetail, FoodHit } from '@/server/food-search';
+export type { CropJson as Crop, FoodSummary as CropFood, ImportAnswerBody, PersonJson } from '@/lib/api-types';
+export type { HarvestJson as Harvest, HarvestList as HarvestPage } from '@/server/harvests';
+export type { PurchaseJson as Purchase, PurchaseList as PurchasePage } from '@/server/purchases';
+export type { StapleJson as Staple } from '@/lib/api-types';
+export type { EntryTotals as Totals } from '@/server/entry-list';
 
 export interface CsvError {
   row: number;

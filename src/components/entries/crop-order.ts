@@ -2,8 +2,8 @@
  * The order a grower reaches for crops on the harvest form — recently harvested first, then what
  * was in season a year ago, then the rest — and the small line under each crop button.
  */
-import { defaultUse } from '../../lib/crop-categories';
-import type { Use } from '../../lib/entry-schemas';
+import { defaultUse } from '@/lib/crop-categories';
+import type { Use } from '@/lib/entry-schemas';
 import type { Crop } from './api';
 import { daysBetween, formatDay } from './local-date';
 

@@ -6,7 +6,7 @@
  */
 import { toNestErrors } from '@hookform/resolvers';
 import type { FieldError, FieldErrors, FieldValues, ResolverOptions } from 'react-hook-form';
-import { FORM_FIELD } from '../../lib/error-body';
+import { FORM_FIELD } from '@/lib/error-body';
 
 /** Field path → first message, in the order the problems were found. */
 export type FlatErrors = Record<string, string>;

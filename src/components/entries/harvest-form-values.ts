@@ -7,8 +7,8 @@
  */
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { Resolver } from 'react-hook-form';
-import { cropUseError, harvestInput, harvestSplitInput, isSpreadUse, type HarvestInput, type HarvestSplitInput, type Use } from '../../lib/entry-schemas';
-import type { WeightUnit } from '../../lib/units';
+import { cropUseError, harvestInput, harvestSplitInput, isSpreadUse, type HarvestInput, type HarvestSplitInput, type Use } from '@/lib/entry-schemas';
+import type { WeightUnit } from '@/lib/units';
 import { firstWins, flatErrors, nestErrors, type FlatErrors } from './form-errors';
 import { formatQuantity, parseDecimal, trimNumber } from './quantity-text';
 

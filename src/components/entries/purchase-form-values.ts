@@ -6,8 +6,8 @@
  */
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { Resolver } from 'react-hook-form';
-import { purchaseInput, type PurchaseInput } from '../../lib/entry-schemas';
-import type { WeightUnit } from '../../lib/units';
+import { purchaseInput, type PurchaseInput } from '@/lib/entry-schemas';
+import type { WeightUnit } from '@/lib/units';
 import type { FoodChoice } from './FoodPicker';
 import { flatErrors, nestErrors } from './form-errors';
 import { parseDecimal } from './quantity-text';

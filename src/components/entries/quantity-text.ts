@@ -1,5 +1,5 @@
 /** Reading what people type into a weight field, and writing weights back in the unit they used. */
-import { fromGrams, type WeightUnit } from '../../lib/units';
+import { fromGrams, type WeightUnit } from '@/lib/units';
 
 /**
  * Reads a typed number; a lone decimal comma counts as a point ("1,5" → 1.5), spaces are ignored.

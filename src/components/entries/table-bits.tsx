@@ -1,7 +1,7 @@
 /** Pieces of the entries table (EntriesTable.tsx): sortable headers, the pager, the totals line, the phone's card classes. */
 import type { ReactNode } from 'react';
-import { formatWeight, type UnitSystem } from '../../lib/units';
-import type { EntryTotals as Totals } from '../../lib/entry-types';
+import { formatWeight, type UnitSystem } from '@/lib/units';
+import type { EntryTotals as Totals } from '@/lib/entry-types';
 
 /**
  * A column header that sorts: `state` is how the table sorts by this column now, `onToggle` asks for

@@ -5,13 +5,13 @@
  * Touch targets are at least 48 px (min-h-12) so they work with one thumb outdoors.
  */
 import { useEffect, useState, type ReactNode } from 'react';
-import { USE_LABELS, USES, type Use } from '../../lib/entry-schemas';
-import { FieldError as ErrorText } from '../forms';
-import { DEFAULT_ENTRY_UNIT, WEIGHT_UNITS, isWeightUnit, type UnitSystem, type WeightUnit } from '../../lib/units';
+import { USE_LABELS, USES, type Use } from '@/lib/entry-schemas';
+import { FieldError as ErrorText } from '@/components/forms';
+import { DEFAULT_ENTRY_UNIT, WEIGHT_UNITS, isWeightUnit, type UnitSystem, type WeightUnit } from '@/lib/units';
 
 // The field pieces live in ../forms (shared with the account and household forms); re-exported
 // here so the entry islands keep one import.
-export { describedBy, invalidProps, FieldShell, FieldError as ErrorText, type FieldErrors as Errors } from '../forms';
+export { describedBy, invalidProps, FieldShell, FieldError as ErrorText, type FieldErrors as Errors } from '@/components/forms';
 
 /** A message for the whole form: role=alert for errors, role=status for good news. */
 export function Alert({ message, tone = 'error' }: { message: ReactNode | null; tone?: 'error' | 'ok' | 'wait' }) {

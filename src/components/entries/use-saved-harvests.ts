@@ -5,7 +5,7 @@
  */
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
-import type { WeightUnit } from '../../lib/units';
+import type { WeightUnit } from '@/lib/units';
 import { ApiError, keys, request, urls, type Harvest } from './api';
 import type { SavedEntry } from './HarvestSaved';
 import { formatInUnit } from './quantity-text';

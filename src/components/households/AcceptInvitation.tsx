@@ -1,8 +1,8 @@
 /** The "join this household" button on /invite/{token} (React island), a TanStack Query mutation. */
 import { useMutation } from '@tanstack/react-query';
-import { FormAlert } from '../forms';
-import { QueryProvider } from '../QueryProvider';
-import { request } from '../request';
+import { FormAlert } from '@/components/forms';
+import { QueryProvider } from '@/components/QueryProvider';
+import { request } from '@/components/request';
 
 interface Props {
   token: string;

@@ -5,9 +5,9 @@
  */
 import { useEffect, useState } from 'react';
 import { useController } from 'react-hook-form';
-import { householdInput, isTimeZone, MONTH_NAMES } from '../../lib/household-schemas';
-import { Field, FieldError, FormAlert, formMessage, showFailure, useSchemaForm } from '../forms';
-import { request } from '../request';
+import { householdInput, isTimeZone, MONTH_NAMES } from '@/lib/household-schemas';
+import { Field, FieldError, FormAlert, formMessage, showFailure, useSchemaForm } from '@/components/forms';
+import { request } from '@/components/request';
 
 export function HouseholdCreateForm({ zones }: { zones: string[] }) {
   const [options, setOptions] = useState(zones);

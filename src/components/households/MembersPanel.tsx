@@ -4,11 +4,11 @@
  */
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
-import type { InvitationJson, MemberJson } from '../../lib/api-types';
-import { invitationInput, ROLE_LABELS, ROLE_VALUES, type RoleValue } from '../../lib/household-schemas';
-import { Field, FieldError, FormAlert, formMessage, showFailure, useSchemaForm } from '../forms';
-import { QueryProvider } from '../QueryProvider';
-import { get, request } from '../request';
+import type { InvitationJson, MemberJson } from '@/lib/api-types';
+import { invitationInput, ROLE_LABELS, ROLE_VALUES, type RoleValue } from '@/lib/household-schemas';
+import { Field, FieldError, FormAlert, formMessage, showFailure, useSchemaForm } from '@/components/forms';
+import { QueryProvider } from '@/components/QueryProvider';
+import { get, request } from '@/components/request';
 
 interface Props {
   householdId: number;

@@ -7,14 +7,14 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useId, useState } from 'react';
 import { useForm, useWatch, type FieldErrors as FieldErrorsOf, type Resolver, type ResolverResult } from 'react-hook-form';
-import type { PersonJson } from '../../lib/api-types';
-import { formatAmount } from '../../lib/format-number';
-import { ACTIVITY_LABELS, ACTIVITY_LEVELS, personInput, type PersonFields, type PersonInput } from '../../lib/people-schemas';
-import { parseDecimal } from '../entries/quantity-text';
-import { Alert, ConfirmDelete } from '../entries/ui';
-import { FieldShell, formMessage, invalidProps, showFailure } from '../forms';
-import { QueryProvider } from '../QueryProvider';
-import { get, request } from '../request';
+import type { PersonJson } from '@/lib/api-types';
+import { formatAmount } from '@/lib/format-number';
+import { ACTIVITY_LABELS, ACTIVITY_LEVELS, personInput, type PersonFields, type PersonInput } from '@/lib/people-schemas';
+import { parseDecimal } from '@/components/entries/quantity-text';
+import { Alert, ConfirmDelete } from '@/components/entries/ui';
+import { FieldShell, formMessage, invalidProps, showFailure } from '@/components/forms';
+import { QueryProvider } from '@/components/QueryProvider';
+import { get, request } from '@/components/request';
 
 interface Props {
   householdId: number;

@@ -1,8 +1,8 @@
 /** Where the period's harvest went: eaten fresh, stored, preserved, seed, given, sold, lost. */
-import type { ShareResponse } from '../../lib/share-types';
-import { USE_LABELS } from '../../lib/entry-schemas';
-import { formatWeight, type UnitSystem } from '../../lib/units';
-import { percentText } from '../../lib/share-scale';
+import type { ShareResponse } from '@/lib/share-types';
+import { USE_LABELS } from '@/lib/entry-schemas';
+import { formatWeight, type UnitSystem } from '@/lib/units';
+import { percentText } from '@/lib/share-scale';
 import { amountText } from './format';
 
 // Eaten uses in greens, the rest in ambers and berry: the bar says at a glance how much stayed home.

@@ -1,6 +1,6 @@
 /** The two big numbers: home share of energy and of protein over the period, with need coverage beside. */
-import type { ShareResponse } from '../../lib/share-types';
-import { percentText } from '../../lib/share-scale';
+import type { ShareResponse } from '@/lib/share-types';
+import { percentText } from '@/lib/share-scale';
 import { amountText } from './format';
 
 const HEADLINE = ['energy_kcal', 'protein_g'] as const;

@@ -18,8 +18,8 @@ import {
 } from 'chart.js';
 import { useId, useState } from 'react';
 import { Chart } from 'react-chartjs-2';
-import type { ShareResponse } from '../../lib/share-types';
-import { percentText } from '../../lib/share-scale';
+import type { ShareResponse } from '@/lib/share-types';
+import { percentText } from '@/lib/share-scale';
 import { amountText, longMonth, shortMonth } from './format';
 
 ChartJS.register(BarController, LineController, BarElement, LineElement, PointElement, CategoryScale, LinearScale, Tooltip, Legend);

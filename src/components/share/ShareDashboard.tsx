@@ -5,10 +5,10 @@
  */
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
 import { useEffect, useState } from 'react';
-import type { ShareResponse } from '../../lib/share-types';
-import { get } from '../entries/api';
-import { QueryProvider } from '../entries/QueryProvider';
-import type { UnitSystem } from '../../lib/units';
+import type { ShareResponse } from '@/lib/share-types';
+import { get } from '@/components/entries/api';
+import { QueryProvider } from '@/components/entries/QueryProvider';
+import type { UnitSystem } from '@/lib/units';
 import { Headline } from './Headline';
 import { HarvestUses } from './HarvestUses';
 import { MonthChart } from './MonthChart';

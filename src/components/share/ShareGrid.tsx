@@ -2,8 +2,8 @@
  * Every key nutrient × every month, each cell coloured by home share of need on Selfsown's own
  * scale (src/lib/share-scale.ts) and carrying its value as text, so the grid reads without colour.
  */
-import type { ShareResponse } from '../../lib/share-types';
-import { SHARE_BANDS, UNKNOWN_BAND, percentText, shareBand } from '../../lib/share-scale';
+import type { ShareResponse } from '@/lib/share-types';
+import { SHARE_BANDS, UNKNOWN_BAND, percentText, shareBand } from '@/lib/share-scale';
 import { longMonth, shortMonth } from './format';
 
 export function ShareGrid({ report, currentMonth }: { report: ShareResponse; currentMonth: string }) {

@@ -1,6 +1,6 @@
 /** The crops that supplied most of each nutrient the household ate in the period. */
-import type { ShareResponse } from '../../lib/share-types';
-import { percentText } from '../../lib/share-scale';
+import type { ShareResponse } from '@/lib/share-types';
+import { percentText } from '@/lib/share-scale';
 import { amountText } from './format';
 
 const PER_NUTRIENT = 3;

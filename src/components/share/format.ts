@@ -3,8 +3,8 @@
  * come from src/lib/months.ts and numbers from src/lib/format-number.ts, so the dashboard writes
  * them as the rest of the app does.
  */
-import { formatAmount } from '../../lib/format-number';
-import { monthName, parseMonth } from '../../lib/months';
+import { formatAmount } from '@/lib/format-number';
+import { monthName, parseMonth } from '@/lib/months';
 
 /** Example: `shortMonth('2027-01')` → 'Jan' */
 export function shortMonth(month: string): string {

@@ -5,7 +5,7 @@
  * remembers it in that cookie.
  */
 import { defineMiddleware } from 'astro:middleware';
-import { listHouseholds } from '../households';
+import { listHouseholds } from '@/server/households';
 
 /** The cookie that remembers the household a person last opened. */
 const HOUSEHOLD_COOKIE = 'household';

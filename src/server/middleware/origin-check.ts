@@ -5,8 +5,8 @@
  * /api/auth/ itself. Astro's own check is off (see astro.config.mjs).
  */
 import { defineMiddleware } from 'astro:middleware';
-import { publicOrigin } from '../config';
-import { errorResponse } from '../http';
+import { publicOrigin } from '@/server/config';
+import { errorResponse } from '@/server/http';
 
 const SAFE = new Set(['GET', 'HEAD', 'OPTIONS']);
 

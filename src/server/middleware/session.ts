@@ -4,7 +4,7 @@
  * (built assets), where both stay null.
  */
 import { defineMiddleware } from 'astro:middleware';
-import { getAuth } from '../auth';
+import { getAuth } from '@/server/auth';
 
 export const session = defineMiddleware(async (ctx, next) => {
   ctx.locals.user = null;

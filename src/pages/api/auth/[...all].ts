@@ -1,6 +1,6 @@
 import type { APIRoute } from 'astro';
-import { CLIENT_IP_HEADER, getAuth } from '../../../server/auth';
-import { trustProxy } from '../../../server/config';
+import { CLIENT_IP_HEADER, getAuth } from '@/server/auth';
+import { trustProxy } from '@/server/config';
 
 export const prerender = false;
 

@@ -1,8 +1,8 @@
 import type { APIRoute } from 'astro';
 import { z } from 'zod';
-import { getPool } from '../../../db/client';
-import { foodDetail } from '../../../server/food-search';
-import { errorResponse, handle, json } from '../../../server/http';
+import { getPool } from '@/db/client';
+import { foodDetail } from '@/server/food-search';
+import { errorResponse, handle, json } from '@/server/http';
 
 const id = z.coerce.number().int().positive();
 

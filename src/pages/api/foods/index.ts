@@ -1,8 +1,8 @@
 import type { APIRoute } from 'astro';
 import { z } from 'zod';
-import { getPool } from '../../../db/client';
-import { foodsByCode, searchFoods } from '../../../server/food-search';
-import { handle, json } from '../../../server/http';
+import { getPool } from '@/db/client';
+import { foodsByCode, searchFoods } from '@/server/food-search';
+import { handle, json } from '@/server/http';
 
 const query = z
   .object({

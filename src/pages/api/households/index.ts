@@ -1,8 +1,8 @@
 import type { APIRoute } from 'astro';
-import { householdInput } from '../../../lib/household-schemas';
-import { requireUser } from '../../../server/authz';
-import { createHousehold, householdJson, listHouseholds } from '../../../server/households';
-import { handle, json, readJson } from '../../../server/http';
+import { householdInput } from '@/lib/household-schemas';
+import { requireUser } from '@/server/authz';
+import { createHousehold, householdJson, listHouseholds } from '@/server/households';
+import { handle, json, readJson } from '@/server/http';
 
 /** GET /api/households: the caller's households with their role in each. */
 export const GET: APIRoute = handle(async (ctx) => {

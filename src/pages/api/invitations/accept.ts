@@ -1,8 +1,8 @@
 import type { APIRoute } from 'astro';
-import { acceptInvitationInput } from '../../../lib/household-schemas';
-import { requireUser } from '../../../server/authz';
-import { handle, json, readJson } from '../../../server/http';
-import { acceptInvitation } from '../../../server/invitations';
+import { acceptInvitationInput } from '@/lib/household-schemas';
+import { requireUser } from '@/server/authz';
+import { handle, json, readJson } from '@/server/http';
+import { acceptInvitation } from '@/server/invitations';
 
 /**
  * POST /api/invitations/accept {token} (signed in, confirmed address) → 200 {householdId, role,

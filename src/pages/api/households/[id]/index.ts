@@ -1,7 +1,7 @@
-import { householdPatch } from '../../../../lib/household-schemas';
-import { householdRoute } from '../../../../server/authz';
-import { deleteHousehold, householdJson, updateHousehold } from '../../../../server/households';
-import { json, readJson } from '../../../../server/http';
+import { householdPatch } from '@/lib/household-schemas';
+import { householdRoute } from '@/server/authz';
+import { deleteHousehold, householdJson, updateHousehold } from '@/server/households';
+import { json, readJson } from '@/server/http';
 
 /** GET /api/households/{id}: the household and the caller's role. */
 export const GET = householdRoute('read', (_ctx, a) => json({ household: householdJson(a.household, a.role) }));

@@ -1,9 +1,9 @@
-import { growingYear } from '../../../../lib/growing-year';
-import { shareQuery } from '../../../../lib/share-query';
-import { householdRoute } from '../../../../server/authz';
-import { HttpError, json } from '../../../../server/http';
-import { currentMonth } from '../../../../server/people';
-import { householdShare } from '../../../../server/share-data';
+import { growingYear } from '@/lib/growing-year';
+import { shareQuery } from '@/lib/share-query';
+import { householdRoute } from '@/server/authz';
+import { HttpError, json } from '@/server/http';
+import { currentMonth } from '@/server/people';
+import { householdShare } from '@/server/share-data';
 
 /**
  * GET /api/households/{id}/share?from=YYYY-MM&to=YYYY-MM: the home share per month and nutrient,

@@ -1,8 +1,8 @@
-import { cropPatch } from '../../../../../lib/entry-schemas';
-import { householdRoute } from '../../../../../server/authz';
-import { deleteCrop, getCrop, updateCrop } from '../../../../../server/crops';
-import { idParam, parseInput } from '../../../../../server/entry-input';
-import { json, readJson } from '../../../../../server/http';
+import { cropPatch } from '@/lib/entry-schemas';
+import { householdRoute } from '@/server/authz';
+import { deleteCrop, getCrop, updateCrop } from '@/server/crops';
+import { idParam, parseInput } from '@/server/entry-input';
+import { json, readJson } from '@/server/http';
 
 /** GET /api/households/{id}/crops/{cropId} → { crop } */
 export const GET = householdRoute('read', async (ctx, a) => json({ crop: await getCrop(a.household.id, idParam(ctx.params.cropId, 'crop')) }));

@@ -1,8 +1,8 @@
-import { cropInput } from '../../../../../lib/entry-schemas';
-import { householdRoute } from '../../../../../server/authz';
-import { createCrop, listCrops } from '../../../../../server/crops';
-import { parseInput } from '../../../../../server/entry-input';
-import { json, readJson } from '../../../../../server/http';
+import { cropInput } from '@/lib/entry-schemas';
+import { householdRoute } from '@/server/authz';
+import { createCrop, listCrops } from '@/server/crops';
+import { parseInput } from '@/server/entry-input';
+import { json, readJson } from '@/server/http';
 
 /** GET /api/households/{id}/crops[?includeArchived=1]: the crop catalogue, recently harvested first. */
 export const GET = householdRoute('read', async (ctx, a) => {

@@ -1,8 +1,8 @@
 import { z } from 'zod';
-import { householdRoute } from '../../../../../server/authz';
-import { EXPORT_FILES, exportFile, exportFileName } from '../../../../../server/entry-export';
-import { parseInput } from '../../../../../server/entry-input';
-import { HttpError } from '../../../../../server/http';
+import { householdRoute } from '@/server/authz';
+import { EXPORT_FILES, exportFile, exportFileName } from '@/server/entry-export';
+import { parseInput } from '@/server/entry-input';
+import { HttpError } from '@/server/http';
 
 const query = z.object({
   delimiter: z.enum(['comma', 'semicolon'], { error: 'The delimiter must be comma or semicolon.' }).default('comma'),

@@ -1,8 +1,8 @@
-import { harvestPatch } from '../../../../../lib/entry-schemas';
-import { householdRoute } from '../../../../../server/authz';
-import { idParam, parseInput } from '../../../../../server/entry-input';
-import { deleteHarvest, getHarvest, updateHarvest } from '../../../../../server/harvests';
-import { json, readJson } from '../../../../../server/http';
+import { harvestPatch } from '@/lib/entry-schemas';
+import { householdRoute } from '@/server/authz';
+import { idParam, parseInput } from '@/server/entry-input';
+import { deleteHarvest, getHarvest, updateHarvest } from '@/server/harvests';
+import { json, readJson } from '@/server/http';
 
 /** GET /api/households/{id}/harvests/{harvestId} → { harvest } */
 export const GET = householdRoute('read', async (ctx, a) => json({ harvest: await getHarvest(a.household.id, idParam(ctx.params.harvestId, 'harvest')) }));

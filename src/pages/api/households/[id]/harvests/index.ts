@@ -1,9 +1,9 @@
-import { harvestInput, harvestQuery, harvestSplitInput } from '../../../../../lib/entry-schemas';
-import { householdRoute } from '../../../../../server/authz';
-import { parseInput } from '../../../../../server/entry-input';
-import { createHarvest, createSplitHarvest, listHarvests } from '../../../../../server/harvests';
-import { json, readJson } from '../../../../../server/http';
-import { answerResponse, idempotencyKey, idempotent } from '../../../../../server/idempotency';
+import { harvestInput, harvestQuery, harvestSplitInput } from '@/lib/entry-schemas';
+import { householdRoute } from '@/server/authz';
+import { parseInput } from '@/server/entry-input';
+import { createHarvest, createSplitHarvest, listHarvests } from '@/server/harvests';
+import { json, readJson } from '@/server/http';
+import { answerResponse, idempotencyKey, idempotent } from '@/server/idempotency';
 
 /** GET /api/households/{id}/harvests?from&to&cropId&foodId&use&sort&page&pageSize → a page, with totals of the whole filter. */
 export const GET = householdRoute('read', async (ctx, a) => {

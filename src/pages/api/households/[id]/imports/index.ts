@@ -1,6 +1,6 @@
-import { householdRoute } from '../../../../../server/authz';
-import { importEntries, readImportRequest } from '../../../../../server/entry-import';
-import { json } from '../../../../../server/http';
+import { householdRoute } from '@/server/authz';
+import { importEntries, readImportRequest } from '@/server/entry-import';
+import { json } from '@/server/http';
 
 /**
  * POST /api/households/{id}/imports (owner, grower), multipart/form-data: file, kind=harvests|purchases,

@@ -1,6 +1,6 @@
-import { householdRoute } from '../../../../../server/authz';
-import { HttpError } from '../../../../../server/http';
-import { revokeInvitation } from '../../../../../server/invitations';
+import { householdRoute } from '@/server/authz';
+import { HttpError } from '@/server/http';
+import { revokeInvitation } from '@/server/invitations';
 
 /** DELETE /api/households/{id}/invitations/{invitationId} (owner): the link stops working at once. */
 export const DELETE = householdRoute('own', async (ctx, a) => {

@@ -1,7 +1,7 @@
-import { invitationInput } from '../../../../../lib/household-schemas';
-import { householdRoute } from '../../../../../server/authz';
-import { invitationJson, inviteByEmail, listPendingInvitations } from '../../../../../server/invitations';
-import { json, readJson } from '../../../../../server/http';
+import { invitationInput } from '@/lib/household-schemas';
+import { householdRoute } from '@/server/authz';
+import { invitationJson, inviteByEmail, listPendingInvitations } from '@/server/invitations';
+import { json, readJson } from '@/server/http';
 
 /** GET /api/households/{id}/invitations (owner): invitations that can still be accepted. */
 export const GET = householdRoute('own', async (_ctx, a) => json({ invitations: (await listPendingInvitations(a.household.id)).map(invitationJson) }));

@@ -1,7 +1,7 @@
-import { roleInput } from '../../../../../lib/household-schemas';
-import { householdAccess, householdRoute } from '../../../../../server/authz';
-import { removeMember, setMemberRole } from '../../../../../server/households';
-import { json, readJson } from '../../../../../server/http';
+import { roleInput } from '@/lib/household-schemas';
+import { householdAccess, householdRoute } from '@/server/authz';
+import { removeMember, setMemberRole } from '@/server/households';
+import { json, readJson } from '@/server/http';
 
 /** PATCH /api/households/{id}/members/{userId} {role} (owner). The last owner cannot be demoted. */
 export const PATCH = householdRoute('own', async (ctx, a) => {

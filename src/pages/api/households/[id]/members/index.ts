@@ -1,6 +1,6 @@
-import { householdRoute } from '../../../../../server/authz';
-import { listMembers } from '../../../../../server/households';
-import { json } from '../../../../../server/http';
+import { householdRoute } from '@/server/authz';
+import { listMembers } from '@/server/households';
+import { json } from '@/server/http';
 
 /** GET /api/households/{id}/members: who signs in to this household, with roles. */
 export const GET = householdRoute('read', async (_ctx, a) => json({ members: await listMembers(a.household.id) }));

@@ -1,7 +1,7 @@
-import { personPatch } from '../../../../../lib/people-schemas';
-import { householdRoute } from '../../../../../server/authz';
-import { json, readJson } from '../../../../../server/http';
-import { currentMonth, deletePerson, getPerson, personIdParam, personJson, updatePerson } from '../../../../../server/people';
+import { personPatch } from '@/lib/people-schemas';
+import { householdRoute } from '@/server/authz';
+import { json, readJson } from '@/server/http';
+import { currentMonth, deletePerson, getPerson, personIdParam, personJson, updatePerson } from '@/server/people';
 
 /** GET /api/households/{id}/people/{personId}: one person with this month's energy need. */
 export const GET = householdRoute('read', async (ctx, a) => {

@@ -1,7 +1,7 @@
-import { personInput } from '../../../../../lib/people-schemas';
-import { householdRoute } from '../../../../../server/authz';
-import { json, readJson } from '../../../../../server/http';
-import { createPerson, currentMonth, listPeople, personJson } from '../../../../../server/people';
+import { personInput } from '@/lib/people-schemas';
+import { householdRoute } from '@/server/authz';
+import { json, readJson } from '@/server/http';
+import { createPerson, currentMonth, listPeople, personJson } from '@/server/people';
 
 /** GET /api/households/{id}/people: who eats in the household, each with this month's energy need. */
 export const GET = householdRoute('read', async (_ctx, a) => {

@@ -1,8 +1,8 @@
-import { purchasePatch } from '../../../../../lib/entry-schemas';
-import { householdRoute } from '../../../../../server/authz';
-import { idParam, parseInput } from '../../../../../server/entry-input';
-import { json, readJson } from '../../../../../server/http';
-import { deletePurchase, getPurchase, updatePurchase } from '../../../../../server/purchases';
+import { purchasePatch } from '@/lib/entry-schemas';
+import { householdRoute } from '@/server/authz';
+import { idParam, parseInput } from '@/server/entry-input';
+import { json, readJson } from '@/server/http';
+import { deletePurchase, getPurchase, updatePurchase } from '@/server/purchases';
 
 /** GET /api/households/{id}/purchases/{purchaseId} → { purchase } */
 export const GET = householdRoute('read', async (ctx, a) => json({ purchase: await getPurchase(a.household.id, idParam(ctx.params.purchaseId, 'bought food')) }));

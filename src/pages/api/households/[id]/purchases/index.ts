@@ -1,9 +1,9 @@
-import { purchaseInput, purchaseQuery } from '../../../../../lib/entry-schemas';
-import { householdRoute } from '../../../../../server/authz';
-import { parseInput } from '../../../../../server/entry-input';
-import { json, readJson } from '../../../../../server/http';
-import { answerResponse, idempotencyKey, idempotent } from '../../../../../server/idempotency';
-import { createPurchase, listPurchases } from '../../../../../server/purchases';
+import { purchaseInput, purchaseQuery } from '@/lib/entry-schemas';
+import { householdRoute } from '@/server/authz';
+import { parseInput } from '@/server/entry-input';
+import { json, readJson } from '@/server/http';
+import { answerResponse, idempotencyKey, idempotent } from '@/server/idempotency';
+import { createPurchase, listPurchases } from '@/server/purchases';
 
 /** GET /api/households/{id}/purchases?from&to&foodId&sort&page&pageSize → a page, with totals of the whole filter. */
 export const GET = householdRoute('read', async (ctx, a) => {

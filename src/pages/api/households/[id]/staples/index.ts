@@ -1,8 +1,8 @@
-import { stapleInput } from '../../../../../lib/entry-schemas';
-import { householdRoute } from '../../../../../server/authz';
-import { parseInput } from '../../../../../server/entry-input';
-import { json, readJson } from '../../../../../server/http';
-import { createStaple, listStaples } from '../../../../../server/staples';
+import { stapleInput } from '@/lib/entry-schemas';
+import { householdRoute } from '@/server/authz';
+import { parseInput } from '@/server/entry-input';
+import { json, readJson } from '@/server/http';
+import { createStaple, listStaples } from '@/server/staples';
 
 /** GET /api/households/{id}/staples → { staples } */
 export const GET = householdRoute('read', async (_ctx, a) => json({ staples: await listStaples(a.household.id) }));

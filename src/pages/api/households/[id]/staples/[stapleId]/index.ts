@@ -1,7 +1,7 @@
-import { householdRoute } from '../../../../../../server/authz';
-import { idParam } from '../../../../../../server/entry-input';
-import { json } from '../../../../../../server/http';
-import { deleteStaple, getStaple } from '../../../../../../server/staples';
+import { householdRoute } from '@/server/authz';
+import { idParam } from '@/server/entry-input';
+import { json } from '@/server/http';
+import { deleteStaple, getStaple } from '@/server/staples';
 
 /** GET /api/households/{id}/staples/{stapleId} → { staple } */
 export const GET = householdRoute('read', async (ctx, a) => json({ staple: await getStaple(a.household.id, idParam(ctx.params.stapleId, 'staple')) }));

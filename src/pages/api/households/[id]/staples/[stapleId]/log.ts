@@ -1,8 +1,8 @@
-import { stapleLogInput } from '../../../../../../lib/entry-schemas';
-import { householdRoute } from '../../../../../../server/authz';
-import { idParam, parseInput, readOptionalJson } from '../../../../../../server/entry-input';
-import { answerResponse, idempotencyKey, idempotent } from '../../../../../../server/idempotency';
-import { logStaple } from '../../../../../../server/staples';
+import { stapleLogInput } from '@/lib/entry-schemas';
+import { householdRoute } from '@/server/authz';
+import { idParam, parseInput, readOptionalJson } from '@/server/entry-input';
+import { answerResponse, idempotencyKey, idempotent } from '@/server/idempotency';
+import { logStaple } from '@/server/staples';
 
 /** POST /api/households/{id}/staples/{stapleId}/log (owner, grower) { date? } → 201 { purchase }. Honours Idempotency-Key. */
 export const POST = householdRoute('write', async (ctx, a) => {
