@@ -5,6 +5,7 @@
 import {
   bigint,
   boolean,
+  char,
   date,
   decimal,
   double,
@@ -25,6 +26,8 @@ import { ROLE_VALUES } from '@/lib/household-schemas';
 import { ACTIVITY_LEVELS, CONDITIONS, SEXES } from '@/lib/people-schemas';
 import { UNIT_SYSTEMS, WEIGHT_UNITS } from '@/lib/units';
 import { USES } from '@/lib/uses';
+import { DIETS } from '@/lib/diet';
+import { PRESERVE_METHODS } from '@/lib/retention';
 
 // ── Reference data: food composition datasets ────────────────────────────────────────────────
 
@@ -208,6 +211,8 @@ export const households = mysqlTable('households', {
   units: mysqlEnum('units', UNIT_SYSTEMS).notNull().default('metric'),
   /** Month (1–12) the household's growing year starts. */
   yearStartMonth: tinyint('year_start_month').notNull().default(1),
+  /** 'YYYY-MM': months before it carry no need and stay out of totals; null = the default rule (src/lib/records-start.ts). */
+  recordsSince: char('records_since', { length: 7 }),
   createdAt: timestamp('created_at').notNull().defaultNow(),
 });
 
@@ -295,6 +300,8 @@ export const harvests = mysqlTable(
     edibleGrams: double('edible_grams').notNull(),
     use: mysqlEnum('use', USES).notNull(),
     spreadMonths: tinyint('spread_months').notNull().default(1),
+    /** How a preserved entry was kept; its vitamins are reduced by the retention factors (src/lib/retention.ts). */
+    preserveMethod: mysqlEnum('preserve_method', PRESERVE_METHODS),
     trimmed: boolean('trimmed').notNull().default(false),
     note: varchar('note', { length: 500 }),
     /** Entries saved from one split weighing share this id. */
@@ -385,10 +392,19 @@ export const people = mysqlTable(
     sex: mysqlEnum('sex', SEXES).notNull(),
     ageYears: double('age_years'),
     birthYear: smallint('birth_year'),
+    /** 'YYYY-MM': age is then counted in months (wins over age and birth year). */
+    birthMonth: char('birth_month', { length: 7 }),
     heightCm: double('height_cm'),
     weightKg: double('weight_kg'),
     activity: mysqlEnum('activity', ACTIVITY_LEVELS).notNull().default('low'),
     condition: mysqlEnum('condition', CONDITIONS).notNull().default('none'),
+    /** Dated pregnancy and lactation ('YYYY-MM'); when given they replace the condition flag. */
+    pregnancyDueMonth: char('pregnancy_due_month', { length: 7 }),
+    lactationFrom: char('lactation_from', { length: 7 }),
+    lactationTo: char('lactation_to', { length: 7 }),
+    /** A baby under 6 months adds need only when fed from the household's food. */
+    fedFromHousehold: boolean('fed_from_household').notNull().default(false),
+    diet: mysqlEnum('diet', DIETS).notNull().default('omnivore'),
     kcalPerDay: double('kcal_per_day'),
     atHomePct: double('at_home_pct').notNull().default(100),
     presentFrom: date('present_from', { mode: 'string' }),
