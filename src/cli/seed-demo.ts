@@ -5,7 +5,7 @@
  *
  *   sign in as  demo@selfsown.invalid  /  selfsown-demo
  *
- * Later issues add the demo's crops, people and harvests here.
+ * Its crops, people, harvests and bought food come from `seed-demo-records.ts`.
  */
 import { randomUUID } from 'node:crypto';
 import { hashPassword } from 'better-auth/crypto';
