@@ -28,6 +28,7 @@ import { UNIT_SYSTEMS, WEIGHT_UNITS } from '@/lib/units';
 import { USES } from '@/lib/uses';
 import { DIETS } from '@/lib/diet';
 import { PRESERVE_METHODS } from '@/lib/retention';
+import { PLANTING_SLOTS } from '@/lib/planting-slots';
 
 // ── Reference data: food composition datasets ────────────────────────────────────────────────
 
@@ -213,6 +214,9 @@ export const households = mysqlTable('households', {
   yearStartMonth: tinyint('year_start_month').notNull().default(1),
   /** 'YYYY-MM': months before it carry no need and stay out of totals; null = the default rule (src/lib/records-start.ts). */
   recordsSince: char('records_since', { length: 7 }),
+  /** Growing season as 'MM-DD' (last spring frost, first autumn frost); null = the default for the time zone's hemisphere. */
+  lastSpringFrost: char('last_spring_frost', { length: 5 }),
+  firstAutumnFrost: char('first_autumn_frost', { length: 5 }),
   createdAt: timestamp('created_at').notNull().defaultNow(),
 });
 
@@ -276,10 +280,59 @@ export const crops = mysqlTable(
     defaultSpreadMonths: tinyint('default_spread_months'),
     /** Ornamental or toxic: never counted as food. */
     notFood: boolean('not_food').notNull().default(false),
+    /** The row of reference-data/crops.csv this crop is (yields, harvest window, sowing rate); null = none. */
+    referenceKey: varchar('reference_key', { length: 40 }),
     archived: boolean('archived').notNull().default(false),
     createdAt: timestamp('created_at').notNull().defaultNow(),
   },
   (t) => [uniqueIndex('crops_household_name_variety_uq').on(t.householdId, t.name, t.variety)],
+);
+
+/** A bed (or any growing area: a row, an orchard strip, a hen run) with its area. */
+export const beds = mysqlTable(
+  'beds',
+  {
+    id: int('id').autoincrement().primaryKey(),
+    householdId: int('household_id')
+      .notNull()
+      .references(() => households.id, { onDelete: 'cascade' }),
+    name: varchar('name', { length: 120 }).notNull(),
+    /** Always stored in m²; a US-units household enters ft². */
+    areaM2: double('area_m2').notNull(),
+    notes: varchar('notes', { length: 500 }),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex('beds_household_name_uq').on(t.householdId, t.name)],
+);
+
+/** A crop grown in a bed in one season (and succession slot), planned or sown. */
+export const plantings = mysqlTable(
+  'plantings',
+  {
+    id: int('id').autoincrement().primaryKey(),
+    householdId: int('household_id')
+      .notNull()
+      .references(() => households.id, { onDelete: 'cascade' }),
+    cropId: int('crop_id')
+      .notNull()
+      .references(() => crops.id, { onDelete: 'restrict' }),
+    /** Null while a planned planting has no bed yet. */
+    bedId: int('bed_id').references(() => beds.id, { onDelete: 'set null' }),
+    areaM2: double('area_m2').notNull(),
+    seasonYear: smallint('season_year').notNull(),
+    slot: mysqlEnum('slot', PLANTING_SLOTS).notNull().default('main'),
+    sowDate: date('sow_date', { mode: 'string' }),
+    harvestFrom: date('harvest_from', { mode: 'string' }),
+    harvestTo: date('harvest_to', { mode: 'string' }),
+    notes: varchar('notes', { length: 500 }),
+    /** Made from a plan with one action (the planner's suggestion), not typed by hand. */
+    fromPlan: boolean('from_plan').notNull().default(false),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+  },
+  (t) => [
+    index('plantings_household_season_idx').on(t.householdId, t.seasonYear),
+    index('plantings_bed_idx').on(t.bedId),
+  ],
 );
 
 /** One weighing (or one part of a split weighing) and what happened to it. */
@@ -300,6 +353,8 @@ export const harvests = mysqlTable(
     edibleGrams: double('edible_grams').notNull(),
     use: mysqlEnum('use', USES).notNull(),
     spreadMonths: tinyint('spread_months').notNull().default(1),
+    /** The planting it came from, so the household's own yield per m² can be measured. */
+    plantingId: int('planting_id').references(() => plantings.id, { onDelete: 'set null' }),
     /** How a preserved entry was kept; its vitamins are reduced by the retention factors (src/lib/retention.ts). */
     preserveMethod: mysqlEnum('preserve_method', PRESERVE_METHODS),
     trimmed: boolean('trimmed').notNull().default(false),
@@ -418,3 +473,5 @@ export type Crop = typeof crops.$inferSelect;
 export type Harvest = typeof harvests.$inferSelect;
 export type Purchase = typeof purchases.$inferSelect;
 export type Person = typeof people.$inferSelect;
+export type Bed = typeof beds.$inferSelect;
+export type Planting = typeof plantings.$inferSelect;
