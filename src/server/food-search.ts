@@ -7,11 +7,10 @@ import { and, asc, desc, eq, like, sql, type SQL } from 'drizzle-orm';
 import type { Pool } from 'mysql2/promise';
 import { datasets, foodNutrients, foods, foodWeights } from '@/db/schema';
 import type { FoodDetail, FoodHit } from '@/lib/food-types';
+import { fulltextQuery, searchWords, wantsBranded } from '@/lib/food-query';
+import { RAWNESS } from '@/lib/food-rows';
 import { NUTRIENTS } from '@/lib/nutrients';
 import { dbOn } from './db-on';
-
-// Only for src/components/entries/api.ts until its import points at src/lib/food-types.ts: then delete.
-export type { FoodDetail, FoodHit } from '@/lib/food-types';
 
 /** The columns of a hit, as FoodHit names them. */
 const hitColumns = {
@@ -23,21 +22,31 @@ const hitColumns = {
   refusePct: foods.refusePct,
 };
 
-/** Splits a query into search words (letters and digits), at most 8. */
-export function queryWords(q: string): string[] {
-  return (q.toLowerCase().match(/[\p{L}\p{N}]+/gu) ?? []).slice(0, 8);
+export interface SearchOptions {
+  /** Include branded products even when the query names no brand. */
+  branded?: boolean;
 }
 
-/** Foods whose words start with every query word, raw and whole forms first, e.g. searchFoods(pool, 'butternut raw'). */
-export async function searchFoods(pool: Pool, q: string, limit = 20): Promise<FoodHit[]> {
-  const words = queryWords(q);
+/**
+ * Foods whose words start with every query word (a plural also finds its singular), the everyday
+ * raw form first; branded products only when the query names a brand or `branded` is set,
+ * e.g. searchFoods(pool, 'butternut raw').
+ */
+export async function searchFoods(pool: Pool, q: string, limit = 20, options: SearchOptions = {}): Promise<FoodHit[]> {
+  const words = searchWords(q);
   if (words.length === 0) return [];
   // Each word must occur, as a word prefix ("potato" finds "Potatoes"); one-letter words use LIKE.
-  const ft = words.filter((w) => w.length >= 2).map((w) => `+${w}*`).join(' ');
+  const ft = fulltextQuery(q);
   const score = ft ? sql`MATCH(${foods.searchText}) AGAINST (${ft} IN BOOLEAN MODE)` : null;
   const where: SQL[] = score ? [score] : [];
   for (const w of words.filter((w) => w.length < 2)) where.push(like(foods.searchText, `%${w}%`));
-  const order: SQL[] = [sql`(${foods.rawness} = 0) DESC`, sql`(LOWER(${foods.name}) LIKE ${`${words[0]!}%`}) DESC`, asc(foods.rawness)];
+  if (!options.branded && !wantsBranded(q)) where.push(sql`${foods.rawness} < ${RAWNESS.branded}`);
+  const order: SQL[] = [
+    sql`(${foods.rawness} = ${RAWNESS.everyday}) DESC`,
+    sql`(${foods.rawness} <= ${RAWNESS.otherRaw}) DESC`,
+    sql`(LOWER(${foods.name}) LIKE ${`${words[0]!}%`}) DESC`,
+    asc(foods.rawness),
+  ];
   if (score) order.push(desc(score));
   order.push(sql`CHAR_LENGTH(${foods.name})`, asc(foods.name));
   return dbOn(pool)

@@ -4,7 +4,7 @@
  * the one client in ../request.ts, whose `request()` throws an ApiError carrying the API's error
  * body (`{ error: { code, message, fields } }`); a network failure is an ApiError with status 0.
  */
-import type { FoodDetail, FoodHit } from '@/server/food-search';
+import type { FoodDetail, FoodHit } from '@/lib/food-types';
 import type { UnitSystem } from '@/lib/units';
 import { get, qs } from '@/components/request';
 
@@ -25,14 +25,10 @@ export function canWrite(role: HouseholdInfo['role']): boolean {
   return role === 'owner' || role === 'grower';
 }
 
-// The JSON shapes come from the server modules that send them; type-only imports are erased, so no
-// server code reaches the browser bundle.
-export type { FoodDetail, FoodHit } from '@/server/food-search';
-export type { CropJson as Crop, FoodSummary as CropFood, ImportAnswerBody, PersonJson } from '@/lib/api-types';
-export type { HarvestJson as Harvest, HarvestList as HarvestPage } from '@/server/harvests';
-export type { PurchaseJson as Purchase, PurchaseList as PurchasePage } from '@/server/purchases';
-export type { StapleJson as Staple } from '@/lib/api-types';
-export type { EntryTotals as Totals } from '@/server/entry-list';
+// The JSON shapes the API sends live in src/lib (wire types), under the short names the islands use.
+export type { FoodDetail, FoodHit } from '@/lib/food-types';
+export type { CropJson as Crop, FoodSummary as CropFood, ImportAnswerBody, PersonJson, StapleJson as Staple } from '@/lib/api-types';
+export type { EntryTotals as Totals, HarvestJson as Harvest, HarvestList as HarvestPage, PurchaseJson as Purchase, PurchaseList as PurchasePage } from '@/lib/entry-types';
 
 export interface CsvError {
   row: number;
