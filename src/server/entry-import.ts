@@ -26,7 +26,6 @@ import { parseInput, type Executor, type Tx } from './entry-input';
 import { harvestValues, type HarvestBasis } from './harvests';
 import { purchaseValues } from './purchases';
 
-export type { ImportAnswer, ImportAnswerBody, PreviewRow } from '@/lib/api-types';
 
 /** Rows shown in a preview answer; the counts and totals always cover the whole file. */
 export const PREVIEW_ROW_LIMIT = 500;

@@ -23,7 +23,8 @@ import type { PreserveMethod } from '@/lib/retention';
 import { toGrams, type WeightUnit } from '@/lib/units';
 import { cropDisplayName, cropRow, harvestEdibleGrams, requireFood } from './crops';
 import { HttpError } from './http';
-import { fieldError, invalidInput, todayIn, type Executor, type Tx } from './entry-input';
+import { todayIn } from '@/lib/months';
+import { fieldError, invalidInput, type Executor, type Tx } from './entry-input';
 import { listEntries, type EntryListSpec } from './entry-list';
 import { deleteEntry, updateEntry, type EntryUpdateSpec } from './entry-update';
 
