@@ -161,7 +161,8 @@ describe('top contributors', () => {
   it('counts stored food only for the months of the range it is eaten in', () => {
     const entries = [asCrop(harvest(BUTTERNUT, 1000, { date: '2026-11-01', use: 'stored', spreadMonths: 4 }), 2, 'Butternut')];
     const top = topContributors(entries, 'energy_kcal', 3, { from: '2027-01', to: '2027-12' });
-    expect(top[0]!.amount).toBe(189); // Jan + Feb: 2 × 378 ÷ 4
+    // Eaten per day from 1 Nov 2026 to 1 Mar 2027 (30 + 31 + 31 + 28 = 120 days); Jan + Feb 2027 are 31 + 28 = 59 of them
+    expect(top[0]!.amount).toBeCloseTo((378 * 59) / 120, 9); // 1000 g × 84 % edible × 45 kcal/100 g (USDA SR28, NDB 11485) = 378 kcal
   });
 });
 
