@@ -36,11 +36,6 @@ export const SHARE_BANDS: readonly ShareBand[] = [
 /** A month before the household's records start: no need, no share, greyed. */
 export const BEFORE_RECORDS_BAND: ShareBand = { min: Number.NaN, label: 'before records', background: '#e6e4e1', text: '#4a4440' };
 
-/**
- * Above this fraction of the edible weight of unknown value a share is flagged as uncertain (the
- * server sets `uncertain` by the same rule; the screens use this only to word the key).
- */
-export const UNCERTAIN_ABOVE = 0.1;
 
 /**
  * The band of a home share of need (fraction; null = no figure),
@@ -96,9 +91,10 @@ export function shareText(share: number | null, uncertain: boolean): string {
 
 /**
  * How much of the weight eaten had no value for a nutrient, in words, or null when all of it had one,
- * e.g. unknownText(0.153) → '15 % of the weight eaten has no value for it', unknownText(0) → null.
+ * e.g. unknownText(0.153) → '15 % of the weight eaten has no value for it',
+ * unknownText(0.2, 'zinc') → '20 % of the weight eaten has no value for zinc', unknownText(0) → null.
  */
-export function unknownText(unknownShare: number | null): string | null {
+export function unknownText(unknownShare: number | null, what = 'it'): string | null {
   if (unknownShare === null || !Number.isFinite(unknownShare) || unknownShare <= 0) return null;
-  return `${percentText(unknownShare)} of the weight eaten has no value for it`;
+  return `${percentText(unknownShare)} of the weight eaten has no value for ${what}`;
 }

@@ -61,6 +61,7 @@ describe('share colour scale', () => {
   it('says how much of the weight had no value, whole percent, and nothing when all had one', () => {
     expect(unknownText(0.153)).toBe('15 % of the weight eaten has no value for it');
     expect(unknownText(0.002)).toBe('<1 % of the weight eaten has no value for it');
+    expect(unknownText(0.2, 'zinc')).toBe('20 % of the weight eaten has no value for zinc');
     expect(unknownText(0)).toBeNull();
     expect(unknownText(null)).toBeNull();
   });
