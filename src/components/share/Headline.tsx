@@ -88,10 +88,15 @@ export function Headline({ report, boughtHref }: { report: ShareResponse; bought
                 </div>
                 <div>
                   <dt className="text-loam-700">
-                    Recommended{' '}
-                    <abbr title={basisLong(report.needBasis[key])} className="no-underline">
-                      ({basisShort(report.needBasis[key])})
-                    </abbr>
+                    Recommended
+                    {report.needBasis[key] ? (
+                      <>
+                        {' '}
+                        <abbr title={basisLong(report.needBasis[key])} className="no-underline">
+                          ({basisShort(report.needBasis[key])})
+                        </abbr>
+                      </>
+                    ) : null}
                   </dt>
                   <dd className="font-semibold">{needText(v, n.unit)}</dd>
                 </div>

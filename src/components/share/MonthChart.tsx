@@ -73,7 +73,7 @@ export function MonthChart({ report, units }: { report: ShareResponse; units: Un
   const head = report.headline?.values[k];
   const headUnknown = head ? unknownText(head.unknownShare, nutrient.name.toLowerCase()) : null;
   const summary = head
-    ? ` So far (${rangeText(report.headline!.from, report.headline!.to)}): ${shareText(head.shareOfNeed, head.uncertain)} of the recommended intake from home${headUnknown ? `; ${headUnknown}` : ''}.`
+    ? ` So far (${rangeText(report.headline!.from, report.headline!.to)}): ${shareText(head.shareOfNeed, head.uncertain)} of the recommended intake from home${headUnknown ? `; ${headUnknown}` : ''}.${report.intake.looksIncomplete ? ' Bought food looks incomplete.' : ''}`
     : '';
   const options: ChartOptions<'bar' | 'line'> = {
     responsive: true,
@@ -153,7 +153,12 @@ export function MonthChart({ report, units }: { report: ShareResponse; units: Un
                     <td className="p-2">{amountText(v.home, nutrient.unit)}</td>
                     <td className="p-2">{amountText(v.bought, nutrient.unit)}</td>
                     <td className="p-2" data-testid={`month-need-${m.month}`}>{m.beforeRecords ? 'before records' : needText(v, nutrient.unit)}</td>
-                    <td className="p-2" data-testid={`month-intake-${m.month}`}>{shareText(v.shareOfIntake, v.uncertain)}</td>
+                    <td className="p-2" data-testid={`month-intake-${m.month}`}>
+                      {shareText(v.shareOfIntake, v.uncertain)}
+                      {report.intake.looksIncomplete && !m.beforeRecords && !m.future && v.shareOfIntake !== null ? (
+                        <span className="block text-xs font-semibold text-berry-700">bought food looks incomplete</span>
+                      ) : null}
+                    </td>
                     <td className="p-2">{shareText(v.shareOfNeed, v.uncertain)}</td>
                     <td className="p-2" data-testid={`month-unknown-${m.month}`}>
                       {v.unknownGrams > 0 ? `${formatWeight(v.unknownGrams, units)} (${shareText(v.unknownShare, false)})` : 'none'}

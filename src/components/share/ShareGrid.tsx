@@ -5,18 +5,48 @@
  * still to come stand apart after a gap; a share resting on too much food of unknown value is
  * marked "?". A short caution sits under the nutrients that need one (src/lib/cautions.ts).
  */
-import { Fragment } from 'react';
+import { Fragment, useEffect, useRef } from 'react';
 import { nutrientCautions } from '@/lib/cautions';
 import type { ShareResponse } from '@/lib/share-types';
 import type { ShareValue } from '@/lib/shares';
 import { BEFORE_RECORDS_BAND, SHARE_BANDS, UNKNOWN_BAND, percentText, shareBand, unknownText } from '@/lib/share-scale';
 import { basisLong, basisShort, longMonth, needText, shortMonth } from './format';
 
+type Kind = 'before' | 'counted' | 'future';
+
+/** Runs of months of one kind, for the header row that names them once. */
+function runs(months: ShareResponse['months']): { kind: Kind; span: number }[] {
+  const out: { kind: Kind; span: number }[] = [];
+  for (const m of months) {
+    const kind: Kind = m.beforeRecords ? 'before' : m.future ? 'future' : 'counted';
+    const last = out.at(-1);
+    if (last && last.kind === kind) last.span += 1;
+    else out.push({ kind, span: 1 });
+  }
+  return out;
+}
+
+const RUN_LABEL: Record<Kind, string> = { before: 'before records', counted: 'on record', future: 'to come' };
+
 export function ShareGrid({ report, vegetarian = false }: { report: ShareResponse; vegetarian?: boolean }) {
   const firstFuture = report.months.findIndex((m) => m.future);
   const headline = report.headline;
   const soFar = headline && (headline.from !== report.from || headline.to !== report.to) ? headline : null;
   const columns = 1 + report.months.length + (firstFuture >= 0 ? 1 : 0) + 1 + (soFar ? 1 : 0) + 1;
+  const groups = runs(report.months);
+  const lastCounted = report.months.findLast((m) => !m.beforeRecords && !m.future)?.month;
+  // On a narrow screen, open the grid at the latest month on record rather than at a row of grey.
+  const scroller = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    const box = scroller.current;
+    const head = lastCounted ? box?.querySelector<HTMLElement>(`[data-testid="month-head-${lastCounted}"]`) : null;
+    if (!box || !head) return;
+    // Right-align it, so that as many months before it as fit stay in view.
+    box.scrollLeft = Math.max(0, head.offsetLeft + head.offsetWidth + 8 - box.clientWidth);
+  }, [lastCounted, report.from, report.to]);
+  // A caution shared by neighbouring rows (the AMDR range of fat and carbohydrate) is said once, under the last.
+  const cautionsOf = report.nutrients.map((n) => nutrientCautions(n.key, { vegetarian }));
+  const shown = cautionsOf.map((list, i) => list.filter((c) => !(cautionsOf[i + 1] ?? []).some((d) => d.id === c.id)));
   return (
     <section aria-labelledby="share-grid-h">
       <h2 id="share-grid-h" className="text-2xl font-extrabold">
@@ -28,24 +58,39 @@ export function ShareGrid({ report, vegetarian = false }: { report: ShareRespons
         at home, or the reference food has no value for it. 100 % is covered; more is not better.
       </p>
       <Legend />
-      <div className="relative mt-3 overflow-x-auto rounded-2xl border border-loam-200 bg-white">
+      <div ref={scroller} className="relative mt-3 overflow-x-auto rounded-2xl border border-loam-200 bg-white">
         <table className="min-w-max border-separate border-spacing-0.5 p-2 text-sm" data-testid="share-grid">
           <caption className="sr-only">Home share of the recommended intake per nutrient and month, in percent</caption>
           <thead>
+            <tr>
+              <td className="sticky left-0 z-10 bg-white" />
+              {groups.map((g, i) => (
+                <Fragment key={i}>
+                  {g.kind === 'future' ? <Gap header /> : null}
+                  <th
+                    scope="colgroup"
+                    colSpan={g.span}
+                    className={`px-1 pt-1 text-left text-xs font-semibold whitespace-nowrap ${g.kind === 'counted' ? 'text-sprout-700' : 'text-loam-700'}`}
+                    data-testid={`months-${g.kind}`}
+                  >
+                    {RUN_LABEL[g.kind]}
+                  </th>
+                </Fragment>
+              ))}
+              <td colSpan={(soFar ? 2 : 1) + 1} />
+            </tr>
             <tr>
               <th scope="col" className="sticky left-0 z-10 bg-white p-2 text-left align-bottom">
                 Nutrient
               </th>
               {report.months.map((m, i) => (
                 <Fragment key={m.month}>
-                  {i === firstFuture ? <Gap header /> : null}
+                  {i === firstFuture ? <Gap /> : null}
                   <th
                     scope="col"
                     className={`p-1 text-center align-bottom font-semibold ${m.beforeRecords || m.future ? 'text-loam-500' : ''}`}
                     data-testid={`month-head-${m.month}`}
                   >
-                    {m.beforeRecords ? <span className="block text-[11px] leading-tight font-normal">before records</span> : null}
-                    {i === firstFuture ? <span className="block text-[11px] leading-tight font-normal">to come</span> : null}
                     <abbr title={`${longMonth(m.month)}${m.beforeRecords ? ' (before records)' : m.future ? ' (still to come)' : ''}`} className="no-underline">
                       {shortMonth(m.month)}
                     </abbr>
@@ -67,8 +112,8 @@ export function ShareGrid({ report, vegetarian = false }: { report: ShareRespons
             </tr>
           </thead>
           <tbody>
-            {report.nutrients.map((n) => {
-              const cautions = nutrientCautions(n.key, { vegetarian });
+            {report.nutrients.map((n, row) => {
+              const cautions = shown[row]!;
               const basis = report.needBasis[n.key];
               return (
                 <Fragment key={n.key}>
@@ -127,9 +172,9 @@ export function ShareGrid({ report, vegetarian = false }: { report: ShareRespons
   );
 }
 
-/** The gap that sets the months still to come apart. */
+/** The gap that sets the months still to come apart (a cell in every row; the top row's is the group header's). */
 function Gap({ header = false }: { header?: boolean }) {
-  return header ? <th aria-hidden="true" className="w-3 border-l-2 border-dashed border-loam-500 p-0" /> : <td aria-hidden="true" className="w-3 border-l-2 border-dashed border-loam-500 p-0" />;
+  return <td aria-hidden="true" className={`w-3 p-0 ${header ? '' : 'border-l-2 border-dashed border-loam-500'}`} />;
 }
 
 interface CellProps {
