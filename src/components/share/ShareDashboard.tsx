@@ -116,24 +116,26 @@ function Dashboard({ householdId, units, periods, initial, peopleHref, settingsH
               .
             </p>
           ) : null}
-          {data.months.some((m) => m.beforeRecords) ? (
-            <p className="text-loam-700" data-testid="records-note">
-              The household’s records start in {longMonth(data.recordsSince)}: earlier months are greyed as “before records”, count no
-              need and stay out of every total. The owner can change the month on the{' '}
-              <a className="font-semibold underline" href={settingsHref}>
-                household’s page
-              </a>
-              .
-            </p>
-          ) : null}
-          {data.months.some((m) => m.future) ? (
-            <p className="text-loam-700" data-testid="future-note">
-              Months after {longMonth(data.currentMonth ?? currentMonth)} are still to come and stand apart: the big figures are the
-              months so far; the period’s total counts the stored and bulk-bought food already set to be eaten later, but no fresh
-              harvest yet. “Last 12 months” gives a year that is complete.
-            </p>
-          ) : null}
-          <Headline report={data} boughtHref={`/households/${householdId}/bought`} />
+          <div className="space-y-3">
+            <Headline report={data} boughtHref={`/households/${householdId}/bought`} />
+            {data.months.some((m) => m.beforeRecords) ? (
+              <p className="max-w-3xl text-sm text-loam-700" data-testid="records-note">
+                The household’s records start in {longMonth(data.recordsSince)}: earlier months are greyed as “before records”, count no
+                need and stay out of every total. The owner can change the month on the{' '}
+                <a className="font-semibold underline" href={settingsHref}>
+                  household’s page
+                </a>
+                .
+              </p>
+            ) : null}
+            {data.months.some((m) => m.future) ? (
+              <p className="max-w-3xl text-sm text-loam-700" data-testid="future-note">
+                Months after {longMonth(data.currentMonth ?? currentMonth)} are still to come and stand apart: the big figures are the
+                months so far; the period’s total counts the stored and bulk-bought food already set to be eaten later, but no fresh
+                harvest yet. “Last 12 months” gives a year that is complete.
+              </p>
+            ) : null}
+          </div>
           <MonthChart report={data} units={units} />
           <ShareGrid report={data} vegetarian={vegetarian} />
           <TopCrops report={data} />
