@@ -196,6 +196,12 @@ export const PEOPLE_CSV_COLUMNS = [
   'at_home_pct',
   'present_from',
   'present_to',
+  'birth_month',
+  'pregnancy_due_month',
+  'lactation_from',
+  'lactation_to',
+  'fed_from_household',
+  'diet',
 ] as const;
 
 export interface PersonCsvRecord {
@@ -213,6 +219,14 @@ export interface PersonCsvRecord {
   /** First and last day the person eats in the household (YYYY-MM-DD), when not always. */
   presentFrom?: string | null;
   presentTo?: string | null;
+  /** Dated age, pregnancy and breastfeeding (YYYY-MM), when given. */
+  birthMonth?: string | null;
+  pregnancyDueMonth?: string | null;
+  lactationFrom?: string | null;
+  lactationTo?: string | null;
+  /** A baby under 6 months fed from the household's food (not only breast milk). */
+  fedFromHousehold?: boolean | null;
+  diet?: string | null;
 }
 
 /** The household's people as CSV. Example: `peopleToCsv([{ name: 'Ana', sex: 'female' }])` */
@@ -232,6 +246,12 @@ export function peopleToCsv(records: readonly PersonCsvRecord[], options: CsvExp
       r.atHomePct,
       r.presentFrom,
       r.presentTo,
+      r.birthMonth,
+      r.pregnancyDueMonth,
+      r.lactationFrom,
+      r.lactationTo,
+      r.fedFromHousehold,
+      r.diet,
     ]),
     options,
   );

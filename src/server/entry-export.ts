@@ -125,6 +125,12 @@ export async function peopleCsv(householdId: number, delimiter: CsvDelimiter = '
       atHomePct: p.atHomePct,
       presentFrom: p.presentFrom,
       presentTo: p.presentTo,
+      birthMonth: p.birthMonth,
+      pregnancyDueMonth: p.pregnancyDueMonth,
+      lactationFrom: p.lactationFrom,
+      lactationTo: p.lactationTo,
+      fedFromHousehold: p.fedFromHousehold,
+      diet: p.diet,
     })),
     { delimiter },
   );

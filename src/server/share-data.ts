@@ -12,10 +12,9 @@
 import { and, eq, gte, inArray, isNotNull, isNull, lte, min, or, sql } from 'drizzle-orm';
 import type { Pool } from 'mysql2/promise';
 import { getDb, type Db } from '@/db/client';
-import { crops, datasets, foodNutrients, foods, harvests, purchases, type Household, type Person as PersonRow } from '@/db/schema';
+import { crops, datasets, foodNutrients, foods, harvests, purchases, type Household } from '@/db/schema';
 import { ENTRY_LIMITS } from '@/lib/entry-schemas';
 import { addMonths, daysInMonth, todayIn } from '@/lib/months';
-import type { Person as NeedsPerson } from '@/lib/needs';
 import { SHARE_NUTRIENTS, type ShareNutrientKey } from '@/lib/nutrients';
 import { needsPerson } from '@/lib/people-schemas';
 import { defaultRecordsSince } from '@/lib/records-start';
@@ -133,22 +132,6 @@ async function firstEntryDate(db: Db, householdId: number): Promise<string | nul
 }
 
 /**
- * A stored person as needs.ts counts them, with the dated fields of issue 9 (birth month, dated
- * pregnancy and lactation, an infant fed from the household, diet).
- */
-function personOf(row: PersonRow): NeedsPerson {
-  return {
-    ...needsPerson(personFields(row)),
-    birthMonth: row.birthMonth,
-    pregnancyDueMonth: row.pregnancyDueMonth,
-    lactationFrom: row.lactationFrom,
-    lactationTo: row.lactationTo,
-    fedFromHousehold: row.fedFromHousehold,
-    diet: row.diet,
-  };
-}
-
-/**
  * The share nutrients of the foods behind the groups, in one query over the distinct foods
  * (a handful), instead of joining every group to its nutrients in SQL.
  */
@@ -201,7 +184,7 @@ export async function householdShare(household: ShareHousehold, from: string, to
   const ids = foodIdsOf([...home, ...bought]);
   const [amounts, sources] = await Promise.all([foodAmounts(db, ids), datasetsOf(db, ids)]);
   const groups = shareGroups(home, bought, amounts, loadRetention());
-  const people = rows.map(personOf);
+  const people = rows.map((r) => needsPerson(personFields(r)));
   const recordsSince = household.recordsSince ?? defaultRecordsSince(todayIn(household.timezone, household.createdAt), first);
   const report = computeShare({
     from,

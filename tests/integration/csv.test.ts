@@ -198,8 +198,8 @@ describe('exports', () => {
     expect(crops.body).toContain('Potato,Charlotte,root_tuber,11352,');
     const people = await api(`/api/households/${hid}/exports/people.csv`, { headers: { cookie: t.owner.cookie } });
     expect(people.body.split('\r\n').slice(0, 2)).toEqual([
-      'name,sex,age_years,birth_year,height_cm,weight_kg,activity,condition,kcal_per_day,at_home_pct,present_from,present_to',
-      'Ana,female,,1988,,,active,none,,85,,',
+      'name,sex,age_years,birth_year,height_cm,weight_kg,activity,condition,kcal_per_day,at_home_pct,present_from,present_to,birth_month,pregnancy_due_month,lactation_from,lactation_to,fed_from_household,diet',
+      'Ana,female,,1988,,,active,none,,85,,,,,,,false,omnivore',
     ]);
     const backup = await api(`/api/households/${hid}/exports/backup.json`, { headers: { cookie: t.viewer.cookie } });
     expect(backup.status).toBe(200);

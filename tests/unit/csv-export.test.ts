@@ -135,7 +135,13 @@ describe('exporting crops and people', () => {
   });
   it('writes one row per person', () => {
     const csv = peopleToCsv([{ name: 'Ana Núñez', sex: 'female', birthYear: 1988, activity: 'active', atHomePct: 85, presentFrom: '2026-05-01' }], { bom: false });
-    expect(csv.split('\r\n')[0]).toBe('name,sex,age_years,birth_year,height_cm,weight_kg,activity,condition,kcal_per_day,at_home_pct,present_from,present_to');
-    expect(csv.split('\r\n')[1]).toBe('Ana Núñez,female,,1988,,,active,,,85,2026-05-01,');
+    expect(csv.split('\r\n')[0]).toBe(
+      'name,sex,age_years,birth_year,height_cm,weight_kg,activity,condition,kcal_per_day,at_home_pct,present_from,present_to,birth_month,pregnancy_due_month,lactation_from,lactation_to,fed_from_household,diet',
+    );
+    expect(csv.split('\r\n')[1]).toBe('Ana Núñez,female,,1988,,,active,,,85,2026-05-01,,,,,,,');
+  });
+  it('writes the dated months, the feeding of a baby and the diet', () => {
+    const csv = peopleToCsv([{ name: 'Mo', sex: 'male', birthMonth: '2026-09', fedFromHousehold: true, diet: 'vegetarian' }], { bom: false });
+    expect(csv.split('\r\n')[1]).toBe('Mo,male,,,,,,,,,,,2026-09,,,,true,vegetarian');
   });
 });
