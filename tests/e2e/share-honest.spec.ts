@@ -1,7 +1,8 @@
 /**
  * Issue 9 through a person's eyes: a household made today, with one person and one harvest and no
  * bought food logged, must not read "100 % of what you ate"; carbohydrate and fat show their
- * recommended range; the months before its records start read "before records".
+ * recommended range; the months before its records start read "before records"; a vegetarian's
+ * zinc caution sits under the zinc row.
  */
 import { expect, test } from './fixtures';
 import { foodId, logHarvest, makeCrop } from '../support/entries';
@@ -28,7 +29,7 @@ const grams = (n: number) => new Intl.NumberFormat('en-US', { maximumFractionDig
 test('a new household with one harvest is told bought food looks incomplete, sees ranges and months before records', async ({ page, context }) => {
   const owner = await newVerifiedUser({ name: 'Ines Grower' });
   const h = await createHousehold(owner.cookie, { name: 'Honest share plot', timezone: TZ });
-  expect((await apiAs(owner.cookie, 'POST', `/api/households/${h.id}/people`, { name: 'Ines', sex: 'female', ageYears: 40, kcalPerDay: 2000 })).status).toBe(201);
+  expect((await apiAs(owner.cookie, 'POST', `/api/households/${h.id}/people`, { name: 'Ines', sex: 'female', ageYears: 40, kcalPerDay: 2000, diet: 'vegetarian' })).status).toBe(201);
   const potato = await makeCrop(owner.cookie, h.id, { name: 'Potato', foodId: await foodId('11352'), category: 'root_tuber' });
   const today = new Intl.DateTimeFormat('en-CA', { timeZone: TZ, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date());
   await logHarvest(owner.cookie, h.id, { date: today, cropId: potato.id, quantity: 2, unit: 'kg', use: 'fresh' });
@@ -65,6 +66,8 @@ test('a new household with one harvest is told bought food looks incomplete, see
 
   // The cautions sit under their nutrients, and the general ones in "About these figures".
   await expect(page.getByTestId('caution-iron_mg')).toContainText('absorbed much less well');
+  // Ines is vegetarian: the zinc row adds that her need may be up to 50 % higher (IOM 2001, zinc chapter)
+  await expect(page.getByTestId('caution-zinc_mg')).toContainText('up to 50 % higher');
   await expect(page.getByTestId('share-about')).toContainText('food supply, not what was eaten');
   await expect(page.getByTestId('share-about')).toContainText('registered dietitian');
   await expect(page.getByTestId('ratio-energy_kcal')).toContainText('Production against supply');
