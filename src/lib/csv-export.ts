@@ -64,6 +64,8 @@ export interface HarvestCsvRecord {
   unit: WeightUnit;
   use: Use;
   spreadMonths?: number | null;
+  /** How a preserved harvest was kept; empty otherwise. */
+  preserveMethod?: string | null;
   trimmed: boolean;
   note?: string | null;
 }
@@ -90,7 +92,7 @@ export function harvestRecord(entry: HarvestInput, lookups: ExportLookups): Harv
   throw new Error(`Harvest of ${entry.date} names neither a crop nor a food.`);
 }
 
-/** Harvests as CSV with the importer's columns. Example: `harvestsToCsv([record]).split('\r\n')[0]` → '\uFEFFdate,crop,variety,food_code,quantity,unit,use,spread_months,trimmed,note' */
+/** Harvests as CSV with the importer's columns. Example: `harvestsToCsv([record]).split('\r\n')[0]` → '\uFEFFdate,crop,variety,food_code,quantity,unit,use,spread_months,preserve_method,trimmed,note' */
 export function harvestsToCsv(records: readonly HarvestCsvRecord[], options: CsvExportOptions = {}): string {
   const cells = (r: HarvestCsvRecord): Record<(typeof HARVEST_CSV_COLUMNS)[number], Cell> => ({
     date: r.date,
@@ -101,6 +103,7 @@ export function harvestsToCsv(records: readonly HarvestCsvRecord[], options: Csv
     unit: r.unit,
     use: r.use,
     spread_months: r.spreadMonths,
+    preserve_method: r.preserveMethod,
     trimmed: r.trimmed,
     note: r.note,
   });

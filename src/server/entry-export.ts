@@ -56,6 +56,7 @@ export async function harvestsCsv(householdId: number, delimiter: CsvDelimiter =
       unit: h.unit,
       use: h.use,
       spreadMonths: h.spreadMonths,
+      ...(h.preserveMethod !== null ? { preserveMethod: h.preserveMethod } : {}),
       trimmed: h.trimmed,
       ...(h.note !== null ? { note: h.note } : {}),
     } as HarvestInput;
