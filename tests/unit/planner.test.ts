@@ -128,6 +128,17 @@ describe('planPlanting (HiGHS)', () => {
     expect(area(plan, 'b')).toBeCloseTo(12, 6);
   });
 
+  it('says which crops an energy cap holds back when a target is lost to it', async () => {
+    // At most 25 %: a ≤ 3 m², b ≤ 6 m², together 3000 + 3000 = 6000 kcal, half the need.
+    const plan = await planPlanting(input({ maxShareOfEnergyPerCrop: 0.25 }));
+    expect(plan.status).toBe('infeasible-best-effort');
+    expect(area(plan, 'a')).toBeCloseTo(3, 6);
+    expect(area(plan, 'b')).toBeCloseTo(6, 6);
+    expect(plan.limits[0]).toMatchObject({ nutrient: 'energy_kcal', reasons: ['crop-cap'], cappedCrops: ['a', 'b'] });
+    expect(plan.limits[0]!.achieved).toBeCloseTo(0.5, 6);
+    expect(plan.limits[0]!.message).toMatch(/Crop a and Crop b are held at 25 % of the energy need per crop/);
+  });
+
   it('holds vegetables to the daily cap per person, and says so when a target is lost to it', async () => {
     // b as a vegetable under a cap of 5 g a day for 1 person: 1.825 kg a year = 1.825 m² at 1 kg/m².
     // Vitamin C reaches 1825/3600 = 50.69 % at best; energy is then met by a = (12000 − 912.5)/1000.
@@ -141,6 +152,7 @@ describe('planPlanting (HiGHS)', () => {
     expect(limit.cappedCrops).toEqual(['b']);
     expect(limit.achieved).toBeCloseTo(1830 / 3600, 6);
     expect(plan.limits.map((l) => l.nutrient)).toEqual(['vitamin_c_mg']);
+    expect(limit.message).toMatch(/Vitamin C reaches 51 % of the year's need, short of the 100 % target: the added vegetables reach the daily cap per person\./);
   });
 
   it('answers the best plan within an area limit and names the limit', async () => {
