@@ -8,7 +8,7 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { nutrientPerM2, parseCropTable, type CropFood, type CropTableRow } from '@/lib/crop-table';
-import { capGroupOf, planLp, preparePlan, type PlanCandidate, type PlanInput } from '@/lib/plan-model';
+import { buildPlanModel, capGroupOf, planLp, preparePlan, type PlanCandidate, type PlanInput } from '@/lib/plan-model';
 import { projectShares, roundArea } from '@/lib/plan-result';
 import { loadHighs, planPlanting } from '@/server/planner';
 
@@ -92,6 +92,8 @@ describe('nutrient per m² in the model', () => {
     expect(lp).toContain('t0: 0.0833333333333 a0 + 0.0416666666667 a1 >= 1');
     expect(lp).toContain('t1: 0.277777777778 a1 >= 1');
     expect(lp.startsWith('Minimize\n obj: a0 + a1\n')).toBe(true);
+    expect(buildPlanModel(input()).columns).toEqual({ a0: 'a', a1: 'b' });
+    expect(buildPlanModel(input(), { kind: 'shortfall' }).columns.s1).toBe('shortfall of vitamin_c_mg');
   });
 });
 
