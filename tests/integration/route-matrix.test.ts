@@ -97,6 +97,8 @@ const ROUTES: Row[] = [
   ['DELETE', 'people/[personId]',            write(404)],
   // share, import, export
   ['GET',    'share',                        read(200)],
+  // the planting plan (reads only)
+  ['POST',   'plan',                         read(400)],
   ['POST',   'imports/index',                write(415)],
   ['GET',    'exports/[file]',               read(200), { params: { file: 'harvests.csv' } }],
 ];
