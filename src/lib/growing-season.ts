@@ -131,8 +131,8 @@ export interface HarvestWindow {
 /**
  * When a reference crop row is harvested in season `year`: each end is its frost date plus the
  * row's weeks (negative weeks fall before the frost).
- * Example: potatoes (spring +10 to autumn +2 weeks), 2026, northern defaults →
- *   { from: '2026-07-10', to: '2026-10-15', months: ['2026-07', '2026-08', '2026-09', '2026-10'] }
+ * Example: potatoes (spring +8 to autumn +0 weeks), 2026, northern defaults →
+ *   { from: '2026-06-26', to: '2026-10-01', months: ['2026-06', '2026-07', '2026-08', '2026-09', '2026-10'] }
  */
 export function harvestWindow(row: { harvestFrom: HarvestWeek; harvestTo: HarvestWeek }, year: number, frost: FrostDates): HarvestWindow {
   const dates = frostDatesOfSeason(year, frost);
