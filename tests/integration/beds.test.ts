@@ -130,8 +130,12 @@ describe('plantings', () => {
     const unknown = await apiAs(f.grower.cookie, 'POST', `${base}/plantings`, { referenceKey: 'moon-melon', area: 1, seasonYear: 2027 });
     expect(unknown.status).toBe(400);
     expect(unknown.body.error.fields.referenceKey).toMatch(/no reference crop moon-melon/);
+    // reference-data/crops.csv, honey-hive: a yield per hive, not per m²
+    const hive = await apiAs(f.grower.cookie, 'POST', `${base}/plantings`, { referenceKey: 'honey-hive', area: 1, seasonYear: 2027 });
+    expect(hive.status).toBe(400);
+    expect(hive.body.error.fields.referenceKey).toMatch(/per hive, not per m² of bed/);
     const other = await householdWithRoles({ name: 'Crop elsewhere' });
-    const theirs = await makeCrop(other.owner.cookie, other.household.id, { name: 'Leek', category: 'allium' });
+    const theirs = await makeCrop(other.owner.cookie, other.household.id, { name: 'Leek', category: 'other' });
     const r = await apiAs(f.grower.cookie, 'POST', `${base}/plantings`, { cropId: theirs.id, area: 1, seasonYear: 2027 });
     expect(r.status).toBe(400);
     expect(r.body.error.fields.cropId).toMatch(/no such crop/);
