@@ -203,3 +203,15 @@ describe('a plan turned into plantings', () => {
     expect((await apiAs(h.viewer.cookie, 'POST', `${hb}/plantings/from-plan`, { year: 2027, crops: [{ cropKey: 'garlic', areaM2: 1 }] })).status).toBe(403);
   });
 });
+
+describe('deleting a household', () => {
+  it('takes its beds, plantings and the harvests naming them along', async () => {
+    const h = await householdWithRoles({ name: 'Short-lived plot' });
+    const hb = `/api/households/${h.household.id}`;
+    const bed = (await apiAs(h.owner.cookie, 'POST', `${hb}/beds`, { name: 'Only bed', area: 2 })).body.bed;
+    const p = (await apiAs(h.owner.cookie, 'POST', `${hb}/plantings`, { referenceKey: 'garlic', bedId: bed.id, area: 2, seasonYear: 2026 })).body.planting;
+    await logHarvest(h.owner.cookie, h.household.id, { date: '2026-07-20', cropId: p.cropId, quantity: 1, unit: 'kg', plantingId: p.id });
+    expect((await apiAs(h.owner.cookie, 'DELETE', hb)).status).toBe(204);
+    expect((await apiAs(h.owner.cookie, 'GET', `${hb}/beds`)).status).toBe(404);
+  });
+});
