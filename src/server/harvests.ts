@@ -26,6 +26,7 @@ import { HttpError } from './http';
 import { todayIn } from '@/lib/months';
 import { fieldError, invalidInput, type Executor, type Tx } from './entry-input';
 import { listEntries, type EntryListSpec } from './entry-list';
+import { requirePlantingOfCrop } from './plantings';
 import { deleteEntry, updateEntry, type EntryUpdateSpec } from './entry-update';
 
 export type { HarvestJson, HarvestList } from '@/lib/entry-types';
@@ -84,6 +85,7 @@ export function harvestValues(input: HarvestInput, basis: HarvestBasis): {
   preserveMethod: PreserveMethod | null;
   trimmed: boolean;
   note: string | null;
+  plantingId: number | null;
 } {
   const grams = toGrams(input.quantity, input.unit);
   return {
@@ -100,6 +102,7 @@ export function harvestValues(input: HarvestInput, basis: HarvestBasis): {
     preserveMethod: input.use === 'preserved' ? (input.preserveMethod ?? null) : null,
     trimmed: input.trimmed,
     note: input.note ?? null,
+    plantingId: input.plantingId ?? null,
   };
 }
 
@@ -111,6 +114,11 @@ async function checkNotFuture(ex: Executor, householdId: number, date: string): 
   const [h] = await ex.select({ timezone: households.timezone }).from(households).where(eq(households.id, householdId));
   const today = todayIn(h?.timezone ?? 'UTC');
   if (date > today) throw fieldError('date', `The harvest date ${date} is after today (${today} in the household's time zone); enter the day it was picked.`);
+}
+
+/** 422 unless a named planting is the household's and grows the harvest's crop. */
+async function checkPlanting(ex: Executor, householdId: number, input: HarvestInput, basis: HarvestBasis): Promise<void> {
+  if (input.plantingId !== undefined) await requirePlantingOfCrop(ex, householdId, input.plantingId, basis.cropId);
 }
 
 function checkUse(input: HarvestInput, basis: HarvestBasis, field = 'use'): void {
@@ -182,6 +190,7 @@ export async function createHarvest(tx: Tx, householdId: number, userId: string 
   await checkNotFuture(tx, householdId, input.date);
   const basis = await harvestBasis(tx, householdId, input);
   checkUse(input, basis);
+  await checkPlanting(tx, householdId, input, basis);
   const [res] = await tx.insert(harvests).values({ ...harvestValues(input, basis), householdId, createdBy: userId });
   return getHarvest(householdId, res.insertId, tx);
 }
@@ -237,12 +246,14 @@ const harvestUpdate: EntryUpdateSpec<typeof harvests, HarvestPatch, HarvestJson>
       preserveMethod: row.preserveMethod,
       trimmed: row.trimmed,
       note: row.note,
+      plantingId: row.plantingId,
     };
     const merged = mergeHarvestPatch(current, patch);
     if (!merged.success) throw invalidInput(merged.error);
     if (patch.date !== undefined) await checkNotFuture(tx, householdId, merged.data.date);
     const basis = await harvestBasis(tx, householdId, merged.data);
     checkUse(merged.data, basis);
+    await checkPlanting(tx, householdId, merged.data, basis);
     return harvestValues(merged.data, basis);
   },
   get: getHarvest,

@@ -95,6 +95,20 @@ const ROUTES: Row[] = [
   ['GET',    'people/[personId]',            read(404)],
   ['PATCH',  'people/[personId]',            write(400)],
   ['DELETE', 'people/[personId]',            write(404)],
+  // beds, plantings, growing season
+  ['GET',    'beds/index',                   read(200)],
+  ['POST',   'beds/index',                   write(400)],
+  ['GET',    'beds/[bedId]',                 read(404)],
+  ['PATCH',  'beds/[bedId]',                 write(400)],
+  ['DELETE', 'beds/[bedId]',                 write(404)],
+  ['GET',    'plantings/index',              read(200)],
+  ['POST',   'plantings/index',              write(400)],
+  ['GET',    'plantings/[plantingId]',       read(404)],
+  ['PATCH',  'plantings/[plantingId]',       write(400)],
+  ['DELETE', 'plantings/[plantingId]',       write(404)],
+  ['POST',   'plantings/from-plan',          write(400)],
+  ['GET',    'season',                       read(200)],
+  ['PUT',    'season',                       write(400)],
   // share, import, export
   ['GET',    'share',                        read(200)],
   // the planting plan (reads only)
