@@ -4,7 +4,7 @@
  * reaching into server modules.
  */
 import type { FrostDates } from './eating-months';
-import type { GapsReport } from './gaps';
+import type { GapCrop, GapsReport } from './gaps';
 import type { ShareNutrientKey } from './nutrients';
 import type { DatasetRef } from './share-types';
 
@@ -24,4 +24,6 @@ export interface GapsResponse extends GapsReport<ShareNutrientKey> {
   /** Crops whose yield is the household's own measured one. */
   ownYieldCrops: string[];
   datasets: DatasetRef[];
+  /** Every reference crop weighed, with its nutrient per m² (for working out an edited plan in the browser). */
+  crops: GapCrop[];
 }

@@ -115,5 +115,6 @@ export async function householdGaps(household: Household, year?: number): Promis
     cropCount: gapCrops.length,
     ownYieldCrops: gapCrops.filter((c) => c.yieldSource === 'own').map((c) => c.key),
     datasets: share.datasets,
+    crops: gapCrops,
   };
 }

@@ -97,6 +97,7 @@ const ROUTES: Row[] = [
   ['DELETE', 'people/[personId]',            write(404)],
   // share, import, export
   ['GET',    'share',                        read(200)],
+  ['GET',    'gaps',                         read(200)],
   ['POST',   'imports/index',                write(415)],
   ['GET',    'exports/[file]',               read(200), { params: { file: 'harvests.csv' } }],
 ];

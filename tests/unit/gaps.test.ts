@@ -147,3 +147,16 @@ describe('findGaps', () => {
     ], 2)).toEqual(['2026-02', '2026-03']);
   });
 });
+
+describe('projectYearShares', () => {
+  it('adds each planned area’s nutrient to the year’s home supply', async () => {
+    const { projectYearShares } = await import('@/lib/plan-projection');
+    // 10 m² of potatoes at 1,732.5 kcal/m² (crops.csv typical yield × SR28 NDB 11352, worked above) on 267,200 kcal home of 720,000 need
+    const p = projectYearShares(
+      { energy_kcal: { home: 267_200, need: 720_000 }, vitamin_c_mg: { home: null, need: 32_400 } },
+      [{ areaM2: 10, perM2: crops[0]!.perM2 }, { areaM2: 0, perM2: crops[1]!.perM2 }],
+    );
+    expect(p.energy_kcal).toBeCloseTo((267_200 + 17_325) / 720_000, 10);
+    expect(p.vitamin_c_mg).toBeNull();
+  });
+});
