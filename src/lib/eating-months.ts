@@ -6,12 +6,7 @@
  * window that runs over the year end (kale picked into March) simply wraps round.
  */
 import type { CropTableRow, HarvestWeek } from './crop-table';
-
-/** A household's growing season as 'MM-DD': the last spring frost and the first autumn frost. */
-export interface FrostDates {
-  lastSpringFrost: string;
-  firstAutumnFrost: string;
-}
+import type { FrostDates } from './growing-season';
 
 export interface EatingMonths {
   /** Calendar months (1–12) of the harvest window, in order from its first month. */
@@ -61,16 +56,3 @@ export function eatingMonths(row: Pick<CropTableRow, 'harvestFrom' | 'harvestTo'
   return { harvest, stored };
 }
 
-// Zones south of the equator whose names do not say so (Australia/… and Antarctica/… do).
-const SOUTHERN_ZONES = /^(Australia|Antarctica)\/|^America\/(Argentina\/|Santiago|Punta_Arenas|Sao_Paulo|Montevideo|Asuncion|La_Paz|Lima|Campo_Grande|Cuiaba|Porto_Velho)|^Africa\/(Johannesburg|Maputo|Harare|Windhoek|Gaborone|Maseru|Mbabane|Lusaka|Blantyre)|^Indian\/(Antananarivo|Mauritius|Reunion)|^Pacific\/(Auckland|Chatham|Fiji|Tongatapu|Noumea|Efate|Apia)$/;
-
-/**
- * Frost dates for a household that has not set its own, by its time zone's hemisphere:
- * north 20 April and 15 October, south the same seasons six months on. These are mid-temperate
- * dates for a first plan, to be replaced by the local ones.
- * // common practice (no published source)
- * Example: `defaultFrostDates('Europe/Berlin')` → { lastSpringFrost: '04-20', firstAutumnFrost: '10-15' }
- */
-export function defaultFrostDates(timeZone: string): FrostDates {
-  return SOUTHERN_ZONES.test(timeZone) ? { lastSpringFrost: '10-20', firstAutumnFrost: '04-15' } : { lastSpringFrost: '04-20', firstAutumnFrost: '10-15' };
-}

@@ -180,7 +180,8 @@ const cropOrFood = { cropId: recordId.optional(), foodId: recordId.optional() };
  *   → { date: '2026-07-14', cropId: 3, quantity: 2.5, unit: 'kg', use: 'fresh', spreadMonths: 1, trimmed: false }
  */
 export const harvestInput = z
-  .strictObject({ ...cropOrFood, ...harvestFields })
+  // plantingId: the planting it came from (its own crop's), for the household's own yield per m².
+  .strictObject({ ...cropOrFood, ...harvestFields, plantingId: recordId.optional() })
   .superRefine((v, ctx) => checkOneOfCropFood(v, ctx, true))
   .superRefine(checkSpreadForUse)
   .transform(withSpreadDefault);
@@ -249,6 +250,7 @@ export const harvestPatch = z
     spreadMonths,
     trimmed: trimmedFlag,
     note: noteOrClear,
+    plantingId: recordId.nullable(),
   })
   .partial()
   .superRefine(checkNotEmpty)

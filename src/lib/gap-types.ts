@@ -3,7 +3,7 @@
  * types live in src/lib beside the pure code that fills them, so islands import them without
  * reaching into server modules.
  */
-import type { FrostDates } from './eating-months';
+import type { FrostDates } from './growing-season';
 import type { GapCrop, GapsReport } from './gaps';
 import type { ShareNutrientKey } from './nutrients';
 import type { DatasetRef } from './share-types';

@@ -8,12 +8,13 @@ import { and, eq, inArray, isNotNull, sql } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { crops, datasets, foodNutrients, foods, harvests, plantings, type Household } from '@/db/schema';
 import { nutrientPerM2, type CropFood } from '@/lib/crop-table';
-import { defaultFrostDates, eatingMonths, type FrostDates } from '@/lib/eating-months';
+import { eatingMonths } from '@/lib/eating-months';
 import type { GapsResponse } from '@/lib/gap-types';
 import { findGaps, type GapCrop } from '@/lib/gaps';
 import { growingYear, growingYearLabel } from '@/lib/growing-year';
 import { addMonths, formatMonth, parseMonth } from '@/lib/months';
 import { SHARE_NUTRIENTS, type ShareNutrientKey } from '@/lib/nutrients';
+import { seasonFrostDates, type FrostDates } from '@/lib/growing-season';
 import { ownYields } from '@/lib/own-yield';
 import { loadCropTable } from './crop-table-file';
 import { currentMonth } from './people';
@@ -52,30 +53,41 @@ async function sr28Foods(codes: readonly string[]): Promise<Map<string, CropFood
   return out;
 }
 
-/** Each of the household's plantings of a reference crop with the weight harvested from it. */
-async function plantingHarvests(householdId: number) {
+/**
+ * The household's own measured yield per reference crop (kg per m²), over every season with
+ * harvests naming their planting: Σ kg ÷ Σ m² of the per-season yields of src/lib/own-yield.ts.
+ */
+async function ownYieldByReference(householdId: number): Promise<Map<string, number>> {
   const db = getDb();
-  return db
-    .select({
-      referenceKey: sql<string>`MAX(${crops.referenceKey})`,
-      areaM2: sql<number>`MAX(${plantings.areaM2})`.mapWith(Number),
-      grams: sql<number>`SUM(${harvests.grams})`.mapWith(Number),
-    })
-    .from(plantings)
-    .innerJoin(crops, and(eq(crops.id, plantings.cropId), eq(crops.householdId, plantings.householdId)))
-    .innerJoin(harvests, and(eq(harvests.plantingId, plantings.id), eq(harvests.householdId, plantings.householdId)))
-    .where(and(eq(plantings.householdId, householdId), isNotNull(crops.referenceKey)))
-    .groupBy(plantings.id);
+  const [planted, picked] = await Promise.all([
+    db
+      .select({ id: plantings.id, cropId: plantings.cropId, seasonYear: plantings.seasonYear, areaM2: plantings.areaM2, referenceKey: crops.referenceKey })
+      .from(plantings)
+      .innerJoin(crops, and(eq(crops.id, plantings.cropId), eq(crops.householdId, plantings.householdId)))
+      .where(and(eq(plantings.householdId, householdId), isNotNull(crops.referenceKey))),
+    db
+      .select({ plantingId: harvests.plantingId, grams: sql<number>`SUM(${harvests.grams})`.mapWith(Number) })
+      .from(harvests)
+      .where(and(eq(harvests.householdId, householdId), isNotNull(harvests.plantingId)))
+      .groupBy(harvests.plantingId),
+  ]);
+  const referenceOf = new Map(planted.map((p) => [p.cropId, p.referenceKey!]));
+  const sums = new Map<string, { kg: number; m2: number }>();
+  const yields = ownYields(planted, picked.map((h) => ({ plantingId: h.plantingId!, grams: h.grams })));
+  for (const y of yields) {
+    const key = referenceOf.get(y.cropId)!;
+    const s = sums.get(key) ?? { kg: 0, m2: 0 };
+    s.kg += y.harvestedKg;
+    s.m2 += y.areaM2;
+    sums.set(key, s);
+  }
+  return new Map([...sums].map(([key, s]) => [key, s.kg / s.m2]));
 }
 
-/** The household's frost dates, or its hemisphere's default. */
+/** The household's frost dates, or its hemisphere's default (see src/lib/growing-season.ts). */
 export function frostDatesOf(household: Pick<Household, 'timezone' | 'lastSpringFrost' | 'firstAutumnFrost'>): FrostDates & { defaulted: boolean } {
-  const d = defaultFrostDates(household.timezone);
-  return {
-    lastSpringFrost: household.lastSpringFrost ?? d.lastSpringFrost,
-    firstAutumnFrost: household.firstAutumnFrost ?? d.firstAutumnFrost,
-    defaulted: household.lastSpringFrost === null || household.firstAutumnFrost === null,
-  };
+  const s = seasonFrostDates(household, household.timezone);
+  return { lastSpringFrost: s.lastSpringFrost, firstAutumnFrost: s.firstAutumnFrost, defaulted: !s.own.lastSpringFrost || !s.own.firstAutumnFrost };
 }
 
 /**
@@ -86,12 +98,11 @@ export function frostDatesOf(household: Pick<Household, 'timezone' | 'lastSpring
 export async function householdGaps(household: Household, year?: number): Promise<GapsResponse> {
   const range = gapsRange(household, year);
   const table = loadCropTable().filter((r) => r.yieldBasis === 'm2');
-  const [share, composition, planted] = await Promise.all([
+  const [share, composition, own] = await Promise.all([
     householdShare(household, range.from, range.to),
     sr28Foods([...new Set(table.map((r) => r.sr28Code))]),
-    plantingHarvests(household.id),
+    ownYieldByReference(household.id),
   ]);
-  const own = ownYields(planted);
   const frostDates = frostDatesOf(household);
   const gapCrops: GapCrop[] = [];
   for (const row of table) {

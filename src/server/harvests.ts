@@ -24,6 +24,7 @@ import { cropDisplayName, cropRow, harvestEdibleGrams, requireFood } from './cro
 import { HttpError } from './http';
 import { fieldError, invalidInput, type Executor, type Tx } from './entry-input';
 import { listEntries, type EntryListSpec } from './entry-list';
+import { requirePlantingOfCrop } from './plantings';
 import { deleteEntry, updateEntry, type EntryUpdateSpec } from './entry-update';
 
 export type { HarvestJson, HarvestList } from '@/lib/entry-types';
@@ -81,6 +82,7 @@ export function harvestValues(input: HarvestInput, basis: HarvestBasis): {
   spreadMonths: number;
   trimmed: boolean;
   note: string | null;
+  plantingId: number | null;
 } {
   const grams = toGrams(input.quantity, input.unit);
   return {
@@ -96,7 +98,13 @@ export function harvestValues(input: HarvestInput, basis: HarvestBasis): {
     spreadMonths: input.spreadMonths ?? defaultSpreadMonths({ use: input.use, category: basis.category, cropDefault: basis.cropDefaultSpread }),
     trimmed: input.trimmed,
     note: input.note ?? null,
+    plantingId: input.plantingId ?? null,
   };
+}
+
+/** 422 unless a named planting is the household's and grows the harvest's crop. */
+async function checkPlanting(ex: Executor, householdId: number, input: HarvestInput, basis: HarvestBasis): Promise<void> {
+  if (input.plantingId !== undefined) await requirePlantingOfCrop(ex, householdId, input.plantingId, basis.cropId);
 }
 
 function checkUse(input: HarvestInput, basis: HarvestBasis, field = 'use'): void {
@@ -166,6 +174,7 @@ export async function getHarvest(householdId: number, harvestId: number, ex: Exe
 export async function createHarvest(tx: Tx, householdId: number, userId: string | null, input: HarvestInput): Promise<HarvestJson> {
   const basis = await harvestBasis(tx, householdId, input);
   checkUse(input, basis);
+  await checkPlanting(tx, householdId, input, basis);
   const [res] = await tx.insert(harvests).values({ ...harvestValues(input, basis), householdId, createdBy: userId });
   return getHarvest(householdId, res.insertId, tx);
 }
@@ -219,11 +228,13 @@ const harvestUpdate: EntryUpdateSpec<typeof harvests, HarvestPatch, HarvestJson>
       spreadMonths: row.spreadMonths,
       trimmed: row.trimmed,
       note: row.note,
+      plantingId: row.plantingId,
     };
     const merged = mergeHarvestPatch(current, patch);
     if (!merged.success) throw invalidInput(merged.error);
     const basis = await harvestBasis(tx, householdId, merged.data);
     checkUse(merged.data, basis);
+    await checkPlanting(tx, householdId, merged.data, basis);
     return harvestValues(merged.data, basis);
   },
   get: getHarvest,

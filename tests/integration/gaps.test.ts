@@ -40,7 +40,7 @@ describe('GET /api/households/{id}/gaps', () => {
     expect(gaps.countedMonths).toEqual(counted().map((m: any) => m.month));
     expect(gaps.cropCount).toBeGreaterThanOrEqual(50);
     // Europe/Berlin is north of the equator: the default frost dates are the northern ones.
-    expect(gaps.frostDates).toEqual({ lastSpringFrost: '04-20', firstAutumnFrost: '10-15', defaulted: true });
+    expect(gaps.frostDates).toEqual({ lastSpringFrost: '05-01', firstAutumnFrost: '10-01', defaulted: true });
   });
 
   it('sums the year’s supply by hand from SR28 and the need from the share report', () => {

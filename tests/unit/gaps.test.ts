@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { nutrientPerM2, parseCropTable, type CropFood, type CropTableRow } from '@/lib/crop-table';
-import { defaultFrostDates, eatingMonths, harvestMonth } from '@/lib/eating-months';
+import { eatingMonths, harvestMonth } from '@/lib/eating-months';
 import { findGaps, lowestMonths, type GapCrop, type GapMonthInput } from '@/lib/gaps';
 import { listMonths } from '@/lib/months';
 
@@ -66,11 +66,6 @@ describe('eating months', () => {
 
   it('refuses a frost date that is not a day', () => {
     expect(() => harvestMonth({ frost: 'spring', weeks: 0 }, { lastSpringFrost: '02-30', firstAutumnFrost: '10-15' })).toThrow(/MM-DD/);
-  });
-
-  it('takes the southern seasons for a southern time zone', () => {
-    expect(defaultFrostDates('Australia/Hobart').lastSpringFrost).toBe('10-20');
-    expect(defaultFrostDates('Europe/Berlin').lastSpringFrost).toBe('04-20');
   });
 });
 
