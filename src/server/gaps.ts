@@ -2,13 +2,14 @@
  * Gathers what the gap finder (src/lib/gaps.ts) weighs for one household and growing year: the
  * share report of that year, the reference crops grown on ground with their USDA SR28 composition
  * (foods and food_nutrients by the crop's sr28_code), the household's own measured yields (harvests
- * that name their planting), and the frost dates that place each crop's harvest window in the year.
+ * that name their planting), and the frost dates that place each crop's harvest window and storage
+ * in the months of the year (src/lib/crop-months.ts, the planner's own rule).
  */
 import { and, eq, inArray, isNotNull, sql } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { crops, datasets, foodNutrients, foods, harvests, plantings, type Household } from '@/db/schema';
 import { nutrientPerM2, type CropFood } from '@/lib/crop-table';
-import { eatingMonths } from '@/lib/eating-months';
+import { eatingMonths, harvestMonths } from '@/lib/crop-months';
 import type { GapsResponse } from '@/lib/gap-types';
 import { findGaps, type GapCrop } from '@/lib/gaps';
 import { growingYear, growingYearLabel } from '@/lib/growing-year';
@@ -111,8 +112,9 @@ export async function householdGaps(household: Household, year?: number): Promis
     const ownKg = own.get(row.key);
     const yieldKgM2 = ownKg ?? row.yieldKg.typical;
     const perM2 = nutrientPerM2(row, food, { yieldKg: yieldKgM2 });
-    const months = eatingMonths(row, frostDates);
-    gapCrops.push({ key: row.key, name: row.name, perM2, yieldSource: ownKg === undefined ? 'reference' : 'own', yieldKgM2, harvestMonths: months.harvest, storedMonths: months.stored });
+    const harvest = harvestMonths(row, frostDates);
+    const stored = eatingMonths(row, frostDates).slice(harvest.length);
+    gapCrops.push({ key: row.key, name: row.name, perM2, yieldSource: ownKg === undefined ? 'reference' : 'own', yieldKgM2, harvestMonths: harvest, storedMonths: stored });
   }
   const report = findGaps({ nutrients: share.nutrients, months: share.months, crops: gapCrops });
   return {

@@ -112,6 +112,8 @@ const ROUTES: Row[] = [
   // share, import, export
   ['GET',    'share',                        read(200)],
   ['GET',    'gaps',                         read(200)],
+  // the planting plan (reads only)
+  ['POST',   'plan',                         read(400)],
   ['POST',   'imports/index',                write(415)],
   ['GET',    'exports/[file]',               read(200), { params: { file: 'harvests.csv' } }],
 ];

@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { nutrientPerM2, parseCropTable, type CropFood, type CropTableRow } from '@/lib/crop-table';
-import { eatingMonths, harvestMonth } from '@/lib/eating-months';
+import { eatingMonths, harvestMonths } from '@/lib/crop-months';
 import { findGaps, lowestMonths, type GapCrop, type GapMonthInput } from '@/lib/gaps';
 import { listMonths } from '@/lib/months';
 
@@ -20,8 +20,9 @@ const frosts = { lastSpringFrost: '04-20', firstAutumnFrost: '10-15' };
 
 function gapCrop(key: string, food: CropFood): GapCrop {
   const r = row(key);
-  const m = eatingMonths(r, frosts);
-  return { key, name: r.name, perM2: nutrientPerM2(r, food), yieldSource: 'reference', yieldKgM2: r.yieldKg.typical, harvestMonths: m.harvest, storedMonths: m.stored };
+  const harvest = harvestMonths(r, frosts);
+  const stored = eatingMonths(r, frosts).slice(harvest.length);
+  return { key, name: r.name, perM2: nutrientPerM2(r, food), yieldSource: 'reference', yieldKgM2: r.yieldKg.typical, harvestMonths: harvest, storedMonths: stored };
 }
 
 const crops = [gapCrop('potatoes', potatoFood), gapCrop('kale', kaleFood), gapCrop('winter-squash', squashFood)];
@@ -43,29 +44,14 @@ const nutrients = [
   { key: 'vitamin_c_mg' as const, name: 'Vitamin C', unit: 'mg' },
 ];
 
-describe('eating months', () => {
-  it('places a harvest week by the frost dates, wrapping over the year end', () => {
-    // 15 October + 20 weeks = 4 March
-    expect(harvestMonth({ frost: 'autumn', weeks: 20 }, frosts)).toBe(3);
-    // 20 April + 8 weeks = 15 June
-    expect(harvestMonth({ frost: 'spring', weeks: 8 }, frosts)).toBe(6);
-  });
-
-  it('adds the months stored food keeps after the window', () => {
+describe('the months a crop feeds the household (src/lib/crop-months.ts, as the gap finder reads them)', () => {
+  it('splits the harvest window from the months in store, wrapping over the year end', () => {
     // crops.csv winter-squash: harvest autumn −4 (17 Sep) to autumn 0 (15 Oct) weeks, keeps 5 months
-    expect(eatingMonths(row('winter-squash'), frosts)).toEqual({ harvest: [9, 10], stored: [11, 12, 1, 2, 3] });
-    // crops.csv kale: picked from spring +8 (15 June) to autumn +20 weeks (4 March), keeps 0.3 months (rounds to none)
-    expect(eatingMonths(row('kale'), frosts)).toEqual({ harvest: [6, 7, 8, 9, 10, 11, 12, 1, 2, 3], stored: [] });
-  });
-
-  it('never counts more than twelve months', () => {
-    const r = { harvestFrom: { frost: 'spring' as const, weeks: 0 }, harvestTo: { frost: 'autumn' as const, weeks: 0 }, storageMonths: 24 };
-    const m = eatingMonths(r, frosts);
-    expect(m.harvest.length + m.stored.length).toBe(12);
-  });
-
-  it('refuses a frost date that is not a day', () => {
-    expect(() => harvestMonth({ frost: 'spring', weeks: 0 }, { lastSpringFrost: '02-30', firstAutumnFrost: '10-15' })).toThrow(/MM-DD/);
+    const squash = crops.find((c) => c.key === 'winter-squash')!;
+    expect([squash.harvestMonths, squash.storedMonths]).toEqual([[9, 10], [11, 12, 1, 2, 3]]);
+    // crops.csv kale: picked from spring +8 (15 June) to autumn +20 weeks (4 March), keeps 0.3 months (none whole)
+    const kale = crops.find((c) => c.key === 'kale')!;
+    expect([kale.harvestMonths, kale.storedMonths]).toEqual([[6, 7, 8, 9, 10, 11, 12, 1, 2, 3], []]);
   });
 });
 

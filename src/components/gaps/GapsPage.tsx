@@ -1,6 +1,7 @@
 /**
  * The Gaps island: picks the growing year, fetches GET …/gaps with TanStack Query and lays out the
- * nutrient × month strip with the table beside it, then the plan form for those who may plant.
+ * nutrient × month strip with the table beside it, then the plan form (any member may plan; an
+ * owner or grower may turn the plan into plantings).
  */
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
@@ -14,7 +15,8 @@ interface Props {
   householdId: number;
   years: { year: number; label: string }[];
   initialYear: number;
-  canPlan: boolean;
+  /** Owner or grower: may turn a plan into plantings. */
+  canPlant: boolean;
   peopleHref: string;
 }
 
@@ -26,7 +28,7 @@ export default function GapsPage(props: Props) {
   );
 }
 
-function Gaps({ householdId, years, initialYear, canPlan, peopleHref }: Props) {
+function Gaps({ householdId, years, initialYear, canPlant, peopleHref }: Props) {
   const [year, setYear] = useState(initialYear);
   const query = useQuery({ queryKey: ['gaps', householdId, year], queryFn: () => getGaps(householdId, year), placeholderData: keepPreviousData });
   const data = query.data;
@@ -77,7 +79,7 @@ function Gaps({ householdId, years, initialYear, canPlan, peopleHref }: Props) {
             <GapStrip report={data} />
             <GapTable report={data} />
           </div>
-          {canPlan ? <PlanPanel key={data.year} householdId={householdId} report={data} /> : null}
+          <PlanPanel key={data.year} householdId={householdId} report={data} canPlant={canPlant} />
         </div>
       ) : null}
     </div>

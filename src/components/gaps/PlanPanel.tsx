@@ -14,14 +14,14 @@ import { formatAmount } from '@/lib/format-number';
 import type { ShareNutrientKey } from '@/lib/nutrients';
 import { projectYearShares, type YearFigure } from '@/lib/plan-projection';
 import { percentText } from '@/lib/share-scale';
-import { limitText, makePlan, plantFromPlan, type PlanAnswer } from './plan-api';
+import { makePlan, plantFromPlan, type PlanAnswer } from './plan-api';
 
 const BASIS_LABEL: Record<(typeof PLAN_BASES)[number], string> = {
   year: 'Over the whole year',
   month: 'In every month (fills the lean months too)',
 };
 
-export function PlanPanel({ householdId, report }: { householdId: number; report: GapsResponse }) {
+export function PlanPanel({ householdId, report, canPlant }: { householdId: number; report: GapsResponse; canPlant: boolean }) {
   const form = useSchemaForm<PlanFormValues, ReturnType<typeof planForm.parse>>(planForm, { targets: {}, basis: 'year', maxAreaM2: '' });
   const [plan, setPlan] = useState<PlanAnswer | null>(null);
   const [areas, setAreas] = useState<Record<string, string>>({});
@@ -120,7 +120,7 @@ export function PlanPanel({ householdId, report }: { householdId: number; report
           {plan.limits.length > 0 ? (
             <ul className="mt-2 list-disc pl-6 text-loam-900" data-testid="plan-limits">
               {plan.limits.map((l, i) => (
-                <li key={i}>{limitText(l)}</li>
+                <li key={i}>{l.message}</li>
               ))}
             </ul>
           ) : null}
@@ -145,15 +145,17 @@ export function PlanPanel({ householdId, report }: { householdId: number; report
                     <span>m²</span>
                   </div>
                   <p className="text-sm text-loam-700">
-                    about {formatAmount(c.expectedKg * (Number(areas[c.cropKey]) || 0) / (c.areaM2 || 1))} kg expected
+                    about {formatAmount((c.expectedKg * (Number(areas[c.cropKey]) || 0)) / (c.areaM2 || 1))} kg expected ({formatAmount(c.yieldKgM2)} kg/m²
+                    {c.ownYield ? ', your own yield' : ', reference yield'})
                   </p>
                   <button type="button" className="btn-quiet min-h-11 text-sm" onClick={() => setAreas((a) => ({ ...a, [c.cropKey]: dropped ? String(Math.round(c.areaM2 * 10) / 10) : '0' }))}>
                     {dropped ? 'Put back' : 'Drop'}
                   </button>
-                  <p className="col-span-2 text-sm">
-                    Seed: {c.seedNeeded === null ? 'no sowing rate' : `${formatAmount(c.seedNeeded * (Number(areas[c.cropKey]) || 0) / (c.areaM2 || 1))} ${c.seedUnit ?? ''} needed`.trim()}
+                  <p className="col-span-2 text-sm" data-testid={`seed-${c.cropKey}`}>
+                    Seed: {c.seedNeeded === null ? 'no sowing rate in the table' : `${formatAmount((c.seedNeeded.amount * (Number(areas[c.cropKey]) || 0)) / (c.areaM2 || 1))} ${c.seedNeeded.unit === 'g' ? 'g' : 'plants'} needed`}
                     {' · '}
-                    {c.seedKept === null || c.seedKept === 0 ? 'none kept last season' : `${formatAmount(c.seedKept)} ${c.seedUnit ?? ''} kept`}
+                    {c.seedKept > 0 ? `${formatAmount(c.seedKept)} g kept last season` : 'none kept last season'}
+                    {c.seedNeeded !== null && c.seedNeeded.unit === 'g' && c.seedKept > 0 && c.seedKept < (c.seedNeeded.amount * (Number(areas[c.cropKey]) || 0)) / (c.areaM2 || 1) ? ': find the rest' : ''}
                   </p>
                 </li>
               );
@@ -171,6 +173,7 @@ export function PlanPanel({ householdId, report }: { householdId: number; report
             ))}
           </ul>
           {edited ? <p className="mt-1 text-sm text-loam-700">Worked out here from the reference crops; make the plan again to place food by month.</p> : null}
+          {canPlant ? (
           <div className="mt-4 flex flex-wrap items-center gap-3">
             <button
               type="button"
@@ -194,6 +197,9 @@ export function PlanPanel({ householdId, report }: { householdId: number; report
               </p>
             ) : null}
           </div>
+          ) : (
+            <p className="mt-4 text-loam-700">An owner or grower can turn this plan into plantings.</p>
+          )}
         </div>
       ) : null}
     </section>
