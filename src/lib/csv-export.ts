@@ -64,6 +64,8 @@ export interface HarvestCsvRecord {
   unit: WeightUnit;
   use: Use;
   spreadMonths?: number | null;
+  /** How a preserved harvest was kept; empty otherwise. */
+  preserveMethod?: string | null;
   trimmed: boolean;
   note?: string | null;
 }
@@ -90,7 +92,7 @@ export function harvestRecord(entry: HarvestInput, lookups: ExportLookups): Harv
   throw new Error(`Harvest of ${entry.date} names neither a crop nor a food.`);
 }
 
-/** Harvests as CSV with the importer's columns. Example: `harvestsToCsv([record]).split('\r\n')[0]` → '\uFEFFdate,crop,variety,food_code,quantity,unit,use,spread_months,trimmed,note' */
+/** Harvests as CSV with the importer's columns. Example: `harvestsToCsv([record]).split('\r\n')[0]` → '\uFEFFdate,crop,variety,food_code,quantity,unit,use,spread_months,preserve_method,trimmed,note' */
 export function harvestsToCsv(records: readonly HarvestCsvRecord[], options: CsvExportOptions = {}): string {
   const cells = (r: HarvestCsvRecord): Record<(typeof HARVEST_CSV_COLUMNS)[number], Cell> => ({
     date: r.date,
@@ -101,6 +103,7 @@ export function harvestsToCsv(records: readonly HarvestCsvRecord[], options: Csv
     unit: r.unit,
     use: r.use,
     spread_months: r.spreadMonths,
+    preserve_method: r.preserveMethod,
     trimmed: r.trimmed,
     note: r.note,
   });
@@ -196,6 +199,12 @@ export const PEOPLE_CSV_COLUMNS = [
   'at_home_pct',
   'present_from',
   'present_to',
+  'birth_month',
+  'pregnancy_due_month',
+  'lactation_from',
+  'lactation_to',
+  'fed_from_household',
+  'diet',
 ] as const;
 
 export interface PersonCsvRecord {
@@ -213,6 +222,14 @@ export interface PersonCsvRecord {
   /** First and last day the person eats in the household (YYYY-MM-DD), when not always. */
   presentFrom?: string | null;
   presentTo?: string | null;
+  /** Dated age, pregnancy and breastfeeding (YYYY-MM), when given. */
+  birthMonth?: string | null;
+  pregnancyDueMonth?: string | null;
+  lactationFrom?: string | null;
+  lactationTo?: string | null;
+  /** A baby under 6 months fed from the household's food (not only breast milk). */
+  fedFromHousehold?: boolean | null;
+  diet?: string | null;
 }
 
 /** The household's people as CSV. Example: `peopleToCsv([{ name: 'Ana', sex: 'female' }])` */
@@ -232,6 +249,12 @@ export function peopleToCsv(records: readonly PersonCsvRecord[], options: CsvExp
       r.atHomePct,
       r.presentFrom,
       r.presentTo,
+      r.birthMonth,
+      r.pregnancyDueMonth,
+      r.lactationFrom,
+      r.lactationTo,
+      r.fedFromHousehold,
+      r.diet,
     ]),
     options,
   );

@@ -48,6 +48,7 @@ export const HARVEST_CSV_COLUMNS = [
   'unit',
   'use',
   'spread_months',
+  'preserve_method',
   'trimmed',
   'note',
 ] as const;
@@ -87,6 +88,8 @@ const COLUMN_ALIASES: Readonly<Record<string, string>> = {
   units: 'unit',
   spread: 'spread_months',
   months: 'spread_months',
+  preserving_method: 'preserve_method',
+  preserved_by: 'preserve_method',
   notes: 'note',
 };
 
@@ -268,6 +271,7 @@ const COLUMN_OF_FIELD: Readonly<Record<string, string>> = {
   unit: 'unit',
   use: 'use',
   spreadMonths: 'spread_months',
+  preserveMethod: 'preserve_method',
   trimmed: 'trimmed',
   note: 'note',
   price: 'price',
@@ -387,7 +391,8 @@ function byRow(errors: CsvError[]): CsvError[] {
 
 /**
  * Reads a harvest log: columns date, quantity, unit and crop (name, with optional variety) or
- * food_code; optional use (default fresh), spread_months, trimmed, note.
+ * food_code; optional use (default fresh), spread_months, preserve_method (frozen, canned, dried or
+ * fermented; only for use preserved), trimmed, note.
  * Example: `parseHarvestCsv('date;crop;quantity;unit\n2026-07-14;Potato;1,5;kg').rows[0]`
  *   → { row: 2, crop: 'Potato', entry: { date: '2026-07-14', quantity: 1.5, unit: 'kg', use: 'fresh', spreadMonths: 1, trimmed: false } }
  */
@@ -409,7 +414,8 @@ export function parseHarvestCsv(source: CsvSource): CsvParseResult<ParsedHarvest
     if (crop === undefined && foodCode === undefined) reader.fail(table.columns.has('crop') ? 'crop' : 'food_code', 'Give the crop name (or a food_code).');
     if (crop !== undefined && foodCode !== undefined) reader.fail('food_code', 'Give either a crop or a food_code, not both.');
     if (variety !== undefined && crop === undefined) reader.fail('variety', 'A variety needs its crop name.');
-    const entry = reader.validate(harvestDetailsInput, reader.entryFields());
+    const method = reader.cell('preserve_method')?.trim().toLowerCase();
+    const entry = reader.validate(harvestDetailsInput, { ...reader.entryFields(), preserveMethod: method });
     errors.push(...reader.errors);
     if (entry === undefined || reader.errors.length > 0) continue;
     rows.push({

@@ -15,6 +15,7 @@ import { isPlainLine, PLAIN_LINE_MESSAGE } from './plain-text';
 import { CROP_CATEGORIES } from './crop-categories';
 import { WEIGHT_UNITS } from './units';
 import { isEatenUse, isSpreadUse, USES, type Use } from './uses';
+import { PRESERVE_METHODS } from './retention';
 
 // ---------------------------------------------------------------------------------------------
 // Uses (defined in ./uses; re-exported for the forms and routes that import them from here)
@@ -76,6 +77,9 @@ export const weightUnit = z.enum(WEIGHT_UNITS, { error: oneOf('The unit', WEIGHT
 /** One of the uses. Example: `use.parse('seed')` → 'seed' */
 export const use = z.enum(USES, { error: oneOf('The use', USES) });
 
+/** How preserved food was kept (its vitamins are reduced by the retention factors). Example: `preserveMethod.parse('frozen')` → 'frozen' */
+export const preserveMethod = z.enum(PRESERVE_METHODS, { error: oneOf('The preserving method', PRESERVE_METHODS) });
+
 /** Whole months from 1 to 24. Example: `spreadMonths.parse(6)` → 6 */
 export const spreadMonths = z
   .number({ error: 'The spread must be a number of months.' })
@@ -134,6 +138,18 @@ function checkSpreadForUse(value: { use?: Use | undefined; spreadMonths?: number
   }
 }
 
+// Only preserved food is frozen, canned, dried or fermented; the method reduces its vitamins.
+function checkPreserveForUse(value: { use?: Use | undefined; preserveMethod?: string | null | undefined }, ctx: Ctx): void {
+  if (value.preserveMethod == null || value.use === undefined) return;
+  if (value.use !== 'preserved') {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['preserveMethod'],
+      message: 'Only preserved food has a preserving method; leave the method empty, or set the use to preserved.',
+    });
+  }
+}
+
 function checkOneOfCropFood(value: { cropId?: number | undefined; foodId?: number | undefined }, ctx: Ctx, required: boolean): void {
   const hasCrop = value.cropId !== undefined;
   const hasFood = value.foodId !== undefined;
@@ -166,6 +182,7 @@ const harvestFields = {
   unit: weightUnit,
   use: use.default('fresh'),
   spreadMonths: spreadMonths.optional(),
+  preserveMethod: preserveMethod.nullable().optional(),
   trimmed: trimmedFlag.default(false),
   note: note.optional(),
 };
@@ -175,7 +192,8 @@ const cropOrFood = { cropId: recordId.optional(), foodId: recordId.optional() };
 /**
  * A harvest: date, exactly one of cropId / foodId, quantity in its unit, use (default fresh),
  * spread (1 for every use but stored/preserved, where an absent spread is left for the server to
- * fill from the crop or its category), trimmed (default false), note.
+ * fill from the crop or its category), preserving method (only for use preserved), trimmed
+ * (default false), note.
  * Example: `harvestInput.parse({ date: '2026-07-14', cropId: 3, quantity: 2.5, unit: 'kg' })`
  *   → { date: '2026-07-14', cropId: 3, quantity: 2.5, unit: 'kg', use: 'fresh', spreadMonths: 1, trimmed: false }
  */
@@ -184,6 +202,7 @@ export const harvestInput = z
   .strictObject({ ...cropOrFood, ...harvestFields, plantingId: recordId.optional() })
   .superRefine((v, ctx) => checkOneOfCropFood(v, ctx, true))
   .superRefine(checkSpreadForUse)
+  .superRefine(checkPreserveForUse)
   .transform(withSpreadDefault);
 
 export type HarvestInput = z.output<typeof harvestInput>;
@@ -197,13 +216,15 @@ export type HarvestInputRaw = z.input<typeof harvestInput>;
 export const harvestDetailsInput = z
   .object(harvestFields)
   .superRefine(checkSpreadForUse)
+  .superRefine(checkPreserveForUse)
   .transform(withSpreadDefault);
 
 export type HarvestDetails = z.output<typeof harvestDetailsInput>;
 
 const splitPart = z
-  .strictObject({ quantity, use, spreadMonths: spreadMonths.optional() })
+  .strictObject({ quantity, use, spreadMonths: spreadMonths.optional(), preserveMethod: preserveMethod.nullable().optional() })
   .superRefine(checkSpreadForUse)
+  .superRefine(checkPreserveForUse)
   .transform(withSpreadDefault);
 
 /**
@@ -248,6 +269,7 @@ export const harvestPatch = z
     unit: weightUnit,
     use,
     spreadMonths,
+    preserveMethod: preserveMethod.nullable(),
     trimmed: trimmedFlag,
     note: noteOrClear,
     plantingId: recordId.nullable(),
@@ -255,7 +277,8 @@ export const harvestPatch = z
   .partial()
   .superRefine(checkNotEmpty)
   .superRefine((v, ctx) => checkOneOfCropFood(v, ctx, false))
-  .superRefine(checkSpreadForUse);
+  .superRefine(checkSpreadForUse)
+  .superRefine(checkPreserveForUse);
 
 export type HarvestPatch = z.output<typeof harvestPatch>;
 
@@ -276,7 +299,8 @@ function mergeFields(current: Record<string, unknown>, patch: Record<string, unk
 /**
  * The harvest after a patch, validated as a whole. A patch that sets cropId drops the foodId (and
  * the other way round); a patch that changes the use without a spread drops the old spread, so the
- * new use's default applies. Example: `mergeHarvestPatch(entry, { use: 'fresh' }).data?.spreadMonths` → 1
+ * new use's default applies, and one that changes it away from preserved drops the preserving method.
+ * Example: `mergeHarvestPatch(entry, { use: 'fresh' }).data?.spreadMonths` → 1
  */
 export function mergeHarvestPatch(
   current: Stored<HarvestInput>,
@@ -286,6 +310,8 @@ export function mergeHarvestPatch(
   if (patch.cropId !== undefined) delete base.foodId;
   if (patch.foodId !== undefined) delete base.cropId;
   if (patch.use !== undefined && patch.use !== current.use && patch.spreadMonths === undefined) delete base.spreadMonths;
+  // Leaving 'preserved' drops the method (it would be refused); a patch naming one keeps it.
+  if (patch.use !== undefined && patch.use !== 'preserved' && patch.preserveMethod === undefined) delete base.preserveMethod;
   return harvestInput.safeParse(mergeFields(base, patch));
 }
 

@@ -4,6 +4,7 @@
  * one shape without the islands reaching into server modules. Types only: nothing here runs.
  */
 import type { Use } from './entry-schemas';
+import type { PreserveMethod } from './retention';
 import type { WeightUnit } from './units';
 
 /** One harvest as the API sends it; `grams` and `edibleGrams` were worked out when it was stored. */
@@ -21,6 +22,8 @@ export interface HarvestJson {
   edibleGrams: number;
   use: Use;
   spreadMonths: number;
+  /** How a preserved harvest was kept (frozen, canned, dried, fermented); null when not said or not preserved. */
+  preserveMethod: PreserveMethod | null;
   trimmed: boolean;
   note: string | null;
   splitGroup: string | null;

@@ -2,6 +2,7 @@
 import { z } from 'zod';
 import { atMostCharsShort } from './zod-messages';
 import { isPlainLine, PLAIN_LINE_MESSAGE } from './plain-text';
+import { isMonth } from './months';
 import { UNIT_SYSTEMS } from './units';
 
 export const ROLE_VALUES = ['owner', 'grower', 'viewer'] as const;
@@ -54,9 +55,26 @@ export const householdInput = z.object({
   yearStartMonth: householdFields.yearStartMonth.default(1),
 });
 
+/** Bounds of a records start month ('YYYY-MM'), as for the other dates of the app. */
+export const RECORDS_SINCE_YEARS = { min: 1900, max: 2199 } as const;
+
+/**
+ * The month the household's records start, 'YYYY-MM', or null for the default rule (the earlier
+ * of the month the household was created and its first entry's month; src/lib/records-start.ts).
+ * Months before it are not charged any need. Example: `recordsSince.parse('2026-03')` → '2026-03'
+ */
+export const recordsSince = z
+  .string({ error: 'Write the month the records start as YYYY-MM (for example 2026-03), or null for the default.' })
+  .trim()
+  .refine(isMonth, { error: 'Write the month the records start as YYYY-MM (for example 2026-03), or null for the default.', abort: true })
+  .refine((m) => Number(m.slice(0, 4)) >= RECORDS_SINCE_YEARS.min && Number(m.slice(0, 4)) <= RECORDS_SINCE_YEARS.max, {
+    error: `The year the records start must be between ${RECORDS_SINCE_YEARS.min} and ${RECORDS_SINCE_YEARS.max}.`,
+  })
+  .nullable();
+
 /** A change to a household: only the fields sent (no defaults, which would silently reset the others). */
 export const householdPatch = z
-  .object(householdFields)
+  .object({ ...householdFields, recordsSince })
   .partial()
   .refine((v) => Object.keys(v).length > 0, 'Change at least one field.');
 

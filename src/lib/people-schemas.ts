@@ -5,13 +5,31 @@
  * Conventions: an optional field left out, null or (from a form) blank means "not given"; in a
  * patch, null clears a field. A patch is merged onto the stored person and the result is checked
  * with `personInput` again, so rules across fields (age or birth year, from ≤ to) always hold.
+ *
+ * Dated people (issue 9): exactly one of `ageYears`, `birthYear` and `birthMonth` is given — two
+ * could disagree, and needs.ts would silently follow one (the birth month), so two are refused.
+ * `pregnancyDueMonth` and `lactationFrom`/`lactationTo` ('YYYY-MM') are for a female person only,
+ * with the lactation start no later than its end and an end only after a start; a dated pregnancy
+ * or lactation replaces the undated `condition` flag, so the two together are refused too.
+ * `fedFromHousehold` is accepted for anyone and stored as given, but counts only while the person
+ * is under 6 months (needs.ts): a baby grows out of it, and refusing it then would make an old
+ * record fail every later change.
  */
 import { z } from 'zod';
 import { atMostChars, mustBeNumber, mustBeWhole, oneOf } from './zod-messages';
 import { formatCount } from './format-number';
 import { isPlainLine, PLAIN_LINE_MESSAGE } from './plain-text';
-import { isDate } from './months';
+import { isDate, isMonth } from './months';
+import { DIETS, type Diet } from './diet';
 import type { Person } from './needs';
+
+export { DIETS, type Diet } from './diet';
+
+/** Display names for the diets. Example: `DIET_LABELS.vegetarian` → 'Vegetarian (no meat or fish)' */
+export const DIET_LABELS: Readonly<Record<Diet, string>> = {
+  omnivore: 'Eats meat or fish',
+  vegetarian: 'Vegetarian (no meat or fish)',
+};
 
 /** Sexes the DRI tables are split by. Example: `SEXES[0]` → 'female' */
 export const SEXES = ['female', 'male'] as const;
@@ -80,6 +98,25 @@ export const presenceDate = z
       .optional(),
   );
 
+/**
+ * A month 'YYYY-MM' between 1900 and 2199; null or blank = none,
+ * e.g. personMonth('The birth month').parse('2025-11') → '2025-11'.
+ */
+export function personMonth(what: string) {
+  return z.preprocess(
+    blankToNull,
+    z
+      .string({ error: `Enter ${what.toLowerCase()} as YYYY-MM.` })
+      .trim()
+      .refine(isMonth, { error: `Write ${what.toLowerCase()} as a real month, YYYY-MM (for example 2026-06).`, abort: true })
+      .refine((m) => Number(m.slice(0, 4)) >= L.minYear && Number(m.slice(0, 4)) <= L.maxYear, {
+        error: `The year of ${what.toLowerCase()} must be between ${L.minYear} and ${L.maxYear}.`,
+      })
+      .nullable()
+      .optional(),
+  );
+}
+
 const fields = {
   name: z
     .string({ error: 'Give the person a name.' })
@@ -111,6 +148,18 @@ const fields = {
   ),
   presentFrom: presenceDate,
   presentTo: presenceDate,
+  birthMonth: personMonth('The birth month'),
+  pregnancyDueMonth: personMonth('The due month'),
+  lactationFrom: personMonth('The month breastfeeding began'),
+  lactationTo: personMonth('The month breastfeeding ended'),
+  fedFromHousehold: z.preprocess(
+    (v) => (v === '' || v == null ? undefined : v),
+    z.boolean({ error: 'Say true or false for whether the baby is fed from the household’s food.' }).default(false),
+  ),
+  diet: z.preprocess(
+    (v) => (v === '' || v == null ? undefined : v),
+    z.enum(DIETS, { error: oneOf('The diet', DIETS) }).default('omnivore'),
+  ),
 };
 
 type Ctx = z.RefinementCtx;
@@ -122,19 +171,42 @@ interface CrossFields {
   condition: PersonCondition;
   presentFrom: string | null;
   presentTo: string | null;
+  birthMonth: string | null;
+  pregnancyDueMonth: string | null;
+  lactationFrom: string | null;
+  lactationTo: string | null;
 }
 
 // The rules that look at more than one field.
 function checkPerson(p: CrossFields, ctx: Ctx): void {
-  if (p.ageYears == null && p.birthYear == null) {
-    ctx.addIssue({ code: 'custom', path: ['ageYears'], message: 'Give the age in years or the birth year.' });
+  if (p.ageYears == null && p.birthYear == null && p.birthMonth == null) {
+    ctx.addIssue({ code: 'custom', path: ['ageYears'], message: 'Give the age in years, the birth year or the birth month.' });
   }
   if (p.ageYears != null && p.birthYear != null) {
     // Two ages could disagree; the needs would silently follow one of them.
     ctx.addIssue({ code: 'custom', path: ['birthYear'], message: 'Give the age or the birth year, not both.' });
   }
+  if (p.birthMonth != null && (p.ageYears != null || p.birthYear != null)) {
+    ctx.addIssue({ code: 'custom', path: ['birthMonth'], message: 'Give the birth month alone: clear the age and the birth year.' });
+  }
   if (p.condition !== 'none' && p.sex !== 'female') {
     ctx.addIssue({ code: 'custom', path: ['condition'], message: 'Pregnancy and lactation apply to a female person only.' });
+  }
+  if (p.sex !== 'female') {
+    for (const key of ['pregnancyDueMonth', 'lactationFrom', 'lactationTo'] as const) {
+      if (p[key] != null) ctx.addIssue({ code: 'custom', path: [key], message: 'Pregnancy and breastfeeding apply to a female person only; clear this month.' });
+    }
+  }
+  const dated = p.pregnancyDueMonth != null || p.lactationFrom != null;
+  if (dated && p.condition !== 'none') {
+    // The dated months replace the flag (life-stage.ts); keeping both would leave one silently unused.
+    ctx.addIssue({ code: 'custom', path: ['condition'], message: 'With a due month or breastfeeding months given, set the condition to none: the months say when it applies.' });
+  }
+  if (p.lactationTo != null && p.lactationFrom == null) {
+    ctx.addIssue({ code: 'custom', path: ['lactationFrom'], message: 'Give the month breastfeeding began as well as the month it ended.' });
+  }
+  if (p.lactationFrom != null && p.lactationTo != null && p.lactationFrom > p.lactationTo) {
+    ctx.addIssue({ code: 'custom', path: ['lactationTo'], message: 'Breastfeeding ends before it begins; swap the two months.' });
   }
   if (p.presentFrom && p.presentTo && p.presentFrom > p.presentTo) {
     ctx.addIssue({ code: 'custom', path: ['presentTo'], message: 'The last day present comes before the first; swap them.' });
@@ -156,6 +228,10 @@ export const personInput = z
     kcalPerDay: p.kcalPerDay ?? null,
     presentFrom: p.presentFrom ?? null,
     presentTo: p.presentTo ?? null,
+    birthMonth: p.birthMonth ?? null,
+    pregnancyDueMonth: p.pregnancyDueMonth ?? null,
+    lactationFrom: p.lactationFrom ?? null,
+    lactationTo: p.lactationTo ?? null,
   }))
   .superRefine(checkPerson);
 
@@ -183,6 +259,12 @@ export const personPatch = z
       .optional(),
     presentFrom: fields.presentFrom,
     presentTo: fields.presentTo,
+    birthMonth: fields.birthMonth,
+    pregnancyDueMonth: fields.pregnancyDueMonth,
+    lactationFrom: fields.lactationFrom,
+    lactationTo: fields.lactationTo,
+    fedFromHousehold: z.boolean({ error: 'Say true or false for whether the baby is fed from the household’s food.' }).optional(),
+    diet: z.enum(DIETS, { error: oneOf('The diet', DIETS) }).optional(),
   })
   .refine((v) => Object.values(v).some((x) => x !== undefined), { message: 'Nothing to change: give at least one field.' });
 
@@ -208,7 +290,7 @@ const EER_ACTIVITY = { sedentary: 'sedentary', low: 'low', active: 'active', ver
 
 /**
  * A stored person as needs.ts counts them: activity 'very' is the IOM "very active" category and
- * condition 'none' is no condition,
+ * condition 'none' is no condition; the dated fields, the feeding of a baby and the diet pass as stored,
  * e.g. needsPerson({ sex: 'male', ageYears: 40, activity: 'very', condition: 'none', … }).activity → 'very_active'.
  */
 export function needsPerson(p: PersonFields): Person {
@@ -224,5 +306,11 @@ export function needsPerson(p: PersonFields): Person {
     atHomePct: p.atHomePct,
     presentFrom: p.presentFrom,
     presentTo: p.presentTo,
+    birthMonth: p.birthMonth,
+    pregnancyDueMonth: p.pregnancyDueMonth,
+    lactationFrom: p.lactationFrom,
+    lactationTo: p.lactationTo,
+    fedFromHousehold: p.fedFromHousehold,
+    diet: p.diet,
   };
 }

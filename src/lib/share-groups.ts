@@ -1,17 +1,25 @@
 /**
  * Groups of entries as the share report reads them from the database: harvests or purchases
- * summed by (month, use, spread, crop, food), each turned into one FoodEntry for allocate.ts and
- * shares.ts. Grouping by food keeps "unknown" honest: every entry of a group has a value for a
- * nutrient or none does, so a nutrient the food has no amount for stays missing, never zero.
+ * summed by (month, use, spread, crop, food, preserving method), each turned into one FoodEntry
+ * for allocate.ts and shares.ts. Grouping by food keeps "unknown" honest: every entry of a group
+ * has a value for a nutrient or none does, so a nutrient the food has no amount for stays
+ * missing, never zero. A lot eaten over 2 months or more is spread by day from its date, so such
+ * lots are grouped by their day, not their month; a preserved lot's vitamins are reduced by the
+ * retention factors of its method (retention.ts).
  */
 import type { Source, Use } from './allocate';
 import { SHARE_NUTRIENTS, type ShareNutrientKey } from './nutrients';
+import { applyRetention, type PreserveMethod, type RetentionTable } from './retention';
 import type { CropEntry } from './shares';
 
-/** One aggregate row: the entries of a month, use, spread, crop and food, summed. */
+/** One aggregate row: the entries of a month (or of a day, for lots spread by day), use, spread, crop, food and method, summed. */
 export interface GroupRow {
   /** 'YYYY-MM' the entries are dated in. */
   month: string;
+  /** 'YYYY-MM-DD' of the entries for a lot spread over 2 months or more; default: the month's first day (the day does not matter). */
+  date?: string | null;
+  /** How a preserved lot was kept; null or missing = not said (no retention applied). */
+  preserveMethod?: PreserveMethod | null;
   use: Use;
   /** Months the food is eaten over (≥ 1). */
   spread: number;
@@ -32,8 +40,11 @@ export interface ShareGroup {
   key: string;
   source: Source;
   month: string;
+  /** 'YYYY-MM-DD' the group is eaten from (the month's first day unless spread by day). */
+  date: string;
   use: Use;
   spread: number;
+  preserveMethod: PreserveMethod | null;
   cropId: number | null;
   foodId: number | null;
   name: string;
@@ -44,27 +55,32 @@ export interface ShareGroup {
 }
 
 /**
- * The groups of home and bought rows with the nutrients of their edible grams, home first,
+ * The groups of home and bought rows with the nutrients of their edible grams, home first; with a
+ * retention table, a preserved group naming its method keeps only the retained share of each vitamin,
  * e.g. shareGroups([{ month: '2026-08', use: 'fresh', foodId: 7, edibleGrams: 500, … }], [], new Map([[7, { energy_kcal: 77 }]]))[0].nutrients → { energy_kcal: 385 }.
  */
-export function shareGroups(home: readonly GroupRow[], bought: readonly GroupRow[], amounts: FoodAmounts): ShareGroup[] {
+export function shareGroups(home: readonly GroupRow[], bought: readonly GroupRow[], amounts: FoodAmounts, retention?: RetentionTable): ShareGroup[] {
   const groups = new Map<string, ShareGroup>();
-  collect(home, 'home', amounts, groups);
-  collect(bought, 'bought', amounts, groups);
+  collect(home, 'home', amounts, groups, retention);
+  collect(bought, 'bought', amounts, groups, retention);
   return [...groups.values()];
 }
 
-function collect(rows: readonly GroupRow[], source: Source, amounts: FoodAmounts, into: Map<string, ShareGroup>): void {
+function collect(rows: readonly GroupRow[], source: Source, amounts: FoodAmounts, into: Map<string, ShareGroup>, retention?: RetentionTable): void {
   for (const r of rows) {
-    const key = `${source}|${r.month}|${r.use}|${r.spread}|${r.cropId ?? ''}|${r.foodId ?? ''}`;
+    const date = r.date ?? `${r.month}-01`;
+    const method = r.use === 'preserved' ? (r.preserveMethod ?? null) : null;
+    const key = `${source}|${date}|${r.use}|${r.spread}|${method ?? ''}|${r.cropId ?? ''}|${r.foodId ?? ''}`;
     let g = into.get(key);
     if (!g) {
       g = {
         key,
         source,
         month: r.month,
+        date,
         use: r.use,
         spread: r.spread,
+        preserveMethod: method,
         cropId: r.cropId,
         foodId: r.foodId,
         name: r.name ?? '',
@@ -77,10 +93,12 @@ function collect(rows: readonly GroupRow[], source: Source, amounts: FoodAmounts
     }
     // A nutrient the food has no row for stays missing: unknown, never zero.
     const per100g = r.foodId == null ? undefined : amounts.get(r.foodId);
+    const nutrients: Partial<Record<ShareNutrientKey, number>> = {};
     for (const k of SHARE_NUTRIENTS) {
       const a = per100g?.[k];
-      if (a !== undefined) g.nutrients[k] = (g.edibleGrams * a) / 100;
+      if (a !== undefined) nutrients[k] = (g.edibleGrams * a) / 100;
     }
+    g.nutrients = retention ? (applyRetention(g, nutrients, retention) as Partial<Record<ShareNutrientKey, number>>) : nutrients;
   }
 }
 
@@ -97,10 +115,13 @@ export function contributorId(g: Pick<ShareGroup, 'cropId' | 'foodId'>): string 
   return g.cropId ?? `food:${g.foodId ?? 'none'}`;
 }
 
-/** A group as one entry of the share code; only its month matters (eating and the ratio go by month). */
+/**
+ * A group as one entry of the share code, dated on its day (a lot spread by day) or its month's
+ * first day (fresh food and a spread of one month count wholly in their month).
+ */
 export function groupEntry(g: ShareGroup): CropEntry {
   return {
-    date: `${g.month}-01`,
+    date: g.date,
     use: g.use,
     source: g.source,
     spreadMonths: g.spread,

@@ -3,8 +3,7 @@
  * topContributors() ranking of shares.ts for every share nutrient, joined into one list of crops
  * with each one's amount and share of home for every nutrient, so the dashboard shows one table.
  */
-import { dateMonthIndex, eatenSpan } from './allocate';
-import { monthIndex } from './months';
+import { fractionEatenIn } from './allocate';
 import { SHARE_NUTRIENTS, type ShareNutrientKey } from './nutrients';
 import { contributorId, groupEntry, type ShareGroup } from './share-groups';
 import type { TopCrop } from './share-types';
@@ -39,13 +38,10 @@ export function topCrops(groups: readonly ShareGroup[], from: string, to: string
     });
   }
   // A crop eaten in the range whose food has no value for a nutrient: unknown, not 0.
-  const start = monthIndex(from);
-  const end = monthIndex(to);
   for (const e of entries) {
     const crop = crops.get(e.cropId);
     if (!crop) continue;
-    const first = dateMonthIndex(e.date);
-    if (!eatenSpan(e).some((o) => first + o >= start && first + o <= end)) continue;
+    if (fractionEatenIn(e, { from, to }) === 0) continue;
     for (const key of SHARE_NUTRIENTS) {
       if (e.nutrients[key] == null && crop.values[key] === 0) {
         crop.values[key] = null;

@@ -56,6 +56,7 @@ export async function harvestsCsv(householdId: number, delimiter: CsvDelimiter =
       unit: h.unit,
       use: h.use,
       spreadMonths: h.spreadMonths,
+      ...(h.preserveMethod !== null ? { preserveMethod: h.preserveMethod } : {}),
       trimmed: h.trimmed,
       ...(h.note !== null ? { note: h.note } : {}),
     } as HarvestInput;
@@ -125,6 +126,12 @@ export async function peopleCsv(householdId: number, delimiter: CsvDelimiter = '
       atHomePct: p.atHomePct,
       presentFrom: p.presentFrom,
       presentTo: p.presentTo,
+      birthMonth: p.birthMonth,
+      pregnancyDueMonth: p.pregnancyDueMonth,
+      lactationFrom: p.lactationFrom,
+      lactationTo: p.lactationTo,
+      fedFromHousehold: p.fedFromHousehold,
+      diet: p.diet,
     })),
     { delimiter },
   );

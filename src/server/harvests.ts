@@ -6,7 +6,7 @@
 import { randomUUID } from 'node:crypto';
 import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
 import { getDb } from '@/db/client';
-import { crops, foods, harvests, type Harvest } from '@/db/schema';
+import { crops, foods, harvests, households, type Harvest } from '@/db/schema';
 import { defaultSpreadMonths, type CropCategory } from '@/lib/crop-categories';
 import {
   cropUseError,
@@ -19,10 +19,11 @@ import {
   type Use,
 } from '@/lib/entry-schemas';
 import type { HarvestJson, HarvestList } from '@/lib/entry-types';
+import type { PreserveMethod } from '@/lib/retention';
 import { toGrams, type WeightUnit } from '@/lib/units';
 import { cropDisplayName, cropRow, harvestEdibleGrams, requireFood } from './crops';
 import { HttpError } from './http';
-import { fieldError, invalidInput, type Executor, type Tx } from './entry-input';
+import { fieldError, invalidInput, todayIn, type Executor, type Tx } from './entry-input';
 import { listEntries, type EntryListSpec } from './entry-list';
 import { requirePlantingOfCrop } from './plantings';
 import { deleteEntry, updateEntry, type EntryUpdateSpec } from './entry-update';
@@ -80,6 +81,7 @@ export function harvestValues(input: HarvestInput, basis: HarvestBasis): {
   edibleGrams: number;
   use: Use;
   spreadMonths: number;
+  preserveMethod: PreserveMethod | null;
   trimmed: boolean;
   note: string | null;
   plantingId: number | null;
@@ -96,6 +98,7 @@ export function harvestValues(input: HarvestInput, basis: HarvestBasis): {
     use: input.use,
     // Stored or preserved without a spread: the crop's own default, else its category's.
     spreadMonths: input.spreadMonths ?? defaultSpreadMonths({ use: input.use, category: basis.category, cropDefault: basis.cropDefaultSpread }),
+    preserveMethod: input.use === 'preserved' ? (input.preserveMethod ?? null) : null,
     trimmed: input.trimmed,
     note: input.note ?? null,
     plantingId: input.plantingId ?? null,
@@ -105,6 +108,16 @@ export function harvestValues(input: HarvestInput, basis: HarvestBasis): {
 /** 422 unless a named planting is the household's and grows the harvest's crop. */
 async function checkPlanting(ex: Executor, householdId: number, input: HarvestInput, basis: HarvestBasis): Promise<void> {
   if (input.plantingId !== undefined) await requirePlantingOfCrop(ex, householdId, input.plantingId, basis.cropId);
+}
+
+/**
+ * Refuses a harvest dated after today in the household's time zone: a harvest is weighed, so it
+ * cannot lie ahead (a slipped year would also put food into months not yet lived).
+ */
+async function checkNotFuture(ex: Executor, householdId: number, date: string): Promise<void> {
+  const [h] = await ex.select({ timezone: households.timezone }).from(households).where(eq(households.id, householdId));
+  const today = todayIn(h?.timezone ?? 'UTC');
+  if (date > today) throw fieldError('date', `The harvest date ${date} is after today (${today} in the household's time zone); enter the day it was picked.`);
 }
 
 function checkUse(input: HarvestInput, basis: HarvestBasis, field = 'use'): void {
@@ -138,6 +151,7 @@ function toJson(r: JoinedRow): HarvestJson {
     edibleGrams: h.edibleGrams,
     use: h.use,
     spreadMonths: h.spreadMonths,
+    preserveMethod: h.preserveMethod,
     trimmed: h.trimmed,
     note: h.note,
     splitGroup: h.splitGroup,
@@ -172,6 +186,7 @@ export async function getHarvest(householdId: number, harvestId: number, ex: Exe
 
 /** Stores one harvest in a transaction. Example: `await createHarvest(tx, 7, userId, harvestInput.parse(body))` → HarvestJson */
 export async function createHarvest(tx: Tx, householdId: number, userId: string | null, input: HarvestInput): Promise<HarvestJson> {
+  await checkNotFuture(tx, householdId, input.date);
   const basis = await harvestBasis(tx, householdId, input);
   checkUse(input, basis);
   await checkPlanting(tx, householdId, input, basis);
@@ -184,6 +199,7 @@ export async function createHarvest(tx: Tx, householdId: number, userId: string 
  * caller's transaction; if any part is refused the caller's transaction rolls back and nothing is kept.
  */
 export async function createSplitHarvest(tx: Tx, householdId: number, userId: string | null, split: HarvestSplitInput): Promise<HarvestJson[]> {
+  await checkNotFuture(tx, householdId, split.date);
   const parts = splitToHarvests(split);
   const basis = await harvestBasis(tx, householdId, split);
   parts.forEach((part, i) => checkUse(part, basis, `parts.${i}.use`));
@@ -226,12 +242,14 @@ const harvestUpdate: EntryUpdateSpec<typeof harvests, HarvestPatch, HarvestJson>
       unit: row.unit,
       use: row.use,
       spreadMonths: row.spreadMonths,
+      preserveMethod: row.preserveMethod,
       trimmed: row.trimmed,
       note: row.note,
       plantingId: row.plantingId,
     };
     const merged = mergeHarvestPatch(current, patch);
     if (!merged.success) throw invalidInput(merged.error);
+    if (patch.date !== undefined) await checkNotFuture(tx, householdId, merged.data.date);
     const basis = await harvestBasis(tx, householdId, merged.data);
     checkUse(merged.data, basis);
     await checkPlanting(tx, householdId, merged.data, basis);

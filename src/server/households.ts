@@ -2,6 +2,8 @@
 import { and, asc, eq, sql } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { crops, harvests, households, memberships, purchases, staples, user, type Household, type Role } from '@/db/schema';
+import { compareMonths, monthOf, todayIn } from '@/lib/months';
+import { fieldError } from './entry-input';
 import { HttpError } from './http';
 
 export interface HouseholdInput {
@@ -11,8 +13,22 @@ export interface HouseholdInput {
   yearStartMonth: number;
 }
 
+/** A change to a household (owner): the fields above and the month its records start (null = the default rule). */
+export interface HouseholdPatch extends Partial<HouseholdInput> {
+  recordsSince?: string | null;
+}
+
+/** A household as the API answers; recordsSince null = the default rule (src/lib/records-start.ts). */
 export function householdJson(h: Household, role?: Role) {
-  return { id: h.id, name: h.name, timezone: h.timezone, units: h.units, yearStartMonth: h.yearStartMonth, ...(role ? { role } : {}) };
+  return {
+    id: h.id,
+    name: h.name,
+    timezone: h.timezone,
+    units: h.units,
+    yearStartMonth: h.yearStartMonth,
+    recordsSince: h.recordsSince,
+    ...(role ? { role } : {}),
+  };
 }
 
 /** Creates a household with its creator as owner, in one transaction. */
@@ -35,7 +51,18 @@ export async function listHouseholds(userId: string) {
     .orderBy(asc(households.name), asc(households.id));
 }
 
-export async function updateHousehold(householdId: number, patch: Partial<HouseholdInput>): Promise<Household> {
+/**
+ * Changes a household. A records start after the current month (in the household's time zone,
+ * the new one if it changes too) is refused: it would leave every month so far uncharged.
+ */
+export async function updateHousehold(current: Household, patch: HouseholdPatch): Promise<Household> {
+  const householdId = current.id;
+  if (patch.recordsSince != null) {
+    const now = monthOf(todayIn(patch.timezone ?? current.timezone));
+    if (compareMonths(patch.recordsSince, now) > 0) {
+      throw fieldError('recordsSince', `The records cannot start after the current month (${now}): choose ${now} or an earlier month.`);
+    }
+  }
   await getDb().update(households).set(patch).where(eq(households.id, householdId));
   const [h] = await getDb().select().from(households).where(eq(households.id, householdId));
   return h!;

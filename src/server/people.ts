@@ -29,6 +29,12 @@ export function personFields(row: Person): PersonFields {
     atHomePct: row.atHomePct,
     presentFrom: row.presentFrom,
     presentTo: row.presentTo,
+    birthMonth: row.birthMonth,
+    pregnancyDueMonth: row.pregnancyDueMonth,
+    lactationFrom: row.lactationFrom,
+    lactationTo: row.lactationTo,
+    fedFromHousehold: row.fedFromHousehold,
+    diet: row.diet,
   };
 }
 

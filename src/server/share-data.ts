@@ -4,25 +4,28 @@
  * shares.ts, top-crops.ts, use-totals.ts). Used by the share endpoint, the dashboard and later the
  * monthly e-mail and the planner.
  *
- * The queries group entries by (month, use, spread, crop, food), so the rows grow with the variety
- * of what was logged, not with the number of weighings. They go through Drizzle's builder and `sql`
+ * The queries group entries by (month, use, spread, crop, food, preserving method), so the rows
+ * grow with the variety of what was logged, not with the number of weighings; a lot eaten over 2
+ * months or more is grouped by its day instead of its month, because it is spread by day. They go through Drizzle's builder and `sql`
  * templates that name the schema's columns, so a renamed column fails the type check.
  */
-import { and, eq, gte, inArray, isNotNull, isNull, lte, or, sql } from 'drizzle-orm';
+import { and, eq, gte, inArray, isNotNull, isNull, lte, min, or, sql } from 'drizzle-orm';
 import type { Pool } from 'mysql2/promise';
 import { getDb, type Db } from '@/db/client';
 import { crops, datasets, foodNutrients, foods, harvests, purchases, type Household } from '@/db/schema';
 import { ENTRY_LIMITS } from '@/lib/entry-schemas';
-import { addMonths, daysInMonth } from '@/lib/months';
+import { addMonths, daysInMonth, todayIn } from '@/lib/months';
 import { SHARE_NUTRIENTS, type ShareNutrientKey } from '@/lib/nutrients';
 import { needsPerson } from '@/lib/people-schemas';
+import { defaultRecordsSince } from '@/lib/records-start';
 import { foodIdsOf, groupEntry, shareGroups, type FoodAmounts, type GroupRow } from '@/lib/share-groups';
 import type { DatasetRef, ShareResponse } from '@/lib/share-types';
 import { computeShare } from '@/lib/shares';
 import { topCrops } from '@/lib/top-crops';
 import { useTotals } from '@/lib/use-totals';
 import { dbOn } from './db-on';
-import { listPeople, personFields } from './people';
+import { currentMonth, listPeople, personFields } from './people';
+import { loadRetention } from './retention-file';
 
 function lastDay(month: string): string {
   return `${month}-${String(daysInMonth(month)).padStart(2, '0')}`;
@@ -39,13 +42,16 @@ const lookback = (from: string) => `${addMonths(from, -ENTRY_LIMITS.maxSpreadMon
  * or stored/preserved earlier with a spread reaching `from`. Not-food crops never count as food.
  */
 async function harvestGroups(db: Db, householdId: number, from: string, to: string): Promise<GroupRow[]> {
-  const month = sql<string>`DATE_FORMAT(${harvests.date}, '%Y-%m')`;
+  // Lots eaten by day (stored or preserved over 2 months or more) keep their day; the rest their month.
+  const day = sql<string>`CASE WHEN ${harvests.use} IN ('stored', 'preserved') AND ${harvests.spreadMonths} >= 2
+    THEN DATE_FORMAT(${harvests.date}, '%Y-%m-%d') ELSE DATE_FORMAT(${harvests.date}, '%Y-%m-01') END`;
   const spread = sql<number>`GREATEST(${harvests.spreadMonths}, 1)`.mapWith(Number);
-  return db
+  const rows = await db
     .select({
-      month,
+      date: day,
       use: harvests.use,
       spread,
+      preserveMethod: harvests.preserveMethod,
       cropId: harvests.cropId,
       foodId: harvests.foodId,
       name: sql<string | null>`MAX(COALESCE(NULLIF(CONCAT_WS(', ', ${crops.name}, NULLIF(${crops.variety}, '')), ''), ${foods.name}))`,
@@ -67,21 +73,24 @@ async function harvestGroups(db: Db, householdId: number, from: string, to: stri
           gte(harvests.date, `${from}-01`),
           and(
             inArray(harvests.use, ['stored', 'preserved']),
-            sql`PERIOD_DIFF(${period(from)}, DATE_FORMAT(${harvests.date}, '%Y%m')) < ${harvests.spreadMonths}`,
+            // ≤: a lot spread by day from late in a month reaches one month further than its spread.
+            sql`PERIOD_DIFF(${period(from)}, DATE_FORMAT(${harvests.date}, '%Y%m')) <= ${harvests.spreadMonths}`,
           ),
         ),
       ),
     )
-    .groupBy(month, harvests.use, spread, harvests.cropId, harvests.foodId);
+    .groupBy(day, harvests.use, spread, harvests.preserveMethod, harvests.cropId, harvests.foodId);
+  return rows.map((r) => ({ ...r, month: r.date.slice(0, 7) }));
 }
 
 /** Purchase groups whose eating can fall in [from, to] (bought food is always spread). */
 async function purchaseGroups(db: Db, householdId: number, from: string, to: string): Promise<GroupRow[]> {
-  const month = sql<string>`DATE_FORMAT(${purchases.date}, '%Y-%m')`;
+  const day = sql<string>`CASE WHEN ${purchases.spreadMonths} >= 2
+    THEN DATE_FORMAT(${purchases.date}, '%Y-%m-%d') ELSE DATE_FORMAT(${purchases.date}, '%Y-%m-01') END`;
   const spread = sql<number>`GREATEST(${purchases.spreadMonths}, 1)`.mapWith(Number);
   const rows = await db
     .select({
-      month,
+      date: day,
       spread,
       foodId: purchases.foodId,
       grams: sql<number>`SUM(${purchases.grams})`.mapWith(Number),
@@ -94,11 +103,32 @@ async function purchaseGroups(db: Db, householdId: number, from: string, to: str
         eq(purchases.householdId, householdId),
         gte(purchases.date, lookback(from)),
         lte(purchases.date, lastDay(to)),
-        or(gte(purchases.date, `${from}-01`), sql`PERIOD_DIFF(${period(from)}, DATE_FORMAT(${purchases.date}, '%Y%m')) < ${purchases.spreadMonths}`),
+        or(gte(purchases.date, `${from}-01`), sql`PERIOD_DIFF(${period(from)}, DATE_FORMAT(${purchases.date}, '%Y%m')) <= ${purchases.spreadMonths}`),
       ),
     )
-    .groupBy(month, spread, purchases.foodId);
-  return rows.map((r) => ({ month: r.month, use: 'fresh', spread: r.spread, cropId: null, foodId: r.foodId, name: null, grams: r.grams, edibleGrams: r.edibleGrams, entries: r.entries }));
+    .groupBy(day, spread, purchases.foodId);
+  return rows.map((r) => ({
+    month: r.date.slice(0, 7),
+    date: r.date,
+    use: 'fresh',
+    spread: r.spread,
+    cropId: null,
+    foodId: r.foodId,
+    name: null,
+    grams: r.grams,
+    edibleGrams: r.edibleGrams,
+    entries: r.entries,
+  }));
+}
+
+/** The date of the household's first harvest or purchase, or null when it has logged nothing. */
+async function firstEntryDate(db: Db, householdId: number): Promise<string | null> {
+  const [[h], [p]] = await Promise.all([
+    db.select({ d: min(harvests.date) }).from(harvests).where(eq(harvests.householdId, householdId)),
+    db.select({ d: min(purchases.date) }).from(purchases).where(eq(purchases.householdId, householdId)),
+  ]);
+  const dates = [h?.d, p?.d].filter((d): d is string => typeof d === 'string');
+  return dates.length === 0 ? null : dates.sort()[0]!;
 }
 
 /**
@@ -131,24 +161,40 @@ async function datasetsOf(db: Db, foodIds: readonly number[]): Promise<DatasetRe
     .orderBy(datasets.slug);
 }
 
+/** What the report needs of a household: its id, zone (for "now"), creation and records start. */
+export type ShareHousehold = Pick<Household, 'id' | 'timezone' | 'createdAt' | 'recordsSince'>;
+
 /**
  * The share report of a household for [from, to] ('YYYY-MM', at most 120 months): per month and
- * nutrient home, bought, need and shares, totals, the FAO ratio, top crops and the harvest's uses.
+ * nutrient home, bought, need and shares, totals, the headline over the year so far, the FAO
+ * ratio, top crops and the harvest's uses. Months before the records start (the household's
+ * `recordsSince`, else the earlier of its creation month and its first entry's month) are not
+ * charged; "now" is the household's time zone's.
  * `pool` is for callers with their own pool (the benchmark); the app's shared client otherwise.
  * Throws RangeError when the range or a person's data cannot be computed.
  */
-export async function householdShare(household: Pick<Household, 'id'>, from: string, to: string, pool?: Pool): Promise<ShareResponse> {
+export async function householdShare(household: ShareHousehold, from: string, to: string, pool?: Pool, now: Date = new Date()): Promise<ShareResponse> {
   const db = pool ? dbOn(pool) : getDb();
-  const [home, bought, rows] = await Promise.all([
+  const [home, bought, rows, first] = await Promise.all([
     harvestGroups(db, household.id, from, to),
     purchaseGroups(db, household.id, from, to),
     listPeople(household.id),
+    household.recordsSince ? Promise.resolve(null) : firstEntryDate(db, household.id),
   ]);
   const ids = foodIdsOf([...home, ...bought]);
   const [amounts, sources] = await Promise.all([foodAmounts(db, ids), datasetsOf(db, ids)]);
-  const groups = shareGroups(home, bought, amounts);
+  const groups = shareGroups(home, bought, amounts, loadRetention());
   const people = rows.map((r) => needsPerson(personFields(r)));
-  const report = computeShare({ from, to, entries: groups.map(groupEntry), people, nutrients: SHARE_NUTRIENTS });
+  const recordsSince = household.recordsSince ?? defaultRecordsSince(todayIn(household.timezone, household.createdAt), first);
+  const report = computeShare({
+    from,
+    to,
+    entries: groups.map(groupEntry),
+    people,
+    nutrients: SHARE_NUTRIENTS,
+    recordsSince,
+    currentMonth: currentMonth(household.timezone, now),
+  });
   return {
     ...report,
     topCrops: topCrops(groups, from, to),

@@ -27,7 +27,7 @@ test('a grower adds a person, is told beside the field what is missing, and chan
   const birthYear = page.getByLabel('Birth year', { exact: true });
   await expect(birthYear).toHaveAttribute('aria-invalid', 'true');
   await expect(birthYear).toBeFocused();
-  await expect(page.getByText('Give the age in years or the birth year.')).toBeVisible();
+  await expect(page.getByText('Give the age in years, the birth year or the birth month.')).toBeVisible();
 
   await birthYear.fill('1990');
   await page.getByLabel('Energy need, kcal a day (optional)').fill('2000');

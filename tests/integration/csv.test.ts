@@ -161,7 +161,7 @@ describe('exports', () => {
     // A UTF-8 byte-order mark first, so spreadsheet programs read accents right.
     expect([...bytes.slice(0, 3)]).toEqual([0xef, 0xbb, 0xbf]);
     const csv = new TextDecoder('utf-8', { ignoreBOM: true }).decode(bytes);
-    expect(csv.startsWith('\uFEFFdate,crop,variety,food_code,quantity,unit,use,spread_months,trimmed,note\r\n')).toBe(true);
+    expect(csv.startsWith('\uFEFFdate,crop,variety,food_code,quantity,unit,use,spread_months,preserve_method,trimmed,note\r\n')).toBe(true);
 
     const copy = await createHousehold(t.owner.cookie, { name: 'Copy plot' });
     const crops = (await apiAs(t.owner.cookie, 'GET', `/api/households/${hid}/crops?includeArchived=1`)).body.crops;
@@ -198,8 +198,8 @@ describe('exports', () => {
     expect(crops.body).toContain('Potato,Charlotte,root_tuber,11352,');
     const people = await api(`/api/households/${hid}/exports/people.csv`, { headers: { cookie: t.owner.cookie } });
     expect(people.body.split('\r\n').slice(0, 2)).toEqual([
-      'name,sex,age_years,birth_year,height_cm,weight_kg,activity,condition,kcal_per_day,at_home_pct,present_from,present_to',
-      'Ana,female,,1988,,,active,none,,85,,',
+      'name,sex,age_years,birth_year,height_cm,weight_kg,activity,condition,kcal_per_day,at_home_pct,present_from,present_to,birth_month,pregnancy_due_month,lactation_from,lactation_to,fed_from_household,diet',
+      'Ana,female,,1988,,,active,none,,85,,,,,,,false,omnivore',
     ]);
     const backup = await api(`/api/households/${hid}/exports/backup.json`, { headers: { cookie: t.viewer.cookie } });
     expect(backup.status).toBe(200);

@@ -86,6 +86,43 @@ describe('logging a harvest', () => {
   });
 });
 
+/** A day two days after today's UTC date: after today in every time zone (UTC−12 to UTC+14). */
+function inTwoDays(): string {
+  return new Date(Date.now() + 2 * 86_400_000).toISOString().slice(0, 10);
+}
+
+describe('preserved harvests', () => {
+  it('stores the preserving method of a preserved harvest, lets a PATCH change it, and drops it when the use changes', async () => {
+    const h = await logHarvest(t.owner.cookie, hid, { date: '2026-08-02', cropId: butternut.id, quantity: 3, unit: 'kg', use: 'preserved', spreadMonths: 6, preserveMethod: 'canned' });
+    expect(h).toMatchObject({ use: 'preserved', preserveMethod: 'canned', spreadMonths: 6 });
+    const fresh = await logHarvest(t.owner.cookie, hid, { date: '2026-08-02', cropId: butternut.id, quantity: 1, unit: 'kg' });
+    expect(fresh.preserveMethod).toBeNull();
+    const path = `/api/households/${hid}/harvests/${h.id}`;
+    const dried = await apiAs(t.owner.cookie, 'PATCH', path, { preserveMethod: 'dried' });
+    expect(dried.status).toBe(200);
+    expect(dried.body.harvest.preserveMethod).toBe('dried');
+    expect((await apiAs(t.owner.cookie, 'GET', path)).body.harvest.preserveMethod).toBe('dried');
+    const stored = await apiAs(t.owner.cookie, 'PATCH', path, { use: 'stored' });
+    expect(stored.body.harvest).toMatchObject({ use: 'stored', preserveMethod: null });
+    const refused = await apiAs(t.owner.cookie, 'PATCH', path, { preserveMethod: 'frozen' });
+    expect(refused.status).toBe(400);
+    expect(refused.body.error.fields.preserveMethod).toMatch(/Only preserved food/);
+    const back = await apiAs(t.owner.cookie, 'PATCH', path, { use: 'preserved', preserveMethod: 'fermented' });
+    expect(back.body.harvest).toMatchObject({ use: 'preserved', preserveMethod: 'fermented' });
+  });
+
+  it('refuses a date after today on a split weighing and on a change, keeping the entry as it was', async () => {
+    const split = await apiAs(t.owner.cookie, 'POST', url(), { date: inTwoDays(), cropId: potato.id, unit: 'kg', parts: [{ quantity: 1, use: 'fresh' }] });
+    expect(split.status).toBe(400);
+    expect(split.body.error.fields.date).toMatch(/after today/);
+    const h = await logHarvest(t.owner.cookie, hid, { date: '2026-08-03', cropId: potato.id, quantity: 1, unit: 'kg' });
+    const r = await apiAs(t.owner.cookie, 'PATCH', url(`/${h.id}`), { date: inTwoDays() });
+    expect(r.status).toBe(400);
+    expect(r.body.error.fields.date).toMatch(/after today/);
+    expect((await apiAs(t.owner.cookie, 'GET', url(`/${h.id}`))).body.harvest.date).toBe('2026-08-03');
+  });
+});
+
 describe('bad harvest input', () => {
   const base = () => ({ date: '2026-07-14', cropId: potato.id, quantity: 1, unit: 'kg' });
   it.each([
@@ -96,6 +133,9 @@ describe('bad harvest input', () => {
     ['a spread over 24 months', { use: 'stored', spreadMonths: 25 }, 'spreadMonths'],
     ['a spread of 0 months', { use: 'stored', spreadMonths: 0 }, 'spreadMonths'],
     ['an unknown use', { use: 'eaten' }, 'use'],
+    ['a preserving method on fresh food', { preserveMethod: 'frozen' }, 'preserveMethod'],
+    ['an unknown preserving method', { use: 'preserved', preserveMethod: 'pickled' }, 'preserveMethod'],
+    ['a date after today in the household’s zone', { date: inTwoDays() }, 'date'],
   ])('answers 400 naming the field for %s', async (_what, change, field) => {
     const before = (await allHarvests(t.owner.cookie, hid)).total;
     const r = await apiAs(t.owner.cookie, 'POST', url(), { ...base(), ...change });

@@ -64,6 +64,22 @@ describe('households', () => {
     expect(r.body.household).toMatchObject({ name: 'Renamed plot', units: 'us', yearStartMonth: 4 });
   });
 
+  it('lets the owner set the month records start, not after the current month, and clear it back to the default', async () => {
+    const u = await newVerifiedUser();
+    const h = await createHousehold(u.cookie, { timezone: 'UTC' });
+    expect((await apiAs(u.cookie, 'GET', `/api/households/${h.id}`)).body.household.recordsSince).toBeNull();
+    const set = await apiAs(u.cookie, 'PATCH', `/api/households/${h.id}`, { recordsSince: '2026-03' });
+    expect(set.status).toBe(200);
+    expect(set.body.household.recordsSince).toBe('2026-03');
+    for (const bad of ['2026-13', 'March', '1850-01', '2199-12']) {
+      const r = await apiAs(u.cookie, 'PATCH', `/api/households/${h.id}`, { recordsSince: bad });
+      expect(r.status, bad).toBe(400);
+      expect(Object.keys(r.body.error.fields), bad).toContain('recordsSince');
+    }
+    const cleared = await apiAs(u.cookie, 'PATCH', `/api/households/${h.id}`, { recordsSince: null });
+    expect(cleared.body.household.recordsSince).toBeNull();
+  });
+
   it('answers 401 JSON to a signed-out caller and sends signed-out page views to sign-in', async () => {
     const r = await api('/api/households');
     expect(r.status).toBe(401);

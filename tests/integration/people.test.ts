@@ -103,3 +103,74 @@ describe('people API', () => {
     expect((await apiAs(t.owner.cookie, 'DELETE', `${base()}/${tomas.id}`)).status).toBe(404);
   });
 });
+
+describe('people API: dated people, babies and diet (issue 9)', () => {
+  let hid: number;
+  const at = () => `/api/households/${hid}/people`;
+  // The month n months from now, 'YYYY-MM' (UTC: a household in another zone may be a month off at a
+  // month's edge, which none of the checks below depend on).
+  const monthFromNow = (n: number) => {
+    const d = new Date();
+    const m = new Date(Date.UTC(d.getUTCFullYear(), d.getUTCMonth() + n, 1));
+    return m.toISOString().slice(0, 7);
+  };
+
+  beforeAll(async () => {
+    hid = (await createHousehold(t.owner.cookie, { name: 'Dated people plot' })).id;
+  });
+
+  it('stores a baby by birth month; under 6 months and not fed from the household, they count no energy', async () => {
+    const r = await apiAs(t.owner.cookie, 'POST', at(), { name: 'Mo', sex: 'male', birthMonth: monthFromNow(-2) });
+    expect(r.status).toBe(201);
+    expect(r.body.person).toMatchObject({ birthMonth: monthFromNow(-2), ageYears: null, birthYear: null, fedFromHousehold: false, diet: 'omnivore' });
+    expect(r.body.person.energy.atHomeKcalPerDay).toBe(0);
+    const fed = await apiAs(t.owner.cookie, 'PATCH', `${at()}/${r.body.person.id}`, { fedFromHousehold: true });
+    expect(fed.status).toBe(200);
+    expect(fed.body.person.fedFromHousehold).toBe(true);
+    expect(fed.body.person.energy.atHomeKcalPerDay).toBeGreaterThan(0);
+  });
+
+  it('stores a dated pregnancy and breastfeeding, and the energy follows the trimester of this month', async () => {
+    const r = await apiAs(t.owner.cookie, 'POST', at(), { name: 'Ida', sex: 'female', ageYears: 31, heightCm: 165, weightKg: 60, diet: 'vegetarian' });
+    expect(r.status).toBe(201);
+    const before = r.body.person.energy.kcalPerDay;
+    const due = monthFromNow(1);
+    const p = await apiAs(t.owner.cookie, 'PATCH', `${at()}/${r.body.person.id}`, { pregnancyDueMonth: due, lactationFrom: due, lactationTo: monthFromNow(10) });
+    expect(p.status).toBe(200);
+    expect(p.body.person).toMatchObject({ pregnancyDueMonth: due, lactationFrom: due, lactationTo: monthFromNow(10), diet: 'vegetarian', condition: 'none' });
+    // IOM 2005 EER, pregnancy: + 452 kcal/day in the third trimester (the due month and the two before it)
+    expect(p.body.person.energy.kcalPerDay - before).toBeCloseTo(452, 6);
+    const again = await apiAs(t.owner.cookie, 'GET', `${at()}/${r.body.person.id}`);
+    expect(again.body.person.lactationTo).toBe(monthFromNow(10));
+  });
+
+  it('refuses two ages, pregnancy for a male person, breastfeeding ending before it begins and unknown diets (400 with the fields)', async () => {
+    const two = await apiAs(t.owner.cookie, 'POST', at(), { name: 'X', sex: 'male', birthMonth: '2020-05', ageYears: 6 });
+    expect(two.status).toBe(400);
+    expect(two.body.error.fields).toHaveProperty('birthMonth');
+    const male = await apiAs(t.owner.cookie, 'POST', at(), { name: 'X', sex: 'male', ageYears: 30, pregnancyDueMonth: '2027-01' });
+    expect(male.status).toBe(400);
+    expect(male.body.error.fields).toHaveProperty('pregnancyDueMonth');
+    const order = await apiAs(t.owner.cookie, 'POST', at(), { name: 'X', sex: 'female', ageYears: 30, lactationFrom: '2027-05', lactationTo: '2027-01' });
+    expect(order.status).toBe(400);
+    expect(order.body.error.fields).toHaveProperty('lactationTo');
+    const bad = await apiAs(t.owner.cookie, 'POST', at(), { name: 'X', sex: 'female', diet: 'vegan', birthMonth: '2027-13' });
+    expect(bad.status).toBe(400);
+    expect(Object.keys(bad.body.error.fields)).toEqual(expect.arrayContaining(['diet', 'birthMonth']));
+    const names = (await apiAs(t.owner.cookie, 'GET', at())).body.people.map((p: { name: string }) => p.name);
+    expect(names).toEqual(['Ida', 'Mo']);
+  });
+
+  it('checks a patch against the stored person: a birth month beside the age, or the condition flag beside dated months, is 400', async () => {
+    const ida = (await apiAs(t.owner.cookie, 'GET', at())).body.people.find((p: { name: string }) => p.name === 'Ida');
+    const age = await apiAs(t.owner.cookie, 'PATCH', `${at()}/${ida.id}`, { birthMonth: '1995-04' });
+    expect(age.status).toBe(400);
+    expect(age.body.error.fields).toHaveProperty('birthMonth');
+    const flag = await apiAs(t.owner.cookie, 'PATCH', `${at()}/${ida.id}`, { condition: 'pregnancy' });
+    expect(flag.status).toBe(400);
+    expect(flag.body.error.fields).toHaveProperty('condition');
+    const ok = await apiAs(t.owner.cookie, 'PATCH', `${at()}/${ida.id}`, { ageYears: null, birthMonth: '1995-04', pregnancyDueMonth: null, lactationFrom: null, lactationTo: null });
+    expect(ok.status).toBe(200);
+    expect(ok.body.person).toMatchObject({ ageYears: null, birthMonth: '1995-04', pregnancyDueMonth: null, lactationFrom: null, lactationTo: null });
+  });
+});

@@ -71,18 +71,18 @@ beforeAll(async () => {
   crop.sweetPea = await insertCrop(A, 'Sweet pea', potato.id, true);
 
   E = {
-    potStored: edible(40_000, potato), // 2026-11-05, stored over 4 months: Nov, Dec, Jan, Feb
+    potStored: edible(40_000, potato), // 2026-11-05, stored over 4 months: per day from 5 Nov to 4 Mar (see DAYS)
     kale: edible(2_000, kale), // 2027-06-10 fresh
     currant: edible(3_000, currant), // 2027-07-15 fresh
     potFresh: edible(5_000, potato), // 2027-08-01 fresh
     tomato: edible(4_000, tomato), // 2027-08-20 fresh, logged against the reference food directly
-    squashStored: edible(9_000, squash), // 2027-09-20 stored over 5 months: Sep … Jan 2028
+    squashStored: edible(9_000, squash), // 2027-09-20 stored over 5 months: per day from 20 Sep to 19 Feb 2028
     potSold: edible(10_000, potato), // 2027-09-10 sold
     potSeed: edible(2_000, potato), // 2027-09-15 kept as seed
     potLost: edible(1_000, potato), // 2027-09-15 lost
     squashGiven: edible(3_000, squash), // 2027-10-01 given away
-    squashPreserved: edible(4_000, squash), // 2027-10-05 preserved over 2 months: Oct, Nov
-    flour: edible(25_000, flour), // bought 2026-12-20, spread over 6 months: Dec … May
+    squashPreserved: edible(4_000, squash), // 2027-10-05 preserved over 2 months: per day from 5 Oct to 4 Dec
+    flour: edible(25_000, flour), // bought 2026-12-20, spread over 6 months: per day from 20 Dec to 19 Jun
     milk: edible(30_000, milk), // bought 2027-07-01, one month
   };
   const H = (cropId: number | null, f: Food, date: string, grams: number, use: string, spread = 1) =>
@@ -129,6 +129,19 @@ afterAll(async () => {
 
 const share = (cookie: string, id: number, q = '') => apiAs(cookie, 'GET', `/api/households/${id}/share${q}`);
 
+// Issue 9: a lot kept 2 months or more is eaten evenly per day from its date (included) to the same
+// date n months later (excluded), date-fns addMonths; days counted by hand from the calendar.
+const DAYS = {
+  // potatoes stored 5 Nov 2026 for 4 months, to 5 Mar 2027: Nov 5–30 = 26, Dec 31, Jan 31, Feb 28, Mar 1–4 = 4
+  potStored: { total: 120, nov: 26, dec: 31, jan: 31, feb: 28, mar: 4 },
+  // flour bought 20 Dec 2026 for 6 months, to 20 Jun 2027: Dec 20–31 = 12, Jan 31, Feb 28, Mar 31, Apr 30, May 31, Jun 1–19 = 19
+  flour: { total: 182, dec: 12, jan: 31, may: 31, jun: 19, in2027: 31 + 28 + 31 + 30 + 31 + 19 },
+  // squash stored 20 Sep 2027 for 5 months, to 20 Feb 2028: Sep 20–30 = 11, Oct 31, Nov 30, Dec 31, Jan 31, Feb 1–19 = 19
+  squashStored: { total: 153, sep: 11, oct: 31, nov: 30, dec: 31 },
+  // squash preserved 5 Oct 2027 for 2 months, to 5 Dec 2027: Oct 5–31 = 27, Nov 30, Dec 1–4 = 4
+  squashPreserved: { total: 61, oct: 27, nov: 30, dec: 4 },
+};
+
 describe('reference values the hand calculation rests on', () => {
   it('reads the SR28 foods as published', () => {
     // USDA SR28, NDB 11352 "Potatoes, flesh and skin, raw": 77 kcal, 2.05 g protein, 19.7 mg vitamin C, 25 % refuse per 100 g
@@ -154,8 +167,9 @@ describe('GET /api/households/{id}/share', () => {
   // EER men ≥19 y = 662 − 9.53 × age + PA × (15.91 × kg + 539.6 × m), PA "active" = 1.25 (IOM 2005, ch. 5)
   const bramEer = 662 - 9.53 * 42 + 1.25 * (15.91 * 80 + 539.6 * 1.8); // age 2027 − 1985 = 42; = 3066.84 kcal
   const kcalDay = 2000 + bramEer * 0.5; // Ada stated 2000; Cleo (1800 stated) only when present
-  // RDA protein: women 19–30 and 31–50 y 46 g, men 31–50 y 56 g (National Academies DRI, Macronutrients table)
-  const proteinDay = 46 + 56 * 0.5;
+  // RDA protein: women 19–30 and 31–50 y 46 g (National Academies DRI, Macronutrients table; Ada and Cleo give no weight);
+  // Bram gives 80 kg: 0.80 g/kg/day from 19 y × 80 kg = 64 g (IOM 2005 DRI for macronutrients, ch. 10), half at home
+  const proteinDay = 46 + 0.8 * 80 * 0.5;
   // RDA vitamin C: women ≥19 y 75 mg, men ≥19 y 90 mg (National Academies DRI, Vitamins table)
   const vitCDay = 75 + 90 * 0.5;
   // AI vitamin K: women ≥19 y 90 µg, men ≥19 y 120 µg (National Academies DRI, Vitamins table)
@@ -184,35 +198,44 @@ describe('GET /api/households/{id}/share', () => {
     expect(body.peopleCount).toBe(3);
   });
 
-  it('counts potatoes stored in November in January and February, beside the bulk flour of December', () => {
+  it('counts potatoes stored in November per day into January, February and early March, beside the bulk flour of December', () => {
     const jan = month('2027-01');
-    const homeKcal = (E.potStored! / 4 / 100) * 77; // 4-month spread: a quarter per month
-    const boughtKcal = (E.flour! / 6 / 100) * 340; // 6-month spread
+    const D = DAYS.potStored;
+    const homeKcal = ((E.potStored! * D.jan) / D.total / 100) * 77; // 31 of the lot's 120 days
+    const boughtKcal = ((E.flour! * DAYS.flour.jan) / DAYS.flour.total / 100) * 340; // 31 of the flour's 182 days
     expect(jan.energy_kcal.home).toBeCloseTo(homeKcal, 6);
-    expect(jan.energy_kcal.home).toBeCloseTo(5775, 6);
+    // 30,000 g edible (40 kg × 0.75) × 31/120 = 7750 g × 77 kcal/100 g (USDA SR28, NDB 11352) = 5967.5 kcal
+    expect(jan.energy_kcal.home).toBeCloseTo(5967.5, 6);
     expect(jan.energy_kcal.bought).toBeCloseTo(boughtKcal, 6);
     expect(jan.energy_kcal.need).toBeCloseTo(31 * kcalDay, 6);
     expect(jan.energy_kcal.shareOfIntake).toBeCloseTo(homeKcal / (homeKcal + boughtKcal), 10);
     expect(jan.energy_kcal.shareOfNeed).toBeCloseTo(homeKcal / (31 * kcalDay), 10);
-    expect(jan.protein_g.home).toBeCloseTo((E.potStored! / 4 / 100) * 2.05, 6);
+    expect(jan.protein_g.home).toBeCloseTo(((E.potStored! * D.jan) / D.total / 100) * 2.05, 6);
     expect(jan.protein_g.need).toBeCloseTo(31 * proteinDay, 6);
     expect(month('2027-02').energy_kcal.need).toBeCloseTo(28 * kcalDay, 6);
-    expect(month('2027-02').energy_kcal.home).toBeCloseTo(5775, 6);
-    // The potatoes' last month was February; flour runs out after May.
-    expect(month('2027-03').energy_kcal.home).toBe(0);
-    expect(month('2027-05').energy_kcal.bought).toBeCloseTo(boughtKcal, 6);
-    expect(month('2027-06').energy_kcal.bought).toBe(0);
+    // 30,000 g × 28/120 = 7000 g × 0.77 kcal/g (USDA SR28, NDB 11352) = 5390 kcal
+    expect(month('2027-02').energy_kcal.home).toBeCloseTo(5390, 6);
+    // The potatoes' last days are 1–4 March: 30,000 g × 4/120 = 1000 g × 0.77 = 770 kcal; none in April.
+    expect(month('2027-03').energy_kcal.home).toBeCloseTo(770, 6);
+    expect(month('2027-04').energy_kcal.home).toBe(0);
+    // Flour runs to 19 June.
+    expect(month('2027-05').energy_kcal.bought).toBeCloseTo(((E.flour! * DAYS.flour.may) / DAYS.flour.total / 100) * 340, 6);
+    expect(month('2027-06').energy_kcal.bought).toBeCloseTo(((E.flour! * DAYS.flour.jun) / DAYS.flour.total / 100) * 340, 6);
+    expect(month('2027-07').energy_kcal.bought).toBeCloseTo((E.milk! / 100) * 61, 6); // the milk only (USDA SR28, NDB 01077)
   });
 
   it('gives a known zero share when nothing home-grown was eaten, and a full share when nothing was bought', () => {
-    const mar = month('2027-03').energy_kcal;
-    expect(mar.shareOfIntake).toBe(0);
-    expect(mar.shareOfNeed).toBe(0);
+    const apr = month('2027-04').energy_kcal; // only flour in April
+    expect(apr.shareOfIntake).toBe(0);
+    expect(apr.shareOfNeed).toBe(0);
     const jun = month('2027-06');
-    expect(jun.energy_kcal.home).toBeCloseTo((E.kale! / 100) * 49, 6);
-    expect(jun.energy_kcal.shareOfIntake).toBe(1);
+    const kaleKcal = (E.kale! / 100) * 49; // USDA SR28, NDB 11233: 49 kcal/100 g
+    const flourKcal = ((E.flour! * DAYS.flour.jun) / DAYS.flour.total / 100) * 340; // USDA SR28, NDB 20080: 340 kcal/100 g
+    expect(jun.energy_kcal.home).toBeCloseTo(kaleKcal, 6);
+    expect(jun.energy_kcal.shareOfIntake).toBeCloseTo(kaleKcal / (kaleKcal + flourKcal), 10);
     expect(jun.vitamin_c_mg.home).toBeCloseTo((E.kale! / 100) * 120, 6);
     expect(jun.vitamin_c_mg.shareOfNeed).toBeCloseTo(((E.kale! / 100) * 120) / (30 * vitCDay), 10);
+    expect(month('2027-09').energy_kcal.shareOfIntake).toBe(1); // stored squash, nothing bought
   });
 
   it('counts a guest only on the days present, and leaves an unknown value unknown, never zero', () => {
@@ -237,21 +260,32 @@ describe('GET /api/households/{id}/share', () => {
     expect(aug.shareOfIntake).toBe(1);
   });
 
-  it('spreads stored and preserved squash over their months and never eats seed, sales, gifts or losses', () => {
-    const perMonthStored = E.squashStored! / 5;
-    const perMonthPreserved = E.squashPreserved! / 2;
-    expect(month('2027-09').energy_kcal.home).toBeCloseTo((perMonthStored / 100) * 45, 6);
-    expect(month('2027-10').energy_kcal.home).toBeCloseTo(((perMonthStored + perMonthPreserved) / 100) * 45, 6);
-    expect(month('2027-11').energy_kcal.home).toBeCloseTo(((perMonthStored + perMonthPreserved) / 100) * 45, 6);
-    expect(month('2027-12').energy_kcal.home).toBeCloseTo((perMonthStored / 100) * 45, 6);
-    expect(month('2027-12').vitamin_c_mg.home).toBeCloseTo((perMonthStored / 100) * 21, 6);
+  it('spreads stored and preserved squash over their days and never eats seed, sales, gifts or losses', () => {
+    const S = DAYS.squashStored;
+    const P = DAYS.squashPreserved;
+    const stored = (days: number) => (E.squashStored! * days) / S.total;
+    const preserved = (days: number) => (E.squashPreserved! * days) / P.total;
+    // USDA SR28, NDB 11485 butternut: 45 kcal and 21 mg vitamin C per 100 g
+    expect(month('2027-09').energy_kcal.home).toBeCloseTo((stored(S.sep) / 100) * 45, 6);
+    expect(month('2027-10').energy_kcal.home).toBeCloseTo(((stored(S.oct) + preserved(P.oct)) / 100) * 45, 6);
+    expect(month('2027-11').energy_kcal.home).toBeCloseTo(((stored(S.nov) + preserved(P.nov)) / 100) * 45, 6);
+    expect(month('2027-12').energy_kcal.home).toBeCloseTo(((stored(S.dec) + preserved(P.dec)) / 100) * 45, 6);
+    expect(month('2027-12').vitamin_c_mg.home).toBeCloseTo(((stored(S.dec) + preserved(P.dec)) / 100) * 21, 6);
   });
 
   it('totals the year and gives the FAO self-sufficiency ratio of the year’s flows', () => {
     const k = (grams: number, per100: number) => (grams / 100) * per100;
+    const P = DAYS.potStored;
+    const S = DAYS.squashStored;
+    // 2027's days of each lot: potatoes Jan–4 Mar (31 + 28 + 4 of 120), squash 20 Sep–31 Dec (103 of 153), the preserved squash all 61, flour to 19 Jun (170 of 182)
     const homeKcal =
-      2 * k(E.potStored! / 4, 77) + k(E.kale!, 49) + k(E.currant!, 63) + k(E.potFresh!, 77) + k(E.tomato!, 18) + k((E.squashStored! * 4) / 5 + E.squashPreserved!, 45);
-    const boughtKcal = 5 * k(E.flour! / 6, 340) + k(E.milk!, 61);
+      k((E.potStored! * (P.jan + P.feb + P.mar)) / P.total, 77) +
+      k(E.kale!, 49) +
+      k(E.currant!, 63) +
+      k(E.potFresh!, 77) +
+      k(E.tomato!, 18) +
+      k((E.squashStored! * (S.sep + S.oct + S.nov + S.dec)) / S.total + E.squashPreserved!, 45);
+    const boughtKcal = k((E.flour! * DAYS.flour.in2027) / DAYS.flour.total, 340) + k(E.milk!, 61);
     const needKcal = 365 * kcalDay + 42 * 1800;
     const tot = body.total.values.energy_kcal;
     expect(tot.home).toBeCloseTo(homeKcal, 5);
@@ -273,7 +307,9 @@ describe('GET /api/households/{id}/share', () => {
     const byName = Object.fromEntries(body.topCrops.map((c: { name: string }) => [c.name, c]));
     expect(body.topCrops[0].name).toBe('Potato');
     expect(byName.Potato.cropId).toBe(crop.potato);
-    expect(byName.Potato.values.energy_kcal).toBeCloseTo(((2 * E.potStored!) / 4 / 100) * 77 + (E.potFresh! / 100) * 77, 6);
+    // the stored lot's 63 days of 2027 (Jan 31 + Feb 28 + Mar 4 of 120) and the fresh potatoes; USDA SR28, NDB 11352: 77 kcal/100 g
+    const potDays = DAYS.potStored.jan + DAYS.potStored.feb + DAYS.potStored.mar;
+    expect(byName.Potato.values.energy_kcal).toBeCloseTo(((E.potStored! * potDays) / DAYS.potStored.total / 100) * 77 + (E.potFresh! / 100) * 77, 6);
     // Vitamin C: 2940 g of blackcurrants × 181 mg beat 18,750 g of potatoes × 19.7 mg
     const vitC = [...body.topCrops].sort((a: any, b: any) => (b.values.vitamin_c_mg ?? 0) - (a.values.vitamin_c_mg ?? 0));
     expect(vitC[0].name).toBe('Blackcurrant');
@@ -301,8 +337,8 @@ describe('GET /api/households/{id}/share', () => {
     return share(t.owner.cookie, t.household.id, '?from=2026-11&to=2026-12').then((r) => {
       expect(r.status).toBe(200);
       const dec = r.body.months[1].values.energy_kcal;
-      expect(dec.home).toBeCloseTo((E.potStored! / 4 / 100) * 77, 6);
-      expect(dec.bought).toBeCloseTo((E.flour! / 6 / 100) * 340, 6);
+      expect(dec.home).toBeCloseTo(((E.potStored! * DAYS.potStored.dec) / DAYS.potStored.total / 100) * 77, 6); // 31 of 120 days
+      expect(dec.bought).toBeCloseTo(((E.flour! * DAYS.flour.dec) / DAYS.flour.total / 100) * 340, 6); // 20–31 Dec: 12 of 182 days
       // Only Ada and Bram; Cleo comes in 2027. December 2026: Bram is 2026 − 1985 = 41
       const bram41 = 662 - 9.53 * 41 + 1.25 * (15.91 * 80 + 539.6 * 1.8); // IOM 2005 EER, men ≥19 y, PA 1.25
       expect(dec.need).toBeCloseTo(31 * (2000 + bram41 * 0.5), 6);
@@ -313,8 +349,8 @@ describe('GET /api/households/{id}/share', () => {
 describe('share: isolation, roles and bad input', () => {
   it('never lets another household’s entries or people into the report', async () => {
     const r = await share(t.owner.cookie, t.household.id, '?from=2027-01&to=2027-01');
-    expect(r.body.months[0].values.energy_kcal.home).toBeCloseTo(5775, 6); // not + 75,000 g of B's potatoes
-    expect(r.body.months[0].values.energy_kcal.bought).toBeCloseTo((25_000 / 6 / 100) * 340, 6); // not + B's 10 kg of flour
+    expect(r.body.months[0].values.energy_kcal.home).toBeCloseTo(5967.5, 6); // 31/120 of A's stored potatoes, not + 75,000 g of B's potatoes
+    expect(r.body.months[0].values.energy_kcal.bought).toBeCloseTo(((25_000 * 31) / 182 / 100) * 340, 6); // not + B's 10 kg of flour
     expect(r.body.peopleCount).toBe(3);
     const b = await share(other.owner.cookie, other.householdId, '?from=2027-01&to=2027-01');
     expect(b.body.months[0].values.energy_kcal.home).toBeCloseTo((75_000 / 100) * 77, 6);

@@ -84,6 +84,18 @@ describe('exporting harvests', () => {
     expect(csv).toContain(`"'=SUM(A1:A9) is not a formula"`);
     expect(csv).toContain(`"'-5 °C frost; 'quoted'"`);
   });
+  it('writes and reads back the preserving method of a preserved harvest', () => {
+    const frozen = harvestInput.parse({ date: '2026-08-10', cropId: 3, quantity: 4, unit: 'kg', use: 'preserved', spreadMonths: 6, preserveMethod: 'frozen' });
+    const csv = harvestsToCsv([harvestRecord(frozen, lookups)], { bom: false });
+    expect(csv.split('\r\n')[1]).toContain(',preserved,6,frozen,');
+    const result = importHarvestCsv(csv, resolvers);
+    expect(result.errors).toEqual([]);
+    expect(result.inputs[0]!.input).toEqual(frozen);
+  });
+  it('refuses a preserving method on a harvest that is not preserved, on its column', () => {
+    const result = importHarvestCsv('date,crop,quantity,unit,use,preserve_method\n2026-08-10,Runner bean,1,kg,fresh,canned', resolvers);
+    expect(result.errors).toEqual([expect.objectContaining({ row: 2, column: 'preserve_method' })]);
+  });
   it('refuses an entry whose crop is missing', () => {
     expect(() => harvestRecord({ ...harvests[0]!, cropId: 99 }, lookups)).toThrow(/crop 99, which was not found/);
   });
@@ -135,7 +147,13 @@ describe('exporting crops and people', () => {
   });
   it('writes one row per person', () => {
     const csv = peopleToCsv([{ name: 'Ana Núñez', sex: 'female', birthYear: 1988, activity: 'active', atHomePct: 85, presentFrom: '2026-05-01' }], { bom: false });
-    expect(csv.split('\r\n')[0]).toBe('name,sex,age_years,birth_year,height_cm,weight_kg,activity,condition,kcal_per_day,at_home_pct,present_from,present_to');
-    expect(csv.split('\r\n')[1]).toBe('Ana Núñez,female,,1988,,,active,,,85,2026-05-01,');
+    expect(csv.split('\r\n')[0]).toBe(
+      'name,sex,age_years,birth_year,height_cm,weight_kg,activity,condition,kcal_per_day,at_home_pct,present_from,present_to,birth_month,pregnancy_due_month,lactation_from,lactation_to,fed_from_household,diet',
+    );
+    expect(csv.split('\r\n')[1]).toBe('Ana Núñez,female,,1988,,,active,,,85,2026-05-01,,,,,,,');
+  });
+  it('writes the dated months, the feeding of a baby and the diet', () => {
+    const csv = peopleToCsv([{ name: 'Mo', sex: 'male', birthMonth: '2026-09', fedFromHousehold: true, diet: 'vegetarian' }], { bom: false });
+    expect(csv.split('\r\n')[1]).toBe('Mo,male,,,,,,,,,,,2026-09,,,,true,vegetarian');
   });
 });

@@ -48,6 +48,40 @@ describe('personInput', () => {
     expect(fieldsOf(personInput.safeParse({ name: 'A', sex: 'male', ageYears: 28, condition: 'lactation' }))).toHaveProperty('condition');
   });
 
+  it('takes a birth month instead of an age, alone: with an age or a birth year it is refused', () => {
+    const baby = personInput.parse({ name: 'Mo', sex: 'male', birthMonth: '2026-09' });
+    expect(baby).toMatchObject({ birthMonth: '2026-09', ageYears: null, birthYear: null, fedFromHousehold: false, diet: 'omnivore' });
+    expect(fieldsOf(personInput.safeParse({ name: 'Mo', sex: 'male', birthMonth: '2026-09', ageYears: 0.2 }))).toHaveProperty('birthMonth');
+    expect(fieldsOf(personInput.safeParse({ name: 'Mo', sex: 'male', birthMonth: '2026-09', birthYear: 2026 }))).toHaveProperty('birthMonth');
+    expect(fieldsOf(personInput.safeParse({ name: 'Mo', sex: 'male', birthMonth: '2026-13' }))).toHaveProperty('birthMonth');
+    expect(fieldsOf(personInput.safeParse({ name: 'Mo', sex: 'male', birthMonth: '2026-09-01' }))).toHaveProperty('birthMonth');
+    expect(fieldsOf(personInput.safeParse({ name: 'Mo', sex: 'male', birthMonth: '1850-01' }))).toHaveProperty('birthMonth');
+  });
+
+  it('dates a pregnancy and breastfeeding by month, for a female person only', () => {
+    const p = personInput.parse({ name: 'Ida', sex: 'female', ageYears: 31, pregnancyDueMonth: '2027-03', lactationFrom: '2027-03', lactationTo: '2027-12' });
+    expect(p).toMatchObject({ pregnancyDueMonth: '2027-03', lactationFrom: '2027-03', lactationTo: '2027-12', condition: 'none' });
+    const man = fieldsOf(personInput.safeParse({ name: 'Al', sex: 'male', ageYears: 31, pregnancyDueMonth: '2027-03', lactationFrom: '2027-03' }));
+    expect(Object.keys(man).sort()).toEqual(['lactationFrom', 'pregnancyDueMonth']);
+  });
+
+  it('refuses breastfeeding that ends before it begins, or an end without a start', () => {
+    expect(fieldsOf(personInput.safeParse({ name: 'Ida', sex: 'female', ageYears: 31, lactationFrom: '2027-05', lactationTo: '2027-02' }))).toHaveProperty('lactationTo');
+    expect(fieldsOf(personInput.safeParse({ name: 'Ida', sex: 'female', ageYears: 31, lactationTo: '2027-02' }))).toHaveProperty('lactationFrom');
+    expect(personInput.safeParse({ name: 'Ida', sex: 'female', ageYears: 31, lactationFrom: '2027-05', lactationTo: '2027-05' }).success).toBe(true);
+  });
+
+  it('refuses the undated condition flag beside dated months, so neither is silently unused', () => {
+    expect(fieldsOf(personInput.safeParse({ name: 'Ida', sex: 'female', ageYears: 31, condition: 'pregnancy', pregnancyDueMonth: '2027-03' }))).toHaveProperty('condition');
+  });
+
+  it('keeps fedFromHousehold as given at any age (it counts only under 6 months) and takes a vegetarian diet', () => {
+    expect(personInput.parse({ name: 'Mo', sex: 'male', ageYears: 40, fedFromHousehold: true }).fedFromHousehold).toBe(true);
+    expect(personInput.parse({ name: 'Vi', sex: 'female', ageYears: 40, diet: 'vegetarian' }).diet).toBe('vegetarian');
+    const f = fieldsOf(personInput.safeParse({ name: 'Vi', sex: 'female', ageYears: 40, diet: 'vegan', fedFromHousehold: 'yes' }));
+    expect(Object.keys(f).sort()).toEqual(['diet', 'fedFromHousehold']);
+  });
+
   it('refuses fields it does not know, so a misspelt one is not silently dropped', () => {
     expect(personInput.safeParse({ name: 'A', sex: 'female', ageYears: 30, atHomePercent: 50 }).success).toBe(false);
   });
@@ -72,6 +106,13 @@ describe('personPatch and mergePerson', () => {
     expect(personInput.safeParse(mergePerson(stored, personPatch.parse({ birthYear: 1992 }))).success).toBe(false);
   });
 
+  it('lets a patch switch from age to birth month and set the new fields', () => {
+    const merged = personInput.parse(mergePerson(stored, personPatch.parse({ ageYears: null, birthMonth: '1992-04', diet: 'vegetarian', lactationFrom: '2026-10' })));
+    expect(merged).toMatchObject({ ageYears: null, birthMonth: '1992-04', diet: 'vegetarian', lactationFrom: '2026-10', lactationTo: null });
+    expect(personPatch.safeParse({ diet: 'carnivore' }).success).toBe(false);
+    expect(personPatch.safeParse({ fedFromHousehold: 'no' }).success).toBe(false);
+  });
+
   it('refuses an empty patch', () => {
     expect(personPatch.safeParse({}).success).toBe(false);
   });
@@ -82,5 +123,12 @@ describe('needsPerson', () => {
     const p = needsPerson(personInput.parse({ name: 'A', sex: 'male', ageYears: 40, activity: 'very' }));
     expect(p.activity).toBe('very_active');
     expect(p.condition).toBeNull();
+  });
+
+  it('passes the dated months, the feeding of a baby and the diet to the needs model', () => {
+    const baby = needsPerson(personInput.parse({ name: 'Mo', sex: 'male', birthMonth: '2026-09', fedFromHousehold: true }));
+    expect(baby).toMatchObject({ birthMonth: '2026-09', ageYears: null, fedFromHousehold: true, diet: 'omnivore' });
+    const mum = needsPerson(personInput.parse({ name: 'Ida', sex: 'female', ageYears: 31, pregnancyDueMonth: '2027-03', lactationFrom: '2027-03', lactationTo: '2027-12', diet: 'vegetarian' }));
+    expect(mum).toMatchObject({ pregnancyDueMonth: '2027-03', lactationFrom: '2027-03', lactationTo: '2027-12', diet: 'vegetarian', condition: null });
   });
 });

@@ -1,4 +1,7 @@
+import { readFileSync } from 'node:fs';
+import { resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { parseRetentionCsv, retentionTable } from '@/lib/retention';
 import { contributorId, foodIdsOf, groupEntry, shareGroups, type FoodAmounts, type GroupRow } from '@/lib/share-groups';
 
 // USDA SR28, NDB 11352 "Potatoes, flesh and skin, raw", per 100 g: 77 kcal, 2.05 g protein (no other share nutrients given here)
@@ -47,5 +50,47 @@ describe('share groups', () => {
     const e = groupEntry(g!);
     expect(e).toMatchObject({ date: '2026-08-01', use: 'stored', source: 'home', spreadMonths: 4, edibleGrams: 750, cropId: 'food:1' });
     expect(e.name).toBe('Unnamed harvest');
+  });
+});
+
+describe('share groups for issue 9', () => {
+  // USDA SR28, NDB 11233 "Kale, raw", per 100 g: 120 mg vitamin C, 49 kcal
+  const KALE_ID = 3;
+  const withKale: FoodAmounts = new Map([...amounts, [KALE_ID, { energy_kcal: 49, vitamin_c_mg: 120 }]]);
+  const table = retentionTable(parseRetentionCsv(readFileSync(resolve(process.cwd(), 'reference-data/retention.csv'), 'utf8')));
+
+  it('keeps the retained share of the vitamins of a preserved group naming its method, and leaves energy alone', () => {
+    const [g] = shareGroups([row({ use: 'preserved', spread: 6, foodId: KALE_ID, edibleGrams: 1000, preserveMethod: 'frozen' })], [], withKale, table);
+    // frozen vegetables keep 70 % of vitamin C (reference-data/retention.csv; from memory: USDA Retention Factors Release 6, 2007)
+    expect(g!.nutrients.vitamin_c_mg).toBeCloseTo(1200 * 0.7, 9);
+    expect(g!.nutrients.energy_kcal).toBe(490); // 1000 g × 49 kcal / 100 g (USDA SR28, NDB 11233)
+    expect(g!.preserveMethod).toBe('frozen');
+  });
+
+  it('applies no factor without a method, or to a use other than preserved', () => {
+    const groups = shareGroups(
+      [row({ use: 'preserved', spread: 6, foodId: KALE_ID, edibleGrams: 1000 }), row({ use: 'stored', spread: 6, foodId: KALE_ID, edibleGrams: 1000, preserveMethod: 'dried' })],
+      [],
+      withKale,
+      table,
+    );
+    expect(groups.map((g) => g.nutrients.vitamin_c_mg)).toEqual([1200, 1200]);
+    expect(groups[1]!.preserveMethod).toBeNull();
+  });
+
+  it('dates a lot spread by day on its day, and keeps lots of different days or methods apart', () => {
+    const groups = shareGroups(
+      [
+        row({ month: '2026-11', date: '2026-11-30', use: 'stored', spread: 3 }),
+        row({ month: '2026-11', date: '2026-11-05', use: 'stored', spread: 3 }),
+        row({ month: '2026-11', date: '2026-11-05', use: 'preserved', spread: 3, preserveMethod: 'canned' }),
+        row({ month: '2026-11', date: '2026-11-05', use: 'preserved', spread: 3, preserveMethod: 'frozen' }),
+      ],
+      [],
+      amounts,
+    );
+    expect(groups).toHaveLength(4);
+    expect(groupEntry(groups[0]!).date).toBe('2026-11-30');
+    expect(groupEntry(shareGroups([row({})], [], amounts)[0]!).date).toBe('2026-08-01'); // fresh: the month is enough
   });
 });

@@ -161,7 +161,8 @@ describe('top contributors', () => {
   it('counts stored food only for the months of the range it is eaten in', () => {
     const entries = [asCrop(harvest(BUTTERNUT, 1000, { date: '2026-11-01', use: 'stored', spreadMonths: 4 }), 2, 'Butternut')];
     const top = topContributors(entries, 'energy_kcal', 3, { from: '2027-01', to: '2027-12' });
-    expect(top[0]!.amount).toBe(189); // Jan + Feb: 2 × 378 ÷ 4
+    // Eaten per day from 1 Nov 2026 to 1 Mar 2027 (30 + 31 + 31 + 28 = 120 days); Jan + Feb 2027 are 31 + 28 = 59 of them
+    expect(top[0]!.amount).toBeCloseTo((378 * 59) / 120, 9); // 1000 g × 84 % edible × 45 kcal/100 g (USDA SR28, NDB 11485) = 378 kcal
   });
 });
 
@@ -170,5 +171,92 @@ describe('known sums', () => {
     expect(knownSum(0, 0, 250)).toBeNull();
     expect(knownSum(0, 0, 0)).toBe(0); // no food at all is a known 0
     expect(knownSum(90, 100, 250)).toBe(90);
+  });
+});
+
+describe('records start, future months, headline and intake (issue 9)', () => {
+  const woman2000 = { sex: 'female', ageYears: 30, kcalPerDay: 2000 } as const;
+  const report = computeShare({
+    from: '2026-01',
+    to: '2026-12',
+    people: [woman2000],
+    nutrients: ['energy_kcal', 'choline_mg'],
+    recordsSince: '2026-10',
+    currentMonth: '2026-11',
+    entries: [
+      harvest(POTATO, 1000, { date: '2026-03-10' }), // before records: shown, never counted
+      harvest(POTATO, 1000, { date: '2026-10-10' }), // 750 g edible: 577.5 kcal
+      harvest(BUTTERNUT, 1000, { date: '2026-11-10' }), // 840 g edible: 378 kcal; no choline value
+      harvest(POTATO, 4000, { date: '2026-11-20', source: 'bought' }), // 3000 g edible: 2310 kcal
+    ],
+  });
+  const month = (m: string) => report.months.find((x) => x.month === m)!;
+
+  it('marks months before the records start and after the current month', () => {
+    expect(month('2026-03')).toMatchObject({ beforeRecords: true, future: false });
+    expect(month('2026-03').values.energy_kcal.need).toBeNull();
+    expect(month('2026-03').values.energy_kcal.home).toBe(577.5); // the food is still shown
+    expect(month('2026-10')).toMatchObject({ beforeRecords: false, future: false });
+    expect(month('2026-12')).toMatchObject({ beforeRecords: false, future: true });
+    expect(report).toMatchObject({ recordsSince: '2026-10', currentMonth: '2026-11' });
+  });
+
+  it('leaves months before records out of the total, and future months out of the headline', () => {
+    // stated 2000 kcal a day: Oct 31 + Nov 30 + Dec 31 days in the total; Oct + Nov in the headline
+    expect(report.total.values.energy_kcal.need).toBe(2000 * (31 + 30 + 31));
+    expect(report.total.values.energy_kcal.home).toBe(577.5 + 378); // not the March potatoes
+    expect(report.headline).toMatchObject({ from: '2026-10', to: '2026-11' });
+    expect(report.headline!.values.energy_kcal.need).toBe(2000 * (31 + 30));
+  });
+
+  it('says logged food looks incomplete under 70 % of the energy need', () => {
+    // (577.5 + 378 + 2310) kcal ÷ (2000 × 61) kcal = 2.7 % of the need (70 %: Selfsown's threshold, issue 9)
+    expect(report.intake.loggedEnergyShareOfNeed).toBeCloseTo((577.5 + 378 + 2310) / (2000 * 61), 12);
+    expect(report.intake.looksIncomplete).toBe(true);
+    const full = computeShare({
+      from: '2026-01', to: '2026-01', people: [woman2000], nutrients: ['energy_kcal'],
+      entries: [harvest(POTATO, 60_000, { date: '2026-01-05', source: 'bought' })], // 45,000 g edible × 0.77 = 34,650 kcal of 62,000 (55.9 %)
+    });
+    expect(full.intake.looksIncomplete).toBe(true);
+    const enough = computeShare({
+      from: '2026-01', to: '2026-01', people: [woman2000], nutrients: ['energy_kcal'],
+      entries: [harvest(POTATO, 80_000, { date: '2026-01-05', source: 'bought' })], // 60,000 g edible × 0.77 = 46,200 kcal of 62,000 (74.5 %)
+    });
+    expect(enough.intake).toEqual({ loggedEnergyShareOfNeed: 46_200 / 62_000, looksIncomplete: false });
+  });
+
+  it('gives no headline when every month is before records or in the future', () => {
+    const r = computeShare({ from: '2027-01', to: '2027-03', people: [woman2000], entries: [], currentMonth: '2026-12', recordsSince: '2026-12' });
+    expect(r.headline).toBeNull();
+    expect(r.intake).toEqual({ loggedEnergyShareOfNeed: null, looksIncomplete: false });
+  });
+
+  it('flags a share resting on more than 10 % unknown weight', () => {
+    // November choline: butternut has no value (840 g unknown), bought potatoes 3000 g known (USDA SR28, NDB 11352: 12.1 mg/100 g)
+    const nov = month('2026-11').values.choline_mg;
+    expect(nov.unknownShare).toBeCloseTo(840 / (840 + 3000), 12);
+    expect(nov.uncertain).toBe(true);
+    expect(month('2026-10').values.choline_mg).toMatchObject({ unknownShare: 0, uncertain: false });
+    expect(month('2026-12').values.choline_mg).toMatchObject({ unknownShare: null, uncertain: false }); // nothing eaten
+  });
+});
+
+describe('need ranges and bases (issue 9)', () => {
+  it('carries the AMDR range of carbohydrate and fat into months and totals, and names what each need rests on', () => {
+    const report = computeShare({
+      from: '2026-04', to: '2026-05', entries: [],
+      people: [{ sex: 'male', ageYears: 30, kcalPerDay: 2000 }, { sex: 'female', birthMonth: '2026-01', fedFromHousehold: true }],
+      nutrients: ['fat_g', 'iron_mg', 'vitamin_c_mg', 'energy_kcal'],
+    });
+    const apr = report.months[0]!.values;
+    // AMDR fat from 19 y: 20–35 % of energy at 9 kcal/g (IOM 2005): 2000 kcal → 44.4–77.8 g a day × 30 days;
+    // the baby (under 1 y) has no AMDR: AI fat infants 0–6 mo 31 g/day (National Academies DRI) added to both ends
+    expect(apr.fat_g.needLow).toBeCloseTo(((2000 * 0.2) / 9) * 30 + 31 * 30, 9);
+    expect(apr.fat_g.needHigh).toBeCloseTo(((2000 * 0.35) / 9) * 30 + 31 * 30, 9);
+    expect(apr.fat_g.need).toBe(apr.fat_g.needLow);
+    expect(apr.iron_mg.needLow).toBeNull();
+    expect(report.total.values.fat_g.needHigh).toBeCloseTo(((2000 * 0.35) / 9) * 61 + 31 * 61, 9);
+    // the man's iron is an RDA, the baby's an AI (infants 0–6 mo, National Academies DRI): mixed
+    expect(report.needBasis).toEqual({ fat_g: 'mixed', iron_mg: 'mixed', vitamin_c_mg: 'mixed', energy_kcal: 'EER' });
   });
 });

@@ -34,8 +34,8 @@ describe('top crops', () => {
 
   it('counts stored food only in the months of the range it is eaten in', () => {
     const groups = shareGroups([row({ month: '2026-11', use: 'stored', spread: 4 })], [], amounts);
-    // Eaten Nov 2026 – Feb 2027 at a quarter each: two of its four months fall in 2026.
-    expect(topCrops(groups, '2026-01', '2026-12')[0]!.values.energy_kcal).toBe(385); // 770 kcal × 2/4
+    // Eaten per day from 1 Nov 2026 to 1 Mar 2027 (120 days); Nov + Dec 2026 are 30 + 31 = 61 of them.
+    expect(topCrops(groups, '2026-01', '2026-12')[0]!.values.energy_kcal).toBeCloseTo((770 * 61) / 120, 9); // 1000 g × 77 kcal/100 g (USDA SR28, NDB 11352)
   });
 
   it('shows unknown, not 0, for a nutrient the food has no value for', () => {
