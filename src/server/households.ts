@@ -1,7 +1,7 @@
 /** Households and memberships in the database. Every function is scoped by user or household id. */
 import { and, asc, eq, sql } from 'drizzle-orm';
 import { getDb } from '@/db/client';
-import { crops, harvests, households, memberships, purchases, staples, user, type Household, type Role } from '@/db/schema';
+import { crops, harvests, households, memberships, plantings, purchases, staples, user, type Household, type Role } from '@/db/schema';
 import { compareMonths, monthOf, todayIn } from '@/lib/months';
 import { fieldError } from './entry-input';
 import { HttpError } from './http';
@@ -78,6 +78,8 @@ export async function deleteHousehold(householdId: number): Promise<void> {
     await tx.delete(harvests).where(eq(harvests.householdId, householdId));
     await tx.delete(purchases).where(eq(purchases.householdId, householdId));
     await tx.delete(staples).where(eq(staples.householdId, householdId));
+    // Plantings point at crops (restrict), so they go first; beds go with the household (cascade).
+    await tx.delete(plantings).where(eq(plantings.householdId, householdId));
     await tx.delete(crops).where(eq(crops.householdId, householdId));
     await tx.delete(households).where(eq(households.id, householdId));
   });

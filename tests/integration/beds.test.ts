@@ -130,8 +130,12 @@ describe('plantings', () => {
     const unknown = await apiAs(f.grower.cookie, 'POST', `${base}/plantings`, { referenceKey: 'moon-melon', area: 1, seasonYear: 2027 });
     expect(unknown.status).toBe(400);
     expect(unknown.body.error.fields.referenceKey).toMatch(/no reference crop moon-melon/);
+    // reference-data/crops.csv, honey-hive: a yield per hive, not per m²
+    const hive = await apiAs(f.grower.cookie, 'POST', `${base}/plantings`, { referenceKey: 'honey-hive', area: 1, seasonYear: 2027 });
+    expect(hive.status).toBe(400);
+    expect(hive.body.error.fields.referenceKey).toMatch(/per hive, not per m² of bed/);
     const other = await householdWithRoles({ name: 'Crop elsewhere' });
-    const theirs = await makeCrop(other.owner.cookie, other.household.id, { name: 'Leek', category: 'allium' });
+    const theirs = await makeCrop(other.owner.cookie, other.household.id, { name: 'Leek', category: 'other' });
     const r = await apiAs(f.grower.cookie, 'POST', `${base}/plantings`, { cropId: theirs.id, area: 1, seasonYear: 2027 });
     expect(r.status).toBe(400);
     expect(r.body.error.fields.cropId).toMatch(/no such crop/);
@@ -197,5 +201,17 @@ describe('a plan turned into plantings', () => {
     expect((await apiAs(h.grower.cookie, 'GET', `${hb}/plantings?year=2028`)).body.plantings).toEqual([]);
     expect((await apiAs(h.owner.cookie, 'GET', `${hb}/crops`)).body.crops.some((c: any) => c.name === 'Garlic')).toBe(false);
     expect((await apiAs(h.viewer.cookie, 'POST', `${hb}/plantings/from-plan`, { year: 2027, crops: [{ cropKey: 'garlic', areaM2: 1 }] })).status).toBe(403);
+  });
+});
+
+describe('deleting a household', () => {
+  it('takes its beds, plantings and the harvests naming them along', async () => {
+    const h = await householdWithRoles({ name: 'Short-lived plot' });
+    const hb = `/api/households/${h.household.id}`;
+    const bed = (await apiAs(h.owner.cookie, 'POST', `${hb}/beds`, { name: 'Only bed', area: 2 })).body.bed;
+    const p = (await apiAs(h.owner.cookie, 'POST', `${hb}/plantings`, { referenceKey: 'garlic', bedId: bed.id, area: 2, seasonYear: 2026 })).body.planting;
+    await logHarvest(h.owner.cookie, h.household.id, { date: '2026-07-20', cropId: p.cropId, quantity: 1, unit: 'kg', plantingId: p.id });
+    expect((await apiAs(h.owner.cookie, 'DELETE', hb)).status).toBe(204);
+    expect((await apiAs(h.owner.cookie, 'GET', `${hb}/beds`)).status).toBe(404);
   });
 });
