@@ -277,3 +277,15 @@ export function planLp(model: PlanModel, stage: PlanStage): string {
   out.push('End', '');
   return out.join('\n');
 }
+
+/**
+ * The LP text of one stage with its variable map (LP column → crop key, and → target row for the
+ * shortfall columns), for callers that solve it themselves.
+ * Example: `buildPlanModel(input).columns.a0` → 'potatoes'
+ */
+export function buildPlanModel(input: PlanInput, stage: PlanStage = { kind: 'area' }): { lp: string; columns: Record<string, string>; model: PlanModel } {
+  const model = preparePlan(input);
+  const columns: Record<string, string> = Object.fromEntries(model.crops.map((c) => [c.column, c.key]));
+  if (stage.kind !== 'area') for (const r of model.rows) columns[slackName(r)] = `shortfall of ${r.nutrient}${r.month === null ? '' : ` in ${model.months[r.month]}`}`;
+  return { lp: planLp(model, stage), columns, model };
+}

@@ -108,6 +108,7 @@ function limitFor(model: PlanModel, nutrient: NutrientKey, shortRows: TargetRow[
   const reasons = new Set<LimitReason>();
   const capped = new Set<string>();
   const suppliers = new Set<ModelCrop>();
+  const fullGroups = new Set<CapGroup>();
   for (const r of shortRows) {
     if (r.unsupplied) reasons.add('no-crop');
     model.crops.forEach((c, i) => {
@@ -125,6 +126,7 @@ function limitFor(model: PlanModel, nutrient: NutrientKey, shortRows: TargetRow[
     }
     if (c.capGroup && groupKg(c.capGroup) >= model.capKg[c.capGroup] * (1 - 1e-6) - 0.01 * c.edibleKgM2) {
       reasons.add('category-cap');
+      fullGroups.add(c.capGroup);
       capped.add(c.key);
     }
   }
@@ -140,9 +142,13 @@ function limitFor(model: PlanModel, nutrient: NutrientKey, shortRows: TargetRow[
     );
   }
   if (reasons.has('area-limit')) why.push(`the plan fills the area limit of ${model.maxAreaM2} m²`);
-  const cappedNames = model.crops.filter((c) => capped.has(c.key)).map((c) => c.name);
-  if (reasons.has('crop-cap') || reasons.has('category-cap')) {
-    why.push(`${nameList(cappedNames)} ${cappedNames.length === 1 ? 'is' : 'are'} held at a cap (at most ${percent(model.maxShareOfEnergyPerCrop)} of the energy need per crop, and the daily vegetable and fruit caps)`);
+  const atEnergyCap = model.crops.filter((c) => capped.has(c.key) && c.energyCapM2 !== null && (areas.get(c.key) ?? 0) >= c.energyCapM2 * (1 - 1e-6) - 0.01);
+  if (atEnergyCap.length > 0) {
+    const names = atEnergyCap.map((c) => c.name);
+    why.push(`${nameList(names)} ${names.length === 1 ? 'is' : 'are'} held at ${percent(model.maxShareOfEnergyPerCrop)} of the energy need per crop`);
+  }
+  if (reasons.has('category-cap')) {
+    why.push(`the added ${[...fullGroups].join(' and ')} reach the daily cap per person`);
   }
   const reached = model.basis === 'month' ? `reaches ${percent(achieved)} of need in its leanest month` : `reaches ${percent(achieved)} of the year's need`;
   const fix = reasons.has('area-limit') ? ' Raise the area limit, lower the target or add crops that supply it.' : ' Lower the target or add crops that supply it.';

@@ -1,7 +1,7 @@
 /**
- * npm run bench: the share report against the bare SQL aggregate it rests on, measured side by
- * side in one run (ratios, not absolute times, since shared machines drift). Uses its own
- * database, selfsown_bench, on the private MariaDB server; never the demo or test data.
+ * npm run bench: the planting planner (./plan.ts), then the share report against the bare SQL
+ * aggregate it rests on (BENCH_ONLY=plan skips the database part), measured side by side in one
+ * run (ratios, not absolute times, since shared machines drift). Uses its own database, selfsown_bench, on the private MariaDB server; never the demo or test data.
  */
 import { performance } from 'node:perf_hooks';
 import type { Pool } from 'mysql2/promise';
@@ -12,6 +12,7 @@ import { dbUp } from '@/cli/db';
 import { importFoods } from '@/cli/import-foods';
 import { recreateDatabase, serverPaths } from '@/cli/mariadb';
 import { householdShare } from '@/server/share-data';
+import { benchPlan } from './plan';
 
 const YEARS = Number(process.env.BENCH_YEARS || 10);
 const HARVESTS_PER_YEAR = Number(process.env.BENCH_HARVESTS_PER_YEAR || 3000);
@@ -89,6 +90,8 @@ const median = (xs: number[]) => [...xs].sort((x, y) => x - y)[Math.floor(xs.len
 
 async function main(): Promise<void> {
   loadDotEnv();
+  await benchPlan(ROUNDS);
+  if (process.env.BENCH_ONLY === 'plan') return;
   const url = testDatabaseUrl().replace(/\/[A-Za-z0-9_]+$/, '/selfsown_bench');
   process.env.DATABASE_URL = url; // the shared client (people) reads the same database
   await dbUp(url);

@@ -8,6 +8,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { ResultSetHeader } from 'mysql2';
 import type { Pool } from 'mysql2/promise';
 import { parseCropTable } from '@/lib/crop-table';
 import { testPool } from '../support/env';
@@ -30,6 +31,11 @@ beforeAll(async () => {
   const beans = await makeCrop(t.owner.cookie, hid, { name: 'Navy beans', foodId: await foodId('16037'), category: 'legume' });
   await pool.query('UPDATE crops SET reference_key = ? WHERE id = ?', ['dry-beans-navy', beans.id]);
   await pool.query('UPDATE crops SET reference_key = ? WHERE id = ?', ['potatoes', potato.id]);
+  // Last season's potatoes on a 10 m² planting gave 40 kg: the household's own 4 kg/m². (The plantings
+  // API belongs to another change; the planting and its link are written in SQL.)
+  const [planting] = await pool.query<ResultSetHeader>('INSERT INTO plantings (household_id, crop_id, area_m2, season_year) VALUES (?, ?, 10, 2025)', [hid, potato.id]);
+  const dug = await logHarvest(t.owner.cookie, hid, { date: '2025-08-20', cropId: potato.id, quantity: 40, unit: 'kg', use: 'fresh' });
+  await pool.query('UPDATE harvests SET planting_id = ? WHERE id = ?', [planting.insertId, dug.id]);
   await logHarvest(t.owner.cookie, hid, { date: '2026-09-15', cropId: potato.id, quantity: 30, unit: 'kg', use: 'stored', spreadMonths: 6 });
   await logHarvest(t.owner.cookie, hid, { date: '2026-07-10', cropId: kale.id, quantity: 2, unit: 'kg', use: 'fresh' });
   // Seed kept last season (growing year 2025) and this season (must not count for a 2026 plan's "last season").
@@ -78,6 +84,14 @@ describe('POST /plan', () => {
     expect(beans.seedNeeded.amount).toBeCloseTo(beans.areaM2 * row.seedPerM2!, 1);
     expect(beans.expectedKg).toBeCloseTo(beans.areaM2 * row.yieldKg.typical, 2);
     expect(r.body.projected.protein_g).toBeGreaterThanOrEqual(0.1 - 1e-9);
+  });
+
+  it('counts with the household’s own measured yield where it has one', async () => {
+    const r = await apiAs(t.owner.cookie, 'POST', url(), { year: 2026, targets: { energy_kcal: 0.1 }, crops: ['potatoes', 'kale'], maxShareOfEnergyPerCrop: 1 });
+    expect(r.status).toBe(200);
+    const potatoes = r.body.crops.find((c: { cropKey: string }) => c.cropKey === 'potatoes');
+    expect(potatoes).toMatchObject({ ownYield: true, yieldKgM2: 4 }); // 40 kg ÷ 10 m²
+    expect(potatoes.expectedKg).toBeCloseTo(potatoes.areaM2 * 4, 2);
   });
 
   it('reports targets an area limit cannot reach, with the best plan within it', async () => {

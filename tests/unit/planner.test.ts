@@ -8,7 +8,7 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { nutrientPerM2, parseCropTable, type CropFood, type CropTableRow } from '@/lib/crop-table';
-import { capGroupOf, planLp, preparePlan, type PlanCandidate, type PlanInput } from '@/lib/plan-model';
+import { buildPlanModel, capGroupOf, planLp, preparePlan, type PlanCandidate, type PlanInput } from '@/lib/plan-model';
 import { projectShares, roundArea } from '@/lib/plan-result';
 import { loadHighs, planPlanting } from '@/server/planner';
 
@@ -92,6 +92,8 @@ describe('nutrient per m² in the model', () => {
     expect(lp).toContain('t0: 0.0833333333333 a0 + 0.0416666666667 a1 >= 1');
     expect(lp).toContain('t1: 0.277777777778 a1 >= 1');
     expect(lp.startsWith('Minimize\n obj: a0 + a1\n')).toBe(true);
+    expect(buildPlanModel(input()).columns).toEqual({ a0: 'a', a1: 'b' });
+    expect(buildPlanModel(input(), { kind: 'shortfall' }).columns.s1).toBe('shortfall of vitamin_c_mg');
   });
 });
 
@@ -128,6 +130,17 @@ describe('planPlanting (HiGHS)', () => {
     expect(area(plan, 'b')).toBeCloseTo(12, 6);
   });
 
+  it('says which crops an energy cap holds back when a target is lost to it', async () => {
+    // At most 25 %: a ≤ 3 m², b ≤ 6 m², together 3000 + 3000 = 6000 kcal, half the need.
+    const plan = await planPlanting(input({ maxShareOfEnergyPerCrop: 0.25 }));
+    expect(plan.status).toBe('infeasible-best-effort');
+    expect(area(plan, 'a')).toBeCloseTo(3, 6);
+    expect(area(plan, 'b')).toBeCloseTo(6, 6);
+    expect(plan.limits[0]).toMatchObject({ nutrient: 'energy_kcal', reasons: ['crop-cap'], cappedCrops: ['a', 'b'] });
+    expect(plan.limits[0]!.achieved).toBeCloseTo(0.5, 6);
+    expect(plan.limits[0]!.message).toMatch(/Crop a and Crop b are held at 25 % of the energy need per crop/);
+  });
+
   it('holds vegetables to the daily cap per person, and says so when a target is lost to it', async () => {
     // b as a vegetable under a cap of 5 g a day for 1 person: 1.825 kg a year = 1.825 m² at 1 kg/m².
     // Vitamin C reaches 1825/3600 = 50.69 % at best; energy is then met by a = (12000 − 912.5)/1000.
@@ -141,6 +154,7 @@ describe('planPlanting (HiGHS)', () => {
     expect(limit.cappedCrops).toEqual(['b']);
     expect(limit.achieved).toBeCloseTo(1830 / 3600, 6);
     expect(plan.limits.map((l) => l.nutrient)).toEqual(['vitamin_c_mg']);
+    expect(limit.message).toMatch(/Vitamin C reaches 51 % of the year's need, short of the 100 % target: the added vegetables reach the daily cap per person\./);
   });
 
   it('answers the best plan within an area limit and names the limit', async () => {
