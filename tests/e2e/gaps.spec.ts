@@ -36,9 +36,17 @@ test('a grower finds the gaps, plans by month for energy and vitamin C, and turn
   await expect(page.getByTestId('strip-energy_kcal-2026-09')).not.toHaveAttribute('data-lean', 'true');
   await expect(page.getByTestId('gap-row-energy_kcal')).toContainText('Short by');
   await expect(page.getByTestId('least-area-vitamin_c_mg')).toContainText('m² closes it');
+  await page.screenshot({ path: testInfo.outputPath('gaps-390x844.png') });
+  await page.getByTestId('gap-strip').screenshot({ path: testInfo.outputPath('gaps-strip-390.png') });
   // A phone never scrolls the page sideways.
+  const wide = await page.evaluate(() =>
+    [...document.querySelectorAll('body *')]
+      .filter((e) => e.getBoundingClientRect().right > 391 && !e.closest('nav'))
+      .slice(0, 5)
+      .map((e) => `${e.tagName}.${e.className} ${Math.round(e.getBoundingClientRect().right)}`.slice(0, 160)),
+  );
+  expect(wide).toEqual([]);
   expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
-  await page.screenshot({ path: testInfo.outputPath('gaps-390x844.png'), fullPage: true });
 
   // No target: the form's own rule, before anything is sent.
   await page.getByRole('button', { name: 'Make a plan' }).click();
@@ -67,5 +75,5 @@ test('a grower finds the gaps, plans by month for energy and vitamin C, and turn
   await page.setViewportSize({ width: 1280, height: 800 });
   await page.goto(`/households/${hid}/gaps`);
   await expect(page.getByTestId('gaps-report')).toBeVisible();
-  await page.screenshot({ path: testInfo.outputPath('gaps-1280x800.png'), fullPage: true });
+  await page.screenshot({ path: testInfo.outputPath('gaps-1280x800.png') });
 });

@@ -48,7 +48,7 @@ export function GapStrip({ report }: { report: GapsResponse }) {
           <tbody>
             {report.nutrients.map((n) => (
               <tr key={n.key} data-testid={`strip-${n.key}`}>
-                <th scope="row" className="max-w-[6.5rem] truncate pr-1 text-left font-semibold sm:max-w-none" title={n.name}>
+                <th scope="row" className="max-w-[5.5rem] truncate pr-1 text-left font-semibold sm:max-w-none" title={n.name}>
                   {n.name}
                 </th>
                 {n.months.map((m) => {
@@ -58,7 +58,7 @@ export function GapStrip({ report }: { report: GapsResponse }) {
                   return (
                     <td
                       key={m.month}
-                      className={`h-7 min-w-5 rounded ${band === UNKNOWN_BAND ? 'border border-dashed border-loam-300' : ''} ${lean ? 'outline-2 outline-offset-[-3px] outline-berry-700' : ''}`}
+                      className={`h-7 min-w-4 rounded ${band === UNKNOWN_BAND ? 'border border-dashed border-loam-300' : ''} ${lean ? 'outline-2 outline-offset-[-3px] outline-berry-700' : ''}`}
                       style={{ background: band.background }}
                       data-testid={`strip-${n.key}-${m.month}`}
                       data-band={band.label}

@@ -75,7 +75,7 @@ function Gaps({ householdId, years, initialYear, canPlant, peopleHref }: Props) 
             {data.frostDates.defaulted ? ', the usual ones for your hemisphere until you set your own' : ''}. Yields are the reference
             table’s typical ones{data.ownYieldCrops.length > 0 ? `, except your own measured yield for ${data.ownYieldCrops.length} crop${data.ownYieldCrops.length === 1 ? '' : 's'}` : ''}.
           </p>
-          <div className="grid gap-8 xl:grid-cols-[minmax(0,5fr)_minmax(0,7fr)]">
+          <div className="grid grid-cols-1 gap-8 xl:grid-cols-[minmax(0,5fr)_minmax(0,7fr)]">
             <GapStrip report={data} />
             <GapTable report={data} />
           </div>
