@@ -6,10 +6,17 @@
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { QueryProvider } from '@/components/QueryProvider';
+import { monthName } from '@/lib/months';
 import { GapStrip } from './GapStrip';
 import { GapTable } from './GapTable';
 import { PlanPanel } from './PlanPanel';
 import { getGaps } from './plan-api';
+
+/** A frost date 'MM-DD' as words. Example: `dayText('05-01')` → '1 May' */
+function dayText(mmdd: string): string {
+  const [m, d] = mmdd.split('-').map(Number);
+  return `${d} ${monthName(m!)}`;
+}
 
 interface Props {
   householdId: number;
@@ -70,9 +77,15 @@ function Gaps({ householdId, years, initialYear, canPlant, peopleHref }: Props) 
             </p>
           ) : null}
           <p className="text-loam-700">
-            Harvest windows are placed by frost dates {data.frostDates.lastSpringFrost.replace('-', '/')} (last in spring) and{' '}
-            {data.frostDates.firstAutumnFrost.replace('-', '/')} (first in autumn), as month/day
-            {data.frostDates.defaulted ? ', the usual ones for your hemisphere until you set your own' : ''}. Yields are the reference
+            Harvest windows are placed by the last spring frost on {dayText(data.frostDates.lastSpringFrost)} and the first autumn frost on{' '}
+            {dayText(data.frostDates.firstAutumnFrost)}
+            {data.frostDates.defaulted ? (
+              <>
+                {' '}
+                (the usual dates for your hemisphere: <a className="underline" href={`/households/${householdId}/beds`}>set your own on the Beds page</a>)
+              </>
+            ) : null}
+            . Yields are the reference
             table’s typical ones{data.ownYieldCrops.length > 0 ? `, except your own measured yield for ${data.ownYieldCrops.length} crop${data.ownYieldCrops.length === 1 ? '' : 's'}` : ''}.
           </p>
           <div className="grid grid-cols-1 gap-8 xl:grid-cols-[minmax(0,5fr)_minmax(0,7fr)]">
