@@ -98,3 +98,24 @@ describe('GET /api/households/{id}/gaps', () => {
     expect(r.body.to).toBe(`${r.body.year}-12`);
   });
 });
+
+describe('own measured yield', () => {
+  it('weighs a crop by the household’s own kg per m² once a harvest names its planting', async () => {
+    const f = await householdWithRoles({ name: 'Own yield plot', timezone: 'Europe/Berlin' });
+    const hid = f.household.id;
+    const p = await apiAs(f.grower.cookie, 'POST', `/api/households/${hid}/plantings`, { referenceKey: 'carrots', area: 2, seasonYear: 2026 });
+    expect(p.status).toBe(201);
+    const planting = p.body.planting;
+    await logHarvest(f.grower.cookie, hid, { date: '2026-07-20', cropId: planting.cropId, plantingId: planting.id, quantity: 8, unit: 'kg', use: 'fresh' });
+    const r = await apiAs(f.viewer.cookie, 'GET', `/api/households/${hid}/gaps?year=2026`);
+    expect(r.status).toBe(200);
+    expect(r.body.ownYieldCrops).toEqual(['carrots']);
+    const carrots = r.body.crops.find((c: { key: string }) => c.key === 'carrots');
+    expect(carrots).toMatchObject({ yieldSource: 'own', yieldKgM2: 4 }); // 8 kg from 2 m²
+    // USDA SR28, NDB 11124 "Carrots, raw": 41 kcal per 100 g, 11 % refuse → 4 kg × 0.89 × 410 kcal/kg
+    expect(carrots.perM2.energy_kcal).toBeCloseTo(4 * 0.89 * 410, 6);
+    const potatoes = r.body.crops.find((c: { key: string }) => c.key === 'potatoes');
+    // crops.csv potatoes: typical 3 kg/m² (no planting of its own here)
+    expect(potatoes).toMatchObject({ yieldSource: 'reference', yieldKgM2: 3 });
+  });
+});
