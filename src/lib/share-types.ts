@@ -7,6 +7,10 @@ import type { Use } from './allocate';
 import type { ShareNutrientKey } from './nutrients';
 import type { ShareReport } from './shares';
 
+// What a need rests on (RDA, AI, AMDR, EER or mixed), for the dashboard's labels.
+export type { NeedBasis } from './need-basis';
+export type { ShareMonth, ShareValue } from './shares';
+
 export interface TopCrop {
   /** The household's crop, or null for a harvest logged directly against a reference food. */
   cropId: number | null;

@@ -196,6 +196,9 @@ describe('GET /api/households/{id}/share', () => {
     expect(body.months[1]).toMatchObject({ month: '2027-02', days: 28 });
     expect(Object.keys(body.months[0].values.energy_kcal).sort()).toEqual(expect.arrayContaining(['bought', 'home', 'need', 'shareOfIntake', 'shareOfNeed']));
     expect(body.peopleCount).toBe(3);
+    // The household was made after its first entry (5 Nov 2026): its records start in that month
+    expect(body.recordsSince).toBe('2026-11');
+    expect(body.months.every((m: { beforeRecords: boolean }) => !m.beforeRecords)).toBe(true);
   });
 
   it('counts potatoes stored in November per day into January, February and early March, beside the bulk flour of December', () => {
