@@ -154,14 +154,18 @@ export const plantingInput = z
     harvestTo: isoDate.optional(),
     notes: notes.optional(),
   })
-  .superRefine((v, ctx) => {
-    if (v.cropId !== undefined && v.referenceKey !== undefined) {
-      ctx.addIssue({ code: 'custom', path: ['referenceKey'], message: 'Give either a crop of the household or a reference crop, not both.' });
-    } else if (v.cropId === undefined && v.referenceKey === undefined) {
-      ctx.addIssue({ code: 'custom', path: ['cropId'], message: 'Choose the crop this planting grows.' });
-    }
-    checkDates(v, ctx);
-  });
+  // The crop choice is checked even when another field is wrong, so a form shows every problem at once.
+  .superRefine(
+    (v, ctx) => {
+      if (v.cropId !== undefined && v.referenceKey !== undefined) {
+        ctx.addIssue({ code: 'custom', path: ['referenceKey'], message: 'Give either a crop of the household or a reference crop, not both.' });
+      } else if (v.cropId === undefined && v.referenceKey === undefined) {
+        ctx.addIssue({ code: 'custom', path: ['cropId'], message: 'Choose the crop this planting grows.' });
+      }
+    },
+    { when: (payload) => typeof payload.value === 'object' && payload.value !== null },
+  )
+  .superRefine(checkDates);
 export type PlantingInput = z.output<typeof plantingInput>;
 export type PlantingInputRaw = z.input<typeof plantingInput>;
 

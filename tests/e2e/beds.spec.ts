@@ -32,10 +32,11 @@ test('a grower adds a bed and a planting on a phone and sees them listed', async
 
   await page.getByRole('button', { name: 'Add a planting' }).click();
   const plantingForm = page.getByRole('form', { name: 'Add a planting' });
-  await plantingForm.getByLabel('Area, m²').fill('3');
   await plantingForm.getByRole('button', { name: 'Add planting' }).click();
-  // The endpoint's own rule, shown beside the crop field before anything is sent.
+  // The endpoint's own rules, shown beside the crop and area fields before anything is sent.
   await expect(plantingForm.getByText('Choose the crop this planting grows.')).toBeVisible();
+  await expect(plantingForm.getByText('Enter the area.')).toBeVisible();
+  await plantingForm.getByLabel('Area, m²').fill('3');
 
   await plantingForm.getByLabel('Crop').selectOption({ label: 'Garlic' });
   // reference-data/crops.csv, garlic: from 10 weeks after the last spring frost (1 May + 70 days = 10 July)

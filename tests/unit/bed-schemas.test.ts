@@ -54,6 +54,14 @@ describe('plantings', () => {
     expect(plantingInput.safeParse({ referenceKey: 'Winter Squash', area: 4, seasonYear: 2027 }).success).toBe(false);
   });
 
+  it('names a missing crop even when the area is missing too', () => {
+    const r = plantingInput.safeParse({ seasonYear: 2027 });
+    expect(r.error?.issues.map((i) => [i.path.join('.'), i.message])).toEqual([
+      ['area', 'Enter the area.'],
+      ['cropId', 'Choose the crop this planting grows.'],
+    ]);
+  });
+
   it('refuses a harvest that ends before it starts, or a sowing years away from its season', () => {
     const back = plantingInput.safeParse({ cropId: 1, area: 1, seasonYear: 2027, harvestFrom: '2027-08-01', harvestTo: '2027-07-01' });
     expect(back.error?.issues[0]).toMatchObject({ path: ['harvestTo'], message: 'The harvest ends before it starts: check both dates.' });
