@@ -36,4 +36,3 @@ export const resetPasswordInput = z
   .refine((v) => v.password === v.confirm, { message: 'The two passwords differ.', path: ['confirm'] });
 
 // The one zod-error flattener lives in ./error-body; re-exported for the account and household forms.
-export { fieldErrors } from './error-body';

@@ -7,13 +7,8 @@
  * plan is for a year in steady state, where food carried past the year's end stands for the same
  * crop grown the season before. Pure: dates are counted on a fixed non-leap calendar.
  */
+import type { FrostDates } from './growing-season';
 import type { CropTableRow, HarvestWeek } from './crop-table';
-
-/** The household's growing season as 'MM-DD': the last spring frost and the first autumn frost. */
-export interface FrostDates {
-  lastSpringFrost: string;
-  firstAutumnFrost: string;
-}
 
 const MM_DD = /^(\d{2})-(\d{2})$/;
 // A non-leap year: 29 February is read as 28 February (a day does not move a frost date).
@@ -47,6 +42,7 @@ export function monthOfDay(day: number): number {
  * frost always comes after the spring one, in the next calendar year in the southern hemisphere.
  * Example: `frostDays({ lastSpringFrost: '10-01', firstAutumnFrost: '04-15' })` → { spring: 273, autumn: 469 }
  */
+
 export function frostDays(frost: FrostDates): { spring: number; autumn: number } {
   const spring = dayOfYear(frost.lastSpringFrost);
   let autumn = dayOfYear(frost.firstAutumnFrost);
@@ -107,18 +103,4 @@ export function monthShares(row: Pick<CropTableRow, 'harvestFrom' | 'harvestTo' 
   const shares = new Array<number>(12).fill(0);
   for (const m of months) shares[m - 1] = 1 / months.length;
   return shares;
-}
-
-// Zones of the southern hemisphere whose growing season is the other way round.
-const SOUTHERN = /^(Australia|Antarctica)\/|^Pacific\/(Auckland|Chatham|Fiji|Tongatapu|Apia|Noumea|Efate|Norfolk|Rarotonga|Tahiti)$|^America\/(Argentina\/.*|Santiago|Punta_Arenas|Montevideo|Asuncion|Sao_Paulo|La_Paz|Lima|Buenos_Aires|Cordoba|Mendoza)$|^Africa\/(Johannesburg|Maseru|Mbabane|Windhoek|Gaborone|Harare|Maputo|Lusaka|Blantyre|Lubumbashi)$|^Indian\/(Reunion|Mauritius|Antananarivo)$|^(Brazil|Chile)\//;
-
-/**
- * Frost dates for a household that has not set its own: mid-April and mid-October in the northern
- * hemisphere, the other way round in the southern (read from the time zone). These are a starting
- * point, not a climate record; the household's own dates replace them.
- * Example: `defaultFrostDates('Australia/Hobart')` → { lastSpringFrost: '10-15', firstAutumnFrost: '04-15' }
- */
-export function defaultFrostDates(timeZone: string): FrostDates {
-  // common practice (no published source): a temperate garden's frost-free season runs about mid-April to mid-October
-  return SOUTHERN.test(timeZone) ? { lastSpringFrost: '10-15', firstAutumnFrost: '04-15' } : { lastSpringFrost: '04-15', firstAutumnFrost: '10-15' };
 }

@@ -5,8 +5,6 @@
  */
 import { addMonths, formatMonth, parseMonth } from './months';
 
-// todayIn lives with the other date functions in ./months; re-exported for the report's callers.
-export { todayIn } from './months';
 
 export interface MonthRange {
   from: string;

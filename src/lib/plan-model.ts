@@ -17,7 +17,8 @@
  * shortfall and minimises area, so the best achievable plan is also the smallest one.
  */
 import { nutrientPerM2, type CropFood, type CropTableRow } from './crop-table';
-import { monthShares, type FrostDates } from './crop-months';
+import { monthShares } from './crop-months';
+import type { FrostDates } from './growing-season';
 import { edibleFactor } from './edible';
 import { addMonths, parseMonth } from './months';
 import { NUTRIENT_KEYS, type NutrientKey } from './nutrients';

@@ -1,8 +1,11 @@
 /**
  * Selfsown's own colour scale for "home share of need", from bare soil to full leaf: loam for
  * nothing from home, squash-rind ambers for a little, sprout greens for much, the darkest green for
- * a month the garden covered in full. Colours are the palette of src/styles/global.css; each band
- * carries the text colour that reads best on it (WCAG 2.1 contrast, see contrastRatio).
+ * a month the garden covered. The scale stops at "covered": eating more than the recommended intake
+ * is not better, so 100 % and 250 % look the same and nothing rewards excess. Months before the
+ * household's records start get a grey of their own (no need is counted there). Colours are the
+ * palette of src/styles/global.css; each band carries the text colour that reads best on it (WCAG
+ * 2.1 contrast, see contrastRatio).
  */
 
 export interface ShareBand {
@@ -27,8 +30,12 @@ export const SHARE_BANDS: readonly ShareBand[] = [
   { min: 0.25, label: '25–50 %', background: '#a8d48f', text: LOAM_900 }, // sprout-300
   { min: 0.5, label: '50–75 %', background: '#5f9a3f', text: LOAM_900 }, // sprout-500
   { min: 0.75, label: '75–100 %', background: '#3b6a24', text: WHITE }, // sprout-700
-  { min: 1, label: 'all of it or more', background: '#1f3a12', text: WHITE }, // sprout-900
+  { min: 1, label: 'covered', background: '#1f3a12', text: WHITE }, // sprout-900: the last band, however far past 100 %
 ];
+
+/** A month before the household's records start: no need, no share, greyed. */
+export const BEFORE_RECORDS_BAND: ShareBand = { min: Number.NaN, label: 'before records', background: '#e6e4e1', text: '#4a4440' };
+
 
 /**
  * The band of a home share of need (fraction; null = no figure),
@@ -61,10 +68,33 @@ export function contrastRatio(a: string, b: string): number {
   return (Math.max(la, lb) + 0.05) / (Math.min(la, lb) + 0.05);
 }
 
-/** A share as whole percent for a cell, e.g. percentText(0.426) → '43 %', percentText(null) → '–'. */
+/**
+ * A share as whole percent — all the precision the reference data allow,
+ * e.g. percentText(0.426) → '43 %', percentText(null) → '–'.
+ */
 export function percentText(share: number | null): string {
   if (share === null || !Number.isFinite(share)) return '–';
   const pct = share * 100;
   if (pct > 0 && pct < 1) return '<1 %';
   return `${Math.round(pct).toLocaleString('en-US')} %`;
+}
+
+/**
+ * A share as a figure that says when it is uncertain (more than a tenth of the weight behind it has
+ * no value), so it is never read as a clean number,
+ * e.g. shareText(0.43, true) → '43 % (uncertain)', shareText(0.43, false) → '43 %', shareText(null, true) → '–'.
+ */
+export function shareText(share: number | null, uncertain: boolean): string {
+  const text = percentText(share);
+  return uncertain && text !== '–' ? `${text} (uncertain)` : text;
+}
+
+/**
+ * How much of the weight eaten had no value for a nutrient, in words, or null when all of it had one,
+ * e.g. unknownText(0.153) → '15 % of the weight eaten has no value for it',
+ * unknownText(0.2, 'zinc') → '20 % of the weight eaten has no value for zinc', unknownText(0) → null.
+ */
+export function unknownText(unknownShare: number | null, what = 'it'): string | null {
+  if (unknownShare === null || !Number.isFinite(unknownShare) || unknownShare <= 0) return null;
+  return `${percentText(unknownShare)} of the weight eaten has no value for ${what}`;
 }

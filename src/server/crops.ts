@@ -11,7 +11,6 @@ import { EATEN_USES, mergeCropPatch, type CropInput, type CropPatch } from '@/li
 import { HttpError } from './http';
 import { fieldError, invalidInput, isDuplicateKey, isRowReferenced, type Executor, type Tx } from './entry-input';
 
-export type { CropJson, FoodSummary } from '@/lib/api-types';
 
 /** "Name (variety)", or the name alone. Example: `cropDisplayName('Potato', 'Pink Fir')` → 'Potato (Pink Fir)' */
 export function cropDisplayName(name: string, variety: string | null | undefined): string {

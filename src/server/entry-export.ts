@@ -18,7 +18,7 @@ import {
 } from '@/lib/csv-export';
 import type { HarvestInput, PurchaseInput } from '@/lib/entry-schemas';
 import { cropRows, listCrops } from './crops';
-import { todayIn } from './entry-input';
+import { todayIn } from '@/lib/months';
 import { householdJson } from './households';
 import { everyHarvest } from './harvests';
 import { everyPurchase } from './purchases';

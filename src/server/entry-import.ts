@@ -26,7 +26,6 @@ import { parseInput, type Executor, type Tx } from './entry-input';
 import { harvestValues, type HarvestBasis } from './harvests';
 import { purchaseValues } from './purchases';
 
-export type { ImportAnswer, ImportAnswerBody, PreviewRow } from '@/lib/api-types';
 
 /** Rows shown in a preview answer; the counts and totals always cover the whole file. */
 export const PREVIEW_ROW_LIMIT = 500;
@@ -195,7 +194,7 @@ interface Prepared<V> {
   preview: PreviewRow[];
 }
 
-async function prepareHarvests(ex: Executor, req: ImportRequest, householdCrops: ImportCrop[]): Promise<Prepared<ReturnType<typeof harvestValues>>> {
+async function prepareHarvests(ex: Executor, req: ImportRequest, householdCrops: ImportCrop[], today: string): Promise<Prepared<ReturnType<typeof harvestValues>>> {
   const parsed = parseHarvestCsv(req.file);
   const codes = await foodsByCodes(ex, parsed.rows.flatMap((r) => (r.foodCode === undefined ? [] : [r.foodCode])));
   const cropsByKey = new Map<string, ImportCrop>();
@@ -212,6 +211,10 @@ async function prepareHarvests(ex: Executor, req: ImportRequest, householdCrops:
   const foodsById = new Map([...codes.values()].map((f) => [f.id, f]));
   const values: Prepared<ReturnType<typeof harvestValues>>['values'] = [];
   const preview: PreviewRow[] = [];
+  // A harvest is weighed, so it cannot be dated after today in the household's zone (as the harvest API rules).
+  const future: CsvError[] = resolved.inputs
+    .filter(({ input }) => input.date > today)
+    .map(({ row, input }) => ({ row, column: 'date', message: `The harvest date ${input.date} is after today (${today} in the household's time zone); enter the day it was picked.` }));
   for (const { row, input } of resolved.inputs) {
     const crop = input.cropId === undefined ? undefined : cropsById.get(input.cropId);
     const food = crop ? (crop.foodId === null ? undefined : cropFoods.get(crop.foodId)) : foodsById.get(input.foodId!);
@@ -249,7 +252,7 @@ async function prepareHarvests(ex: Executor, req: ImportRequest, householdCrops:
   return {
     values,
     preview,
-    errors: byRow([...parsed.errors, ...resolved.errors]),
+    errors: byRow([...parsed.errors, ...resolved.errors, ...future]),
     unknownCrops: resolved.unknownCrops,
     unknownFoodCodes: resolved.unknownFoodCodes,
     ignoredColumns: parsed.ignoredColumns,
@@ -343,7 +346,7 @@ async function insertChunks(tx: Tx, householdId: number, userId: string | null, 
  * problem by row. Commit: creates the requested crops and writes every row in one transaction,
  * 201 `{ ok: true, created }`; any problem rolls it all back and answers 422 with the problems.
  */
-export async function importEntries(householdId: number, userId: string | null, req: ImportRequest): Promise<ImportAnswer> {
+export async function importEntries(householdId: number, userId: string | null, req: ImportRequest, today: string): Promise<ImportAnswer> {
   const db = getDb();
   if (req.mode === 'preview') {
     if (req.kind === 'purchases') return answer(req, await preparePurchases(db, req), 200);
@@ -355,7 +358,7 @@ export async function importEntries(householdId: number, userId: string | null, 
     const known = await foodsByIds(db, missingFoods);
     const badFood = missingFoods.find((id) => !known.has(id));
     if (badFood !== undefined) throw new HttpError(400, 'invalid_input', `createCrops: There is no reference food with id ${badFood}.`, { createCrops: `There is no reference food with id ${badFood}.` });
-    return answer(req, await prepareHarvests(db, req, [...existing, ...virtual]), 200);
+    return answer(req, await prepareHarvests(db, req, [...existing, ...virtual], today), 200);
   }
   try {
     return await db.transaction(async (tx) => {
@@ -365,7 +368,7 @@ export async function importEntries(householdId: number, userId: string | null, 
         const existing = await cropRows(tx, householdId);
         const toCreate = newCrops(existing, req.createCrops);
         for (const c of toCreate) await insertCrop(tx, householdId, c);
-        prepared = await prepareHarvests(tx, req, toCreate.length > 0 ? await cropRows(tx, householdId) : existing);
+        prepared = await prepareHarvests(tx, req, toCreate.length > 0 ? await cropRows(tx, householdId) : existing, today);
       } else {
         prepared = await preparePurchases(tx, req);
       }

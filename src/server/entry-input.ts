@@ -36,7 +36,6 @@ export function fieldError(field: string, message: string, code = 'invalid_input
 }
 
 // readOptionalJson lives with the other body readers in ./http.
-export { readOptionalJson } from './http';
 
 function errCode(e: unknown): string | undefined {
   // Drizzle wraps the driver's error in DrizzleQueryError with the original as `cause`.
@@ -64,8 +63,6 @@ export function isRetryableLock(e: unknown): boolean {
   return code === 'ER_LOCK_DEADLOCK' || code === 'ER_LOCK_WAIT_TIMEOUT';
 }
 
-// todayIn lives with the other date functions in src/lib/months.ts; re-exported for the data layer.
-export { todayIn } from '@/lib/months';
 
 /** A route parameter holding a record id, or a 404 when it is not one. */
 export function idParam(value: string | undefined, what: string): number {

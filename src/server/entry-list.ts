@@ -10,7 +10,6 @@ import type { harvests, purchases } from '@/db/schema';
 import type { EntryPage } from '@/lib/entry-types';
 import type { Executor } from './entry-input';
 
-export type { EntryPage, EntryTotals } from '@/lib/entry-types';
 
 /** The tables whose rows are entries: harvests and bought food. */
 export type EntryTable = typeof harvests | typeof purchases;

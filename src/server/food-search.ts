@@ -7,7 +7,7 @@ import { and, asc, desc, eq, like, sql, type SQL } from 'drizzle-orm';
 import type { Pool } from 'mysql2/promise';
 import { datasets, foodNutrients, foods, foodWeights } from '@/db/schema';
 import type { FoodDetail, FoodHit } from '@/lib/food-types';
-import { fulltextQuery, searchWords, wantsBranded } from '@/lib/food-query';
+import { fulltextQuery, searchWords, singular, wantsBranded } from '@/lib/food-query';
 import { RAWNESS } from '@/lib/food-rows';
 import { NUTRIENTS } from '@/lib/nutrients';
 import { dbOn } from './db-on';
@@ -41,10 +41,17 @@ export async function searchFoods(pool: Pool, q: string, limit = 20, options: Se
   const where: SQL[] = score ? [score] : [];
   for (const w of words.filter((w) => w.length < 2)) where.push(like(foods.searchText, `%${w}%`));
   if (!options.branded && !wantsBranded(q)) where.push(sql`${foods.rawness} < ${RAWNESS.branded}`);
+  // The first word (or its singular) opening the name: "beans" → "Beans, kidney, …" before "Yardlong bean".
+  const one = singular(words[0]!);
+  // The word as typed wins over its singular ("potatoes" → "Potatoes, …" before "Potato pancakes").
+  const opensAsTyped = sql`LOWER(${foods.name}) REGEXP ${`^${words[0]!}\\b`}`;
+  const opens = sql`LOWER(${foods.name}) REGEXP ${`^(${[words[0]!, ...(one ? [one] : [])].join('|')})\\b`}`;
   const order: SQL[] = [
+    sql`(${opensAsTyped} AND ${foods.rawness} <= ${RAWNESS.otherRaw}) DESC`,
+    sql`(${opens} AND ${foods.rawness} <= ${RAWNESS.otherRaw}) DESC`,
     sql`(${foods.rawness} = ${RAWNESS.everyday}) DESC`,
     sql`(${foods.rawness} <= ${RAWNESS.otherRaw}) DESC`,
-    sql`(LOWER(${foods.name}) LIKE ${`${words[0]!}%`}) DESC`,
+    sql`${opens} DESC`,
     asc(foods.rawness),
   ];
   if (score) order.push(desc(score));

@@ -23,7 +23,8 @@ import type { PreserveMethod } from '@/lib/retention';
 import { toGrams, type WeightUnit } from '@/lib/units';
 import { cropDisplayName, cropRow, harvestEdibleGrams, requireFood } from './crops';
 import { HttpError } from './http';
-import { fieldError, invalidInput, todayIn, type Executor, type Tx } from './entry-input';
+import { todayIn } from '@/lib/months';
+import { fieldError, invalidInput, type Executor, type Tx } from './entry-input';
 import { listEntries, type EntryListSpec } from './entry-list';
 import { requirePlantingOfCrop } from './plantings';
 import { deleteEntry, updateEntry, type EntryUpdateSpec } from './entry-update';
@@ -105,11 +106,6 @@ export function harvestValues(input: HarvestInput, basis: HarvestBasis): {
   };
 }
 
-/** 422 unless a named planting is the household's and grows the harvest's crop. */
-async function checkPlanting(ex: Executor, householdId: number, input: HarvestInput, basis: HarvestBasis): Promise<void> {
-  if (input.plantingId !== undefined) await requirePlantingOfCrop(ex, householdId, input.plantingId, basis.cropId);
-}
-
 /**
  * Refuses a harvest dated after today in the household's time zone: a harvest is weighed, so it
  * cannot lie ahead (a slipped year would also put food into months not yet lived).
@@ -118,6 +114,11 @@ async function checkNotFuture(ex: Executor, householdId: number, date: string): 
   const [h] = await ex.select({ timezone: households.timezone }).from(households).where(eq(households.id, householdId));
   const today = todayIn(h?.timezone ?? 'UTC');
   if (date > today) throw fieldError('date', `The harvest date ${date} is after today (${today} in the household's time zone); enter the day it was picked.`);
+}
+
+/** 422 unless a named planting is the household's and grows the harvest's crop. */
+async function checkPlanting(ex: Executor, householdId: number, input: HarvestInput, basis: HarvestBasis): Promise<void> {
+  if (input.plantingId !== undefined) await requirePlantingOfCrop(ex, householdId, input.plantingId, basis.cropId);
 }
 
 function checkUse(input: HarvestInput, basis: HarvestBasis, field = 'use'): void {

@@ -6,13 +6,12 @@ import { and, asc, eq } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { people, type Person } from '@/db/schema';
 import type { PersonJson } from '@/lib/api-types';
-import { todayIn } from '@/lib/growing-year';
+import { todayIn } from '@/lib/months';
 import { monthOf } from '@/lib/months';
 import { mergePerson, needsPerson, personInput, type PersonFields, type PersonInput, type PersonPatch } from '@/lib/people-schemas';
 import { personEnergy } from '@/lib/person-energy';
 import { HttpError } from './http';
 
-export type { PersonJson } from '@/lib/api-types';
 
 /** The stored fields of a row, as the schemas name them. */
 export function personFields(row: Person): PersonFields {

@@ -8,7 +8,7 @@
 import { and, eq, gte, inArray, isNotNull, lt, lte, sql } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { crops, datasets, foodNutrients, foods, harvests, plantings, type Household } from '@/db/schema';
-import { defaultFrostDates } from '@/lib/crop-months';
+import { seasonFrostDates } from '@/lib/growing-season';
 import type { CropFood, CropTableRow } from '@/lib/crop-table';
 import { addMonths, daysInMonth, formatMonth } from '@/lib/months';
 import { SHARE_NUTRIENTS, type NutrientKey, type ShareNutrientKey } from '@/lib/nutrients';
@@ -136,7 +136,7 @@ export async function planInputFor(household: Household, request: PlanRequest): 
     if (!food) continue; // the reference foods are not loaded: nothing to count this crop with
     candidates.push({ row, food, ownYieldKgM2: yields.get(row.key) ?? null, seedKeptG: kept.get(row.key) ?? 0 });
   }
-  const fallback = defaultFrostDates(household.timezone);
+  const season = seasonFrostDates({ lastSpringFrost: household.lastSpringFrost ?? null, firstAutumnFrost: household.firstAutumnFrost ?? null }, household.timezone);
   return {
     year: request.year,
     months: share.months.map((m) => m.month),
@@ -147,10 +147,7 @@ export async function planInputFor(household: Household, request: PlanRequest): 
     need,
     homeSupply,
     people: people.length,
-    frost: {
-      lastSpringFrost: household.lastSpringFrost ?? fallback.lastSpringFrost,
-      firstAutumnFrost: household.firstAutumnFrost ?? fallback.firstAutumnFrost,
-    },
+    frost: { lastSpringFrost: season.lastSpringFrost, firstAutumnFrost: season.firstAutumnFrost },
     candidates,
   };
 }

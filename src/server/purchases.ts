@@ -16,7 +16,6 @@ import { invalidInput, type Executor, type Tx } from './entry-input';
 import { listEntries, type EntryListSpec } from './entry-list';
 import { deleteEntry, updateEntry, type EntryUpdateSpec } from './entry-update';
 
-export type { PurchaseJson, PurchaseList } from '@/lib/entry-types';
 
 const NOT_FOUND = 'No such bought food in this household.';
 

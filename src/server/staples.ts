@@ -9,10 +9,11 @@ import type { StapleJson } from '@/lib/api-types';
 import type { StapleInput } from '@/lib/entry-schemas';
 import { requireFood } from './crops';
 import { HttpError } from './http';
-import { isDuplicateKey, todayIn, type Executor, type Tx } from './entry-input';
-import { createPurchase, type PurchaseJson } from './purchases';
+import { todayIn } from '@/lib/months';
+import { isDuplicateKey, type Executor, type Tx } from './entry-input';
+import type { PurchaseJson } from '@/lib/entry-types';
+import { createPurchase } from './purchases';
 
-export type { StapleJson } from '@/lib/api-types';
 
 function joined(ex: Executor) {
   return ex

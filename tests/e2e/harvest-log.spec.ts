@@ -214,3 +214,43 @@ test('a grower keeps crops, bought food and old logs from a phone; a viewer only
   const r = await page.goto(`/households/999999/crops`);
   expect(r!.status()).toBe(404);
 });
+
+test('a preserved harvest names its method, and a weighing over 100 kg is questioned but can still be saved', async ({ page, context }) => {
+  const { owner, h } = await potatoPlot(context, 'Preserving plot');
+  await page.goto(`/households/${h.id}/log`);
+
+  // Preserved, frozen: the method goes with the entry.
+  await fillHarvest(page, '3');
+  await expect(page.getByText('How was it preserved?')).toHaveCount(0);
+  await page.getByText(/^Preserved/).tap();
+  await expect(page.getByText('How was it preserved?')).toBeVisible();
+  await page.getByText('Frozen', { exact: true }).tap();
+  await page.getByRole('button', { name: 'Save harvest' }).tap();
+  await expect(page.getByTestId('saved-label').first()).toHaveText('3 kg Potato (Charlotte) — preserved');
+  let list = await allHarvests(owner.cookie, h.id);
+  expect(list.harvests).toEqual([expect.objectContaining({ use: 'preserved', preserveMethod: 'frozen', quantity: 3 })]);
+
+  // 150 kg in one weighing: the form asks first and saves nothing.
+  await page.getByLabel('Weight', { exact: true }).fill('150');
+  await page.getByText(/^Eaten fresh/).tap();
+  await page.getByRole('button', { name: 'Save harvest' }).tap();
+  // common practice (no published source): over 100 kg in one weighing is asked about
+  await expect(page.getByTestId('weight-warning')).toContainText('150 kg is over 100 kg for one weighing.');
+  expect((await allHarvests(owner.cookie, h.id)).total).toBe(1);
+  await page.getByRole('button', { name: 'The weight is right: save it' }).tap();
+  await expect(page.getByTestId('saved-label').first()).toHaveText('150 kg Potato (Charlotte) — fresh');
+  await expect(page.getByTestId('weight-warning')).toHaveCount(0);
+  list = await allHarvests(owner.cookie, h.id);
+  expect(list.total).toBe(2);
+  expect(list.harvests.map((x: { quantity: number }) => x.quantity).sort((a: number, b: number) => a - b)).toEqual([3, 150]);
+});
+
+test('the harvest form refuses a date after today in the household’s zone', async ({ page, context }) => {
+  const { owner, h } = await potatoPlot(context, 'Tomorrow plot');
+  await page.goto(`/households/${h.id}/log`);
+  await fillHarvest(page, '1');
+  await page.getByLabel(/^Date/).fill('2199-12-31');
+  await page.getByRole('button', { name: 'Save harvest' }).tap();
+  await expect(page.getByText(/The harvest date 2199-12-31 is after today \(\d{4}-\d{2}-\d{2} in the household's time zone\)/)).toBeVisible();
+  expect((await allHarvests(owner.cookie, h.id)).total).toBe(0);
+});

@@ -47,5 +47,6 @@ test('logging a harvest raises the month’s home share of calories on the dashb
   await expect(cell).toContainText(String(pct));
   await expect(cell).not.toHaveAttribute('data-band', 'none from home');
   await expect(page.getByTestId('need-share-energy_kcal')).toHaveText(`${pct} %`);
-  await expect(page.getByTestId('intake-share-energy_kcal')).toHaveText('100 %'); // nothing bought
+  // Nothing bought and 5,775 of 2,000 × days kcal logged (< 70 % of the energy need): issue 9 says so instead of "100 %"
+  await expect(page.getByTestId('intake-share-energy_kcal')).toHaveText('bought food looks incomplete');
 });

@@ -45,6 +45,14 @@ describe('importing a harvest log', () => {
     expect((await allHarvests(t.owner.cookie, hid)).total).toBe(0);
   });
 
+  it('refuses a harvest dated after today in the household time zone, writing nothing', async () => {
+    const later = `${goodLog}\n2099-07-01,Potato,Charlotte,3,kg,fresh,,`;
+    const r = await upload(t.grower.cookie, hid, { kind: 'harvests', mode: 'commit', csv: later });
+    expect(r.status).toBe(422);
+    expect(r.body.errors).toEqual([{ row: 5, column: 'date', message: expect.stringMatching(/after today/) }]);
+    expect((await allHarvests(t.owner.cookie, hid)).total).toBe(0);
+  });
+
   it('writes nothing when one row is bad, and names the row and column', async () => {
     const bad = `${goodLog}\n2025-02-30,Potato,Charlotte,3,kg,fresh,,\n2025-10-01,Potato,Charlotte,0,kg,fresh,,`;
     const r = await upload(t.grower.cookie, hid, { kind: 'harvests', mode: 'commit', csv: bad });

@@ -39,15 +39,32 @@ describe('GET /api/foods puts the everyday raw form first', () => {
     expect((await first('squash')).slice(0, 2).map((h) => h.code).sort()).toEqual(['11641', '11643']);
   });
 
-  it('keeps branded foods below every unbranded one', async () => {
-    const r = await api('/api/foods?q=quick%20oats&limit=40');
-    const names: string[] = r.body.foods.map((h: { name: string }) => h.name);
+  it('finds a plural by its singular without matching longer words', async () => {
+    // USDA SR28, NDB 01123 "Egg, whole, raw, fresh": "eggs" finds it, and Eggplant is not an egg
+    const hits = await first('eggs');
+    expect(hits[0]!.code).toBe('01123');
+    expect(hits.some((h) => /^Eggplant/.test(h.name))).toBe(false);
+  });
+
+  const BRAND = /Quaker|Malt-O-Meal|General Mills|Kellogg/;
+
+  it('leaves branded foods out unless asked, then shows them below every unbranded one', async () => {
     // USDA SR28, NDB 08402 "Cereals, Quaker, quick oats, dry" names a brand;
     // NDB 08120 "Cereals, oats, regular and quick, not fortified, dry" does not
-    const branded = names.map((n, i) => (/Quaker|Malt-O-Meal|General Mills|Kellogg/.test(n) ? i : -1)).filter((i) => i >= 0);
-    const plain = names.map((n, i) => (/Quaker|Malt-O-Meal|General Mills|Kellogg/.test(n) ? -1 : i)).filter((i) => i >= 0);
+    const plainOnly: string[] = (await api('/api/foods?q=quick%20oats&limit=40')).body.foods.map((h: { name: string }) => h.name);
+    expect(plainOnly).toContain('Cereals, oats, regular and quick, not fortified, dry');
+    expect(plainOnly.filter((n) => BRAND.test(n))).toEqual([]);
+
+    const r = await api('/api/foods?q=quick%20oats&limit=40&branded=1');
+    const names: string[] = r.body.foods.map((h: { name: string }) => h.name);
+    const branded = names.map((n, i) => (BRAND.test(n) ? i : -1)).filter((i) => i >= 0);
+    const plain = names.map((n, i) => (BRAND.test(n) ? -1 : i)).filter((i) => i >= 0);
     expect(branded.length).toBeGreaterThan(0);
-    expect(names).toContain('Cereals, oats, regular and quick, not fortified, dry');
     expect(Math.min(...branded)).toBeGreaterThan(Math.max(...plain));
+  });
+
+  it('shows branded foods when the words name the brand', async () => {
+    const names: string[] = (await api('/api/foods?q=quaker%20oats&limit=40')).body.foods.map((h: { name: string }) => h.name);
+    expect(names.some((n) => /Quaker/.test(n))).toBe(true);
   });
 });

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { fieldErrors, PASSWORD_MIN, resetPasswordInput, signInInput, signUpInput } from '@/lib/account-schemas';
+import { PASSWORD_MIN, resetPasswordInput, signInInput, signUpInput } from '@/lib/account-schemas';
+import { fieldErrors } from '@/lib/error-body';
 
 describe('account form rules', () => {
   it('needs a name, an e-mail address and a password of at least 10 characters to sign up', () => {

@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { parseCropTable } from '@/lib/crop-table';
-import { dayOfYear, defaultFrostDates, eatingMonths, frostDays, harvestMonths, monthOfDay, monthShares } from '@/lib/crop-months';
+import { dayOfYear, eatingMonths, frostDays, harvestMonths, monthOfDay, monthShares } from '@/lib/crop-months';
 
 const rows = parseCropTable(readFileSync(fileURLToPath(new URL('../../reference-data/crops.csv', import.meta.url)), 'utf8'));
 const crop = (key: string) => rows.find((r) => r.key === key)!;
@@ -26,12 +26,6 @@ describe('frost dates', () => {
   it('puts the autumn frost after the spring one, in the next year in the south', () => {
     expect(frostDays(north)).toEqual({ spring: 104, autumn: 287 });
     expect(frostDays({ lastSpringFrost: '10-01', firstAutumnFrost: '04-15' })).toEqual({ spring: 273, autumn: 469 });
-  });
-
-  it('defaults to mid-April and mid-October, the other way round south of the equator', () => {
-    expect(defaultFrostDates('Europe/Berlin')).toEqual(north);
-    expect(defaultFrostDates('Australia/Hobart')).toEqual({ lastSpringFrost: '10-15', firstAutumnFrost: '04-15' });
-    expect(defaultFrostDates('America/Argentina/Cordoba').lastSpringFrost).toBe('10-15');
   });
 });
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import { fieldErrors, FORM_FIELD, zodErrorBody, zodFieldErrors } from '@/lib/error-body';
-import { fieldErrors as accountFieldErrors } from '@/lib/account-schemas';
+import { fieldErrors as accountFieldErrors } from '@/lib/error-body';
 import { householdPatch } from '@/lib/household-schemas';
 
 describe('error-body', () => {

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { growingYear, growingYearLabel, lastTwelveMonths, todayIn } from '@/lib/growing-year';
+import { growingYear, growingYearLabel, lastTwelveMonths } from '@/lib/growing-year';
+import { todayIn } from '@/lib/months';
 
 describe('growing year', () => {
   it('is the calendar year when it starts in January', () => {

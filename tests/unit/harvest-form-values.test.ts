@@ -49,6 +49,24 @@ describe('harvestResolver', () => {
     expect(harvestLabel(values, 'kg', 'Potato')).toBe('12 kg Potato — 3 kg fresh, 9 kg stored');
   });
 
+  it('sends the preserving method with preserved food only, in one weighing or in each preserved part', async () => {
+    const one = await resolve(form({ cropId: 3, quantity: '4', use: 'preserved', preserveMethod: 'frozen' }));
+    expect(one.errors).toEqual({});
+    expect(one.values).toMatchObject({ use: 'preserved', preserveMethod: 'frozen' });
+    const fresh = await resolve(form({ cropId: 3, quantity: '4', use: 'fresh', preserveMethod: 'frozen' }));
+    expect(fresh.values).not.toHaveProperty('preserveMethod');
+    const split = await resolve(form({ cropId: 3, quantity: '10', splitting: true, preserveMethod: 'canned', parts: [{ pid: 1, quantity: '3', use: 'fresh' }, { pid: 2, quantity: '', use: 'preserved' }] }));
+    expect(split.values).toMatchObject({ parts: [{ use: 'fresh' }, { use: 'preserved', preserveMethod: 'canned' }] });
+    expect((split.values as { parts: object[] }).parts[0]).not.toHaveProperty('preserveMethod');
+  });
+
+  it('refuses a date after today in the household’s zone, as the server does', async () => {
+    const r = await harvestResolver(form({ cropId: 3, quantity: '1', date: '2026-07-15' }), { ...context, today: '2026-07-14' }, options);
+    expect(flatErrors(r.errors).date).toBe("The harvest date 2026-07-15 is after today (2026-07-14 in the household's time zone); enter the day it was picked.");
+    const ok = await harvestResolver(form({ cropId: 3, quantity: '1', date: '2026-07-14' }), { ...context, today: '2026-07-14' }, options);
+    expect(flatErrors(ok.errors)).toEqual({});
+  });
+
   it('says when the other parts leave nothing for the last one', async () => {
     const r = await resolve(form({ cropId: 3, quantity: '2', splitting: true, parts: [{ pid: 1, quantity: '2', use: 'fresh' }, { pid: 2, quantity: '', use: 'stored' }] }));
     expect(r.errors['parts.1.quantity']).toBe('The other parts add up to 2 kg, which leaves nothing for the last part. Check the weights.');

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { SHARE_BANDS, UNKNOWN_BAND, contrastRatio, percentText, shareBand } from '@/lib/share-scale';
+import { BEFORE_RECORDS_BAND, SHARE_BANDS, UNKNOWN_BAND, contrastRatio, percentText, shareBand, shareText, unknownText } from '@/lib/share-scale';
 
 describe('share colour scale', () => {
   it('puts a share in the band whose lower bound it reaches', () => {
@@ -8,8 +8,14 @@ describe('share colour scale', () => {
     expect(shareBand(0.1).label).toBe('10–25 %');
     expect(shareBand(0.4999).label).toBe('25–50 %');
     expect(shareBand(0.75).label).toBe('75–100 %');
-    expect(shareBand(1).label).toBe('all of it or more');
-    expect(shareBand(2.5).label).toBe('all of it or more');
+    expect(shareBand(1).label).toBe('covered');
+  });
+
+  it('stops at covered: more than the recommended intake earns no deeper colour', () => {
+    expect(shareBand(2.5)).toBe(shareBand(1));
+    expect(shareBand(2.5).label).toBe('covered');
+    expect(SHARE_BANDS.at(-1)!.label).toBe('covered');
+    expect(SHARE_BANDS.filter((b) => b.min >= 1)).toHaveLength(1);
   });
 
   it('gives no band (no figure) for null, never the zero band', () => {
@@ -24,7 +30,7 @@ describe('share colour scale', () => {
 
   it('keeps every band’s text at WCAG AA contrast (4.5:1) or more', () => {
     // WCAG 2.1 success criterion 1.4.3: contrast at least 4.5:1 for normal text
-    for (const b of [...SHARE_BANDS, UNKNOWN_BAND]) expect(contrastRatio(b.background, b.text)).toBeGreaterThanOrEqual(4.5);
+    for (const b of [...SHARE_BANDS, UNKNOWN_BAND, BEFORE_RECORDS_BAND]) expect(contrastRatio(b.background, b.text)).toBeGreaterThanOrEqual(4.5);
   });
 
   it('computes the WCAG contrast ratio', () => {
@@ -39,5 +45,24 @@ describe('share colour scale', () => {
     expect(percentText(0)).toBe('0 %');
     expect(percentText(1.5)).toBe('150 %');
     expect(percentText(null)).toBe('–');
+  });
+
+  it('greys months before records apart from the none-from-home band', () => {
+    expect(BEFORE_RECORDS_BAND.background).not.toBe(SHARE_BANDS[0]!.background);
+    expect(BEFORE_RECORDS_BAND.label).toBe('before records');
+  });
+
+  it('flags an uncertain share instead of writing it as a clean figure', () => {
+    expect(shareText(0.426, true)).toBe('43 % (uncertain)');
+    expect(shareText(0.426, false)).toBe('43 %');
+    expect(shareText(null, true)).toBe('–');
+  });
+
+  it('says how much of the weight had no value, whole percent, and nothing when all had one', () => {
+    expect(unknownText(0.153)).toBe('15 % of the weight eaten has no value for it');
+    expect(unknownText(0.002)).toBe('<1 % of the weight eaten has no value for it');
+    expect(unknownText(0.2, 'zinc')).toBe('20 % of the weight eaten has no value for zinc');
+    expect(unknownText(0)).toBeNull();
+    expect(unknownText(null)).toBeNull();
   });
 });

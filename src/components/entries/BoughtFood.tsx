@@ -5,7 +5,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { ApiError, canWrite, keys, request, urls, type HouseholdInfo, type Purchase } from './api';
-import { todayIn } from './local-date';
+import { todayIn } from '@/lib/months';
 import { useOutbox } from './outbox';
 import { PurchaseForm } from './PurchaseForm';
 import { PurchaseWaiting, savedPurchase, type SavedPurchase } from './PurchaseSaved';

@@ -1,8 +1,10 @@
 /**
  * The harvest entry form (island, client:load), built for one thumb in the garden: recent and
  * in-season crops first, a big weight field, a unit toggle remembered per household, use chips,
- * today's date in the household's zone, a split mode for one weighing shared between uses.
- * The form is react-hook-form, checked by the endpoint's own zod schemas (harvest-form-values.ts).
+ * today's date in the household's zone, a split mode for one weighing shared between uses, the
+ * preserving method of preserved food. The form is react-hook-form, checked by the endpoint's own
+ * zod schemas (harvest-form-values.ts); a date after today is refused, and a weight that looks like
+ * a slip of the unit (src/lib/harvest-warnings.ts) is questioned before it is saved.
  * Every submission carries an Idempotency-Key and goes through the outbox, so a failed request
  * is kept, shown as waiting and sent again later without ever being stored twice. What was just
  * saved is shown with an Undo.
@@ -12,14 +14,19 @@ import { useMemo, useRef, useState, type FormEvent } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { defaultSpreadMonths } from '@/lib/crop-categories';
 import { isEatenUse, USES, type Use } from '@/lib/entry-schemas';
+import { harvestWarnings } from '@/lib/harvest-warnings';
+import { toGrams } from '@/lib/units';
 import { ApiError, canWrite, get, keys, newIdempotencyKey, urls, type Crop, type HarvestPage, type HouseholdInfo } from './api';
 import { cropDefaultUse, orderCrops } from './crop-order';
+import { ConfirmWarning } from './ConfirmWarning';
 import { CropChips } from './CropChips';
 import { flatErrors } from './form-errors';
-import { emptyHarvestValues, harvestLabel, harvestResolver, restOf, spreadUsesOf, type HarvestBody, type HarvestFormContext, type HarvestFormValues, type PartValues } from './harvest-form-values';
+import { emptyHarvestValues, harvestLabel, harvestResolver, restOf, spreadUsesOf, weighingQuantity, type HarvestBody, type HarvestFormContext, type HarvestFormValues, type PartValues } from './harvest-form-values';
 import { SavedList, WaitingList } from './HarvestSaved';
-import { monthRange, shiftYear, todayIn } from './local-date';
+import { todayIn } from '@/lib/months';
+import { monthRange, shiftYear } from './local-date';
 import { useOutbox } from './outbox';
+import { PreserveField } from './PreserveField';
 import { QueryProvider } from './QueryProvider';
 import { SplitParts } from './SplitParts';
 import { SpreadField } from './SpreadField';
@@ -62,6 +69,8 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
 
   const [unit, setUnit] = useRememberedUnit(hid, household.units);
   const [alert, setAlert] = useState<string | null>(null);
+  // A weight questioned (over 100 kg, a few grams of a storage crop) waits here until confirmed.
+  const [question, setQuestion] = useState<{ messages: string[] } | null>(null);
   const nextPartId = useRef(1);
 
   const form = useForm<HarvestFormValues, HarvestFormContext, HarvestBody>({
@@ -72,7 +81,7 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
     reValidateMode: 'onSubmit',
     shouldFocusError: false,
     // What the resolver needs besides the typed values: the remembered unit and the crops.
-    context: { unit, crops: crops.data ?? [] },
+    context: { unit, crops: crops.data ?? [], today },
   });
   const { control, register, watch, setValue, getValues, reset, setError, clearErrors, handleSubmit } = form;
   const values = watch();
@@ -113,14 +122,25 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
     el?.focus();
   }
 
+  // Questions an odd weight first; the warning's button saves what the form then holds, unquestioned.
+  async function check(body: HarvestBody) {
+    const messages = harvestWarnings({ grams: toGrams(weighingQuantity(body), unit), unit, category: crop?.category, cropName: crop?.displayName }).map((w) => w.message);
+    if (messages.length > 0) {
+      setQuestion({ messages });
+      return;
+    }
+    await save(body);
+  }
+
   async function save(body: HarvestBody) {
+    setQuestion(null);
     const key = newIdempotencyKey();
     const text = harvestLabel(getValues(), unit, crop?.displayName);
     try {
       const r = await outbox.submit(api.harvests(), body, text, key);
       if (r.status === 'saved') add(key, text, r.data);
       // The next weighing keeps the crop, the date and the trimmed flag.
-      reset({ ...getValues(), quantity: '', note: '', splitting: false, parts: [], spreadMonths: '', use: cropDefaultUse(crop) });
+      reset({ ...getValues(), quantity: '', note: '', splitting: false, parts: [], spreadMonths: '', preserveMethod: '', use: cropDefaultUse(crop) });
     } catch (err) {
       if (err instanceof ApiError) {
         for (const [field, message] of Object.entries(err.fields)) setError(field as keyof HarvestFormValues, { type: 'server', message });
@@ -132,7 +152,8 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
 
   function submit(e: FormEvent) {
     setAlert(null);
-    void handleSubmit(save, (errs) => focusFirst(flatErrors(errs)))(e);
+    setQuestion(null);
+    void handleSubmit(check, (errs) => focusFirst(flatErrors(errs)))(e);
   }
 
   if (crops.isPending) return <p className="card text-lg">Loading your crops…</p>;
@@ -171,6 +192,10 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
           />
         ) : null}
 
+        {spreadUses.includes('preserved') ? (
+          <Controller control={control} name="preserveMethod" render={({ field }) => <PreserveField value={field.value} onChange={field.onChange} error={errors.preserveMethod} />} />
+        ) : null}
+
         <UseCautions uses={splitting ? values.parts.map((p) => p.use) : [values.use]} />
 
         <div className="mt-4">
@@ -190,7 +215,7 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
             <label htmlFor="date" className="block font-semibold">
               Date {values.date === today ? <span className="font-normal text-loam-700">(today)</span> : null}
             </label>
-            <input {...invalidProps('date', errors.date)} {...register('date')} type="date" className="field mt-1" max="2199-12-31" />
+            <input {...invalidProps('date', errors.date)} {...register('date')} type="date" className="field mt-1" max={today} />
             <ErrorText id="date" error={errors.date} />
           </div>
           <label className="flex min-h-12 cursor-pointer items-center gap-3 self-end rounded-xl border border-loam-200 bg-loam-50 px-4 py-2">
@@ -209,6 +234,10 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
           <input {...invalidProps('note', errors.note)} {...register('note')} type="text" className="field mt-1" maxLength={500} placeholder="e.g. bed 3, first picking" />
           <ErrorText id="note" error={errors.note} />
         </div>
+
+        {question ? (
+          <ConfirmWarning testId="weight-warning" messages={question.messages} confirmLabel="The weight is right: save it" busy={busy} onConfirm={() => void handleSubmit(save, (errs) => focusFirst(flatErrors(errs)))()} />
+        ) : null}
 
         <button type="submit" className="btn-primary mt-6 min-h-16 w-full text-xl" disabled={busy}>
           {busy ? 'Saving…' : 'Save harvest'}

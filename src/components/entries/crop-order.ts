@@ -5,7 +5,8 @@
 import { defaultUse } from '@/lib/crop-categories';
 import type { Use } from '@/lib/entry-schemas';
 import type { Crop } from './api';
-import { daysBetween, formatDay } from './local-date';
+import { daysBetween } from '@/lib/months';
+import { formatDay } from './local-date';
 
 /** A crop harvested within this many days counts as recent. */
 const RECENT_DAYS = 28;

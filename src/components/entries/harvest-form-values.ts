@@ -8,6 +8,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { Resolver } from 'react-hook-form';
 import { cropUseError, harvestInput, harvestSplitInput, isSpreadUse, type HarvestInput, type HarvestSplitInput, type Use } from '@/lib/entry-schemas';
+import type { PreserveMethod } from '@/lib/retention';
 import type { WeightUnit } from '@/lib/units';
 import { firstWins, flatErrors, nestErrors, type FlatErrors } from './form-errors';
 import { formatQuantity, parseDecimal, trimNumber } from './quantity-text';
@@ -25,6 +26,8 @@ export interface HarvestFormValues {
   use: Use;
   /** Months a stored or preserved harvest is eaten over; blank takes the crop's usual. */
   spreadMonths: string;
+  /** How the preserved food (or each preserved part) was kept; blank = not said. */
+  preserveMethod: PreserveMethod | '';
   date: string;
   trimmed: boolean;
   note: string;
@@ -37,6 +40,8 @@ export interface HarvestFormValues {
 export interface HarvestFormContext {
   unit: WeightUnit;
   crops: readonly { id: number; displayName: string; notFood: boolean }[];
+  /** Today in the household's zone: a later date is refused, as the server refuses it. */
+  today?: string;
 }
 
 /** The body sent to POST …/harvests: one harvest, or one weighing split between uses. */
@@ -44,7 +49,12 @@ export type HarvestBody = HarvestInput | HarvestSplitInput;
 
 /** The form as it opens (and as the next entry starts, keeping the crop, date and trimmed flag). */
 export function emptyHarvestValues(date: string): HarvestFormValues {
-  return { cropId: null, quantity: '', use: 'fresh', spreadMonths: '', date, trimmed: false, note: '', splitting: false, parts: [] };
+  return { cropId: null, quantity: '', use: 'fresh', spreadMonths: '', preserveMethod: '', date, trimmed: false, note: '', splitting: false, parts: [] };
+}
+
+/** The whole weighing in its unit, as the body says it (one quantity, or the parts' sum). Example: { parts: [{ quantity: 3 }, { quantity: 7 }] } → 10 */
+export function weighingQuantity(body: HarvestBody): number {
+  return 'parts' in body ? body.parts.reduce((sum, p) => sum + p.quantity, 0) : body.quantity;
 }
 
 /** The weight left for the last part of a split (undefined until the whole weighing is a number). Example: quantity '10', parts ['3', …] → 7 */
@@ -77,7 +87,9 @@ export function harvestLabel(values: HarvestFormValues, unit: WeightUnit, cropNa
 export function harvestBody(values: HarvestFormValues, unit: WeightUnit): Record<string, unknown> {
   const spread = values.spreadMonths.trim() === '' ? undefined : Number(values.spreadMonths);
   const shared = { date: values.date, cropId: values.cropId ?? undefined, unit, trimmed: values.trimmed, note: values.note.trim() === '' ? undefined : values.note };
-  if (!values.splitting) return { ...shared, quantity: parseDecimal(values.quantity), use: values.use, spreadMonths: isSpreadUse(values.use) ? spread : undefined };
+  // The method goes with preserved food only (the schema refuses it on any other use).
+  const method = (use: Use) => (use === 'preserved' && values.preserveMethod !== '' ? { preserveMethod: values.preserveMethod } : {});
+  if (!values.splitting) return { ...shared, quantity: parseDecimal(values.quantity), use: values.use, spreadMonths: isSpreadUse(values.use) ? spread : undefined, ...method(values.use) };
   const rest = restOf(values);
   return {
     ...shared,
@@ -85,6 +97,7 @@ export function harvestBody(values: HarvestFormValues, unit: WeightUnit): Record
       quantity: i === values.parts.length - 1 ? rest : parseDecimal(p.quantity),
       use: p.use,
       spreadMonths: isSpreadUse(p.use) ? spread : undefined,
+      ...method(p.use),
     })),
   };
 }
@@ -92,10 +105,14 @@ export function harvestBody(values: HarvestFormValues, unit: WeightUnit): Record
 const singleResolver = zodResolver(harvestInput);
 const splitResolver = zodResolver(harvestSplitInput);
 
-/** The problems the schemas cannot see: no crop tapped, the whole weighing and the rest of a split. */
-function formChecks(values: HarvestFormValues, unit: WeightUnit): FlatErrors {
+/** The problems the schemas cannot see: no crop tapped, a date after today, the whole weighing and the rest of a split. */
+function formChecks(values: HarvestFormValues, unit: WeightUnit, today: string | undefined): FlatErrors {
   const errs: FlatErrors = {};
   if (values.cropId === null) errs.cropId = 'Choose the crop you harvested.';
+  // The same sentence as the server's (src/server/harvests.ts), which refuses it too.
+  if (today && /^\d{4}-\d{2}-\d{2}$/.test(values.date) && values.date > today) {
+    errs.date = `The harvest date ${values.date} is after today (${today} in the household's time zone); enter the day it was picked.`;
+  }
   if (!values.splitting) return errs;
   const total = parseDecimal(values.quantity);
   if (total === undefined) errs.quantity = 'Enter the weight of the whole weighing.';
@@ -136,7 +153,7 @@ export const harvestResolver: Resolver<HarvestFormValues, HarvestFormContext, Ha
   // The body's paths are the form's paths, so the schema's errors land on the form's fields.
   // (The casts: the schema is typed by the body it reads, the options by the form they serve.)
   const r = values.splitting ? await splitResolver(body as never, undefined, options as never) : await singleResolver(body as never, undefined, options as never);
-  const errs = firstWins(formChecks(values, ctx.unit), flatErrors(r.errors));
+  const errs = firstWins(formChecks(values, ctx.unit, ctx.today), flatErrors(r.errors));
   Object.assign(errs, useChecks(values, ctx));
   if (Object.keys(errs).length === 0) return { values: r.values as HarvestBody, errors: {} };
   return { values: {}, errors: nestErrors(errs, options) };

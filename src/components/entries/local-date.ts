@@ -6,7 +6,6 @@
 import { daysInMonth, isMonth } from '@/lib/months';
 
 // One todayIn and one daysBetween for the whole app, re-exported for the entry islands.
-export { daysBetween, todayIn } from '@/lib/months';
 
 /** First and last day of a month written 'YYYY-MM'. Example: `monthRange('2028-02')` → { from: '2028-02-01', to: '2028-02-29' } */
 export function monthRange(month: string): { from: string; to: string } | null {

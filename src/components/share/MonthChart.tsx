@@ -1,6 +1,9 @@
 /**
  * Month by month for one chosen nutrient: home-grown and bought as stacked bars, the household's
- * need as a line. A table with the same numbers sits below for those who read rather than look.
+ * recommended intake as a dashed line (for carbohydrate and fat two lines, the low and high ends of
+ * the range). The chart's text alternative gives the headline figure, flagged when uncertain, and a
+ * table with the same numbers — months before records and still to come marked, the weight of
+ * unknown value beside each share — sits below for those who read rather than look.
  */
 import {
   BarController,
@@ -19,8 +22,9 @@ import {
 import { useId, useState } from 'react';
 import { Chart } from 'react-chartjs-2';
 import type { ShareResponse } from '@/lib/share-types';
-import { percentText } from '@/lib/share-scale';
-import { amountText, longMonth, shortMonth } from './format';
+import { shareText, unknownText } from '@/lib/share-scale';
+import { formatWeight, type UnitSystem } from '@/lib/units';
+import { amountText, basisLong, longMonth, needText, rangeText, shortMonth } from './format';
 
 ChartJS.register(BarController, LineController, BarElement, LineElement, PointElement, CategoryScale, LinearScale, Tooltip, Legend);
 
@@ -35,32 +39,42 @@ export function calmMotion(): boolean {
   return Boolean(navigator.webdriver) || Boolean(window.matchMedia?.('(prefers-reduced-motion: reduce)').matches);
 }
 
-export function MonthChart({ report }: { report: ShareResponse }) {
+export function MonthChart({ report, units }: { report: ShareResponse; units: UnitSystem }) {
   const [key, setKey] = useState<string>('energy_kcal');
   const id = useId();
   const nutrient = report.nutrients.find((n) => n.key === key) ?? report.nutrients[0]!;
   const k = nutrient.key;
+  const ranged = report.months.some((m) => m.values[k].needHigh !== null);
+  const needLine = {
+    type: 'line' as const,
+    borderColor: NEED,
+    // No fill: the legend then draws the need as a dashed outline, like the line itself.
+    backgroundColor: 'transparent',
+    pointBackgroundColor: NEED,
+    borderDash: [6, 4],
+    borderWidth: 2,
+    pointRadius: 3,
+    order: 1,
+  };
   const labels = report.months.map((m, i) => (i === 0 || m.month.endsWith('-01') ? `${shortMonth(m.month)} ${m.month.slice(0, 4)}` : shortMonth(m.month)));
   const data: ChartData<'bar' | 'line', (number | null)[], string> = {
     labels,
     datasets: [
       { type: 'bar', label: 'Home-grown', data: report.months.map((m) => m.values[k].home), backgroundColor: HOME, stack: 'eaten', order: 2 },
       { type: 'bar', label: 'Bought', data: report.months.map((m) => m.values[k].bought), backgroundColor: BOUGHT, stack: 'eaten', order: 2 },
-      {
-        type: 'line',
-        label: 'Need',
-        data: report.months.map((m) => m.values[k].need),
-        borderColor: NEED,
-        // No fill: the legend then draws the need as a dashed outline, like the line itself.
-        backgroundColor: 'transparent',
-        pointBackgroundColor: NEED,
-        borderDash: [6, 4],
-        borderWidth: 2,
-        pointRadius: 3,
-        order: 1,
-      },
+      ...(ranged
+        ? [
+            { ...needLine, label: 'Recommended, least', data: report.months.map((m) => m.values[k].needLow) },
+            { ...needLine, label: 'Recommended, most', borderDash: [2, 3], data: report.months.map((m) => m.values[k].needHigh) },
+          ]
+        : [{ ...needLine, label: 'Recommended intake', data: report.months.map((m) => m.values[k].need) }]),
     ],
   };
+  const head = report.headline?.values[k];
+  const headUnknown = head ? unknownText(head.unknownShare, nutrient.name.toLowerCase()) : null;
+  const summary = head
+    ? ` So far (${rangeText(report.headline!.from, report.headline!.to)}): ${shareText(head.shareOfNeed, head.uncertain)} of the recommended intake from home${headUnknown ? `; ${headUnknown}` : ''}.${report.intake.looksIncomplete ? ' Bought food looks incomplete.' : ''}`
+    : '';
   const options: ChartOptions<'bar' | 'line'> = {
     responsive: true,
     maintainAspectRatio: false,
@@ -101,7 +115,7 @@ export function MonthChart({ report }: { report: ShareResponse }) {
           data={data}
           options={options}
           role="img"
-          aria-label={`${nutrient.name} per month: home-grown and bought stacked, need as a dashed line. The numbers are in the table below.`}
+          aria-label={`${nutrient.name} per month: home-grown and bought stacked, the recommended intake as a dashed line${ranged ? ' at each end of its range' : ''}.${summary} The numbers are in the table below.`}
         />
       </div>
       <details className="mt-3">
@@ -116,22 +130,39 @@ export function MonthChart({ report }: { report: ShareResponse }) {
                 <th scope="col" className="p-2">Month</th>
                 <th scope="col" className="p-2">Home-grown</th>
                 <th scope="col" className="p-2">Bought</th>
-                <th scope="col" className="p-2">Need</th>
-                <th scope="col" className="p-2">Home share of intake</th>
-                <th scope="col" className="p-2">Home share of need</th>
+                <th scope="col" className="p-2">
+                  <abbr title={basisLong(report.needBasis[k])} className="no-underline">
+                    Recommended intake
+                  </abbr>
+                </th>
+                <th scope="col" className="p-2">Home share of what you ate</th>
+                <th scope="col" className="p-2">Home share of recommended</th>
+                <th scope="col" className="p-2">No value for</th>
               </tr>
             </thead>
             <tbody>
               {report.months.map((m) => {
                 const v = m.values[k];
                 return (
-                  <tr key={m.month} className="border-t border-loam-200" data-month={m.month}>
-                    <th scope="row" className="p-2 text-left font-semibold">{longMonth(m.month)}</th>
+                  <tr key={m.month} className={`border-t border-loam-200 ${m.beforeRecords || m.future ? 'text-loam-700' : ''}`} data-month={m.month}>
+                    <th scope="row" className="p-2 text-left font-semibold">
+                      {longMonth(m.month)}
+                      {m.beforeRecords ? <span className="block text-xs font-normal">before records</span> : null}
+                      {m.future ? <span className="block text-xs font-normal">still to come</span> : null}
+                    </th>
                     <td className="p-2">{amountText(v.home, nutrient.unit)}</td>
                     <td className="p-2">{amountText(v.bought, nutrient.unit)}</td>
-                    <td className="p-2">{amountText(v.need, nutrient.unit)}</td>
-                    <td className="p-2" data-testid={`month-intake-${m.month}`}>{percentText(v.shareOfIntake)}</td>
-                    <td className="p-2">{percentText(v.shareOfNeed)}</td>
+                    <td className="p-2" data-testid={`month-need-${m.month}`}>{m.beforeRecords ? 'before records' : needText(v, nutrient.unit)}</td>
+                    <td className="p-2" data-testid={`month-intake-${m.month}`}>
+                      {shareText(v.shareOfIntake, v.uncertain)}
+                      {report.intake.looksIncomplete && !m.beforeRecords && !m.future && v.shareOfIntake !== null ? (
+                        <span className="block text-xs font-semibold text-berry-700">bought food looks incomplete</span>
+                      ) : null}
+                    </td>
+                    <td className="p-2">{shareText(v.shareOfNeed, v.uncertain)}</td>
+                    <td className="p-2" data-testid={`month-unknown-${m.month}`}>
+                      {v.unknownGrams > 0 ? `${formatWeight(v.unknownGrams, units)} (${shareText(v.unknownShare, false)})` : 'none'}
+                    </td>
                   </tr>
                 );
               })}

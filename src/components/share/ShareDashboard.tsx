@@ -5,6 +5,7 @@
  */
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
 import { useEffect, useState } from 'react';
+import { aboutCautions } from '@/lib/cautions';
 import type { ShareResponse } from '@/lib/share-types';
 import { get } from '@/components/entries/api';
 import { QueryProvider } from '@/components/entries/QueryProvider';
@@ -28,8 +29,12 @@ interface Props {
   periods: PeriodOption[];
   initial: { from: string; to: string };
   peopleHref: string;
+  /** The household's page, where the owner may change the month its records start. */
+  settingsHref: string;
   /** This month in the household's time zone: later months are still to come. */
   currentMonth: string;
+  /** Someone who eats in the household is vegetarian (adds the zinc caution). */
+  vegetarian: boolean;
 }
 
 export default function ShareDashboard(props: Props) {
@@ -40,7 +45,7 @@ export default function ShareDashboard(props: Props) {
   );
 }
 
-function Dashboard({ householdId, units, periods, initial, peopleHref, currentMonth }: Props) {
+function Dashboard({ householdId, units, periods, initial, peopleHref, settingsHref, currentMonth, vegetarian }: Props) {
   const [range, setRange] = useState(initial);
   const known = periods.find((p) => p.from === range.from && p.to === range.to);
   const options = known ? periods : [{ ...range, label: rangeText(range.from, range.to) }, ...periods];
@@ -111,18 +116,31 @@ function Dashboard({ householdId, units, periods, initial, peopleHref, currentMo
               .
             </p>
           ) : null}
-          {data.to > currentMonth ? (
-            <p className="text-loam-700" data-testid="future-note">
-              Months after {longMonth(currentMonth)} are still to come: their need is counted in the totals, and so is the
-              stored and bulk-bought food already set to be eaten then, but no fresh harvest yet. “Last 12 months” gives a
-              year that is complete.
-            </p>
-          ) : null}
-          <Headline report={data} />
-          <MonthChart report={data} />
-          <ShareGrid report={data} currentMonth={currentMonth} />
+          <div className="space-y-3">
+            <Headline report={data} boughtHref={`/households/${householdId}/bought`} />
+            {data.months.some((m) => m.beforeRecords) ? (
+              <p className="max-w-3xl text-sm text-loam-700" data-testid="records-note">
+                The household’s records start in {longMonth(data.recordsSince)}: earlier months are greyed as “before records”, count no
+                need and stay out of every total. The owner can change the month on the{' '}
+                <a className="font-semibold underline" href={settingsHref}>
+                  household’s page
+                </a>
+                .
+              </p>
+            ) : null}
+            {data.months.some((m) => m.future) ? (
+              <p className="max-w-3xl text-sm text-loam-700" data-testid="future-note">
+                Months after {longMonth(data.currentMonth ?? currentMonth)} are still to come and stand apart: the big figures are the
+                months so far; the period’s total counts the stored and bulk-bought food already set to be eaten later, but no fresh
+                harvest yet. “Last 12 months” gives a year that is complete.
+              </p>
+            ) : null}
+          </div>
+          <MonthChart report={data} units={units} />
+          <ShareGrid report={data} vegetarian={vegetarian} />
           <TopCrops report={data} />
           <HarvestUses report={data} units={units} />
+          <About vegetarian={vegetarian} />
           <Sources report={data} />
         </div>
       ) : null}
@@ -143,11 +161,36 @@ function Sources({ report }: { report: ShareResponse }) {
           portion, refuse removed.
         </li>
         <li>
-          Needs: National Academies Dietary Reference Intakes (RDA, or AI where no RDA is set; potassium per the 2019 update); energy
-          from the IOM 2005 estimated energy requirement equations, or the kcal a day you stated.
+          Recommended intakes: National Academies Dietary Reference Intakes (RDA, or AI where no RDA is set — an AI is not a
+          requirement; potassium per the 2019 update); energy from the IOM 2005 estimated energy requirement equations, or the kcal a
+          day you stated; carbohydrate and fat as the IOM 2005 acceptable range (AMDR) of that energy.
         </li>
-        <li>Stored, preserved and bought food is counted evenly over the months it is spread over; seed, gifts, sales and losses are not eaten at home.</li>
-        <li>Self-sufficiency ratio: production × 100 ÷ (production + bought − sold − given), as in the FAO food balance sheets.</li>
+        <li>
+          Stored, preserved and bought food spread over two months or more is counted evenly per day from its date; seed, gifts, sales
+          and losses are not eaten at home. Preserved food loses vitamins by its method (USDA Table of Nutrient Retention Factors,
+          Release 6).
+        </li>
+        <li>
+          Production against supply: the FAO self-sufficiency ratio, production × 100 ÷ (production + bought − sold − given), over the
+          period shown (a growing year unless you pick another).
+        </li>
+      </ul>
+    </section>
+  );
+}
+
+function About({ vegetarian }: { vegetarian: boolean }) {
+  return (
+    <section aria-labelledby="share-about" data-testid="share-about">
+      <h2 id="share-about" className="text-2xl font-extrabold">
+        About these figures
+      </h2>
+      <ul className="mt-2 max-w-3xl list-disc space-y-1 pl-5 text-loam-900">
+        {aboutCautions({ vegetarian }).map((c) => (
+          <li key={c.id} data-caution={c.id}>
+            {c.text}
+          </li>
+        ))}
       </ul>
     </section>
   );

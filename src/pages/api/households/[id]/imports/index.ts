@@ -1,3 +1,4 @@
+import { todayIn } from '@/lib/months';
 import { householdRoute } from '@/server/authz';
 import { importEntries, readImportRequest } from '@/server/entry-import';
 import { json } from '@/server/http';
@@ -9,6 +10,6 @@ import { json } from '@/server/http';
  */
 export const POST = householdRoute('write', async (ctx, a) => {
   const req = await readImportRequest(ctx.request);
-  const { status, body } = await importEntries(a.household.id, a.userId, req);
+  const { status, body } = await importEntries(a.household.id, a.userId, req, todayIn(a.household.timezone));
   return json(body, status);
 });

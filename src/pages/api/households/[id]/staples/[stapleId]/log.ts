@@ -1,6 +1,7 @@
 import { stapleLogInput } from '@/lib/entry-schemas';
 import { householdRoute } from '@/server/authz';
-import { idParam, parseInput, readOptionalJson } from '@/server/entry-input';
+import { idParam, parseInput } from '@/server/entry-input';
+import { readOptionalJson } from '@/server/http';
 import { answerResponse, idempotencyKey, idempotent } from '@/server/idempotency';
 import { logStaple } from '@/server/staples';
 
