@@ -13,12 +13,13 @@ import { eatingMonths, harvestMonths } from '@/lib/crop-months';
 import type { GapsResponse } from '@/lib/gap-types';
 import { findGaps, type GapCrop } from '@/lib/gaps';
 import { growingYear, growingYearLabel } from '@/lib/growing-year';
-import { addMonths, formatMonth, parseMonth } from '@/lib/months';
+import { parseMonth } from '@/lib/months';
 import { SHARE_NUTRIENTS, type ShareNutrientKey } from '@/lib/nutrients';
 import { seasonFrostDates, type FrostDates } from '@/lib/growing-season';
 import { ownYields } from '@/lib/own-yield';
 import { loadCropTable } from './crop-table-file';
 import { currentMonth } from './people';
+import { planRange } from './plan-inputs';
 import { householdShare } from './share-data';
 import { SR28_INFO } from './sr28-source';
 
@@ -28,10 +29,8 @@ import { SR28_INFO } from './sr28-source';
  * e.g. gapsRange({ yearStartMonth: 10, … }, 2026) → { year: 2026, from: '2026-10', to: '2027-09' }.
  */
 export function gapsRange(household: Pick<Household, 'timezone' | 'yearStartMonth'>, year?: number): { year: number; from: string; to: string } {
-  if (year !== undefined) {
-    const from = formatMonth({ year, month: household.yearStartMonth });
-    return { year, from, to: addMonths(from, 11) };
-  }
+  // The same growing year the planner reads for POST …/plan with this `year`.
+  if (year !== undefined) return { year, ...planRange(year, household.yearStartMonth) };
   const r = growingYear(currentMonth(household.timezone), household.yearStartMonth);
   return { year: parseMonth(r.from).year, ...r };
 }
