@@ -111,6 +111,7 @@ const ROUTES: Row[] = [
   ['PUT',    'season',                       write(400)],
   // share, import, export
   ['GET',    'share',                        read(200)],
+  ['GET',    'gaps',                         read(200)],
   // the planting plan (reads only)
   ['POST',   'plan',                         read(400)],
   ['POST',   'imports/index',                write(415)],

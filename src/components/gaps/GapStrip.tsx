@@ -1,0 +1,82 @@
+/**
+ * The picture of the Gaps page: one strip per key nutrient, one square per month, coloured by the
+ * home share of need on Selfsown's own scale (src/lib/share-scale.ts). The leanest months carry a
+ * mark. Every square says its month and share in text for screen readers, and the table beside
+ * the strip gives the numbers.
+ */
+import type { GapsResponse } from '@/lib/gap-types';
+import { SHARE_BANDS, UNKNOWN_BAND, percentText, shareBand } from '@/lib/share-scale';
+import { longMonth, shortMonth } from '@/components/share/format';
+
+export function GapStrip({ report }: { report: GapsResponse }) {
+  const months = report.nutrients[0]?.months ?? [];
+  return (
+    <section aria-labelledby="gap-strip-h">
+      <h2 id="gap-strip-h" className="text-2xl font-extrabold">
+        Which nutrients, which months
+      </h2>
+      <p className="mt-1 text-loam-700">
+        Each square is one month’s home share of need. A ring marks the leanest months of each nutrient; pale dashed squares have no
+        figure (before your records start, still to come, or no need set).
+      </p>
+      <ul className="mt-3 flex flex-wrap gap-x-3 gap-y-1 text-sm" aria-label="Colour key">
+        {[...SHARE_BANDS, UNKNOWN_BAND].map((b) => (
+          <li key={b.label} className="flex items-center gap-1.5">
+            <span className={`inline-block h-4 w-5 rounded ${b === UNKNOWN_BAND ? 'border border-dashed border-loam-500' : 'border border-loam-200'}`} style={{ background: b.background }} aria-hidden="true" />
+            {b.label}
+          </li>
+        ))}
+      </ul>
+      <div className="mt-3 overflow-x-auto rounded-2xl border border-loam-200 bg-white p-2">
+        <table className="w-full border-separate border-spacing-0.5 text-sm" data-testid="gap-strip">
+          <caption className="sr-only">Home share of need per nutrient and month, with the leanest months marked</caption>
+          <thead>
+            <tr>
+              <th scope="col" className="text-left text-xs font-semibold text-loam-700">
+                Nutrient
+              </th>
+              {months.map((m) => (
+                <th key={m.month} scope="col" className="text-center text-xs font-semibold text-loam-700">
+                  <abbr title={longMonth(m.month)} className="no-underline">
+                    {shortMonth(m.month).slice(0, 1)}
+                  </abbr>
+                  <span className="sr-only">{longMonth(m.month)}</span>
+                </th>
+              ))}
+            </tr>
+          </thead>
+          <tbody>
+            {report.nutrients.map((n) => (
+              <tr key={n.key} data-testid={`strip-${n.key}`}>
+                <th scope="row" className="max-w-[5.5rem] truncate pr-1 text-left font-semibold sm:max-w-none" title={n.name}>
+                  {n.name}
+                </th>
+                {n.months.map((m) => {
+                  const share = m.counted ? m.shareOfNeed : null;
+                  const band = shareBand(share);
+                  const lean = n.leanMonths.includes(m.month);
+                  return (
+                    <td
+                      key={m.month}
+                      className={`h-7 min-w-4 rounded ${band === UNKNOWN_BAND ? 'border border-dashed border-loam-300' : ''} ${lean ? 'outline-2 outline-offset-[-3px] outline-berry-700' : ''}`}
+                      style={{ background: band.background }}
+                      data-testid={`strip-${n.key}-${m.month}`}
+                      data-band={band.label}
+                      data-lean={lean ? 'true' : undefined}
+                      title={`${n.name}, ${longMonth(m.month)}: ${share === null ? 'no figure' : percentText(share)}${lean ? ' (one of the leanest months)' : ''}`}
+                    >
+                      <span className="sr-only">
+                        {longMonth(m.month)}: {share === null ? 'no figure' : `${percentText(share)} of need from home`}
+                        {lean ? ', one of the leanest months' : ''}
+                      </span>
+                    </td>
+                  );
+                })}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </section>
+  );
+}
