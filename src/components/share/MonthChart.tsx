@@ -16,7 +16,6 @@ import {
   LineElement,
   PointElement,
   Tooltip,
-  type ChartData,
   type ChartOptions,
 } from 'chart.js';
 import { useId, useState } from 'react';
@@ -25,13 +24,9 @@ import type { ShareResponse } from '@/lib/share-types';
 import { shareText, unknownText } from '@/lib/share-scale';
 import { formatWeight, type UnitSystem } from '@/lib/units';
 import { amountText, basisLong, longMonth, needText, rangeText, shortMonth } from './format';
+import { monthChartData } from './month-chart-data';
 
 ChartJS.register(BarController, LineController, BarElement, LineElement, PointElement, CategoryScale, LinearScale, Tooltip, Legend);
-
-// Palette of src/styles/global.css: sprout for home, rind for bought, loam for need.
-const HOME = '#5f9a3f';
-const BOUGHT = '#f6c866';
-const NEED = '#2e2218';
 
 /** No animation for automated browsers (steady screenshots) or people who asked for less motion. */
 export function calmMotion(): boolean {
@@ -45,31 +40,7 @@ export function MonthChart({ report, units }: { report: ShareResponse; units: Un
   const nutrient = report.nutrients.find((n) => n.key === key) ?? report.nutrients[0]!;
   const k = nutrient.key;
   const ranged = report.months.some((m) => m.values[k].needHigh !== null);
-  const needLine = {
-    type: 'line' as const,
-    borderColor: NEED,
-    // No fill: the legend then draws the need as a dashed outline, like the line itself.
-    backgroundColor: 'transparent',
-    pointBackgroundColor: NEED,
-    borderDash: [6, 4],
-    borderWidth: 2,
-    pointRadius: 3,
-    order: 1,
-  };
-  const labels = report.months.map((m, i) => (i === 0 || m.month.endsWith('-01') ? `${shortMonth(m.month)} ${m.month.slice(0, 4)}` : shortMonth(m.month)));
-  const data: ChartData<'bar' | 'line', (number | null)[], string> = {
-    labels,
-    datasets: [
-      { type: 'bar', label: 'Home-grown', data: report.months.map((m) => m.values[k].home), backgroundColor: HOME, stack: 'eaten', order: 2 },
-      { type: 'bar', label: 'Bought', data: report.months.map((m) => m.values[k].bought), backgroundColor: BOUGHT, stack: 'eaten', order: 2 },
-      ...(ranged
-        ? [
-            { ...needLine, label: 'Recommended, least', data: report.months.map((m) => m.values[k].needLow) },
-            { ...needLine, label: 'Recommended, most', borderDash: [2, 3], data: report.months.map((m) => m.values[k].needHigh) },
-          ]
-        : [{ ...needLine, label: 'Recommended intake', data: report.months.map((m) => m.values[k].need) }]),
-    ],
-  };
+  const data = monthChartData(report, k);
   const head = report.headline?.values[k];
   const headUnknown = head ? unknownText(head.unknownShare, nutrient.name.toLowerCase()) : null;
   const summary = head
