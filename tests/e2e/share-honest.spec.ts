@@ -71,4 +71,6 @@ test('a new household with one harvest is told bought food looks incomplete, see
   await expect(page.getByTestId('share-about')).toContainText('food supply, not what was eaten');
   await expect(page.getByTestId('share-about')).toContainText('registered dietitian');
   await expect(page.getByTestId('ratio-energy_kcal')).toContainText('Production against supply');
+  // No bought food logged: the FAO ratio's supply lacks purchases, so it says it reads too high
+  await expect(page.getByTestId('ratio-incomplete-energy_kcal')).toContainText('too high while bought food looks incomplete');
 });

@@ -104,6 +104,10 @@ export function Headline({ report, boughtHref }: { report: ShareResponse; bought
               <p className="mt-3 text-sm text-loam-700" data-testid={`ratio-${key}`}>
                 Production against supply (FAO self-sufficiency ratio, {rangeText(report.from, report.to)}):{' '}
                 <span className="font-semibold text-loam-900">{percentText(ratio)}</span>
+                {report.intake.looksIncomplete ? (
+                  // Supply counts bought food too: with purchases missing, the ratio reads too high.
+                  <span data-testid={`ratio-incomplete-${key}`}> — too high while bought food looks incomplete</span>
+                ) : null}
               </p>
             </article>
           );
