@@ -243,6 +243,10 @@ test('a preserved harvest names its method, and a weighing over 100 kg is questi
   list = await allHarvests(owner.cookie, h.id);
   expect(list.total).toBe(2);
   expect(list.harvests.map((x: { quantity: number }) => x.quantity).sort((a: number, b: number) => a - b)).toEqual([3, 150]);
+
+  // The harvest log names the method beside the use.
+  await page.goto(`/households/${h.id}/harvests`);
+  await expect(page.getByTestId('preserve-method')).toHaveText(' (frozen)');
 });
 
 test('the harvest form refuses a date after today in the household’s zone', async ({ page, context }) => {

@@ -9,6 +9,7 @@ import { harvestPatch, USE_LABELS, USES, type Use } from '@/lib/entry-schemas';
 import { formatWeight, WEIGHT_UNITS, type UnitSystem, type WeightUnit } from '@/lib/units';
 import { canWrite, get, keys, urls, type Crop, type Harvest, type HarvestPage, type HouseholdInfo } from './api';
 import { EditRowShell, useEntryPatch } from './EditEntryRow';
+import { PRESERVE_METHOD_LABELS } from './PreserveField';
 import { EntriesTable, entryColumns, type EntryColumn } from './EntriesTable';
 import { formatDay, monthRange } from './local-date';
 import { QueryProvider } from './QueryProvider';
@@ -64,6 +65,7 @@ function harvestColumns(units: UnitSystem): EntryColumn<Harvest>[] {
       cell: ({ row: { original: h } }) => (
         <>
           {splitUseLabel(h.use)[0]}
+          {h.preserveMethod ? <span data-testid="preserve-method"> ({PRESERVE_METHOD_LABELS[h.preserveMethod].toLowerCase()})</span> : null}
           {h.spreadMonths > 1 ? <span className="block text-xs text-loam-700 max-sm:inline max-sm:text-sm"><span className="sm:hidden"> · </span>over {h.spreadMonths} months</span> : null}
           {h.splitGroup ? <span className="block text-xs text-loam-700 max-sm:inline max-sm:text-sm"><span className="sm:hidden"> · </span>part of a split</span> : null}
         </>
