@@ -164,6 +164,12 @@ async function datasetsOf(db: Db, foodIds: readonly number[]): Promise<DatasetRe
 /** What the report needs of a household: its id, zone (for "now"), creation and records start. */
 export type ShareHousehold = Pick<Household, 'id' | 'timezone' | 'createdAt' | 'recordsSince'>;
 
+/** The month a household's records start: its own `recordsSince`, else the default rule. */
+export async function effectiveRecordsSince(household: ShareHousehold): Promise<string> {
+  if (household.recordsSince) return household.recordsSince;
+  return defaultRecordsSince(todayIn(household.timezone, household.createdAt), await firstEntryDate(getDb(), household.id));
+}
+
 /**
  * The share report of a household for [from, to] ('YYYY-MM', at most 120 months): per month and
  * nutrient home, bought, need and shares, totals, the headline over the year so far, the FAO

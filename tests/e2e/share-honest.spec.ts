@@ -74,3 +74,23 @@ test('a new household with one harvest is told bought food looks incomplete, see
   // No bought food logged: the FAO ratio's supply lacks purchases, so it says it reads too high
   await expect(page.getByTestId('ratio-incomplete-energy_kcal')).toContainText('too high while bought food looks incomplete');
 });
+
+test('the owner moves the records start back on the household page, and the share report counts from there', async ({ page, context }) => {
+  const owner = await newVerifiedUser({ name: 'Rhea Owner' });
+  const h = await createHousehold(owner.cookie, { name: 'Records start plot', timezone: TZ });
+  await context.addCookies(cookiesFor(owner.cookie));
+  const today = new Intl.DateTimeFormat('en-CA', { timeZone: TZ, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date());
+  const month = today.slice(0, 7);
+  const earlier = monthsBack(month, 2);
+
+  await page.goto(`/households/${h.id}`);
+  // A household made this month with no entries counts from this month (the default rule).
+  await expect(page.getByTestId('records-since-form')).toContainText(`Now counted from ${month}`);
+  await page.getByLabel('Records start (month)').fill(earlier);
+  await page.getByRole('button', { name: 'Save' }).tap();
+  await expect(page.getByTestId('records-since-form')).toContainText(`Records now start in ${earlier}.`);
+  expect((await apiAs(owner.cookie, 'GET', `/api/households/${h.id}`)).body.household.recordsSince).toBe(earlier);
+
+  await page.goto(`/households/${h.id}/share?from=${earlier}&to=${month}`);
+  await expect(page.getByTestId('months-before')).toHaveCount(0);
+});
