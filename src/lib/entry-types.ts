@@ -24,6 +24,8 @@ export interface HarvestJson {
   spreadMonths: number;
   /** How a preserved harvest was kept (frozen, canned, dried, fermented); null when not said or not preserved. */
   preserveMethod: PreserveMethod | null;
+  /** The planting it came from (its weight counts toward the household's own yield per m²), or null. */
+  plantingId: number | null;
   trimmed: boolean;
   note: string | null;
   splitGroup: string | null;

@@ -153,6 +153,7 @@ function toJson(r: JoinedRow): HarvestJson {
     use: h.use,
     spreadMonths: h.spreadMonths,
     preserveMethod: h.preserveMethod,
+    plantingId: h.plantingId,
     trimmed: h.trimmed,
     note: h.note,
     splitGroup: h.splitGroup,

@@ -3,7 +3,7 @@
  * prefilled from the reference row and the default frost dates, and both are listed.
  */
 import { expect, test } from './fixtures';
-import { BASE_URL, householdWithRoles } from '../support/users';
+import { apiAs, BASE_URL, householdWithRoles } from '../support/users';
 
 test.use({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, deviceScaleFactor: 2 });
 
@@ -52,4 +52,14 @@ test('a grower adds a bed and a planting on a phone and sees them listed', async
   // A phone never scrolls sideways.
   const wide = await page.evaluate(() => document.documentElement.scrollWidth > window.innerWidth);
   expect(wide).toBe(false);
+
+  // A garlic weighing names its planting on the Log page, so it counts toward the own yield per m².
+  await page.goto(`/households/${f.household.id}/log`);
+  await page.getByRole('button', { name: /Garlic/ }).first().tap();
+  await page.getByLabel('Weight', { exact: true }).fill('1.5');
+  await page.getByLabel(/From planting/).selectOption({ index: 1 });
+  await page.getByRole('button', { name: 'Save harvest' }).tap();
+  await expect(page.getByTestId('saved-label').first()).toContainText('Garlic');
+  const list = await apiAs(f.grower.cookie, 'GET', `/api/households/${f.household.id}/harvests`);
+  expect(list.body.harvests[0].plantingId).toEqual(expect.any(Number));
 });

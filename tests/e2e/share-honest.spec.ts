@@ -87,7 +87,7 @@ test('the owner moves the records start back on the household page, and the shar
   // A household made this month with no entries counts from this month (the default rule).
   await expect(page.getByTestId('records-since-form')).toContainText(`Now counted from ${month}`);
   await page.getByLabel('Records start (month)').fill(earlier);
-  await page.getByRole('button', { name: 'Save' }).tap();
+  await page.getByRole('button', { name: 'Save' }).click();
   await expect(page.getByTestId('records-since-form')).toContainText(`Records now start in ${earlier}.`);
   expect((await apiAs(owner.cookie, 'GET', `/api/households/${h.id}`)).body.household.recordsSince).toBe(earlier);
 

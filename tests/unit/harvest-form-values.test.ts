@@ -83,3 +83,15 @@ describe('flatErrors', () => {
     expect(firstWins({ a: '1' }, { a: '2', b: '3' })).toEqual({ a: '1', b: '3' });
   });
 });
+
+describe('a weighing that names its planting', () => {
+  it('sends the planting with a single weighing, and never with a split one', async () => {
+    const { harvestBody } = await import('@/components/entries/harvest-form-values');
+    const one = harvestBody(form({ cropId: 3, quantity: '2', plantingId: '17' }), 'kg');
+    expect(one).toMatchObject({ cropId: 3, quantity: 2, plantingId: 17 });
+    const none = harvestBody(form({ cropId: 3, quantity: '2' }), 'kg');
+    expect(none).not.toHaveProperty('plantingId');
+    const split = harvestBody(form({ cropId: 3, quantity: '10', plantingId: '17', splitting: true, parts: [{ pid: 1, quantity: '4', use: 'fresh' }, { pid: 2, quantity: '', use: 'stored' }] }), 'kg');
+    expect(split).not.toHaveProperty('plantingId');
+  });
+});

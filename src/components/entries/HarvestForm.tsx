@@ -14,6 +14,8 @@ import { useMemo, useRef, useState, type FormEvent } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { defaultSpreadMonths } from '@/lib/crop-categories';
 import { isEatenUse, USES, type Use } from '@/lib/entry-schemas';
+import type { PlantingJson } from '@/lib/bed-types';
+import { formatAmount } from '@/lib/format-number';
 import { harvestWarnings } from '@/lib/harvest-warnings';
 import { toGrams } from '@/lib/units';
 import { ApiError, canWrite, get, keys, newIdempotencyKey, urls, type Crop, type HarvestPage, type HouseholdInfo } from './api';
@@ -64,6 +66,14 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
     enabled: lastYear !== null,
     staleTime: 60 * 60_000,
   });
+  // Plantings of this season and the last (a winter harvest comes from last year's planting).
+  const year = Number(today.slice(0, 4));
+  const plantings = useQuery({
+    queryKey: [...keys.harvests(hid), 'plantings', year],
+    queryFn: () =>
+      Promise.all([year, year - 1].map((y) => get<{ plantings: PlantingJson[] }>(`/api/households/${hid}/plantings?year=${y}`).then((r) => r.plantings))).then((a) => a.flat()),
+    staleTime: 5 * 60_000,
+  });
   const inSeasonIds = useMemo(() => new Set((season.data?.harvests ?? []).map((h) => h.cropId).filter((id): id is number => id != null)), [season.data]);
   const ordered = useMemo(() => orderCrops(crops.data ?? [], today, inSeasonIds), [crops.data, today, inSeasonIds]);
 
@@ -86,6 +96,7 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
   const { control, register, watch, setValue, getValues, reset, setError, clearErrors, handleSubmit } = form;
   const values = watch();
   const crop = ordered.find((o) => o.crop.id === values.cropId)?.crop;
+  const cropPlantings = (plantings.data ?? []).filter((p) => p.cropId === values.cropId);
   const errors: Errors = flatErrors(form.formState.errors);
   const busy = form.formState.isSubmitting;
 
@@ -100,6 +111,7 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
     setValue('cropId', id);
     setValue('use', cropDefaultUse(ordered.find((o) => o.crop.id === id)?.crop));
     setValue('spreadMonths', '');
+    setValue('plantingId', '');
     clearErrors('cropId');
   }
 
@@ -190,6 +202,22 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
             name="spreadMonths"
             render={({ field }) => <SpreadField value={field.value} onChange={field.onChange} uses={spreadUses} usual={crop ? defaultSpreadFor : undefined} error={errors.spreadMonths} />}
           />
+        ) : null}
+
+        {!splitting && cropPlantings.length > 0 ? (
+          <div className="mt-4">
+            <label htmlFor="harvest-planting" className="block font-semibold">
+              From planting <span className="font-normal text-loam-700">(optional: counts toward your own yield per m²)</span>
+            </label>
+            <select id="harvest-planting" className="field mt-1" {...register('plantingId')}>
+              <option value="">Not said</option>
+              {cropPlantings.map((p) => (
+                <option key={p.id} value={String(p.id)}>
+                  {p.seasonYear} · {p.bedName ?? 'no bed yet'} · {p.slot} · {formatAmount(p.area)} {p.areaUnit === 'ft2' ? 'ft²' : 'm²'}
+                </option>
+              ))}
+            </select>
+          </div>
         ) : null}
 
         {spreadUses.includes('preserved') ? (

@@ -28,6 +28,8 @@ export interface HarvestFormValues {
   spreadMonths: string;
   /** How the preserved food (or each preserved part) was kept; blank = not said. */
   preserveMethod: PreserveMethod | '';
+  /** The planting the weighing came from (an id as text), '' = not said; counts toward the own yield per m². */
+  plantingId: string;
   date: string;
   trimmed: boolean;
   note: string;
@@ -49,7 +51,7 @@ export type HarvestBody = HarvestInput | HarvestSplitInput;
 
 /** The form as it opens (and as the next entry starts, keeping the crop, date and trimmed flag). */
 export function emptyHarvestValues(date: string): HarvestFormValues {
-  return { cropId: null, quantity: '', use: 'fresh', spreadMonths: '', preserveMethod: '', date, trimmed: false, note: '', splitting: false, parts: [] };
+  return { cropId: null, quantity: '', use: 'fresh', spreadMonths: '', preserveMethod: '', plantingId: '', date, trimmed: false, note: '', splitting: false, parts: [] };
 }
 
 /** The whole weighing in its unit, as the body says it (one quantity, or the parts' sum). Example: { parts: [{ quantity: 3 }, { quantity: 7 }] } → 10 */
@@ -89,7 +91,9 @@ export function harvestBody(values: HarvestFormValues, unit: WeightUnit): Record
   const shared = { date: values.date, cropId: values.cropId ?? undefined, unit, trimmed: values.trimmed, note: values.note.trim() === '' ? undefined : values.note };
   // The method goes with preserved food only (the schema refuses it on any other use).
   const method = (use: Use) => (use === 'preserved' && values.preserveMethod !== '' ? { preserveMethod: values.preserveMethod } : {});
-  if (!values.splitting) return { ...shared, quantity: parseDecimal(values.quantity), use: values.use, spreadMonths: isSpreadUse(values.use) ? spread : undefined, ...method(values.use) };
+  // A single weighing may name its planting (a split weighing does not).
+  const planting = values.plantingId === '' ? {} : { plantingId: Number(values.plantingId) };
+  if (!values.splitting) return { ...shared, quantity: parseDecimal(values.quantity), use: values.use, spreadMonths: isSpreadUse(values.use) ? spread : undefined, ...method(values.use), ...planting };
   const rest = restOf(values);
   return {
     ...shared,
