@@ -55,7 +55,8 @@ test('a grower adds a bed and a planting on a phone and sees them listed', async
 
   // A garlic weighing names its planting on the Log page, so it counts toward the own yield per m².
   await page.goto(`/households/${f.household.id}/log`);
-  await page.getByRole('button', { name: /Garlic/ }).first().tap();
+  await page.getByText('Garlic', { exact: true }).tap();
+  await expect(page.getByRole('radio', { name: 'Garlic' })).toBeChecked();
   await page.getByLabel('Weight', { exact: true }).fill('1.5');
   await page.getByLabel(/From planting/).selectOption({ index: 1 });
   await page.getByRole('button', { name: 'Save harvest' }).tap();
