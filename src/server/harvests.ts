@@ -6,7 +6,7 @@
 import { randomUUID } from 'node:crypto';
 import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
 import { getDb } from '@/db/client';
-import { crops, foods, harvests, households, type Harvest } from '@/db/schema';
+import { crops, foods, harvests, households, type Crop, type Harvest } from '@/db/schema';
 import { defaultSpreadMonths, type CropCategory } from '@/lib/crop-categories';
 import {
   cropUseError,
@@ -45,6 +45,25 @@ export interface HarvestBasis {
   cropDefaultSpread: number | null;
 }
 
+/** The basis of a harvest of one of the household's crops; `food` is the crop's reference food, if it has one. */
+export function cropBasis(crop: Pick<Crop, 'id' | 'name' | 'variety' | 'foodId' | 'edibleFraction' | 'notFood' | 'category' | 'defaultSpreadMonths'>, food: { refusePct: number | null } | null | undefined): HarvestBasis {
+  return {
+    cropId: crop.id,
+    cropName: cropDisplayName(crop.name, crop.variety),
+    foodId: crop.foodId,
+    refusePct: food?.refusePct ?? null,
+    edibleFraction: crop.edibleFraction,
+    notFood: crop.notFood,
+    category: crop.category,
+    cropDefaultSpread: crop.defaultSpreadMonths,
+  };
+}
+
+/** The basis of a harvest logged straight against a reference food (no crop of the household). */
+export function foodBasis(food: { id: number; refusePct: number | null }): HarvestBasis {
+  return { cropId: null, foodId: food.id, refusePct: food.refusePct, edibleFraction: null, notFood: false, category: 'other', cropDefaultSpread: null };
+}
+
 /** The basis of an entry naming a crop (of this household) or a reference food; 400 when neither exists. */
 export async function harvestBasis(ex: Executor, householdId: number, ref: { cropId?: number | undefined; foodId?: number | undefined }): Promise<HarvestBasis> {
   if (ref.cropId !== undefined) {
@@ -53,20 +72,10 @@ export async function harvestBasis(ex: Executor, householdId: number, ref: { cro
       throw e;
     });
     const food = crop.foodId === null ? null : await requireFood(ex, crop.foodId);
-    return {
-      cropId: crop.id,
-      cropName: cropDisplayName(crop.name, crop.variety),
-      foodId: crop.foodId,
-      refusePct: food?.refusePct ?? null,
-      edibleFraction: crop.edibleFraction,
-      notFood: crop.notFood,
-      category: crop.category,
-      cropDefaultSpread: crop.defaultSpreadMonths,
-    };
+    return cropBasis(crop, food);
   }
   if (ref.foodId !== undefined) {
-    const food = await requireFood(ex, ref.foodId);
-    return { cropId: null, foodId: food.id, refusePct: food.refusePct, edibleFraction: null, notFood: false, category: 'other', cropDefaultSpread: null };
+    return foodBasis(await requireFood(ex, ref.foodId));
   }
   throw fieldError('cropId', 'Choose the crop (or a reference food) this harvest is of.');
 }
