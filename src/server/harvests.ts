@@ -16,11 +16,9 @@ import {
   type HarvestPatch,
   type HarvestQuery,
   type HarvestSplitInput,
-  type Use,
 } from '@/lib/entry-schemas';
 import type { HarvestJson, HarvestList } from '@/lib/entry-types';
-import type { PreserveMethod } from '@/lib/retention';
-import { toGrams, type WeightUnit } from '@/lib/units';
+import { toGrams } from '@/lib/units';
 import { cropDisplayName, cropRow, harvestEdibleGrams, requireFood } from './crops';
 import { HttpError } from './http';
 import { todayIn } from '@/lib/months';
@@ -80,22 +78,13 @@ export async function harvestBasis(ex: Executor, householdId: number, ref: { cro
   throw fieldError('cropId', 'Choose the crop (or a reference food) this harvest is of.');
 }
 
-/** The stored columns of a harvest from its input and basis (grams, edible grams, spread filled in). */
-export function harvestValues(input: HarvestInput, basis: HarvestBasis): {
-  cropId: number | null;
-  foodId: number | null;
-  date: string;
-  quantity: number;
-  unit: WeightUnit;
-  grams: number;
-  edibleGrams: number;
-  use: Use;
-  spreadMonths: number;
-  preserveMethod: PreserveMethod | null;
-  trimmed: boolean;
-  note: string | null;
+/** The stored columns of a harvest: the fields the API answers with (HarvestJson) that come from the input, and its planting. */
+export type HarvestValues = Pick<HarvestJson, 'cropId' | 'foodId' | 'date' | 'quantity' | 'unit' | 'grams' | 'edibleGrams' | 'use' | 'spreadMonths' | 'preserveMethod' | 'trimmed' | 'note'> & {
   plantingId: number | null;
-} {
+};
+
+/** The stored columns of a harvest from its input and basis (grams, edible grams, spread filled in). */
+export function harvestValues(input: HarvestInput, basis: HarvestBasis): HarvestValues {
   const grams = toGrams(input.quantity, input.unit);
   return {
     cropId: basis.cropId,
