@@ -14,7 +14,7 @@ import { dateColumn, edibleColumn, weightColumn } from './entry-columns';
 import { formatDay, monthRange } from './local-date';
 import { QueryProvider } from './QueryProvider';
 import { formatQuantity, parseDecimal, trimNumber } from './quantity-text';
-import { stack } from './table-bits';
+import { MonthFilter, stack } from './table-bits';
 import { ErrorText, invalidProps, splitUseLabel } from './ui';
 
 export default function HarvestTable(props: { household: HouseholdInfo }) {
@@ -88,12 +88,7 @@ function HarvestTableInner({ household }: { household: HouseholdInfo }) {
       filters={{ from: range?.from, to: range?.to, cropId: cropId || undefined, use: use || undefined }}
       filterFields={
         <>
-          <div>
-            <label htmlFor="f-month" className="block text-sm font-semibold">
-              Month
-            </label>
-            <input id="f-month" type="month" className="field mt-1" value={month} onChange={(e) => setMonth(e.target.value)} />
-          </div>
+          <MonthFilter id="f-month" value={month} onChange={setMonth} />
           <div>
             <label htmlFor="f-crop" className="block text-sm font-semibold">
               Crop

@@ -13,7 +13,7 @@ import { dateColumn, edibleColumn, weightColumn } from './entry-columns';
 import { FoodPicker, type FoodChoice } from './FoodPicker';
 import { formatDay, monthRange } from './local-date';
 import { formatQuantity, parseDecimal, trimNumber } from './quantity-text';
-import { stack } from './table-bits';
+import { MonthFilter, stack } from './table-bits';
 import { ErrorText, invalidProps } from './ui';
 
 /** "3.49 EUR", or empty. */
@@ -87,12 +87,7 @@ export function PurchaseTable({ household, writer }: { household: HouseholdInfo;
         filters={{ from: range?.from, to: range?.to, foodId: food?.id }}
         filterFields={
           <>
-            <div>
-              <label htmlFor="pf-month" className="block text-sm font-semibold">
-                Month
-              </label>
-              <input id="pf-month" type="month" className="field mt-1" value={month} onChange={(e) => setMonth(e.target.value)} />
-            </div>
+            <MonthFilter id="pf-month" value={month} onChange={setMonth} />
             <div className="col-span-2">
               <FoodPicker id="pf-food" label="Food" value={food} onChange={setFood} facts={false} compact />
             </div>
