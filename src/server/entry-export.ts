@@ -111,30 +111,8 @@ async function peopleRows(householdId: number) {
 
 /** The people who eat in the household as CSV (read straight from the people table). */
 export async function peopleCsv(householdId: number, delimiter: CsvDelimiter = ','): Promise<string> {
-  const rows = await peopleRows(householdId);
-  return peopleToCsv(
-    rows.map((p) => ({
-      name: p.name,
-      sex: p.sex,
-      ageYears: p.ageYears,
-      birthYear: p.birthYear,
-      heightCm: p.heightCm,
-      weightKg: p.weightKg,
-      activity: p.activity,
-      condition: p.condition,
-      kcalPerDay: p.kcalPerDay,
-      atHomePct: p.atHomePct,
-      presentFrom: p.presentFrom,
-      presentTo: p.presentTo,
-      birthMonth: p.birthMonth,
-      pregnancyDueMonth: p.pregnancyDueMonth,
-      lactationFrom: p.lactationFrom,
-      lactationTo: p.lactationTo,
-      fedFromHousehold: p.fedFromHousehold,
-      diet: p.diet,
-    })),
-    { delimiter },
-  );
+  // peopleToCsv reads only the person's fields (PersonCsvRecord), so the stored rows go in as they are.
+  return peopleToCsv(await peopleRows(householdId), { delimiter });
 }
 
 /** The whole household as one JSON document: settings, crops, harvests, bought food, staples, people. */

@@ -23,7 +23,7 @@ import { toGrams } from '@/lib/units';
 import { cropDisplayName, cropRows, insertCrop } from './crops';
 import { HttpError, readBodyBytes } from './http';
 import { parseInput, type Executor, type Tx } from './entry-input';
-import { harvestValues, type HarvestBasis } from './harvests';
+import { cropBasis, foodBasis, harvestValues, type HarvestBasis } from './harvests';
 import { purchaseValues } from './purchases';
 
 
@@ -218,17 +218,7 @@ async function prepareHarvests(ex: Executor, req: ImportRequest, householdCrops:
   for (const { row, input } of resolved.inputs) {
     const crop = input.cropId === undefined ? undefined : cropsById.get(input.cropId);
     const food = crop ? (crop.foodId === null ? undefined : cropFoods.get(crop.foodId)) : foodsById.get(input.foodId!);
-    const basis: HarvestBasis = crop
-      ? {
-          cropId: crop.id,
-          foodId: crop.foodId,
-          refusePct: food?.refusePct ?? null,
-          edibleFraction: crop.edibleFraction,
-          notFood: crop.notFood,
-          category: crop.category,
-          cropDefaultSpread: crop.defaultSpreadMonths,
-        }
-      : { cropId: null, foodId: food!.id, refusePct: food!.refusePct, edibleFraction: null, notFood: false, category: 'other', cropDefaultSpread: null };
+    const basis: HarvestBasis = crop ? cropBasis(crop, food) : foodBasis(food!);
     const v = harvestValues(input as HarvestInput, basis);
     values.push({ ...v, row });
     if (preview.length < PREVIEW_ROW_LIMIT) {

@@ -6,7 +6,7 @@
 import { randomUUID } from 'node:crypto';
 import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
 import { getDb } from '@/db/client';
-import { crops, foods, harvests, households, type Harvest } from '@/db/schema';
+import { crops, foods, harvests, households, type Crop, type Harvest } from '@/db/schema';
 import { defaultSpreadMonths, type CropCategory } from '@/lib/crop-categories';
 import {
   cropUseError,
@@ -16,11 +16,9 @@ import {
   type HarvestPatch,
   type HarvestQuery,
   type HarvestSplitInput,
-  type Use,
 } from '@/lib/entry-schemas';
 import type { HarvestJson, HarvestList } from '@/lib/entry-types';
-import type { PreserveMethod } from '@/lib/retention';
-import { toGrams, type WeightUnit } from '@/lib/units';
+import { toGrams } from '@/lib/units';
 import { cropDisplayName, cropRow, harvestEdibleGrams, requireFood } from './crops';
 import { HttpError } from './http';
 import { todayIn } from '@/lib/months';
@@ -45,6 +43,25 @@ export interface HarvestBasis {
   cropDefaultSpread: number | null;
 }
 
+/** The basis of a harvest of one of the household's crops; `food` is the crop's reference food, if it has one. */
+export function cropBasis(crop: Pick<Crop, 'id' | 'name' | 'variety' | 'foodId' | 'edibleFraction' | 'notFood' | 'category' | 'defaultSpreadMonths'>, food: { refusePct: number | null } | null | undefined): HarvestBasis {
+  return {
+    cropId: crop.id,
+    cropName: cropDisplayName(crop.name, crop.variety),
+    foodId: crop.foodId,
+    refusePct: food?.refusePct ?? null,
+    edibleFraction: crop.edibleFraction,
+    notFood: crop.notFood,
+    category: crop.category,
+    cropDefaultSpread: crop.defaultSpreadMonths,
+  };
+}
+
+/** The basis of a harvest logged straight against a reference food (no crop of the household). */
+export function foodBasis(food: { id: number; refusePct: number | null }): HarvestBasis {
+  return { cropId: null, foodId: food.id, refusePct: food.refusePct, edibleFraction: null, notFood: false, category: 'other', cropDefaultSpread: null };
+}
+
 /** The basis of an entry naming a crop (of this household) or a reference food; 400 when neither exists. */
 export async function harvestBasis(ex: Executor, householdId: number, ref: { cropId?: number | undefined; foodId?: number | undefined }): Promise<HarvestBasis> {
   if (ref.cropId !== undefined) {
@@ -53,40 +70,21 @@ export async function harvestBasis(ex: Executor, householdId: number, ref: { cro
       throw e;
     });
     const food = crop.foodId === null ? null : await requireFood(ex, crop.foodId);
-    return {
-      cropId: crop.id,
-      cropName: cropDisplayName(crop.name, crop.variety),
-      foodId: crop.foodId,
-      refusePct: food?.refusePct ?? null,
-      edibleFraction: crop.edibleFraction,
-      notFood: crop.notFood,
-      category: crop.category,
-      cropDefaultSpread: crop.defaultSpreadMonths,
-    };
+    return cropBasis(crop, food);
   }
   if (ref.foodId !== undefined) {
-    const food = await requireFood(ex, ref.foodId);
-    return { cropId: null, foodId: food.id, refusePct: food.refusePct, edibleFraction: null, notFood: false, category: 'other', cropDefaultSpread: null };
+    return foodBasis(await requireFood(ex, ref.foodId));
   }
   throw fieldError('cropId', 'Choose the crop (or a reference food) this harvest is of.');
 }
 
-/** The stored columns of a harvest from its input and basis (grams, edible grams, spread filled in). */
-export function harvestValues(input: HarvestInput, basis: HarvestBasis): {
-  cropId: number | null;
-  foodId: number | null;
-  date: string;
-  quantity: number;
-  unit: WeightUnit;
-  grams: number;
-  edibleGrams: number;
-  use: Use;
-  spreadMonths: number;
-  preserveMethod: PreserveMethod | null;
-  trimmed: boolean;
-  note: string | null;
+/** The stored columns of a harvest: the fields the API answers with (HarvestJson) that come from the input, and its planting. */
+export type HarvestValues = Pick<HarvestJson, 'cropId' | 'foodId' | 'date' | 'quantity' | 'unit' | 'grams' | 'edibleGrams' | 'use' | 'spreadMonths' | 'preserveMethod' | 'trimmed' | 'note'> & {
   plantingId: number | null;
-} {
+};
+
+/** The stored columns of a harvest from its input and basis (grams, edible grams, spread filled in). */
+export function harvestValues(input: HarvestInput, basis: HarvestBasis): HarvestValues {
   const grams = toGrams(input.quantity, input.unit);
   return {
     cropId: basis.cropId,

@@ -33,6 +33,7 @@ import { QueryProvider } from './QueryProvider';
 import { SplitParts } from './SplitParts';
 import { SpreadField } from './SpreadField';
 import { Alert, ErrorText, invalidProps, UseChips, useRememberedUnit, type Errors } from './ui';
+import { CheckCard, NoteField } from './entry-form-fields';
 import { UseCautions } from './UseCautions';
 import { useSavedHarvests, type CreateAnswer } from './use-saved-harvests';
 import { WeightField } from './WeightField';
@@ -246,22 +247,10 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
             <input {...invalidProps('date', errors.date)} {...register('date')} type="date" className="field mt-1" max={today} />
             <ErrorText id="date" error={errors.date} />
           </div>
-          <label className="flex min-h-12 cursor-pointer items-center gap-3 self-end rounded-xl border border-loam-200 bg-loam-50 px-4 py-2">
-            <input type="checkbox" {...register('trimmed')} className="size-6 accent-sprout-700" />
-            <span>
-              <span className="font-semibold">Weighed already trimmed</span>
-              <span className="block text-sm text-loam-700">peeled, topped or shelled: nothing more is taken off</span>
-            </span>
-          </label>
+          <CheckCard registration={register('trimmed')} title="Weighed already trimmed" hint="peeled, topped or shelled: nothing more is taken off" />
         </div>
 
-        <div className="mt-4">
-          <label htmlFor="note" className="block font-semibold">
-            Note <span className="font-normal text-loam-700">(optional)</span>
-          </label>
-          <input {...invalidProps('note', errors.note)} {...register('note')} type="text" className="field mt-1" maxLength={500} placeholder="e.g. bed 3, first picking" />
-          <ErrorText id="note" error={errors.note} />
-        </div>
+        <NoteField id="note" registration={register('note')} error={errors.note} placeholder="e.g. bed 3, first picking" />
 
         {question ? (
           <ConfirmWarning testId="weight-warning" messages={question.messages} confirmLabel="The weight is right: save it" busy={busy} onConfirm={() => void handleSubmit(save, (errs) => focusFirst(flatErrors(errs)))()} />

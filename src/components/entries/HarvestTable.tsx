@@ -6,15 +6,16 @@
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { harvestPatch, USE_LABELS, USES, type Use } from '@/lib/entry-schemas';
-import { formatWeight, WEIGHT_UNITS, type UnitSystem, type WeightUnit } from '@/lib/units';
+import { WEIGHT_UNITS, type UnitSystem, type WeightUnit } from '@/lib/units';
 import { canWrite, get, keys, urls, type Crop, type Harvest, type HarvestPage, type HouseholdInfo } from './api';
 import { EditRowShell, useEntryPatch } from './EditEntryRow';
 import { PRESERVE_METHOD_LABELS } from './PreserveField';
 import { EntriesTable, entryColumns, type EntryColumn } from './EntriesTable';
+import { dateColumn, edibleColumn, weightColumn } from './entry-columns';
 import { formatDay, monthRange } from './local-date';
 import { QueryProvider } from './QueryProvider';
 import { formatQuantity, parseDecimal, trimNumber } from './quantity-text';
-import { stack } from './table-bits';
+import { MonthFilter, stack } from './table-bits';
 import { ErrorText, invalidProps, splitUseLabel } from './ui';
 
 export default function HarvestTable(props: { household: HouseholdInfo }) {
@@ -30,34 +31,14 @@ const col = entryColumns<Harvest>();
 /** The harvest log's columns; weights in the household's units. */
 function harvestColumns(units: UnitSystem): EntryColumn<Harvest>[] {
   return [
-    col.accessor('date', {
-      id: 'date',
-      header: 'Date',
-      meta: { sort: { asc: 'date', desc: '-date' }, cellClass: `whitespace-nowrap px-3 py-2 ${stack.date}` },
-      cell: ({ row }) => formatDay(row.original.date),
-    }),
+    dateColumn<Harvest>(),
     col.accessor((h) => h.cropName ?? h.foodName ?? '—', {
       id: 'crop',
       header: 'Crop',
       meta: { sort: { asc: 'crop', desc: 'crop' }, cellClass: `px-3 py-2 font-semibold ${stack.name}` },
     }),
-    col.accessor('grams', {
-      id: 'weighed',
-      header: 'Weighed',
-      meta: { sort: { asc: 'grams', desc: '-grams' }, right: true, cellClass: `whitespace-nowrap px-3 py-2 text-right font-bold tabular-nums ${stack.weight}` },
-      cell: ({ row }) => formatQuantity(row.original.quantity, row.original.unit),
-    }),
-    col.accessor('edibleGrams', {
-      id: 'edible',
-      header: 'Edible',
-      meta: { right: true, cellClass: `whitespace-nowrap px-3 py-2 text-right tabular-nums ${stack.edible}` },
-      cell: ({ getValue }) => (
-        <>
-          <span className="sm:hidden">edible </span>
-          {formatWeight(getValue(), units)}
-        </>
-      ),
-    }),
+    weightColumn<Harvest>('weighed', 'Weighed'),
+    edibleColumn<Harvest>(units),
     col.accessor('use', {
       id: 'use',
       header: 'Use',
@@ -109,12 +90,7 @@ function HarvestTableInner({ household }: { household: HouseholdInfo }) {
       filters={{ from: range?.from, to: range?.to, cropId: cropId || undefined, use: use || undefined }}
       filterFields={
         <>
-          <div>
-            <label htmlFor="f-month" className="block text-sm font-semibold">
-              Month
-            </label>
-            <input id="f-month" type="month" className="field mt-1" value={month} onChange={(e) => setMonth(e.target.value)} />
-          </div>
+          <MonthFilter id="f-month" value={month} onChange={setMonth} />
           <div>
             <label htmlFor="f-crop" className="block text-sm font-semibold">
               Crop

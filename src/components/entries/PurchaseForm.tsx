@@ -15,6 +15,7 @@ import { flatErrors } from './form-errors';
 import { purchaseLabel, savedPurchase, type PurchaseOutbox, type SavedPurchase } from './PurchaseSaved';
 import { emptyPurchaseValues, purchaseResolver, type PurchaseFormContext, type PurchaseFormValues } from './purchase-form-values';
 import { Alert, ErrorText, invalidProps, useRememberedCurrency, useRememberedUnit, type Errors } from './ui';
+import { CheckCard, NoteField } from './entry-form-fields';
 import { WeightField } from './WeightField';
 
 export function PurchaseForm({ household, today, outbox, onSaved }: { household: HouseholdInfo; today: string; outbox: PurchaseOutbox; onSaved: (s: SavedPurchase) => void }) {
@@ -153,22 +154,10 @@ export function PurchaseForm({ household, today, outbox, onSaved }: { household:
           <input {...invalidProps('p-date', errors.date)} {...register('date')} type="date" className="field mt-1" />
           <ErrorText id="p-date" error={errors.date} />
         </div>
-        <label className="flex min-h-12 cursor-pointer items-center gap-3 self-end rounded-xl border border-loam-200 bg-loam-50 px-4 py-2">
-          <input type="checkbox" {...register('trimmed')} className="size-6 accent-sprout-700" />
-          <span>
-            <span className="font-semibold">Bought ready to eat</span>
-            <span className="block text-sm text-loam-700">no peel, stones or bones to take off</span>
-          </span>
-        </label>
+        <CheckCard registration={register('trimmed')} title="Bought ready to eat" hint="no peel, stones or bones to take off" />
       </div>
 
-      <div className="mt-4">
-        <label htmlFor="p-note" className="block font-semibold">
-          Note <span className="font-normal text-loam-700">(optional)</span>
-        </label>
-        <input {...invalidProps('p-note', errors.note)} {...register('note')} type="text" className="field mt-1" maxLength={500} />
-        <ErrorText id="p-note" error={errors.note} />
-      </div>
+      <NoteField id="p-note" registration={register('note')} error={errors.note} />
 
       <label className="mt-4 flex min-h-12 cursor-pointer items-center gap-3">
         <input type="checkbox" {...register('asStaple')} className="size-6 accent-sprout-700" />

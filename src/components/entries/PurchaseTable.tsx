@@ -5,14 +5,15 @@
  */
 import { useState, type ReactNode } from 'react';
 import { purchasePatch } from '@/lib/entry-schemas';
-import { formatWeight, WEIGHT_UNITS, type UnitSystem, type WeightUnit } from '@/lib/units';
+import { WEIGHT_UNITS, type UnitSystem, type WeightUnit } from '@/lib/units';
 import { get, keys, urls, type HouseholdInfo, type Purchase, type PurchasePage } from './api';
 import { EditRowShell, useEntryPatch } from './EditEntryRow';
 import { EntriesTable, entryColumns, type EntryColumn } from './EntriesTable';
+import { dateColumn, edibleColumn, weightColumn } from './entry-columns';
 import { FoodPicker, type FoodChoice } from './FoodPicker';
 import { formatDay, monthRange } from './local-date';
 import { formatQuantity, parseDecimal, trimNumber } from './quantity-text';
-import { stack } from './table-bits';
+import { MonthFilter, stack } from './table-bits';
 import { ErrorText, invalidProps } from './ui';
 
 /** "3.49 EUR", or empty. */
@@ -27,12 +28,7 @@ const col = entryColumns<Purchase>();
 /** The bought-food columns; weights in the household's units. */
 function purchaseColumns(units: UnitSystem): EntryColumn<Purchase>[] {
   return [
-    col.accessor('date', {
-      id: 'date',
-      header: 'Date',
-      meta: { sort: { asc: 'date', desc: '-date' }, cellClass: `whitespace-nowrap px-3 py-2 ${stack.date}` },
-      cell: ({ row }) => formatDay(row.original.date),
-    }),
+    dateColumn<Purchase>(),
     col.accessor('foodName', {
       id: 'food',
       header: 'Food',
@@ -44,23 +40,8 @@ function purchaseColumns(units: UnitSystem): EntryColumn<Purchase>[] {
         </>
       ),
     }),
-    col.accessor('grams', {
-      id: 'weight',
-      header: 'Weight',
-      meta: { sort: { asc: 'grams', desc: '-grams' }, right: true, cellClass: `whitespace-nowrap px-3 py-2 text-right font-bold tabular-nums ${stack.weight}` },
-      cell: ({ row }) => formatQuantity(row.original.quantity, row.original.unit),
-    }),
-    col.accessor('edibleGrams', {
-      id: 'edible',
-      header: 'Edible',
-      meta: { right: true, cellClass: `whitespace-nowrap px-3 py-2 text-right tabular-nums ${stack.edible}` },
-      cell: ({ getValue }) => (
-        <>
-          <span className="sm:hidden">edible </span>
-          {formatWeight(getValue(), units)}
-        </>
-      ),
-    }),
+    weightColumn<Purchase>('weight', 'Weight'),
+    edibleColumn<Purchase>(units),
     col.accessor('price', {
       id: 'price',
       header: 'Price',
@@ -106,12 +87,7 @@ export function PurchaseTable({ household, writer }: { household: HouseholdInfo;
         filters={{ from: range?.from, to: range?.to, foodId: food?.id }}
         filterFields={
           <>
-            <div>
-              <label htmlFor="pf-month" className="block text-sm font-semibold">
-                Month
-              </label>
-              <input id="pf-month" type="month" className="field mt-1" value={month} onChange={(e) => setMonth(e.target.value)} />
-            </div>
+            <MonthFilter id="pf-month" value={month} onChange={setMonth} />
             <div className="col-span-2">
               <FoodPicker id="pf-food" label="Food" value={food} onChange={setFood} facts={false} compact />
             </div>

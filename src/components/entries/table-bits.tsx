@@ -63,6 +63,18 @@ export function TotalsLine({ total, totals, units, children }: { total: number; 
   );
 }
 
+/** The month filter of an entries table: a month picker, empty for every month. */
+export function MonthFilter({ id, value, onChange }: { id: string; value: string; onChange: (month: string) => void }) {
+  return (
+    <div>
+      <label htmlFor={id} className="block text-sm font-semibold">
+        Month
+      </label>
+      <input id={id} type="month" className="field mt-1" value={value} onChange={(e) => onChange(e.target.value)} />
+    </div>
+  );
+}
+
 /** Filter row container: wraps on a phone, one line on a wide screen. */
 export function FilterBar({ children }: { children: ReactNode }) {
   return (

@@ -1,0 +1,54 @@
+/**
+ * The columns the harvest log and the bought-food table share: the date, the weight as entered and
+ * the edible portion in the household's units. Both tables show them the same way (same sort keys,
+ * same phone card positions), so they are written once here and each table adds its own columns.
+ */
+import { formatWeight, type UnitSystem, type WeightUnit } from '@/lib/units';
+import { entryColumns, type EntryColumn } from './EntriesTable';
+import { formatDay } from './local-date';
+import { formatQuantity } from './quantity-text';
+import { stack } from './table-bits';
+
+/** What a row needs for the shared columns: both a harvest and a purchase have these fields. */
+export interface WeighedEntry {
+  date: string;
+  grams: number;
+  edibleGrams: number;
+  quantity: number;
+  unit: WeightUnit;
+}
+
+/** The entry's day, sortable newest or oldest first. */
+export function dateColumn<T extends WeighedEntry>(): EntryColumn<T> {
+  return entryColumns<T>().accessor((e) => e.date, {
+    id: 'date',
+    header: 'Date',
+    meta: { sort: { asc: 'date', desc: '-date' }, cellClass: `whitespace-nowrap px-3 py-2 ${stack.date}` },
+    cell: ({ row }) => formatDay(row.original.date),
+  });
+}
+
+/** The weight as entered ("2.5 lb"), sortable by grams; `id` and `header` name it for the table. */
+export function weightColumn<T extends WeighedEntry>(id: string, header: string): EntryColumn<T> {
+  return entryColumns<T>().accessor((e) => e.grams, {
+    id,
+    header,
+    meta: { sort: { asc: 'grams', desc: '-grams' }, right: true, cellClass: `whitespace-nowrap px-3 py-2 text-right font-bold tabular-nums ${stack.weight}` },
+    cell: ({ row }) => formatQuantity(row.original.quantity, row.original.unit),
+  });
+}
+
+/** The edible portion in the household's units. */
+export function edibleColumn<T extends WeighedEntry>(units: UnitSystem): EntryColumn<T> {
+  return entryColumns<T>().accessor((e) => e.edibleGrams, {
+    id: 'edible',
+    header: 'Edible',
+    meta: { right: true, cellClass: `whitespace-nowrap px-3 py-2 text-right tabular-nums ${stack.edible}` },
+    cell: ({ getValue }) => (
+      <>
+        <span className="sm:hidden">edible </span>
+        {formatWeight(getValue(), units)}
+      </>
+    ),
+  });
+}
