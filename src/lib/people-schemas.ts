@@ -177,6 +177,29 @@ interface CrossFields {
   lactationTo: string | null;
 }
 
+/** The youngest age with DRI pregnancy and lactation rows (National Academies DRI tables: 14–18 y and 19–50 y). */
+export const PREGNANCY_MIN_AGE_YEARS = 14;
+
+/** The field to flag when pregnancy or breastfeeding is given for someone under 14 at that time, else null. */
+function youngerThanPregnancyRows(p: CrossFields): 'condition' | 'pregnancyDueMonth' | 'lactationFrom' | null {
+  const yearsAt = (month: string): number | null => {
+    if (p.birthMonth != null) {
+      const [by, bm] = p.birthMonth.split('-').map(Number) as [number, number];
+      const [y, m] = month.split('-').map(Number) as [number, number];
+      return (y * 12 + m - (by * 12 + bm)) / 12;
+    }
+    if (p.birthYear != null) return Number(month.slice(0, 4)) - p.birthYear;
+    return p.ageYears;
+  };
+  for (const key of ['pregnancyDueMonth', 'lactationFrom'] as const) {
+    const month = p[key];
+    const age = month == null ? null : yearsAt(month);
+    if (age !== null && age < PREGNANCY_MIN_AGE_YEARS) return key;
+  }
+  if (p.condition !== 'none' && p.ageYears != null && p.ageYears < PREGNANCY_MIN_AGE_YEARS) return 'condition';
+  return null;
+}
+
 // The rules that look at more than one field.
 function checkPerson(p: CrossFields, ctx: Ctx): void {
   if (p.ageYears == null && p.birthYear == null && p.birthMonth == null) {
@@ -197,6 +220,9 @@ function checkPerson(p: CrossFields, ctx: Ctx): void {
       if (p[key] != null) ctx.addIssue({ code: 'custom', path: [key], message: 'Pregnancy and breastfeeding apply to a female person only; clear this month.' });
     }
   }
+  // The DRI tables give pregnancy and lactation rows from 14 years; younger, no published value applies.
+  const young = youngerThanPregnancyRows(p);
+  if (young) ctx.addIssue({ code: 'custom', path: [young], message: `The reference intakes for pregnancy and breastfeeding start at ${PREGNANCY_MIN_AGE_YEARS} years of age; for someone younger, ask a physician or registered dietitian and leave this empty.` });
   const dated = p.pregnancyDueMonth != null || p.lactationFrom != null;
   if (dated && p.condition !== 'none') {
     // The dated months replace the flag (life-stage.ts); keeping both would leave one silently unused.

@@ -132,3 +132,20 @@ describe('needsPerson', () => {
     expect(mum).toMatchObject({ pregnancyDueMonth: '2027-03', lactationFrom: '2027-03', lactationTo: '2027-12', diet: 'vegetarian', condition: null });
   });
 });
+
+describe('pregnancy and breastfeeding before 14 years', () => {
+  // DRI tables (National Academies): pregnancy and lactation rows are given for 14–18 y and 19–50 y only
+  it('refuses a due month before the person is 14, and takes one from 14 on', () => {
+    const girl = { name: 'Mia', sex: 'female', birthMonth: '2015-04' } as const;
+    const early = personInput.safeParse({ ...girl, pregnancyDueMonth: '2027-01' }); // 11 y 9 m
+    expect(early.success).toBe(false);
+    expect(early.error!.issues.map((i) => i.path.join('.'))).toContain('pregnancyDueMonth');
+    expect(personInput.safeParse({ ...girl, pregnancyDueMonth: '2029-04' }).success).toBe(true); // exactly 14 y
+  });
+
+  it('refuses breastfeeding from a birth year under 14, and the undated flag for a stated age under 14', () => {
+    expect(personInput.safeParse({ name: 'Ana', sex: 'female', birthYear: 2016, lactationFrom: '2026-05' }).success).toBe(false); // 10 y
+    expect(personInput.safeParse({ name: 'Ana', sex: 'female', ageYears: 12, condition: 'pregnancy' }).success).toBe(false);
+    expect(personInput.safeParse({ name: 'Ana', sex: 'female', ageYears: 16, condition: 'pregnancy' }).success).toBe(true);
+  });
+});
