@@ -10,7 +10,7 @@ import { useOutbox } from './outbox';
 import { PurchaseForm } from './PurchaseForm';
 import { PurchaseWaiting, savedPurchase, type SavedPurchase } from './PurchaseSaved';
 import { PurchaseTable } from './PurchaseTable';
-import { QueryProvider } from './QueryProvider';
+import { QueryProvider } from '@/components/QueryProvider';
 import { StapleList } from './StapleList';
 import { Alert } from './ui';
 

@@ -12,7 +12,7 @@ import { ApiError, canWrite, get, keys, request, urls, type Crop, type Household
 import { CropForm } from './CropForm';
 import { FactsGrid } from './FoodPicker';
 import { formatDay } from './local-date';
-import { QueryProvider } from './QueryProvider';
+import { QueryProvider } from '@/components/QueryProvider';
 import { Alert, ConfirmDelete, pct } from './ui';
 
 export default function CropManager(props: { household: HouseholdInfo }) {

@@ -12,7 +12,7 @@ import { formatWeight } from '@/lib/units';
 import { ApiError, canWrite, keys, request, urls, type CsvError, type HouseholdInfo } from './api';
 import { FoodPicker, type FoodChoice } from './FoodPicker';
 import { formatDay } from './local-date';
-import { QueryProvider } from './QueryProvider';
+import { QueryProvider } from '@/components/QueryProvider';
 import { formatQuantity } from './quantity-text';
 import { Alert } from './ui';
 import type { ImportAnswer as ImportAnswerOf } from '@/lib/api-types';

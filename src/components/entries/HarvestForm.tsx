@@ -29,7 +29,7 @@ import { todayIn } from '@/lib/months';
 import { monthRange, shiftYear } from './local-date';
 import { useOutbox } from './outbox';
 import { PreserveField } from './PreserveField';
-import { QueryProvider } from './QueryProvider';
+import { QueryProvider } from '@/components/QueryProvider';
 import { SplitParts } from './SplitParts';
 import { SpreadField } from './SpreadField';
 import { Alert, ErrorText, invalidProps, UseChips, useRememberedUnit, type Errors } from './ui';

@@ -13,7 +13,7 @@ import { PRESERVE_METHOD_LABELS } from './PreserveField';
 import { EntriesTable, entryColumns, type EntryColumn } from './EntriesTable';
 import { dateColumn, edibleColumn, weightColumn } from './entry-columns';
 import { formatDay, monthRange } from './local-date';
-import { QueryProvider } from './QueryProvider';
+import { QueryProvider } from '@/components/QueryProvider';
 import { formatQuantity, parseDecimal, trimNumber } from './quantity-text';
 import { MonthFilter, stack } from './table-bits';
 import { ErrorText, invalidProps, splitUseLabel } from './ui';

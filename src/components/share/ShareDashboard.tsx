@@ -8,7 +8,7 @@ import { useEffect, useState } from 'react';
 import { aboutCautions } from '@/lib/cautions';
 import type { ShareResponse } from '@/lib/share-types';
 import { get } from '@/components/entries/api';
-import { QueryProvider } from '@/components/entries/QueryProvider';
+import { QueryProvider } from '@/components/QueryProvider';
 import type { UnitSystem } from '@/lib/units';
 import { Headline } from './Headline';
 import { HarvestUses } from './HarvestUses';
