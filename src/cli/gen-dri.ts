@@ -32,13 +32,18 @@ export function driModuleText(csv: string): string {
     throw new Error(`reference-data/dri.csv must start with the columns ${COLUMNS.join(',')}; it has ${header.join(',')}.`);
   }
   const sources: string[] = [];
-  const lines = parsed.data.map((r, i) => {
+  // One line per nutrient (its cells in CSV order), so the module stays a short, readable table.
+  const byNutrient = new Map<string, string[]>();
+  parsed.data.forEach((r, i) => {
     const row = i + 2;
     if (!sources.includes(r.source!)) sources.push(r.source!);
     const ageMax = r.age_max === '' ? null : number(r.age_max!, row, 'age_max');
     const cells = [r.nutrient_key, r.life_stage, r.sex, number(r.age_min!, row, 'age_min'), ageMax, r.condition, number(r.value!, row, 'value'), r.basis, sources.indexOf(r.source!)];
-    return `  ${JSON.stringify(cells)},`;
+    const line = byNutrient.get(r.nutrient_key!) ?? [];
+    line.push(JSON.stringify(cells));
+    byNutrient.set(r.nutrient_key!, line);
   });
+  const lines = [...byNutrient.values()].map((cells) => `  ${cells.join(', ')},`);
   return [
     '// Generated from reference-data/dri.csv by `npm run gen:dri`: edit the CSV and run it again, never this file.',
     '// Read through src/lib/dri-table.ts, which types and checks these cells.',

@@ -9,12 +9,12 @@
  * (RED fat, PAST process, VAR meats) were read off the same scan and are handled by context.
  */
 
-import dictionary from '../../reference-data/sr28-abbreviations.json';
+import dictionary from './sr28-abbreviations.json';
 
 /**
  * Abbreviations that always mean the same thing in SR28 descriptions, upper case → expansion,
  * written as they should read (lower case unless a proper noun). The dictionary is data, kept in
- * reference-data/sr28-abbreviations.json in groups (preparation, foods, cuts, …); its `_about`
+ * src/lib/sr28-abbreviations.json (a data file beside this code) in groups (preparation, foods, cuts, …); its `_about`
  * entry says where it comes from.
  */
 export const SR28_ABBREVIATIONS: Readonly<Record<string, string>> = Object.freeze(
