@@ -1,6 +1,6 @@
 /**
- * The one set of rules for what a harvest, a purchase and a crop may look like. The forms, the API
- * endpoints and the CSV importer all validate with these schemas, so a rule is written once.
+ * The one set of rules for what a harvest, a purchase and a staple may look like (crops: crop-schemas.ts;
+ * list queries: list-query-schemas.ts). Forms, API endpoints and the CSV importer all validate with these, so a rule is written once.
  *
  * Conventions:
  * - Quantities stay in the unit they were logged in (g, kg, oz, lb); conversion happens when counted.
@@ -113,7 +113,8 @@ export const currency = z
   .toUpperCase()
   .regex(/^[A-Z]{3}$/, { error: 'The currency must be a three-letter ISO 4217 code, like EUR or USD.' });
 
-const nameText = (what: string) =>
+/** A one-line name of up to ENTRY_LIMITS.maxNameLength characters (crops, staples). */
+export const nameText = (what: string) =>
   z
     .string({ error: mustBeText(`The ${what}`) })
     .trim()
@@ -160,7 +161,8 @@ function checkOneOfCropFood(value: { cropId?: number | undefined; foodId?: numbe
   }
 }
 
-function checkNotEmpty(value: object, ctx: Ctx): void {
+/** A patch must change something. */
+export function checkNotEmpty(value: object, ctx: z.RefinementCtx): void {
   if (Object.values(value).every((v) => v === undefined)) {
     ctx.addIssue({ code: 'custom', path: [], message: 'Nothing to change: give at least one field.' });
   }
@@ -282,10 +284,10 @@ export const harvestPatch = z
 
 export type HarvestPatch = z.output<typeof harvestPatch>;
 
-type Stored<T> = { [K in keyof T]?: T[K] | null };
+export type Stored<T> = { [K in keyof T]?: T[K] | null };
 
-// Applies a patch to a stored row: nulls mean "none", a patch's null clears the field.
-function mergeFields(current: Record<string, unknown>, patch: Record<string, unknown>): Record<string, unknown> {
+/** Applies a patch to a stored row: nulls mean "none", a patch's null clears the field. */
+export function mergeFields(current: Record<string, unknown>, patch: Record<string, unknown>): Record<string, unknown> {
   const merged: Record<string, unknown> = {};
   for (const [key, value] of Object.entries(current)) if (value !== null && value !== undefined) merged[key] = value;
   for (const [key, value] of Object.entries(patch)) {
@@ -413,165 +415,6 @@ export type StapleInput = z.output<typeof stapleInput>;
 
 /** Logging a staple as bought: the date, default today in the household. Example: `stapleLogInput.parse({})` → {} */
 export const stapleLogInput = z.strictObject({ date: isoDate.optional() });
-
-// ---------------------------------------------------------------------------------------------
-// List queries (URL search parameters: everything arrives as a string, blank means absent)
-
-const blankToUndefined = (value: unknown) => (typeof value === 'string' && value.trim() === '' ? undefined : value);
-
-const queryId = z.preprocess(
-  blankToUndefined,
-  z.coerce.number({ error: 'An id is a whole number.' }).pipe(recordId).optional(),
-);
-const queryDate = z.preprocess(blankToUndefined, isoDate.optional());
-const page = z.preprocess(
-  blankToUndefined,
-  z.coerce.number({ error: mustBeNumber('The page') }).int({ error: mustBeWhole('The page') }).min(1, { error: 'Pages start at 1.' }).default(1),
-);
-const pageSize = z.preprocess(
-  blankToUndefined,
-  z.coerce
-    .number({ error: mustBeNumber('The page size') })
-    .int({ error: mustBeWhole('The page size') })
-    .min(1, { error: 'The page size must be at least 1.' })
-    .max(L.maxPageSize, { error: `The page size can be at most ${L.maxPageSize}.` })
-    .default(L.defaultPageSize),
-);
-
-function checkDateOrder(value: { from?: string | undefined; to?: string | undefined }, ctx: Ctx): void {
-  // ISO dates compare correctly as strings.
-  if (value.from !== undefined && value.to !== undefined && value.from > value.to) {
-    ctx.addIssue({ code: 'custom', path: ['to'], message: 'The end date is before the start date.' });
-  }
-}
-
-/** Orders a harvest list can take ('-' = descending; the default is -date, newest first). Example: `HARVEST_SORTS[1]` → '-date' */
-export const HARVEST_SORTS = ['date', '-date', 'grams', '-grams', 'crop'] as const;
-
-/** Orders a bought-food list can take. Example: `PURCHASE_SORTS[4]` → 'food' */
-export const PURCHASE_SORTS = ['date', '-date', 'grams', '-grams', 'food'] as const;
-
-export type HarvestSort = (typeof HARVEST_SORTS)[number];
-export type PurchaseSort = (typeof PURCHASE_SORTS)[number];
-
-/**
- * Filters for listing harvests, read from URL search parameters (both ends of from/to included).
- * Example: `harvestQuery.parse(Object.fromEntries(new URLSearchParams('use=stored&page=2')))`
- *   → { use: 'stored', page: 2, pageSize: 50 }
- */
-export const harvestQuery = z
-  .object({
-    from: queryDate,
-    to: queryDate,
-    cropId: queryId,
-    foodId: queryId,
-    use: z.preprocess(blankToUndefined, use.optional()),
-    sort: z.preprocess(blankToUndefined, z.enum(HARVEST_SORTS, { error: oneOf('The sort', HARVEST_SORTS) }).optional()),
-    page,
-    pageSize,
-  })
-  .superRefine(checkDateOrder);
-
-export type HarvestQuery = z.output<typeof harvestQuery>;
-
-/** Filters for listing bought food. Example: `purchaseQuery.parse({ from: '2026-01-01' })` → { from: '2026-01-01', page: 1, pageSize: 50 } */
-export const purchaseQuery = z
-  .object({
-    from: queryDate,
-    to: queryDate,
-    foodId: queryId,
-    sort: z.preprocess(blankToUndefined, z.enum(PURCHASE_SORTS, { error: oneOf('The sort', PURCHASE_SORTS) }).optional()),
-    page,
-    pageSize,
-  })
-  .superRefine(checkDateOrder);
-
-export type PurchaseQuery = z.output<typeof purchaseQuery>;
-
-// ---------------------------------------------------------------------------------------------
-// Crops
-
-const cropFields = {
-  name: nameText('crop name').min(1, { error: 'Give the crop a name.' }),
-  variety: nameText('variety')
-    .transform((s) => (s === '' ? undefined : s))
-    .optional(),
-  foodId: recordId.nullable(),
-  category: z.enum(CROP_CATEGORIES, { error: oneOf('The category', CROP_CATEGORIES) }),
-  edibleFraction: z
-    .number({ error: mustBeNumber('The edible fraction') })
-    .gt(0, { error: 'The edible fraction must be more than 0.' })
-    .max(1, { error: 'The edible fraction can be at most 1 (all of it eaten).' }),
-  defaultUse: use,
-  defaultSpreadMonths: spreadMonths,
-  notFood: z.boolean({ error: trueOrFalse('Not food') }),
-};
-
-// A crop marked not food (ornamental, or toxic parts) is never counted as food: it links to no
-// reference food, has no edible fraction and no eaten default use. Its harvests are checked with
-// cropUseError, so they can only be seed, given, sold or lost.
-function checkNotFood(
-  value: { notFood?: boolean | undefined; foodId?: number | null | undefined; edibleFraction?: number | undefined; defaultUse?: Use | undefined },
-  ctx: Ctx,
-): void {
-  if (!value.notFood) return;
-  if (value.foodId != null) {
-    ctx.addIssue({ code: 'custom', path: ['foodId'], message: 'A crop marked as not food cannot be matched to a reference food.' });
-  }
-  if (value.edibleFraction !== undefined) {
-    ctx.addIssue({ code: 'custom', path: ['edibleFraction'], message: 'A crop marked as not food has no edible fraction.' });
-  }
-  if (value.defaultUse !== undefined && isEatenUse(value.defaultUse)) {
-    ctx.addIssue({ code: 'custom', path: ['defaultUse'], message: 'A crop marked as not food can only default to seed, given, sold or lost.' });
-  }
-}
-
-/**
- * A crop the household grows: name, variety, matched reference food (or null), category, optional
- * edible fraction override, default use and spread, and whether it is not food.
- * Example: `cropInput.parse({ name: 'Potato', variety: 'Charlotte', foodId: 12, category: 'root_tuber' })`
- *   → { name: 'Potato', variety: 'Charlotte', foodId: 12, category: 'root_tuber', notFood: false }
- */
-export const cropInput = z
-  .strictObject({
-    ...cropFields,
-    foodId: cropFields.foodId.default(null),
-    edibleFraction: cropFields.edibleFraction.optional(),
-    defaultUse: cropFields.defaultUse.optional(),
-    defaultSpreadMonths: cropFields.defaultSpreadMonths.optional(),
-    notFood: cropFields.notFood.default(false),
-  })
-  .superRefine(checkNotFood);
-
-export type CropInput = z.output<typeof cropInput>;
-export type CropInputRaw = z.input<typeof cropInput>;
-
-/** A change to a crop: any field (and `archived`), at least one; null clears variety, edible fraction, default use or spread. Example: `cropPatch.parse({ archived: true })` */
-export const cropPatch = z
-  .strictObject({
-    ...cropFields,
-    variety: z.union([nameText('variety').transform((s) => (s === '' ? null : s)), z.null()]),
-    edibleFraction: cropFields.edibleFraction.nullable(),
-    defaultUse: cropFields.defaultUse.nullable(),
-    defaultSpreadMonths: cropFields.defaultSpreadMonths.nullable(),
-    // Archived crops are hidden from the entry form but keep their harvests.
-    archived: z.boolean({ error: trueOrFalse('Archived') }),
-  })
-  .partial()
-  .superRefine(checkNotEmpty)
-  .superRefine((v, ctx) => checkNotFood({ ...v, edibleFraction: v.edibleFraction ?? undefined, defaultUse: v.defaultUse ?? undefined }, ctx));
-
-export type CropPatch = z.output<typeof cropPatch>;
-
-/** The crop after a patch, validated as a whole (the not-food rule included). Example: `mergeCropPatch(crop, { notFood: true }).success` */
-export function mergeCropPatch(current: Stored<CropInput>, patch: CropPatch): z.ZodSafeParseResult<CropInput> {
-  // `archived` is a flag on the stored crop, not part of what a crop is: it is checked by cropPatch.
-  const { archived: _archived, ...fields } = patch;
-  const merged = mergeFields({ ...current }, fields);
-  // foodId is nullable on a crop: keep an explicit null rather than dropping the key.
-  if (!('foodId' in merged)) merged.foodId = null;
-  return cropInput.safeParse(merged);
-}
 
 // ---------------------------------------------------------------------------------------------
 // Error answers

@@ -7,7 +7,8 @@ import { getDb } from '@/db/client';
 import { crops, datasets, foods, harvests, type Crop } from '@/db/schema';
 import type { CropJson, FoodSummary } from '@/lib/api-types';
 import { edibleFactor } from '@/lib/edible';
-import { EATEN_USES, mergeCropPatch, type CropInput, type CropPatch } from '@/lib/entry-schemas';
+import { EATEN_USES } from '@/lib/entry-schemas';
+import { mergeCropPatch, type CropInput, type CropPatch } from '@/lib/crop-schemas';
 import { HttpError } from './http';
 import { fieldError, invalidInput, isDuplicateKey, isRowReferenced, type Executor, type Tx } from './entry-input';
 

@@ -18,7 +18,8 @@ import {
   resolvePurchaseRows,
   type CsvError,
 } from '@/lib/csv-import';
-import { cropInput, type CropInput, type HarvestInput, type PurchaseInput } from '@/lib/entry-schemas';
+import { type HarvestInput, type PurchaseInput } from '@/lib/entry-schemas';
+import { cropInput, type CropInput } from '@/lib/crop-schemas';
 import { toGrams } from '@/lib/units';
 import { cropDisplayName, cropRows, insertCrop } from './crops';
 import { HttpError, readBodyBytes } from './http';

@@ -8,15 +8,8 @@ import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { crops, foods, harvests, households, type Crop, type Harvest } from '@/db/schema';
 import { defaultSpreadMonths, type CropCategory } from '@/lib/crop-categories';
-import {
-  cropUseError,
-  mergeHarvestPatch,
-  splitToHarvests,
-  type HarvestInput,
-  type HarvestPatch,
-  type HarvestQuery,
-  type HarvestSplitInput,
-} from '@/lib/entry-schemas';
+import { cropUseError, mergeHarvestPatch, splitToHarvests, type HarvestInput, type HarvestPatch, type HarvestSplitInput } from '@/lib/entry-schemas';
+import { type HarvestQuery } from '@/lib/list-query-schemas';
 import type { HarvestJson, HarvestList } from '@/lib/entry-types';
 import { toGrams } from '@/lib/units';
 import { cropDisplayName, cropRow, harvestEdibleGrams, requireFood } from './crops';

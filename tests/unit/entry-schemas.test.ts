@@ -1,28 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import {
-  cropInput,
-  cropPatch,
-  cropUseError,
-  EATEN_USES,
-  FORM_FIELD,
-  harvestInput,
-  harvestPatch,
-  harvestQuery,
-  harvestSplitInput,
-  isoDate,
-  mergeCropPatch,
-  mergeHarvestPatch,
-  mergePurchasePatch,
-  purchaseInput,
-  purchasePatch,
-  purchaseQuery,
-  splitToHarvests,
-  stapleInput,
-  stapleLogInput,
-  USE_LABELS,
-  USES,
-  zodErrorBody,
-} from '@/lib/entry-schemas';
+import { cropUseError, EATEN_USES, FORM_FIELD, harvestInput, harvestPatch, harvestSplitInput, isoDate, mergeHarvestPatch, mergePurchasePatch, purchaseInput, purchasePatch, splitToHarvests, stapleInput, stapleLogInput, USE_LABELS, USES, zodErrorBody } from '@/lib/entry-schemas';
+import { cropInput, cropPatch, mergeCropPatch } from '@/lib/crop-schemas';
+import { harvestQuery, purchaseQuery } from '@/lib/list-query-schemas';
 import { CROP_CATEGORIES, CROP_CATEGORY_LABELS, defaultSpreadMonths, defaultUse } from '@/lib/crop-categories';
 
 const harvest = { date: '2026-07-14', cropId: 3, quantity: 2.5, unit: 'kg' as const };

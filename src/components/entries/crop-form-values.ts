@@ -6,7 +6,8 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { Resolver } from 'react-hook-form';
 import type { CropCategory } from '@/lib/crop-categories';
-import { cropInput, cropPatch, type CropInput, type CropPatch, type Use } from '@/lib/entry-schemas';
+import { type Use } from '@/lib/entry-schemas';
+import { cropInput, cropPatch, type CropInput, type CropPatch } from '@/lib/crop-schemas';
 import type { Crop } from './api';
 import type { FoodChoice } from './FoodPicker';
 import { flatErrors, nestErrors } from './form-errors';

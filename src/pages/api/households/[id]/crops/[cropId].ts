@@ -1,4 +1,4 @@
-import { cropPatch } from '@/lib/entry-schemas';
+import { cropPatch } from '@/lib/crop-schemas';
 import { householdRoute } from '@/server/authz';
 import { deleteCrop, getCrop, updateCrop } from '@/server/crops';
 import { idParam, parseInput } from '@/server/entry-input';

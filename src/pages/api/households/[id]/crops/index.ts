@@ -1,4 +1,4 @@
-import { cropInput } from '@/lib/entry-schemas';
+import { cropInput } from '@/lib/crop-schemas';
 import { householdRoute } from '@/server/authz';
 import { createCrop, listCrops } from '@/server/crops';
 import { parseInput } from '@/server/entry-input';

@@ -1,4 +1,5 @@
-import { harvestInput, harvestQuery, harvestSplitInput } from '@/lib/entry-schemas';
+import { harvestInput, harvestSplitInput } from '@/lib/entry-schemas';
+import { harvestQuery } from '@/lib/list-query-schemas';
 import { householdRoute } from '@/server/authz';
 import { parseInput } from '@/server/entry-input';
 import { createHarvest, createSplitHarvest, listHarvests } from '@/server/harvests';

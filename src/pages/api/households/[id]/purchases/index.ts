@@ -1,4 +1,5 @@
-import { purchaseInput, purchaseQuery } from '@/lib/entry-schemas';
+import { purchaseInput } from '@/lib/entry-schemas';
+import { purchaseQuery } from '@/lib/list-query-schemas';
 import { householdRoute } from '@/server/authz';
 import { parseInput } from '@/server/entry-input';
 import { json, readJson } from '@/server/http';
