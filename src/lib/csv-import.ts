@@ -349,7 +349,8 @@ function dropUndefined(raw: Record<string, unknown>): Record<string, unknown> {
   return Object.fromEntries(Object.entries(raw).filter(([, v]) => v !== undefined));
 }
 
-function addIssues(errors: CsvError[], row: number, error: z.ZodError): void {
+/** Puts each schema issue of a row on the CSV column the user sees. */
+export function addIssues(errors: CsvError[], row: number, error: z.ZodError): void {
   const failed = new Set(errors.filter((e) => e.row === row).map((e) => e.column));
   for (const issue of error.issues) {
     const field = issue.path[0];
@@ -385,7 +386,8 @@ export interface ParsedPurchaseRow {
   entry: PurchaseDetails;
 }
 
-function byRow(errors: CsvError[]): CsvError[] {
+/** Errors in row order. */
+export function byRow(errors: CsvError[]): CsvError[] {
   return [...errors].sort((a, b) => a.row - b.row);
 }
 
@@ -452,132 +454,4 @@ export function parsePurchaseCsv(source: CsvSource): CsvParseResult<ParsedPurcha
     rows.push({ row: record.row, foodCode, entry });
   }
   return { rows, errors: byRow(errors), delimiter: table.delimiter, ignoredColumns: table.ignoredColumns };
-}
-
-// ---------------------------------------------------------------------------------------------
-// Matching names and codes
-
-/** A matched crop: its id, and whether it is marked not food (for the use rule). */
-export interface CropMatch {
-  id: number;
-  name?: string;
-  notFood?: boolean | null;
-}
-
-/** The caller's lookups. cropByName gets the trimmed name and variety; compare with cropNameKey. */
-export interface HarvestResolvers {
-  cropByName(name: string, variety?: string): number | CropMatch | undefined;
-  foodByCode(code: string): number | undefined;
-}
-
-export interface PurchaseResolvers {
-  foodByCode(code: string): number | undefined;
-}
-
-/** A row ready to be written, with its spreadsheet row number. */
-export interface ResolvedRow<T> {
-  row: number;
-  input: T;
-}
-
-export interface HarvestResolution {
-  inputs: ResolvedRow<HarvestInput>[];
-  errors: CsvError[];
-  /** Crops not found, once each (first spelling seen), so the page can offer to create them. */
-  unknownCrops: { name: string; variety?: string }[];
-  unknownFoodCodes: string[];
-}
-
-export interface PurchaseResolution {
-  inputs: ResolvedRow<PurchaseInput>[];
-  errors: CsvError[];
-  unknownFoodCodes: string[];
-}
-
-function describeCrop(name: string, variety?: string): string {
-  return variety === undefined ? `"${name}"` : `"${name}" (${variety})`;
-}
-
-/**
- * Matches each row's crop or food code with the caller's lookups and validates the complete harvest
- * (including the not-food rule). Example: `resolveHarvestRows(parsed.rows, { cropByName, foodByCode }).unknownCrops`
- *   → [{ name: 'Oca' }]
- */
-export function resolveHarvestRows(rows: readonly ParsedHarvestRow[], resolvers: HarvestResolvers): HarvestResolution {
-  const inputs: ResolvedRow<HarvestInput>[] = [];
-  const errors: CsvError[] = [];
-  const unknownCrops = new Map<string, { name: string; variety?: string }>();
-  const unknownFoodCodes = new Set<string>();
-  for (const parsed of rows) {
-    let ref: { cropId: number } | { foodId: number } | undefined;
-    let crop: CropMatch | undefined;
-    if (parsed.crop !== undefined) {
-      const found = resolvers.cropByName(parsed.crop, parsed.variety);
-      crop = typeof found === 'number' ? { id: found } : found;
-      if (crop === undefined) {
-        const key = `${cropNameKey(parsed.crop)}\u0000${cropNameKey(parsed.variety ?? '')}`;
-        if (!unknownCrops.has(key)) unknownCrops.set(key, { name: parsed.crop, ...(parsed.variety !== undefined ? { variety: parsed.variety } : {}) });
-        errors.push({ row: parsed.row, column: 'crop', message: `There is no crop ${describeCrop(parsed.crop, parsed.variety)} in this household.` });
-        continue;
-      }
-      ref = { cropId: crop.id };
-    } else if (parsed.foodCode !== undefined) {
-      const foodId = resolvers.foodByCode(parsed.foodCode);
-      if (foodId === undefined) {
-        unknownFoodCodes.add(parsed.foodCode);
-        errors.push({ row: parsed.row, column: 'food_code', message: `There is no reference food with code "${parsed.foodCode}".` });
-        continue;
-      }
-      ref = { foodId };
-    } else {
-      errors.push({ row: parsed.row, column: 'crop', message: 'Give the crop name (or a food_code).' });
-      continue;
-    }
-    const notFood = crop === undefined ? undefined : cropUseError(parsed.entry.use, { name: parsed.crop, notFood: crop.notFood });
-    if (notFood !== undefined) {
-      errors.push({ row: parsed.row, column: 'use', message: notFood });
-      continue;
-    }
-    const result = harvestInput.safeParse({ ...parsed.entry, ...ref });
-    if (result.success) inputs.push({ row: parsed.row, input: result.data });
-    else addIssues(errors, parsed.row, result.error);
-  }
-  return { inputs, errors: byRow(errors), unknownCrops: [...unknownCrops.values()], unknownFoodCodes: [...unknownFoodCodes] };
-}
-
-/** Matches each bought-food row's food code. Example: `resolvePurchaseRows(parsed.rows, { foodByCode }).inputs[0]?.input.foodId` */
-export function resolvePurchaseRows(rows: readonly ParsedPurchaseRow[], resolvers: PurchaseResolvers): PurchaseResolution {
-  const inputs: ResolvedRow<PurchaseInput>[] = [];
-  const errors: CsvError[] = [];
-  const unknownFoodCodes = new Set<string>();
-  for (const parsed of rows) {
-    const foodId = resolvers.foodByCode(parsed.foodCode);
-    if (foodId === undefined) {
-      unknownFoodCodes.add(parsed.foodCode);
-      errors.push({ row: parsed.row, column: 'food_code', message: `There is no reference food with code "${parsed.foodCode}".` });
-      continue;
-    }
-    const result = purchaseInput.safeParse({ ...parsed.entry, foodId });
-    if (result.success) inputs.push({ row: parsed.row, input: result.data });
-    else addIssues(errors, parsed.row, result.error);
-  }
-  return { inputs, errors: byRow(errors), unknownFoodCodes: [...unknownFoodCodes] };
-}
-
-/**
- * Reads and matches a harvest log in one go; errors from both steps, in row order. The import is
- * all or nothing: write `inputs` only when `errors` is empty.
- * Example: `importHarvestCsv(text, resolvers).errors` → [{ row: 4, column: 'quantity', message: 'The weight must be more than 0.' }]
- */
-export function importHarvestCsv(source: CsvSource, resolvers: HarvestResolvers): HarvestResolution & { ignoredColumns: string[] } {
-  const parsed = parseHarvestCsv(source);
-  const resolved = resolveHarvestRows(parsed.rows, resolvers);
-  return { ...resolved, errors: byRow([...parsed.errors, ...resolved.errors]), ignoredColumns: parsed.ignoredColumns };
-}
-
-/** Reads and matches a bought-food list in one go (all or nothing, as importHarvestCsv). */
-export function importPurchaseCsv(source: CsvSource, resolvers: PurchaseResolvers): PurchaseResolution & { ignoredColumns: string[] } {
-  const parsed = parsePurchaseCsv(source);
-  const resolved = resolvePurchaseRows(parsed.rows, resolvers);
-  return { ...resolved, errors: byRow([...parsed.errors, ...resolved.errors]), ignoredColumns: parsed.ignoredColumns };
 }

@@ -14,10 +14,9 @@ import {
   cropNameKey,
   parseHarvestCsv,
   parsePurchaseCsv,
-  resolveHarvestRows,
-  resolvePurchaseRows,
   type CsvError,
 } from '@/lib/csv-import';
+import { resolveHarvestRows, resolvePurchaseRows } from '@/lib/csv-match';
 import { type HarvestInput, type PurchaseInput } from '@/lib/entry-schemas';
 import { cropInput, type CropInput } from '@/lib/crop-schemas';
 import { toGrams } from '@/lib/units';

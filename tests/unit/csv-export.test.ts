@@ -13,11 +13,10 @@ import {
 import {
   cropNameKey,
   HARVEST_CSV_COLUMNS,
-  importHarvestCsv,
-  importPurchaseCsv,
   PURCHASE_CSV_COLUMNS,
-  type HarvestResolvers,
 } from '@/lib/csv-import';
+import { type HarvestResolvers } from '@/lib/csv-match';
+import { importHarvestCsv, importPurchaseCsv } from '../support/csv-import';
 import { harvestInput, purchaseInput, type HarvestInput, type PurchaseInput } from '@/lib/entry-schemas';
 
 const crops = [

@@ -3,15 +3,13 @@ import {
   columnKey,
   CSV_LIMITS,
   detectDelimiter,
-  importHarvestCsv,
   parseCsvBoolean,
   parseCsvNumber,
   parseHarvestCsv,
   parsePurchaseCsv,
-  resolveHarvestRows,
-  resolvePurchaseRows,
-  type HarvestResolvers,
 } from '@/lib/csv-import';
+import { resolveHarvestRows, resolvePurchaseRows, type HarvestResolvers } from '@/lib/csv-match';
+import { importHarvestCsv } from '../support/csv-import';
 
 const crops = new Map([
   ['potato', { id: 1, notFood: false }],
