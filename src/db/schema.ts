@@ -29,6 +29,7 @@ import { USES } from '@/lib/uses';
 import { DIETS } from '@/lib/diet';
 import { PRESERVE_METHODS } from '@/lib/retention';
 import { PLANTING_SLOTS } from '@/lib/planting-slots';
+import { LARDER_OUTCOMES } from '@/lib/larder-outcomes';
 
 // ── Reference data: food composition datasets ────────────────────────────────────────────────
 
@@ -230,6 +231,8 @@ export const memberships = mysqlTable(
       .notNull()
       .references(() => user.id, { onDelete: 'cascade' }),
     role: mysqlEnum('role', ROLES).notNull(),
+    /** Whether this member gets the monthly letter: owners and growers from the day they join, viewers when they choose. */
+    monthlyLetter: boolean('monthly_letter').notNull().default(false),
     createdAt: timestamp('created_at').notNull().defaultNow(),
   },
   (t) => [primaryKey({ columns: [t.householdId, t.userId] }), index('memberships_user_idx').on(t.userId)],
@@ -475,3 +478,61 @@ export type Purchase = typeof purchases.$inferSelect;
 export type Person = typeof people.$inferSelect;
 export type Bed = typeof beds.$inferSelect;
 export type Planting = typeof plantings.$inferSelect;
+
+/**
+ * What happened to a stored or preserved lot (one harvest row) after it went into store. Outcomes
+ * apply in date order to what remained on their date (src/lib/larder.ts); the share report follows them.
+ */
+export const larderOutcomes = mysqlTable(
+  'larder_outcomes',
+  {
+    id: bigint('id', { mode: 'number', unsigned: true }).autoincrement().primaryKey(),
+    householdId: int('household_id')
+      .notNull()
+      .references(() => households.id, { onDelete: 'cascade' }),
+    harvestId: bigint('harvest_id', { mode: 'number', unsigned: true })
+      .notNull()
+      .references(() => harvests.id, { onDelete: 'cascade' }),
+    kind: mysqlEnum('kind', LARDER_OUTCOMES).notNull(),
+    /** The day it happened (or was noticed), the household's local date. */
+    date: date('date', { mode: 'string' }).notNull(),
+    /** Spoiled: the share (0–1] of what remained that day that was lost. */
+    lostFraction: double('lost_fraction'),
+    /** Lasting longer: the day the rest is now expected to run out (excluded). */
+    until: date('until', { mode: 'string' }),
+    note: varchar('note', { length: 500 }),
+    createdBy: varchar('created_by', { length: 36 }).references(() => user.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+  },
+  (t) => [index('larder_outcomes_household_harvest_idx').on(t.householdId, t.harvestId)],
+);
+
+/**
+ * One monthly letter (household, month, member), claimed under its unique key before it is sent,
+ * so two app servers, or a run restarted midway, never send it twice; a failed send is retried.
+ */
+export const letters = mysqlTable(
+  'letters',
+  {
+    id: bigint('id', { mode: 'number', unsigned: true }).autoincrement().primaryKey(),
+    householdId: int('household_id')
+      .notNull()
+      .references(() => households.id, { onDelete: 'cascade' }),
+    userId: varchar('user_id', { length: 36 })
+      .notNull()
+      .references(() => user.id, { onDelete: 'cascade' }),
+    /** 'YYYY-MM': the month the letter reports on. */
+    month: char('month', { length: 7 }).notNull(),
+    status: mysqlEnum('status', ['sending', 'sent', 'failed']).notNull(),
+    /** Which run claimed it (a random id per run), so only that run marks it. */
+    claimedBy: varchar('claimed_by', { length: 36 }).notNull(),
+    attempts: tinyint('attempts').notNull().default(1),
+    error: varchar('error', { length: 500 }),
+    claimedAt: timestamp('claimed_at').notNull().defaultNow(),
+    sentAt: timestamp('sent_at'),
+  },
+  (t) => [uniqueIndex('letters_household_month_user_uq').on(t.householdId, t.month, t.userId)],
+);
+
+export type LarderOutcome = typeof larderOutcomes.$inferSelect;
+export type Letter = typeof letters.$inferSelect;

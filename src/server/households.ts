@@ -36,7 +36,7 @@ export async function createHousehold(userId: string, input: HouseholdInput): Pr
   return getDb().transaction(async (tx) => {
     const [res] = await tx.insert(households).values(input);
     const id = res.insertId;
-    await tx.insert(memberships).values({ householdId: id, userId, role: 'owner' });
+    await tx.insert(memberships).values({ householdId: id, userId, role: 'owner', monthlyLetter: true });
     const [h] = await tx.select().from(households).where(eq(households.id, id));
     return h!;
   });

@@ -165,7 +165,7 @@ export async function acceptInvitation(token: string, who: { id: string; email: 
       .from(memberships)
       .where(and(eq(memberships.householdId, inv.householdId), eq(memberships.userId, who.id)));
     if (member) return { householdId: inv.householdId, role: member.role, alreadyMember: true };
-    await tx.insert(memberships).values({ householdId: inv.householdId, userId: who.id, role: inv.role });
+    await tx.insert(memberships).values({ householdId: inv.householdId, userId: who.id, role: inv.role, monthlyLetter: inv.role !== 'viewer' });
     return { householdId: inv.householdId, role: inv.role, alreadyMember: false };
   });
 }
