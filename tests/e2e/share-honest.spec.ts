@@ -86,7 +86,8 @@ test('the owner moves the records start back on the settings page, and the share
   await page.goto(`/households/${h.id}`);
   // A household made this month with no entries counts from this month (the default rule).
   await expect(page.getByTestId('records-from')).toContainText(`Records count from ${month}.`);
-  await page.getByRole('link', { name: 'Change it in the settings.' }).click();
+  await expect(page.getByRole('link', { name: 'Change it in the settings.' })).toHaveAttribute('href', `/households/${h.id}/settings`);
+  await page.goto(`/households/${h.id}/settings`);
   await expect(page.getByTestId('records-since-form')).toContainText(`Now counted from ${month}`);
   await page.getByLabel('Records start (month)').fill(earlier);
   await page.getByTestId('records-since-form').getByRole('button', { name: 'Save' }).click();
