@@ -9,6 +9,9 @@ import type { CropJson, FoodSummary } from '@/lib/api-types';
 import { edibleFactor } from '@/lib/edible';
 import { EATEN_USES } from '@/lib/entry-schemas';
 import { mergeCropPatch, type CropInput, type CropPatch } from '@/lib/crop-schemas';
+import type { CropCategory } from '@/lib/crop-categories';
+import { referenceCropForName } from '@/lib/crop-name-match';
+import { loadCropTable } from './crop-table-file';
 import { HttpError } from './http';
 import { fieldError, invalidInput, isDuplicateKey, isRowReferenced, type Executor, type Tx } from './entry-input';
 
@@ -122,6 +125,15 @@ function duplicate(name: string, variety: string | null | undefined): HttpError 
   });
 }
 
+/**
+ * A new crop's category: the one given, else that of the reference crop its name matches
+ * ("Potatoes" → roots and tubers), else 'other'.
+ * Example: `newCropCategory({ name: 'Potato' })` → 'root_tuber'
+ */
+export function newCropCategory(input: { name: string; category?: CropCategory | undefined }): CropCategory {
+  return input.category ?? referenceCropForName(input.name, loadCropTable())?.category ?? 'other';
+}
+
 /** Inserts a crop inside a transaction and returns its id (409 when name + variety exist). */
 export async function insertCrop(tx: Tx, householdId: number, input: CropInput): Promise<number> {
   if (input.foodId != null) await requireFood(tx, input.foodId);
@@ -131,7 +143,7 @@ export async function insertCrop(tx: Tx, householdId: number, input: CropInput):
       name: input.name,
       variety: input.variety ?? '',
       foodId: input.foodId ?? null,
-      category: input.category,
+      category: newCropCategory(input),
       edibleFraction: input.edibleFraction ?? null,
       defaultUse: input.defaultUse ?? null,
       defaultSpreadMonths: input.defaultSpreadMonths ?? null,
