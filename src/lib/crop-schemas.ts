@@ -46,13 +46,16 @@ function checkNotFood(
 
 /**
  * A crop the household grows: name, variety, matched reference food (or null), category, optional
- * edible fraction override, default use and spread, and whether it is not food.
+ * edible fraction override, default use and spread, and whether it is not food. The category may be
+ * left out when the name says it (see insertCrop in src/server/crops.ts).
  * Example: `cropInput.parse({ name: 'Potato', variety: 'Charlotte', foodId: 12, category: 'root_tuber' })`
  *   → { name: 'Potato', variety: 'Charlotte', foodId: 12, category: 'root_tuber', notFood: false }
  */
 export const cropInput = z
   .strictObject({
     ...cropFields,
+    // Left out, the server takes the matching reference crop's category, else 'other' (src/lib/crop-name-match.ts).
+    category: cropFields.category.optional(),
     foodId: cropFields.foodId.default(null),
     edibleFraction: cropFields.edibleFraction.optional(),
     defaultUse: cropFields.defaultUse.optional(),

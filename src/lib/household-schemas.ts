@@ -9,7 +9,7 @@ export const ROLE_VALUES = ['owner', 'grower', 'viewer'] as const;
 export type RoleValue = (typeof ROLE_VALUES)[number];
 
 export const ROLE_LABELS: Record<RoleValue, string> = {
-  owner: 'Owner — everything, including members and deletion',
+  owner: 'Owner — everything, including members, the household’s settings and deleting it',
   grower: 'Grower — logs harvests and food, edits crops, people and plans',
   viewer: 'Viewer — reads everything, changes nothing',
 };

@@ -4,11 +4,14 @@
  */
 import { and, asc, count, desc, eq, inArray, max, sql } from 'drizzle-orm';
 import { getDb } from '@/db/client';
-import { crops, datasets, foods, harvests, type Crop } from '@/db/schema';
+import { crops, datasets, foods, harvests, plantings, type Crop } from '@/db/schema';
 import type { CropJson, FoodSummary } from '@/lib/api-types';
 import { edibleFactor } from '@/lib/edible';
 import { EATEN_USES } from '@/lib/entry-schemas';
 import { mergeCropPatch, type CropInput, type CropPatch } from '@/lib/crop-schemas';
+import type { CropCategory } from '@/lib/crop-categories';
+import { referenceCropForName } from '@/lib/crop-name-match';
+import { loadCropTable } from './crop-table-file';
 import { HttpError } from './http';
 import { fieldError, invalidInput, isDuplicateKey, isRowReferenced, type Executor, type Tx } from './entry-input';
 
@@ -122,6 +125,15 @@ function duplicate(name: string, variety: string | null | undefined): HttpError 
   });
 }
 
+/**
+ * A new crop's category: the one given, else that of the reference crop its name matches
+ * ("Potatoes" → roots and tubers), else 'other'.
+ * Example: `newCropCategory({ name: 'Potato' })` → 'root_tuber'
+ */
+export function newCropCategory(input: { name: string; category?: CropCategory | undefined }): CropCategory {
+  return input.category ?? referenceCropForName(input.name, loadCropTable())?.category ?? 'other';
+}
+
 /** Inserts a crop inside a transaction and returns its id (409 when name + variety exist). */
 export async function insertCrop(tx: Tx, householdId: number, input: CropInput): Promise<number> {
   if (input.foodId != null) await requireFood(tx, input.foodId);
@@ -131,7 +143,7 @@ export async function insertCrop(tx: Tx, householdId: number, input: CropInput):
       name: input.name,
       variety: input.variety ?? '',
       foodId: input.foodId ?? null,
-      category: input.category,
+      category: newCropCategory(input),
       edibleFraction: input.edibleFraction ?? null,
       defaultUse: input.defaultUse ?? null,
       defaultSpreadMonths: input.defaultSpreadMonths ?? null,
@@ -232,21 +244,35 @@ export async function updateCrop(householdId: number, cropId: number, patch: Cro
   });
 }
 
-/** Deletes a crop; 409 `in_use` while harvests point at it (archive it instead). */
+/**
+ * Why a crop cannot be deleted, naming what points at it: harvests, plantings or both.
+ * Example: `cropInUseMessage(0, 2)` → 'This crop has plantings; …'
+ */
+export function cropInUseMessage(harvestCount: number, plantingCount: number): string {
+  if (harvestCount > 0 && plantingCount > 0) {
+    return 'This crop has harvests logged and plantings; archive it instead (its harvests stay counted and its plantings stay listed).';
+  }
+  if (plantingCount > 0) return 'This crop has plantings; delete them on the Beds page first, or archive the crop instead.';
+  return 'This crop has harvests logged; archive it instead (its harvests stay counted).';
+}
+
+/** Deletes a crop; 409 `in_use` while harvests or plantings point at it (archive it instead). */
 export async function deleteCrop(householdId: number, cropId: number): Promise<void> {
-  const inUse = () =>
-    new HttpError(409, 'in_use', 'This crop has harvests logged; archive it instead (its harvests stay counted).');
   await getDb().transaction(async (tx) => {
     await cropRow(tx, householdId, cropId, true);
-    const [used] = await tx
-      .select({ n: count() })
-      .from(harvests)
-      .where(and(eq(harvests.householdId, householdId), eq(harvests.cropId, cropId)));
-    if (Number(used?.n ?? 0) > 0) throw inUse();
+    const uses = async () => {
+      const [h] = await tx.select({ n: count() }).from(harvests).where(and(eq(harvests.householdId, householdId), eq(harvests.cropId, cropId)));
+      const [p] = await tx.select({ n: count() }).from(plantings).where(and(eq(plantings.householdId, householdId), eq(plantings.cropId, cropId)));
+      return { harvests: Number(h?.n ?? 0), plantings: Number(p?.n ?? 0) };
+    };
+    const inUse = (u: { harvests: number; plantings: number }) => new HttpError(409, 'in_use', cropInUseMessage(u.harvests, u.plantings));
+    const before = await uses();
+    if (before.harvests > 0 || before.plantings > 0) throw inUse(before);
     try {
       await tx.delete(crops).where(and(eq(crops.householdId, householdId), eq(crops.id, cropId)));
     } catch (e) {
-      if (isRowReferenced(e)) throw inUse();
+      // A harvest or planting added meanwhile: say which, as above.
+      if (isRowReferenced(e)) throw inUse(await uses());
       throw e;
     }
   });

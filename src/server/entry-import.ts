@@ -20,7 +20,7 @@ import { resolveHarvestRows, resolvePurchaseRows } from '@/lib/csv-match';
 import { type HarvestInput, type PurchaseInput } from '@/lib/entry-schemas';
 import { cropInput, type CropInput } from '@/lib/crop-schemas';
 import { toGrams } from '@/lib/units';
-import { cropDisplayName, cropRows, insertCrop } from './crops';
+import { cropDisplayName, cropRows, insertCrop, newCropCategory } from './crops';
 import { HttpError, readBodyBytes } from './http';
 import { parseInput, type Executor, type Tx } from './entry-input';
 import { cropBasis, foodBasis, harvestValues, type HarvestBasis } from './harvests';
@@ -158,7 +158,7 @@ function cropFromInput(id: number, input: CropInput): ImportCrop {
     name: input.name,
     variety: input.variety ?? '',
     foodId: input.foodId ?? null,
-    category: input.category,
+    category: newCropCategory(input),
     edibleFraction: input.edibleFraction ?? null,
     defaultSpreadMonths: input.defaultSpreadMonths ?? null,
     notFood: input.notFood,

@@ -71,7 +71,9 @@ export async function updateHousehold(current: Household, patch: HouseholdPatch)
 /**
  * Deletes a household and everything that belongs to it, all or nothing. Entries go first: a
  * harvest keeps its crop from being deleted (crops in use are protected elsewhere too), so the
- * cascade from the household alone would be refused.
+ * cascade from the household alone would be refused. Larder outcomes go with their harvests;
+ * beds, people, memberships, invitations, idempotency keys and letters with the household (foreign
+ * keys ON DELETE CASCADE, tested in tests/integration/household-delete.test.ts).
  */
 export async function deleteHousehold(householdId: number): Promise<void> {
   await getDb().transaction(async (tx) => {

@@ -75,7 +75,7 @@ test('a new household with one harvest is told bought food looks incomplete, see
   await expect(page.getByTestId('ratio-incomplete-energy_kcal')).toContainText('too high while bought food looks incomplete');
 });
 
-test('the owner moves the records start back on the household page, and the share report counts from there', async ({ page, context }) => {
+test('the owner moves the records start back on the settings page, and the share report counts from there', async ({ page, context }) => {
   const owner = await newVerifiedUser({ name: 'Rhea Owner' });
   const h = await createHousehold(owner.cookie, { name: 'Records start plot', timezone: TZ });
   await context.addCookies(cookiesFor(owner.cookie));
@@ -85,9 +85,12 @@ test('the owner moves the records start back on the household page, and the shar
 
   await page.goto(`/households/${h.id}`);
   // A household made this month with no entries counts from this month (the default rule).
+  await expect(page.getByTestId('records-from')).toContainText(`Records count from ${month}.`);
+  await expect(page.getByRole('link', { name: 'Change it in the settings.' })).toHaveAttribute('href', `/households/${h.id}/settings`);
+  await page.goto(`/households/${h.id}/settings`);
   await expect(page.getByTestId('records-since-form')).toContainText(`Now counted from ${month}`);
   await page.getByLabel('Records start (month)').fill(earlier);
-  await page.getByRole('button', { name: 'Save' }).click();
+  await page.getByTestId('records-since-form').getByRole('button', { name: 'Save' }).click();
   await expect(page.getByTestId('records-since-form')).toContainText(`Records now start in ${earlier}.`);
   expect((await apiAs(owner.cookie, 'GET', `/api/households/${h.id}`)).body.household.recordsSince).toBe(earlier);
 

@@ -72,6 +72,42 @@ describe('the crop catalogue', () => {
     expect((await apiAs(t.owner.cookie, 'GET', url(`/${spare.id}`))).status).toBe(404);
   });
 
+  it('names plantings, or harvests and plantings, when a crop in use cannot be deleted', async () => {
+    const onlyPlanted = await makeCrop(t.owner.cookie, hid, { name: 'Leek', category: 'other' });
+    const planted = await apiAs(t.grower.cookie, 'POST', `/api/households/${hid}/plantings`, { cropId: onlyPlanted.id, area: 2, seasonYear: 2026 });
+    expect(planted.status).toBe(201);
+    const d = await apiAs(t.owner.cookie, 'DELETE', url(`/${onlyPlanted.id}`));
+    expect(d.status).toBe(409);
+    expect(d.body.error.code).toBe('in_use');
+    expect(d.body.error.message).toMatch(/has plantings/);
+    expect(d.body.error.message).not.toMatch(/harvest/);
+
+    await logHarvest(t.owner.cookie, hid, { date: '2026-10-02', cropId: onlyPlanted.id, quantity: 1, unit: 'kg', use: 'fresh' });
+    const both = await apiAs(t.owner.cookie, 'DELETE', url(`/${onlyPlanted.id}`));
+    expect(both.status).toBe(409);
+    expect(both.body.error.message).toMatch(/has harvests logged and plantings/);
+    expect((await apiAs(t.owner.cookie, 'GET', url(`/${onlyPlanted.id}`))).status).toBe(200);
+  });
+
+  it('gives a crop added without a category the kind of the reference crop its name matches, singular or plural', async () => {
+    // reference-data/crops.csv rows "potatoes" (root_tuber), "onions" ("Onions, storage": other), "dry-peas" (legume)
+    const cases: [string, string][] = [
+      ['Potatoes', 'root_tuber'],
+      ['Carrot', 'root_tuber'],
+      ['butternut squash', 'squash'],
+      ['Dry peas', 'legume'],
+      ['Dahlia tubers', 'other'],
+    ];
+    for (const [name, category] of cases) {
+      const r = await apiAs(t.grower.cookie, 'POST', url(), { name, variety: 'category test' });
+      expect(r.status, name).toBe(201);
+      expect(r.body.crop.category, name).toBe(category);
+    }
+    // A category given by the grower always wins over the name.
+    const own = await apiAs(t.grower.cookie, 'POST', url(), { name: 'Potatoes', variety: 'for flowers', category: 'other' });
+    expect(own.body.crop.category).toBe('other');
+  });
+
   it("carries a new food match into the crop's harvests", async () => {
     const squash = await makeCrop(t.owner.cookie, hid, { name: 'Winter squash', foodId: potatoFood, category: 'squash' });
     const h = await logHarvest(t.owner.cookie, hid, { date: '2026-09-30', cropId: squash.id, quantity: 10, unit: 'kg', use: 'stored' });

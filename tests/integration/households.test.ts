@@ -80,6 +80,44 @@ describe('households', () => {
     expect(cleared.body.household.recordsSince).toBeNull();
   });
 
+  it('answers a PATCH with an unknown time zone, a blank name, a bad unit or month with 400 at each field, and changes nothing', async () => {
+    const u = await newVerifiedUser();
+    const h = await createHousehold(u.cookie, { name: 'Steady plot', timezone: 'Europe/Berlin', units: 'metric', yearStartMonth: 1 });
+    const zone = await apiAs(u.cookie, 'PATCH', `/api/households/${h.id}`, { timezone: 'Mars/Olympus_Mons' });
+    expect(zone.status).toBe(400);
+    expect(zone.body.error.code).toBe('invalid_input');
+    expect(zone.body.error.fields).toEqual({ timezone: 'Not a known IANA time zone (e.g. Europe/Berlin).' });
+    const several = await apiAs(u.cookie, 'PATCH', `/api/households/${h.id}`, { name: '   ', units: 'imperial', yearStartMonth: 0 });
+    expect(several.status).toBe(400);
+    expect(Object.keys(several.body.error.fields).sort()).toEqual(['name', 'units', 'yearStartMonth']);
+    // A name with a line break would break the header and the CSV exports.
+    const twoLines = await apiAs(u.cookie, 'PATCH', `/api/households/${h.id}`, { name: 'Upper\nLower' });
+    expect(twoLines.status).toBe(400);
+    expect(Object.keys(twoLines.body.error.fields)).toEqual(['name']);
+    expect((await apiAs(u.cookie, 'GET', `/api/households/${h.id}`)).body.household).toMatchObject({ name: 'Steady plot', timezone: 'Europe/Berlin', units: 'metric', yearStartMonth: 1 });
+  });
+
+  it('answers an empty PATCH, or one naming only unknown fields, with 400 rather than a silent 200', async () => {
+    const u = await newVerifiedUser();
+    const h = await createHousehold(u.cookie);
+    for (const body of [{}, { colour: 'green' }]) {
+      const r = await apiAs(u.cookie, 'PATCH', `/api/households/${h.id}`, body);
+      expect(r.status, JSON.stringify(body)).toBe(400);
+      expect(r.body.error.message).toMatch(/Change at least one field/);
+    }
+    const notObject = await apiAs(u.cookie, 'PATCH', `/api/households/${h.id}`, ['name']);
+    expect(notObject.status).toBe(400);
+  });
+
+  it('accepts a zone the browser spells differently from the runtime list and saves all fields of the settings form at once', async () => {
+    const u = await newVerifiedUser();
+    const h = await createHousehold(u.cookie, { timezone: 'UTC' });
+    // Asia/Kolkata is the current IANA name; ICU's own list says Asia/Calcutta (IANA tz database "backward" file).
+    const r = await apiAs(u.cookie, 'PATCH', `/api/households/${h.id}`, { name: ' Monsoon garden ', timezone: 'Asia/Kolkata', units: 'us', yearStartMonth: 6 });
+    expect(r.status).toBe(200);
+    expect(r.body.household).toMatchObject({ name: 'Monsoon garden', timezone: 'Asia/Kolkata', units: 'us', yearStartMonth: 6, role: 'owner' });
+  });
+
   it('answers 401 JSON to a signed-out caller and sends signed-out page views to sign-in', async () => {
     const r = await api('/api/households');
     expect(r.status).toBe(401);
@@ -114,6 +152,13 @@ describe('roles and the walls between households', () => {
     const roles = Object.fromEntries(members.map((m: { userId: string; role: string }) => [m.userId, m.role]));
     expect(roles).toEqual({ [t.owner.id]: 'owner', [t.grower.id]: 'grower', [t.viewer.id]: 'viewer' });
     expect((await apiAs(t.viewer.cookie, 'GET', `/api/households/${t.household.id}`)).body.household.role).toBe('viewer');
+  });
+
+  it("answers a grower's change of the household's settings with 403", async () => {
+    const r = await apiAs(t.grower.cookie, 'PATCH', `/api/households/${t.household.id}`, { timezone: 'America/Chicago' });
+    expect(r.status).toBe(403);
+    expect(r.body.error.code).toBe('forbidden');
+    expect((await apiAs(t.owner.cookie, 'GET', `/api/households/${t.household.id}`)).body.household.timezone).toBe(t.household.timezone);
   });
 
   it("answers a viewer's write with 403", async () => {

@@ -41,6 +41,13 @@ describe('cropResolver', () => {
     expect(r.values).toMatchObject({ name: 'Leek', edibleFraction: 0.625, foodId: null, notFood: false });
   });
 
+  it('leaves the category out of a new crop when the form says "from the name", for the server to fill', () => {
+    const values = { ...cropFormValues(), name: 'Potatoes' };
+    expect(values.category).toBe('');
+    expect(cropBody(values, false).category).toBeUndefined();
+    expect(cropBody({ ...values, category: 'grain' }, false).category).toBe('grain');
+  });
+
   it('clears blank fields when a crop is changed, and leaves them out when it is new', () => {
     const values = { ...cropFormValues(), name: 'Leek' };
     expect(cropBody(values, true)).toMatchObject({ variety: null, edibleFraction: null, defaultUse: null, defaultSpreadMonths: null });

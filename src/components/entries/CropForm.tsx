@@ -64,7 +64,9 @@ export function CropForm({ household, crop, onDone }: { household: HouseholdInfo
   }
 
   const refuse = food?.refusePct ?? null;
-  const catUse = defaultUse({ category, notFood });
+  // Before the server picks a kind from the name, the hints speak for Other.
+  const kind = category === '' ? 'other' : category;
+  const catUse = defaultUse({ category: kind, notFood });
 
   return (
     <form ref={formRef} onSubmit={submit} noValidate className="card mt-5 max-w-2xl" aria-labelledby={`${p}-title`}>
@@ -81,6 +83,7 @@ export function CropForm({ household, crop, onDone }: { household: HouseholdInfo
       </div>
       <FieldShell id={`${p}-category`} label="Kind of crop" error={errors.category} hint="Sets the usual use and how long stored food lasts, unless you say otherwise below.">
         <select {...invalidProps(`${p}-category`, errors.category, true)} {...register('category')} className="field">
+          {crop ? null : <option value="">From the name (a known crop’s kind, else Other)</option>}
           {CROP_CATEGORIES.map((c) => (
             <option key={c} value={c}>
               {CROP_CATEGORY_LABELS[c]}
@@ -138,7 +141,7 @@ export function CropForm({ household, crop, onDone }: { household: HouseholdInfo
           </select>
         </FieldShell>
         {!notFood ? (
-          <FieldShell id={`${p}-spread`} label="Stored food lasts (months)" error={errors.defaultSpreadMonths} hint={`Empty: ${defaultSpreadMonths({ use: 'stored', category })} stored, ${defaultSpreadMonths({ use: 'preserved', category })} preserved.`}>
+          <FieldShell id={`${p}-spread`} label="Stored food lasts (months)" error={errors.defaultSpreadMonths} hint={`Empty: ${defaultSpreadMonths({ use: 'stored', category: kind })} stored, ${defaultSpreadMonths({ use: 'preserved', category: kind })} preserved.`}>
             <Controller
               control={control}
               name="spread"

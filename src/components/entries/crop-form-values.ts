@@ -16,7 +16,8 @@ import { parseDecimal } from './quantity-text';
 export interface CropFormValues {
   name: string;
   variety: string;
-  category: CropCategory;
+  /** '' (new crops only): the server takes the matching reference crop's category, else Other. */
+  category: CropCategory | '';
   food: FoodChoice | null;
   /** The share eaten, in %, blank for the food's refuse. */
   eatenPct: string;
@@ -37,7 +38,7 @@ export function cropFormValues(crop?: Crop): CropFormValues {
   return {
     name: crop?.name ?? '',
     variety: crop?.variety ?? '',
-    category: crop?.category ?? 'other',
+    category: crop?.category ?? '',
     food: crop?.food ? { id: crop.food.id, name: crop.food.name, code: crop.food.code, dataset: crop.food.dataset, refusePct: crop.food.refusePct } : null,
     eatenPct: crop?.edibleFraction != null ? String(Math.round(crop.edibleFraction * 1000) / 10) : '',
     use: crop?.defaultUse ?? '',
@@ -54,7 +55,7 @@ export function cropBody(values: CropFormValues, editing: boolean): Record<strin
   return {
     name: values.name,
     variety: editing ? (values.variety.trim() === '' ? null : values.variety) : values.variety,
-    category: values.category,
+    category: values.category === '' ? undefined : values.category,
     foodId: values.notFood ? null : (values.food?.id ?? null),
     edibleFraction: values.notFood || fraction === undefined ? blank : fraction / 100,
     defaultUse: values.use === '' ? blank : values.use,

@@ -14,7 +14,7 @@ export const PATCH = householdRoute('write', async (ctx, a) => {
   return json({ crop: await updateCrop(a.household.id, cropId, patch) });
 });
 
-/** DELETE /api/households/{id}/crops/{cropId} (owner, grower) → 204; 409 in_use while harvests point at it. */
+/** DELETE /api/households/{id}/crops/{cropId} (owner, grower) → 204; 409 in_use while harvests or plantings point at it. */
 export const DELETE = householdRoute('write', async (ctx, a) => {
   await deleteCrop(a.household.id, idParam(ctx.params.cropId, 'crop'));
   return new Response(null, { status: 204 });
