@@ -88,7 +88,8 @@ export interface ImportAnswerBody {
   rowCount: number;
   totals: { grams: number; edibleGrams: number };
   errors: CsvError[];
-  unknownCrops: { name: string; variety?: string }[];
+  /** Crops the file names that the household lacks, each with the kind its name suggests (else 'other'). */
+  unknownCrops: { name: string; variety?: string; category: CropCategory }[];
   unknownFoodCodes: string[];
   ignoredColumns: string[];
   created?: number;

@@ -4,6 +4,7 @@
  * and the reference foods, and writing every row in one transaction — or none, with each rejected
  * row named. The rules for the file itself live in src/lib/csv-import.ts.
  */
+import type { CropCategory } from '@/lib/crop-categories';
 import { asc, inArray } from 'drizzle-orm';
 import { z } from 'zod';
 import { getDb } from '@/db/client';
@@ -188,7 +189,8 @@ function refusedError(errors: CsvError[]): { code: string; message: string; fiel
 interface Prepared<V> {
   values: (V & { row: number })[];
   errors: CsvError[];
-  unknownCrops: { name: string; variety?: string }[];
+  /** Crops the file names that the household lacks, each with the kind its name suggests. */
+  unknownCrops: { name: string; variety?: string; category: CropCategory }[];
   unknownFoodCodes: string[];
   ignoredColumns: string[];
   preview: PreviewRow[];
@@ -243,7 +245,7 @@ async function prepareHarvests(ex: Executor, req: ImportRequest, householdCrops:
     values,
     preview,
     errors: byRow([...parsed.errors, ...resolved.errors, ...future]),
-    unknownCrops: resolved.unknownCrops,
+    unknownCrops: resolved.unknownCrops.map((c) => ({ ...c, category: newCropCategory({ name: c.name }) })),
     unknownFoodCodes: resolved.unknownFoodCodes,
     ignoredColumns: parsed.ignoredColumns,
   };

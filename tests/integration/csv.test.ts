@@ -71,8 +71,12 @@ describe('importing a harvest log', () => {
     const withOca = `${goodLog}\n2025-11-02,Oca,,2,kg,stored,,`;
     const preview = await upload(t.owner.cookie, hid, { kind: 'harvests', mode: 'preview', csv: withOca });
     expect(preview.body.ok).toBe(false);
-    expect(preview.body.unknownCrops).toEqual([{ name: 'Oca' }]);
+    // Oca has no row in reference-data/crops.csv, so its kind is left to the grower ('other').
+    expect(preview.body.unknownCrops).toEqual([{ name: 'Oca', category: 'other' }]);
     expect(preview.body.errors).toEqual([{ row: 5, column: 'crop', message: expect.stringMatching(/no crop "Oca"/) }]);
+    const kale = await upload(t.owner.cookie, hid, { kind: 'harvests', mode: 'preview', csv: `${goodLog}\n2025-11-02,Kale,,1,kg,fresh,,` });
+    // reference-data/crops.csv row "kale" is a leafy green: the preview offers that kind for the new crop.
+    expect(kale.body.unknownCrops).toEqual([{ name: 'Kale', category: 'leafy_green' }]);
     const refused = await upload(t.owner.cookie, hid, {
       kind: 'harvests', mode: 'commit', csv: `${withOca}\nnot-a-date,Potato,Charlotte,1,kg,fresh,,`,
       createCrops: [{ name: 'Oca', category: 'root_tuber', foodId: null }],

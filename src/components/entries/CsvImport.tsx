@@ -86,7 +86,7 @@ function CsvImportInner({ household }: { household: HouseholdInfo }) {
       setPreview(a);
       setNewCrops((prev) => {
         const next: Record<string, NewCrop> = {};
-        for (const c of a.unknownCrops ?? []) next[cropKey(c)] = prev[cropKey(c)] ?? { name: c.name, ...(c.variety ? { variety: c.variety } : {}), category: 'other', food: null, create: true };
+        for (const c of a.unknownCrops ?? []) next[cropKey(c)] = prev[cropKey(c)] ?? { name: c.name, ...(c.variety ? { variety: c.variety } : {}), category: c.category ?? 'other', food: null, create: true };
         // Keep the crops chosen earlier: once created virtually they are no longer "unknown".
         for (const [k, v] of Object.entries(prev)) if (!(k in next) && v.create) next[k] = v;
         return next;

@@ -4,6 +4,7 @@
  * the one client in ../request.ts, whose `request()` throws an ApiError carrying the API's error
  * body (`{ error: { code, message, fields } }`); a network failure is an ApiError with status 0.
  */
+import type { CropCategory } from '@/lib/crop-categories';
 import type { FoodDetail, FoodHit } from '@/lib/food-types';
 import type { UnitSystem } from '@/lib/units';
 import { get, qs } from '@/components/request';
@@ -40,7 +41,7 @@ export interface ImportPreview {
   ok: boolean;
   rows: unknown[];
   errors: CsvError[];
-  unknownCrops?: { name: string; variety?: string }[];
+  unknownCrops?: { name: string; variety?: string; category?: CropCategory }[];
   unknownFoodCodes?: string[];
   created?: number;
 }
