@@ -36,6 +36,9 @@ export const CAUTIONS = {
   precision:
     'Whole percent is all the precision the data allow: reference foods, edible portions and recommended intakes are averages, and a garden’s food differs from them.',
   vegetarianZinc: VEGETARIAN_CAUTIONS[0],
+  // common practice (no published source); tested recipes: USDA Complete Guide to Home Canning.
+  foodStorage:
+    'The larder is worked out from the log, not seen: check your stores and discard anything mouldy, soft or off-smelling. Home-preserved food should follow tested recipes and local food-safety advice.',
   medical:
     'These figures are estimates from public reference data (food composition tables and dietary reference intakes), not medical or dietary advice. Pregnancy, children, illness and special diets need a registered dietitian or a physician.',
 } as const;
