@@ -53,8 +53,11 @@ export interface LarderLot {
   proteinG: number | null;
   /** 'YYYY-MM-DD': the day it runs out at the present rate (the first day with none left). */
   runsOut: string;
-  /** Grams recorded as lost (spoiled or thrown out) so far. */
+  /** Edible grams recorded as lost (spoiled or thrown out) up to today. */
   lostGrams: number;
+  /** Edible grams of the whole lot, and how many of them have been eaten up to today. */
+  edibleGrams: number;
+  eatenEdibleGrams: number;
   outcomes: LarderOutcomeJson[];
   expectedLoss: ExpectedLoss | null;
 }

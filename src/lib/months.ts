@@ -172,6 +172,27 @@ export function daysBetween(a: string, b: string): number {
   return dayNumber(parseDate(b)) - dayNumber(parseDate(a));
 }
 
+/** Inverse of dayNumber (H. Hinnant's civil_from_days). */
+function fromDayNumber(z: number): string {
+  const zz = z + 719468;
+  const era = Math.floor(zz / 146097);
+  const doe = zz - era * 146097;
+  const yoe = Math.floor((doe - Math.floor(doe / 1460) + Math.floor(doe / 36524) - Math.floor(doe / 146096)) / 365);
+  const doy = doe - (365 * yoe + Math.floor(yoe / 4) - Math.floor(yoe / 100));
+  const mp = Math.floor((5 * doy + 2) / 153);
+  const day = doy - Math.floor((153 * mp + 2) / 5) + 1;
+  const month = mp < 10 ? mp + 3 : mp - 9;
+  const year = yoe + era * 400 + (month <= 2 ? 1 : 0);
+  if (year < 1 || year > 9999) throw new RangeError('date out of range: years run from 0001 to 9999');
+  return `${String(year).padStart(4, '0')}-${String(month).padStart(2, '0')}-${String(day).padStart(2, '0')}`;
+}
+
+/** The date n days after a date (n may be negative), e.g. addDays('2026-02-28', 1) → '2026-03-01'. */
+export function addDays(date: string, n: number): string {
+  if (!Number.isInteger(n)) throw new RangeError(`cannot add ${n} days: the count must be a whole number`);
+  return fromDayNumber(dayNumber(parseDate(date)) + n);
+}
+
 /**
  * Days of `month` inside the date interval [from, to] (both included; a missing end is open),
  * e.g. overlapDays('2026-03', '2026-03-20') → 12, overlapDays('2026-02') → 28.

@@ -34,7 +34,35 @@ export function spreadByDay(date: string, spreadMonths: number): SpreadPart[] {
   }
   const start = dayOf(date);
   if (spreadMonths === 1) return [{ offset: 0, fraction: 1 }];
-  const end = addMonths(start, spreadMonths);
+  return spreadDays(start, addMonths(start, spreadMonths));
+}
+
+/**
+ * The same evenly by day over [from, until) given by its end (excluded), as the larder re-spreads
+ * a lot from the day of a recorded outcome, e.g. spreadBetween('2026-11-30', '2026-12-02') →
+ * Nov 1/2, Dec 1/2. Throws RangeError when `until` is not after `from`.
+ */
+export function spreadBetween(from: string, until: string): SpreadPart[] {
+  const start = dayOf(from);
+  const end = dayOf(until);
+  if (!(end > start)) throw new RangeError(`a spread must end after it starts: ${until} is not after ${from}`);
+  return spreadDays(start, end);
+}
+
+/**
+ * The day a lot spread over `spreadMonths` months from `date` is eaten up (excluded), with
+ * date-fns addMonths semantics, e.g. spreadEnd('2027-01-31', 1) → '2027-02-28'.
+ */
+export function spreadEnd(date: string, spreadMonths: number): string {
+  if (!Number.isInteger(spreadMonths) || spreadMonths < 1) {
+    throw new RangeError(`spreadMonths must be a whole number of months from 1, got ${spreadMonths}`);
+  }
+  const end = addMonths(dayOf(date), spreadMonths);
+  const pad = (n: number, w: number) => String(n).padStart(w, '0');
+  return `${pad(end.getFullYear(), 4)}-${pad(end.getMonth() + 1, 2)}-${pad(end.getDate(), 2)}`;
+}
+
+function spreadDays(start: Date, end: Date): SpreadPart[] {
   const total = differenceInCalendarDays(end, start);
   const parts: SpreadPart[] = [];
   let cursor = start;
