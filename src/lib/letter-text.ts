@@ -31,7 +31,7 @@ export function dayText(date: string): string {
   return `${day} ${monthName(month)} ${year}`;
 }
 
-/** An area in m², with square feet beside it for a household on US units. Example: `areaText(2.5, 'us')` → '2.5 m² (27 ft²)' */
+/** An area in m², with square feet beside it for a household on US units. Example: `areaText(2.5, 'us')` → '2.5 m² (26.9 ft²)' */
 export function areaText(m2: number, units: LetterData['units']): string {
   const metric = `${formatAmount(m2)} m²`;
   return units === 'us' ? `${metric} (${formatAmount(m2 / M2_PER_FT2)} ft²)` : metric;
