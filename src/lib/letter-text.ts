@@ -108,7 +108,7 @@ function sections(d: LetterData): Section[] {
       ? {
           title: 'One idea from the gap finder',
           lines: [
-            `${s.nutrient} is furthest behind this growing year (${formatAmount(s.shortfall)} ${s.unit} short so far). ${s.crop} gives the most of it per square metre: about ${areaText(s.areaM2, d.units)} would cover that, by ${s.yieldSource === 'own' ? 'your own measured yield' : 'a typical reference yield'}.`,
+            `${s.nutrient} is furthest behind this growing year (${formatAmount(s.shortfall)} ${s.unit} short so far). The crop that gives the most of it per square metre is ${s.crop}: about ${areaText(s.areaM2, d.units)} would cover that, by ${s.yieldSource === 'own' ? 'your own measured yield' : 'a typical reference yield'}.`,
           ],
         }
       : { title: 'One idea from the gap finder', lines: ['The gap finder has nothing to suggest: no nutrient has fallen short so far this growing year, or no need is known yet.'] },

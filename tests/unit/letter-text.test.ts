@@ -68,7 +68,7 @@ describe('monthly letter text', () => {
     expect(t.text).toContain('- Potato: 12,346 kcal, 328 g protein (61 % of the home-grown calories).');
     expect(t.text).toContain('- Potato: 42.5 kg, runs out about 14 March 2027.');
     expect(t.text).toContain('61 kg in store altogether. And 2 more in store. At the present rate nothing stored is left to eat in April 2027.');
-    expect(t.text).toContain('Vitamin C is furthest behind this growing year (1,234 mg short so far). Kale gives the most of it per square metre: about 2.5 m² would cover that');
+    expect(t.text).toContain('Vitamin C is furthest behind this growing year (1,234 mg short so far). The crop that gives the most of it per square metre is Kale: about 2.5 m² would cover that, by a typical reference yield.');
   });
 
   it('says plainly when the larder is empty and when the gap finder has no idea', () => {
