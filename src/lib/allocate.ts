@@ -5,7 +5,7 @@
  */
 import { listMonths, monthIndex, monthOf, addMonths } from './months';
 import type { NutrientKey } from './nutrients';
-import { spreadByDay, type SpreadPart } from './spread';
+import { spreadBetween, spreadByDay, type SpreadPart } from './spread';
 
 import { EATEN_USES, USES, type Use } from './uses';
 
@@ -26,7 +26,16 @@ export interface FoodEntry {
   spreadMonths: number;
   nutrients: NutrientAmounts;
   edibleGrams: number;
+  /**
+   * A lot re-spread by the larder's records (larder.ts): eaten evenly by day over
+   * [eatenFrom ?? date, until) instead of over its spread. Absent for every other entry.
+   */
+  eatenFrom?: string | null;
+  until?: string | null;
 }
+
+/** What decides when an entry is eaten. */
+type EatenBasis = Pick<FoodEntry, 'date' | 'use' | 'source' | 'spreadMonths' | 'eatenFrom' | 'until'>;
 
 /** Sums for one month and nutrient. */
 export interface NutrientSums {
@@ -92,7 +101,7 @@ export function isEaten(use: Use): boolean {
  * e.g. eatenParts({ date: '2026-11-01', use: 'stored', source: 'home', spreadMonths: 3 }) →
  * 2026-11 30/92, 2026-12 31/92, 2027-01 31/92.
  */
-export function eatenParts(entry: Pick<FoodEntry, 'date' | 'use' | 'source' | 'spreadMonths'>): EatenPart[] {
+export function eatenParts(entry: EatenBasis): EatenPart[] {
   const month = monthOf(entry.date);
   return eatenShares(entry).map(({ offset, fraction }) => ({ month: addMonths(month, offset), fraction }));
 }
@@ -102,9 +111,15 @@ export function eatenParts(entry: Pick<FoodEntry, 'date' | 'use' | 'source' | 's
  * strings: the share report calls this for every entry,
  * e.g. eatenShares({ date: '2026-11-30', use: 'stored', source: 'home', spreadMonths: 3 })[0] → { offset: 0, fraction: 1/90 }.
  */
-export function eatenShares(entry: Pick<FoodEntry, 'date' | 'use' | 'source' | 'spreadMonths'>): SpreadPart[] {
+export function eatenShares(entry: EatenBasis): SpreadPart[] {
   checkSpread(entry.spreadMonths);
   if (!isEaten(entry.use)) return [];
+  if (entry.until) {
+    // Offsets stay counted from the entry's own month, as for every other entry.
+    const from = entry.eatenFrom ?? entry.date;
+    const shift = dateMonthIndex(from) - dateMonthIndex(entry.date);
+    return spreadBetween(from, entry.until).map((p) => ({ offset: p.offset + shift, fraction: p.fraction }));
+  }
   if (entry.use === 'fresh' && entry.source === 'home') {
     monthOf(entry.date); // checks the date
     return [{ offset: 0, fraction: 1 }];
@@ -117,7 +132,7 @@ export function eatenShares(entry: Pick<FoodEntry, 'date' | 'use' | 'source' | '
  * touches one month more than its spread, e.g. a stored entry of 30 November with spreadMonths 3
  * → [0, 1, 2, 3]. Use eatenShares for how much falls in each.
  */
-export function eatenSpan(entry: Pick<FoodEntry, 'date' | 'use' | 'source' | 'spreadMonths'>): number[] {
+export function eatenSpan(entry: EatenBasis): number[] {
   return eatenShares(entry).map((p) => p.offset);
 }
 
@@ -126,7 +141,7 @@ export function eatenSpan(entry: Pick<FoodEntry, 'date' | 'use' | 'source' | 'sp
  * allocate(), e.g. fractionEatenIn({ date: '2026-11-30', use: 'stored', source: 'home', spreadMonths: 3 }, { from: '2026-12', to: '2027-12' }) → 89/90.
  */
 export function fractionEatenIn(
-  entry: Pick<FoodEntry, 'date' | 'use' | 'source' | 'spreadMonths'>,
+  entry: EatenBasis,
   { from, to }: { from: string; to: string },
 ): number {
   const first = dateMonthIndex(entry.date);

@@ -36,6 +36,9 @@ export const CAUTIONS = {
   precision:
     'Whole percent is all the precision the data allow: reference foods, edible portions and recommended intakes are averages, and a garden’s food differs from them.',
   vegetarianZinc: VEGETARIAN_CAUTIONS[0],
+  // common practice (no published source); tested recipes: USDA Complete Guide to Home Canning.
+  foodStorage:
+    'What the larder shows is worked out from what was logged, not seen: check your stores often and throw out anything mouldy, soft, sprouting badly or off-smelling. Home-preserved food should follow tested recipes and your local food-safety advice; low-acid food needs a pressure canner.',
   medical:
     'These figures are estimates from public reference data (food composition tables and dietary reference intakes), not medical or dietary advice. Pregnancy, children, illness and special diets need a registered dietitian or a physician.',
 } as const;

@@ -20,6 +20,9 @@ export interface GroupRow {
   date?: string | null;
   /** How a preserved lot was kept; null or missing = not said (no retention applied). */
   preserveMethod?: PreserveMethod | null;
+  /** A part of a lot with larder records: eaten evenly by day over [eatenFrom, until) (see allocate.ts). */
+  eatenFrom?: string | null;
+  until?: string | null;
   use: Use;
   /** Months the food is eaten over (≥ 1). */
   spread: number;
@@ -45,6 +48,9 @@ export interface ShareGroup {
   use: Use;
   spread: number;
   preserveMethod: PreserveMethod | null;
+  /** Set for a part of a lot with larder records: eaten evenly by day over [eatenFrom, until). */
+  eatenFrom: string | null;
+  until: string | null;
   cropId: number | null;
   foodId: number | null;
   name: string;
@@ -70,7 +76,9 @@ function collect(rows: readonly GroupRow[], source: Source, amounts: FoodAmounts
   for (const r of rows) {
     const date = r.date ?? `${r.month}-01`;
     const method = r.use === 'preserved' ? (r.preserveMethod ?? null) : null;
-    const key = `${source}|${date}|${r.use}|${r.spread}|${method ?? ''}|${r.cropId ?? ''}|${r.foodId ?? ''}`;
+    const eatenFrom = r.until ? (r.eatenFrom ?? date) : null;
+    const until = r.until ?? null;
+    const key = `${source}|${date}|${r.use}|${r.spread}|${method ?? ''}|${r.cropId ?? ''}|${r.foodId ?? ''}${until ? `|${eatenFrom}|${until}` : ''}`;
     let g = into.get(key);
     if (!g) {
       g = {
@@ -81,6 +89,8 @@ function collect(rows: readonly GroupRow[], source: Source, amounts: FoodAmounts
         use: r.use,
         spread: r.spread,
         preserveMethod: method,
+        eatenFrom,
+        until,
         cropId: r.cropId,
         foodId: r.foodId,
         name: r.name ?? '',
@@ -90,6 +100,11 @@ function collect(rows: readonly GroupRow[], source: Source, amounts: FoodAmounts
         nutrients: {},
       };
       into.set(key, g);
+    } else {
+      // Only the parts of lots with larder records can meet an existing group (SQL groups are distinct).
+      g.grams += r.grams;
+      g.edibleGrams += r.edibleGrams;
+      g.entries += r.entries;
     }
     // A nutrient the food has no row for stays missing: unknown, never zero.
     const per100g = r.foodId == null ? undefined : amounts.get(r.foodId);
@@ -125,6 +140,7 @@ export function groupEntry(g: ShareGroup): CropEntry {
     use: g.use,
     source: g.source,
     spreadMonths: g.spread,
+    ...(g.until ? { eatenFrom: g.eatenFrom, until: g.until } : {}),
     edibleGrams: g.edibleGrams,
     nutrients: g.nutrients,
     cropId: contributorId(g),

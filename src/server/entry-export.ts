@@ -21,6 +21,7 @@ import { cropRows, listCrops } from './crops';
 import { todayIn } from '@/lib/months';
 import { householdJson } from './households';
 import { everyHarvest } from './harvests';
+import { outcomesForBackup } from './larder-outcomes';
 import { everyPurchase } from './purchases';
 import { listStaples } from './staples';
 
@@ -115,15 +116,16 @@ export async function peopleCsv(householdId: number, delimiter: CsvDelimiter = '
   return peopleToCsv(await peopleRows(householdId), { delimiter });
 }
 
-/** The whole household as one JSON document: settings, crops, harvests, bought food, staples, people. */
+/** The whole household as one JSON document: settings, crops, harvests, bought food, staples, people, larder records. */
 export async function householdBackup(household: Household) {
   const hid = household.id;
-  const [cropList, harvestList, purchaseList, stapleList, peopleList] = await Promise.all([
+  const [cropList, harvestList, purchaseList, stapleList, peopleList, outcomeRows] = await Promise.all([
     listCrops(hid, { includeArchived: true }),
     everyHarvest(hid),
     everyPurchase(hid),
     listStaples(hid),
     peopleRows(hid),
+    outcomesForBackup(hid),
   ]);
   return {
     ...BACKUP_FORMAT,
@@ -134,6 +136,8 @@ export async function householdBackup(household: Household) {
     purchases: purchaseList,
     staples: stapleList,
     people: peopleList.map(({ householdId: _h, ...p }) => ({ ...p, createdAt: p.createdAt.toISOString() })),
+    // What happened to stored and preserved lots (the larder), by harvest id.
+    larderOutcomes: outcomeRows.map(({ householdId: _h, createdBy: _c, ...o }) => ({ ...o, createdAt: o.createdAt.toISOString() })),
   };
 }
 

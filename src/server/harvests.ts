@@ -19,6 +19,7 @@ import { fieldError, invalidInput, type Executor, type Tx } from './entry-input'
 import { listEntries, type EntryListSpec } from './entry-list';
 import { requirePlantingOfCrop } from './plantings';
 import { deleteEntry, updateEntry, type EntryUpdateSpec } from './entry-update';
+import { reconcileOutcomes } from './larder-outcomes';
 
 export type { HarvestJson, HarvestList } from '@/lib/entry-types';
 
@@ -246,7 +247,9 @@ const harvestUpdate: EntryUpdateSpec<typeof harvests, HarvestPatch, HarvestJson>
     const basis = await harvestBasis(tx, householdId, merged.data);
     checkUse(merged.data, basis);
     await checkPlanting(tx, householdId, merged.data, basis);
-    return harvestValues(merged.data, basis);
+    const values = harvestValues(merged.data, basis);
+    await reconcileOutcomes(tx, householdId, row.id, values);
+    return values;
   },
   get: getHarvest,
 };

@@ -5,16 +5,17 @@
  * hands them to the pure larderReport() (src/lib/larder-report.ts). Also read by the monthly letter.
  */
 import { and, asc, eq, gt, gte, inArray, isNotNull, isNull, lte, or, sql } from 'drizzle-orm';
-import { getDb, type Db } from '@/db/client';
+import { getDb } from '@/db/client';
 import { crops, foodNutrients, foods, harvests, larderOutcomes, type Household } from '@/db/schema';
 import { ENTRY_LIMITS } from '@/lib/entry-schemas';
 import { larderReport, expectedLossOf, type LarderLotInput } from '@/lib/larder-report';
 import type { LarderOutcomeJson, LarderResponse } from '@/lib/larder-types';
 import { addMonths, monthOf, todayIn } from '@/lib/months';
 import { cropByKey } from './crop-table-file';
+import type { Executor } from './entry-input';
 
 /** Stored and preserved lots that can hold food on `today`, or the given harvests only. */
-export async function larderLotRows(db: Db, householdId: number, today: string, onlyIds?: readonly number[]) {
+export async function larderLotRows(db: Executor, householdId: number, today: string, onlyIds?: readonly number[]) {
   const since = `${addMonths(monthOf(today), -ENTRY_LIMITS.maxSpreadMonths)}-01`;
   return db
     .select({
@@ -50,7 +51,7 @@ export async function larderLotRows(db: Db, householdId: number, today: string, 
 }
 
 /** The outcomes of some harvests of a household, by harvest id, in date order. */
-export async function outcomesOf(db: Db, householdId: number, harvestIds: readonly number[]): Promise<Map<number, LarderOutcomeJson[]>> {
+export async function outcomesOf(db: Executor, householdId: number, harvestIds: readonly number[]): Promise<Map<number, LarderOutcomeJson[]>> {
   const out = new Map<number, LarderOutcomeJson[]>();
   if (harvestIds.length === 0) return out;
   const rows = await db
@@ -72,7 +73,7 @@ export function outcomeJson(r: typeof larderOutcomes.$inferSelect): LarderOutcom
 }
 
 /** Energy and protein per 100 g of some foods; a food without a row for a nutrient has none (unknown). */
-async function energyProtein(db: Db, foodIds: readonly number[]): Promise<Map<number, LarderLotInput['per100g']>> {
+async function energyProtein(db: Executor, foodIds: readonly number[]): Promise<Map<number, LarderLotInput['per100g']>> {
   const out = new Map<number, LarderLotInput['per100g']>();
   if (foodIds.length === 0) return out;
   const rows = await db
@@ -88,7 +89,7 @@ async function energyProtein(db: Db, foodIds: readonly number[]): Promise<Map<nu
 }
 
 /** The rows of larderLotRows() with their foods' values, outcomes and expected loss, as the pure code takes them. */
-export async function larderInputs(db: Db, householdId: number, rows: Awaited<ReturnType<typeof larderLotRows>>): Promise<LarderLotInput[]> {
+export async function larderInputs(db: Executor, householdId: number, rows: Awaited<ReturnType<typeof larderLotRows>>): Promise<LarderLotInput[]> {
   const foodIds = [...new Set(rows.map((r) => r.foodId).filter((id): id is number => id != null))];
   const [values, outcomes] = await Promise.all([energyProtein(db, foodIds), outcomesOf(db, householdId, rows.map((r) => r.harvestId))]);
   return rows.map((r) => ({

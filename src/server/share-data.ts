@@ -9,11 +9,12 @@
  * months or more is grouped by its day instead of its month, because it is spread by day. They go through Drizzle's builder and `sql`
  * templates that name the schema's columns, so a renamed column fails the type check.
  */
-import { and, eq, gte, inArray, isNotNull, isNull, lte, min, or, sql } from 'drizzle-orm';
+import { and, eq, exists, gte, inArray, isNotNull, isNull, lte, min, notExists, or, sql } from 'drizzle-orm';
 import type { Pool } from 'mysql2/promise';
 import { getDb, type Db } from '@/db/client';
-import { crops, datasets, foodNutrients, foods, harvests, purchases, type Household } from '@/db/schema';
+import { crops, datasets, foodNutrients, foods, harvests, larderOutcomes, purchases, type Household } from '@/db/schema';
 import { ENTRY_LIMITS } from '@/lib/entry-schemas';
+import { lotGroupRows } from '@/lib/larder-share';
 import { addMonths, daysInMonth, todayIn } from '@/lib/months';
 import { SHARE_NUTRIENTS, type ShareNutrientKey } from '@/lib/nutrients';
 import { needsPerson } from '@/lib/people-schemas';
@@ -24,6 +25,7 @@ import { computeShare } from '@/lib/shares';
 import { topCrops } from '@/lib/top-crops';
 import { useTotals } from '@/lib/use-totals';
 import { dbOn } from './db-on';
+import { outcomesOf } from './larder';
 import { currentMonth, listPeople, personFields } from './people';
 import { loadRetention } from './retention-file';
 
@@ -69,6 +71,8 @@ async function harvestGroups(db: Db, householdId: number, from: string, to: stri
         lte(harvests.date, lastDay(to)),
         or(isNull(crops.id), eq(crops.notFood, false)),
         or(isNull(harvests.cropId), isNotNull(crops.id)),
+        // Lots with larder records are read one by one (outcomeLotGroups).
+        notExists(db.select({ one: sql`1` }).from(larderOutcomes).where(eq(larderOutcomes.harvestId, harvests.id))),
         or(
           gte(harvests.date, `${from}-01`),
           and(
@@ -81,6 +85,43 @@ async function harvestGroups(db: Db, householdId: number, from: string, to: stri
     )
     .groupBy(day, harvests.use, spread, harvests.preserveMethod, harvests.cropId, harvests.foodId);
   return rows.map((r) => ({ ...r, month: r.date.slice(0, 7) }));
+}
+
+/**
+ * The stored and preserved lots with larder records that can fall in [from, to], one by one, each
+ * turned into its eaten segments and lost parts (src/lib/larder-share.ts). No lot lasts longer
+ * than ENTRY_LIMITS.maxSpreadMonths (larder.ts), so the same look-back as the grouped query holds.
+ */
+async function outcomeLotGroups(db: Db, householdId: number, from: string, to: string): Promise<GroupRow[]> {
+  const lots = await db
+    .select({
+      id: harvests.id,
+      date: harvests.date,
+      use: harvests.use,
+      spread: sql<number>`GREATEST(${harvests.spreadMonths}, 1)`.mapWith(Number),
+      preserveMethod: harvests.preserveMethod,
+      cropId: harvests.cropId,
+      foodId: harvests.foodId,
+      name: sql<string | null>`COALESCE(NULLIF(CONCAT_WS(', ', ${crops.name}, NULLIF(${crops.variety}, '')), ''), ${foods.name})`,
+      grams: harvests.grams,
+      edibleGrams: harvests.edibleGrams,
+    })
+    .from(harvests)
+    .leftJoin(crops, and(eq(crops.id, harvests.cropId), eq(crops.householdId, harvests.householdId)))
+    .leftJoin(foods, eq(foods.id, harvests.foodId))
+    .where(
+      and(
+        eq(harvests.householdId, householdId),
+        gte(harvests.date, lookback(from)),
+        lte(harvests.date, lastDay(to)),
+        or(isNull(crops.id), eq(crops.notFood, false)),
+        or(isNull(harvests.cropId), isNotNull(crops.id)),
+        exists(db.select({ one: sql`1` }).from(larderOutcomes).where(eq(larderOutcomes.harvestId, harvests.id))),
+      ),
+    );
+  if (lots.length === 0) return [];
+  const outcomes = await outcomesOf(db, householdId, lots.map((l) => l.id));
+  return lots.flatMap(({ id, ...lot }) => lotGroupRows(lot, outcomes.get(id) ?? []));
 }
 
 /** Purchase groups whose eating can fall in [from, to] (bought food is always spread). */
@@ -181,12 +222,14 @@ export async function effectiveRecordsSince(household: ShareHousehold): Promise<
  */
 export async function householdShare(household: ShareHousehold, from: string, to: string, pool?: Pool, now: Date = new Date()): Promise<ShareResponse> {
   const db = pool ? dbOn(pool) : getDb();
-  const [home, bought, rows, first] = await Promise.all([
+  const [grouped, withOutcomes, bought, rows, first] = await Promise.all([
     harvestGroups(db, household.id, from, to),
+    outcomeLotGroups(db, household.id, from, to),
     purchaseGroups(db, household.id, from, to),
     listPeople(household.id),
     household.recordsSince ? Promise.resolve(null) : firstEntryDate(db, household.id),
   ]);
+  const home = [...grouped, ...withOutcomes];
   const ids = foodIdsOf([...home, ...bought]);
   const [amounts, sources] = await Promise.all([foodAmounts(db, ids), datasetsOf(db, ids)]);
   const groups = shareGroups(home, bought, amounts, loadRetention());

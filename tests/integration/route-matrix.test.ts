@@ -114,6 +114,9 @@ const ROUTES: Row[] = [
   // share, import, export
   ['GET',    'share',                        read(200)],
   ['GET',    'gaps',                         read(200)],
+  ['GET',    'larder/index',                 read(200)],
+  ['POST',   'larder/outcomes/index',        write(400)],
+  ['DELETE', 'larder/outcomes/[outcomeId]',  write(404)],
   // the planting plan (reads only)
   ['POST',   'plan',                         read(400)],
   ['POST',   'imports/index',                write(415)],

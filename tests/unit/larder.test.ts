@@ -1,7 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { emptyMonths, LarderOutcomeError, lostBy, lotSchedule, remainingOn } from '@/lib/larder';
 import { expectedLossOf, larderReport, type LarderLotInput } from '@/lib/larder-report';
+import { larderOutcomeInput } from '@/lib/larder-schemas';
+import { lotGroupRows } from '@/lib/larder-share';
 import { addDays } from '@/lib/months';
+import { outcomeBody } from '@/components/larder/outcome-form-values';
 import { spreadBetween, spreadEnd } from '@/lib/spread';
 
 // 24 kg of potatoes stored on 1 Oct 2026 over 6 months: USDA SR28, NDB 11352 "Potatoes, flesh and
@@ -217,5 +220,33 @@ describe('the larder on a day', () => {
     expect(r.lots[0]!.expectedLoss).toEqual({ fraction: 0.1, source: 'common practice (no published source)' });
     expect(r.lots[0]!.remainingEdibleGrams).toBeCloseTo((18000 * 121) / DAYS, 1);
     expect(expectedLossOf({ winterLossFraction: null })).toBeNull();
+  });
+});
+
+describe('the input rules and the share rows of a lot with records', () => {
+  it('asks for a new end only when a lot lasts longer, and a share lost only for a spoilage', () => {
+    expect(larderOutcomeInput.safeParse({ harvestId: 1, kind: 'used_up', date: '2027-01-10' }).success).toBe(true);
+    const noEnd = larderOutcomeInput.safeParse({ harvestId: 1, kind: 'lasted_longer', date: '2027-01-10' });
+    expect(noEnd.success).toBe(false);
+    const stray = larderOutcomeInput.safeParse({ harvestId: 1, kind: 'used_up', date: '2027-01-10', lostFraction: 0.5 });
+    expect(stray.success).toBe(false);
+    expect(larderOutcomeInput.safeParse({ harvestId: 1, kind: 'spoiled', date: '2027-01-10', lostFraction: 1.5 }).success).toBe(false);
+    expect(larderOutcomeInput.safeParse({ harvestId: 1, kind: 'lasted_longer', date: '2027-01-10', until: '2027-01-10' }).success).toBe(false);
+  });
+
+  it('the form sends only what the kind uses', () => {
+    expect(outcomeBody(7, { kind: 'spoiled', date: '2027-01-10', lostFraction: '0.25', until: '2027-09-09', note: ' ' })).toEqual({ harvestId: 7, kind: 'spoiled', date: '2027-01-10', lostFraction: 0.25 });
+  });
+
+  it('splits a spoiled lot into eaten parts and a lost part of the harvest month, adding up to the lot', () => {
+    const rows = lotGroupRows(
+      { date: '2026-10-01', use: 'stored', spread: 6, preserveMethod: null, cropId: 1, foodId: 2, name: 'Potatoes', grams: 24000, edibleGrams: 18000 },
+      [{ kind: 'spoiled', date: '2026-12-01', lostFraction: 0.25 }],
+    );
+    expect(rows.map((r) => [r.use, r.month])).toEqual([['stored', '2026-10'], ['stored', '2026-10'], ['lost', '2026-10']]);
+    expect(rows.reduce((s, r) => s + r.edibleGrams, 0)).toBeCloseTo(18000, 9);
+    expect(rows.reduce((s, r) => s + r.grams, 0)).toBeCloseTo(24000, 9);
+    expect(rows.map((r) => r.entries)).toEqual([1, 0, 1]);
+    expect(rows[1]).toMatchObject({ eatenFrom: '2026-12-01', until: '2027-04-01' });
   });
 });
