@@ -38,7 +38,7 @@ export const CAUTIONS = {
   vegetarianZinc: VEGETARIAN_CAUTIONS[0],
   // common practice (no published source); tested recipes: USDA Complete Guide to Home Canning.
   foodStorage:
-    'What the larder shows is worked out from what was logged, not seen: check your stores often and throw out anything mouldy, soft, sprouting badly or off-smelling. Home-preserved food should follow tested recipes and your local food-safety advice; low-acid food needs a pressure canner.',
+    'The larder is worked out from the log, not seen: check your stores and discard anything mouldy, soft or off-smelling. Home-preserved food should follow tested recipes and local food-safety advice.',
   medical:
     'These figures are estimates from public reference data (food composition tables and dietary reference intakes), not medical or dietary advice. Pregnancy, children, illness and special diets need a registered dietitian or a physician.',
 } as const;
