@@ -11,7 +11,9 @@ import { join } from 'node:path';
 import { simpleParser } from 'mailparser';
 import type { Pool, RowDataPacket } from 'mysql2/promise';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { dayText } from '@/lib/letter-text';
 import { percentText } from '@/lib/share-scale';
+import { formatWeight } from '@/lib/units';
 import { mailConfig } from '@/server/config';
 import { listMail } from '@/server/mail-outbox';
 import { foodId, logHarvest, makeCrop } from '../support/entries';
@@ -78,6 +80,8 @@ beforeAll(async () => {
   t = await householdWithRoles({ name: 'Letter Hill' });
   hid = t.household.id;
   await stock(t.owner, hid, ['2026-11-05', '2026-12-01']);
+  // A stored lot eaten over four months, so the larder has something to tell.
+  await logHarvest(t.owner.cookie, hid, { date: '2026-11-20', foodId: await foodId('11352'), quantity: 20, unit: 'kg', use: 'stored', spreadMonths: 4 });
 });
 
 afterAll(async () => {
@@ -101,6 +105,12 @@ describe('npm run letters -- --month', () => {
     expect(msg.text).toContain(`Protein: ${percentText(v.protein_g.shareOfIntake)} of what you ate was home-grown; that is ${percentText(v.protein_g.shareOfNeed)} of what the household needs.`);
     expect(msg.subject).toBe(`Letter Hill · November 2026: ${percentText(v.energy_kcal.shareOfIntake)} of calories home-grown`);
     expect(msg.text).toContain('Potato:'); // the crop that did most
+    // The larder as its own API reckons it today.
+    const larder = await apiAs(t.owner.cookie, 'GET', `/api/households/${hid}/larder`);
+    expect(larder.status).toBe(200);
+    const lot = larder.body.byCrop[0];
+    expect(lot.remainingGrams).toBeGreaterThan(0);
+    expect(msg.text).toContain(`- ${lot.label}: ${formatWeight(lot.remainingGrams, 'metric')}, runs out about ${dayText(lot.runsOut)}.`);
     expect(msg.html).toContain('Letter Hill');
     expect(await lettersTo(t.viewer.email, 'November 2026')).toBe(0);
   });
