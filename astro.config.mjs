@@ -3,6 +3,25 @@ import { defineConfig } from 'astro/config';
 import node from '@astrojs/node';
 import react from '@astrojs/react';
 import tailwindcss from '@tailwindcss/vite';
+import { fileURLToPath } from 'node:url';
+
+/**
+ * Adds `import 'src/server/boot.ts'` to the built server's entry (dist/server/entry.mjs), so that
+ * work meant to run from start-up (the monthly letter's scheduler) starts with the server: Astro
+ * loads the middleware and the pages lazily, on the first request. Build only; `astro dev` runs
+ * no scheduler.
+ */
+/** @returns {import('vite').Plugin} */
+function bootOnServerStart() {
+  const boot = fileURLToPath(new URL('./src/server/boot.ts', import.meta.url));
+  return {
+    name: 'selfsown:boot-on-server-start',
+    apply: 'build',
+    transform(code, id) {
+      if (id === '\0@astrojs-ssr-virtual-entry') return { code: `import ${JSON.stringify(boot)};\n${code}`, map: null };
+    },
+  };
+}
 
 // Server-rendered app on the Node standalone adapter; React only for interactive islands.
 export default defineConfig({
@@ -19,7 +38,7 @@ export default defineConfig({
   security: { checkOrigin: false },
   server: { host: '127.0.0.1', port: 4321 },
   vite: {
-    plugins: [tailwindcss()],
+    plugins: [tailwindcss(), bootOnServerStart()],
     // mysql2 and friends stay as Node modules in the server bundle.
     ssr: { external: ['mysql2', 'nodemailer', 'smtp-server', 'mailparser', 'highs'] },
   },

@@ -103,6 +103,8 @@ async function main(): Promise<number> {
     TEST_BASE_URL: baseUrl,
     NODE_ENV: 'production',
     SELFSOWN_ALLOW_DEV_SECRET: '1',
+    // The server under test runs no hourly letter job: the letter tests run the CLI themselves.
+    LETTERS_SCHEDULER: 'off',
   });
 
   const stages: Stage[] = [];

@@ -72,6 +72,8 @@ export const envSchema = z.object({
   FAKE_SMTP_PORT: withDefault('2525').transform(Number),
   MAIL_FROM: withDefault('Selfsown <no-reply@selfsown.invalid>'),
   MAIL_DIR: withDefault('.data/mail'),
+  // The monthly letter's hourly run inside the app server: "off" disables it (npm test's server).
+  LETTERS_SCHEDULER: withDefault('on').transform((v) => v.toLowerCase() !== 'off'),
   // The build and the start and test commands.
   SELFSOWN_OUT_DIR: withDefault('dist'),
   TEST_PORT: withDefault('4399'),
@@ -190,6 +192,11 @@ export function mailConfig(): { smtpUrl: string; from: string; fake: boolean; fa
     fakePort: env.FAKE_SMTP_PORT,
     mailDir: resolve(env.MAIL_DIR),
   };
+}
+
+/** Whether the app server runs the monthly letter's hourly job (LETTERS_SCHEDULER, default on; "off" disables it). */
+export function lettersSchedulerOn(): boolean {
+  return readEnv().LETTERS_SCHEDULER;
 }
 
 /** The folder `astro build` writes to (SELFSOWN_OUT_DIR, default dist), absolute from `root`. */

@@ -28,10 +28,10 @@ import { SR28_INFO } from './sr28-source';
  * or the one containing today in the household's time zone,
  * e.g. gapsRange({ yearStartMonth: 10, … }, 2026) → { year: 2026, from: '2026-10', to: '2027-09' }.
  */
-export function gapsRange(household: Pick<Household, 'timezone' | 'yearStartMonth'>, year?: number): { year: number; from: string; to: string } {
+export function gapsRange(household: Pick<Household, 'timezone' | 'yearStartMonth'>, year?: number, now: Date = new Date()): { year: number; from: string; to: string } {
   // The same growing year the planner reads for POST …/plan with this `year`.
   if (year !== undefined) return { year, ...planRange(year, household.yearStartMonth) };
-  const r = growingYear(currentMonth(household.timezone), household.yearStartMonth);
+  const r = growingYear(currentMonth(household.timezone, now), household.yearStartMonth);
   return { year: parseMonth(r.from).year, ...r };
 }
 
@@ -93,13 +93,14 @@ export function frostDatesOf(household: Pick<Household, 'timezone' | 'lastSpring
 /**
  * The gaps of a household's growing year: per key nutrient need, home supply, shortfall, lean
  * months, least-area crops and crops that carry food into the lean months.
+ * `now` places "this month" (the monthly letter passes the instant it reports at).
  * Throws RangeError when the share report cannot be computed (the route answers 422).
  */
-export async function householdGaps(household: Household, year?: number): Promise<GapsResponse> {
-  const range = gapsRange(household, year);
+export async function householdGaps(household: Household, year?: number, now: Date = new Date()): Promise<GapsResponse> {
+  const range = gapsRange(household, year, now);
   const table = loadCropTable().filter((r) => r.yieldBasis === 'm2');
   const [share, composition, own] = await Promise.all([
-    householdShare(household, range.from, range.to),
+    householdShare(household, range.from, range.to, undefined, now),
     sr28Foods([...new Set(table.map((r) => r.sr28Code))]),
     ownYieldByReference(household.id),
   ]);

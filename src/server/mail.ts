@@ -1,5 +1,6 @@
 /** Outgoing mail through nodemailer over SMTP (SMTP_URL; the local fake when it is empty). */
 import nodemailer, { type Transporter } from 'nodemailer';
+import { escapeHtml } from '@/lib/html-escape';
 import { mailConfig } from './config';
 
 let transport: Transporter | null = null;
@@ -14,15 +15,12 @@ export interface Mail {
   subject: string;
   text: string;
   html: string;
+  /** Extra header lines, e.g. List-Unsubscribe. */
+  headers?: Record<string, string>;
 }
 
 export async function sendMail(mail: Mail): Promise<void> {
   await getTransport().sendMail({ from: mailConfig().from, ...mail });
-}
-
-/** Escapes text for the simple HTML bodies. */
-export function escapeHtml(s: string): string {
-  return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 }
 
 /** A plain-text + HTML message with one button-like link, in Selfsown's own wording. */

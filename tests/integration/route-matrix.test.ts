@@ -60,6 +60,8 @@ const ROUTES: Row[] = [
   ['DELETE', 'index',                        own(204), { fresh: true }],
   // members and invitations
   ['GET',    'members/index',                read(200)],
+  // each member's own monthly letter switch
+  ['PATCH',  'letter',                       read(400)],
   ['PATCH',  'members/[userId]',             own(400)],
   ['DELETE', 'members/[userId]',             own(204), { fresh: true }],
   ['GET',    'invitations/index',            own(200)],

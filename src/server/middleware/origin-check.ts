@@ -9,10 +9,16 @@ import { publicOrigin } from '@/server/config';
 import { errorResponse } from '@/server/http';
 
 const SAFE = new Set(['GET', 'HEAD', 'OPTIONS']);
+/**
+ * The monthly letter's one-click unsubscribe (RFC 8058) is POSTed by mail programs, which may send
+ * their own Origin. It reads no cookie — the signed token in the URL is its only authority — so a
+ * request from another site can do nothing that the link's holder could not do anyway.
+ */
+const TOKEN_ONLY = '/api/letters/unsubscribe';
 
 export const originCheck = defineMiddleware((ctx, next) => {
   const { request, url } = ctx;
-  if (SAFE.has(request.method) || url.pathname.startsWith('/api/auth/')) return next();
+  if (SAFE.has(request.method) || url.pathname.startsWith('/api/auth/') || url.pathname === TOKEN_ONLY) return next();
   const origin = request.headers.get('origin');
   const site = request.headers.get('sec-fetch-site');
   if ((origin && origin !== publicOrigin()) || site === 'cross-site') {
