@@ -3,18 +3,8 @@ import type { ShareResponse } from '@/lib/share-types';
 import { USE_LABELS } from '@/lib/entry-schemas';
 import { formatWeight, type UnitSystem } from '@/lib/units';
 import { percentText } from '@/lib/share-scale';
+import { USE_COLOURS as COLOURS } from '@/lib/palette';
 import { amountText } from './format';
-
-// Eaten uses in greens, the rest in ambers and berry: the bar says at a glance how much stayed home.
-const COLOURS: Record<string, string> = {
-  fresh: '#5f9a3f',
-  stored: '#3b6a24',
-  preserved: '#a8d48f',
-  seed: '#d9901c',
-  given: '#f6c866',
-  sold: '#9a5d0b',
-  lost: '#b3413a',
-};
 
 export function HarvestUses({ report, units }: { report: ShareResponse; units: UnitSystem }) {
   const total = report.uses.reduce((s, u) => s + u.grams, 0);
