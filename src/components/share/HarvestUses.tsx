@@ -1,7 +1,7 @@
 /** Where the period's harvest went: eaten fresh, stored, preserved, seed, given, sold, lost. */
 import type { ShareResponse } from '@/lib/share-types';
 import { USE_LABELS } from '@/lib/entry-schemas';
-import { formatWeight, type UnitSystem } from '@/lib/units';
+import { formatWeight, formatWeightPair, type UnitSystem } from '@/lib/units';
 import { percentText } from '@/lib/share-scale';
 import { USE_COLOURS as COLOURS } from '@/lib/palette';
 import { amountText } from './format';
@@ -46,8 +46,8 @@ export function HarvestUses({ report, units }: { report: ShareResponse; units: U
                     <span className="mr-2 inline-block h-3 w-3 rounded-full" style={{ background: COLOURS[u.use] }} aria-hidden="true" />
                     {USE_LABELS[u.use]}
                   </th>
-                  <td className="p-2">{formatWeight(u.grams, units)}</td>
-                  <td className="p-2">{formatWeight(u.edibleGrams, units)}</td>
+                  <td className="p-2">{formatWeightPair(u.grams, u.edibleGrams, units).weight}</td>
+                  <td className="p-2">{formatWeightPair(u.grams, u.edibleGrams, units).edible}</td>
                   <td className="p-2">{amountText(u.energyKcal, 'kcal')}</td>
                   <td className="p-2">{percentText(u.grams / total)}</td>
                 </tr>
