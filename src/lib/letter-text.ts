@@ -9,7 +9,8 @@ import { CAUTIONS } from './cautions';
 import { formatAmount } from './format-number';
 import { escapeHtml } from './html-escape';
 import type { LetterData, LetterShare } from './letter-content';
-import { monthName, parseDate, parseMonth } from './months';
+import { formatDate, formatMonthText } from './format-date';
+import { PALETTE } from './palette';
 import { percentText } from './share-scale';
 import { formatWeight } from './units';
 
@@ -21,14 +22,12 @@ export interface LetterText {
 
 /** Example: `monthText('2026-11')` → 'November 2026' */
 export function monthText(month: string): string {
-  const { year, month: m } = parseMonth(month);
-  return `${monthName(m)} ${year}`;
+  return formatMonthText(month, 'long');
 }
 
-/** Example: `dayText('2027-03-14')` → '14 March 2027' */
+/** A day as every page writes it (src/lib/format-date.ts). Example: `dayText('2027-03-14')` → '14 Mar 2027' */
 export function dayText(date: string): string {
-  const { year, month, day } = parseDate(date);
-  return `${day} ${monthName(month)} ${year}`;
+  return formatDate(date);
 }
 
 /** An area in m², with square feet beside it for a household on US units. Example: `areaText(2.5, 'us')` → '2.5 m² (26.9 ft²)' */
@@ -137,7 +136,7 @@ function plainText(d: LetterData, parts: Section[]): string {
 }
 
 // Selfsown's palette (src/styles/global.css): loam for text and rules, sprout for headings and links.
-const C = { text: '#2e2218', muted: '#5a4330', rule: '#e0cdb5', paper: '#faf6f1', green: '#3b6a24', greenDark: '#1f3a12' };
+const C = { text: PALETTE['loam-900'], muted: PALETTE['loam-700'], rule: PALETTE['loam-200'], paper: PALETTE['loam-50'], green: PALETTE['sprout-700'], greenDark: PALETTE['sprout-900'] };
 
 function htmlBody(d: LetterData, parts: Section[]): string {
   const e = escapeHtml;

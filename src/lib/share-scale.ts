@@ -1,12 +1,16 @@
 /**
- * Selfsown's own colour scale for "home share of need", from bare soil to full leaf: loam for
- * nothing from home, squash-rind ambers for a little, sprout greens for much, the darkest green for
- * a month the garden covered. The scale stops at "covered": eating more than the recommended intake
- * is not better, so 100 % and 250 % look the same and nothing rewards excess. Months before the
- * household's records start get a grey of their own (no need is counted there). Colours are the
- * palette of src/styles/global.css; each band carries the text colour that reads best on it (WCAG
- * 2.1 contrast, see contrastRatio).
+ * Selfsown's own colour scale for "home share of need", from bare soil to full leaf: hatched loam
+ * for nothing from home, squash-rind ambers for a little, sprout greens for much, the darkest green
+ * for a month the garden covered. The scale stops at "covered": eating more than the recommended
+ * intake is not better, so 100 % and 250 % look the same and nothing rewards excess. Months before
+ * the household's records start get a grey of their own (no need is counted there). Colours come
+ * from src/lib/palette.ts (the tokens of src/styles/global.css); each band carries the text colour
+ * that reads on it (WCAG 2.2 contrast, tested), and colour is never the only cue: cells carry their
+ * figure, "none" is hatched and a missing figure is dashed.
  */
+import { PALETTE, contrastRatio, relativeLuminance } from './palette';
+
+export { contrastRatio, relativeLuminance };
 
 export interface ShareBand {
   /** Lowest share in the band (fraction, included); the band runs to the next band's min. */
@@ -14,28 +18,38 @@ export interface ShareBand {
   label: string;
   background: string;
   text: string;
+  /** A CSS background-image laid over the colour (the hatch of "none"), or null. */
+  pattern: string | null;
 }
 
-const LOAM_900 = '#2e2218';
-const WHITE = '#ffffff';
+const LOAM_900 = PALETTE['loam-900'];
+const WHITE = PALETTE.white;
+
+/** Diagonal hatching: "nothing from home" reads as bare ground, not as a pale colour. */
+export const HATCH = `repeating-linear-gradient(135deg, transparent 0 5px, ${PALETTE['loam-300']} 5px 7px)`;
 
 /** Shown when the share cannot be given (no need set, or the food's value unknown). */
-export const UNKNOWN_BAND: ShareBand = { min: Number.NaN, label: 'no figure', background: '#faf6f1', text: '#5a4330' };
+export const UNKNOWN_BAND: ShareBand = { min: Number.NaN, label: 'no figure', background: PALETTE['loam-50'], text: PALETTE['loam-700'], pattern: null };
 
 /** The bands, lowest first. Example: `SHARE_BANDS[0].label` → 'none from home' */
 export const SHARE_BANDS: readonly ShareBand[] = [
-  { min: 0, label: 'none from home', background: '#f1e8dc', text: LOAM_900 }, // loam-100
-  { min: Number.MIN_VALUE, label: 'under 10 %', background: '#fdf0d5', text: LOAM_900 }, // rind-100
-  { min: 0.1, label: '10–25 %', background: '#f6c866', text: LOAM_900 }, // rind-300
-  { min: 0.25, label: '25–50 %', background: '#a8d48f', text: LOAM_900 }, // sprout-300
-  { min: 0.5, label: '50–75 %', background: '#5f9a3f', text: LOAM_900 }, // sprout-500
-  { min: 0.75, label: '75–100 %', background: '#3b6a24', text: WHITE }, // sprout-700
-  { min: 1, label: 'covered', background: '#1f3a12', text: WHITE }, // sprout-900: the last band, however far past 100 %
+  { min: 0, label: 'none from home', background: PALETTE['loam-100'], text: LOAM_900, pattern: HATCH },
+  { min: Number.MIN_VALUE, label: 'under 10 %', background: PALETTE['rind-200'], text: LOAM_900, pattern: null },
+  { min: 0.1, label: '10–25 %', background: PALETTE['rind-300'], text: LOAM_900, pattern: null },
+  { min: 0.25, label: '25–50 %', background: PALETTE['sprout-300'], text: LOAM_900, pattern: null },
+  { min: 0.5, label: '50–75 %', background: PALETTE['sprout-500'], text: LOAM_900, pattern: null },
+  { min: 0.75, label: '75–100 %', background: PALETTE['sprout-700'], text: WHITE, pattern: null },
+  // The last band, however far past 100 %.
+  { min: 1, label: 'covered', background: PALETTE['sprout-900'], text: WHITE, pattern: null },
 ];
 
 /** A month before the household's records start: no need, no share, greyed. */
-export const BEFORE_RECORDS_BAND: ShareBand = { min: Number.NaN, label: 'before records', background: '#e6e4e1', text: '#4a4440' };
+export const BEFORE_RECORDS_BAND: ShareBand = { min: Number.NaN, label: 'before records', background: PALETTE['fog-200'], text: PALETTE['fog-700'], pattern: null };
 
+/** The inline style of a band: its colour, its pattern over it, its text colour. */
+export function bandStyle(band: ShareBand): { backgroundColor: string; backgroundImage?: string; color: string } {
+  return band.pattern ? { backgroundColor: band.background, backgroundImage: band.pattern, color: band.text } : { backgroundColor: band.background, color: band.text };
+}
 
 /**
  * The band of a home share of need (fraction; null = no figure),
@@ -46,26 +60,6 @@ export function shareBand(share: number | null): ShareBand {
   let band = SHARE_BANDS[0]!;
   for (const b of SHARE_BANDS) if (share >= b.min) band = b;
   return band;
-}
-
-function channel(c: number): number {
-  const s = c / 255;
-  return s <= 0.04045 ? s / 12.92 : ((s + 0.055) / 1.055) ** 2.4;
-}
-
-/** Relative luminance of '#rrggbb' (WCAG 2.1), e.g. relativeLuminance('#ffffff') → 1. */
-export function relativeLuminance(hex: string): number {
-  const m = /^#([0-9a-f]{2})([0-9a-f]{2})([0-9a-f]{2})$/i.exec(hex);
-  if (!m) throw new RangeError(`"${hex}" is not a colour written #rrggbb`);
-  const [r, g, b] = [m[1]!, m[2]!, m[3]!].map((x) => channel(parseInt(x, 16)));
-  return 0.2126 * r! + 0.7152 * g! + 0.0722 * b!;
-}
-
-/** Contrast ratio of two colours (WCAG 2.1, 1–21), e.g. contrastRatio('#000000', '#ffffff') → 21. */
-export function contrastRatio(a: string, b: string): number {
-  const la = relativeLuminance(a);
-  const lb = relativeLuminance(b);
-  return (Math.max(la, lb) + 0.05) / (Math.min(la, lb) + 0.05);
 }
 
 /**

@@ -105,3 +105,32 @@ export function formatWeight(grams: number, system: UnitSystem): string {
   }
   throw new Error(`Unknown unit system "${String(system)}": use metric or us.`);
 }
+
+/** The units that belong to each system, smaller first. Example: `SYSTEM_UNITS.us` → ['oz', 'lb'] */
+export const SYSTEM_UNITS: Readonly<Record<UnitSystem, readonly [WeightUnit, WeightUnit]>> = { metric: ['g', 'kg'], us: ['oz', 'lb'] };
+
+// Decimals a weight is written with in each unit: grams whole, ounces to a tenth, kg and lb to a hundredth.
+const DECIMALS: Readonly<Record<WeightUnit, number>> = { g: 0, oz: 1, kg: 2, lb: 2 };
+
+/** Grams in a given unit, trailing zeros dropped. Example: `formatWeightIn(396, 'kg')` → '0.4 kg' */
+export function formatWeightIn(grams: number, unit: WeightUnit): string {
+  return `${trimmedDecimal(fromGrams(grams, unit), DECIMALS[unit])} ${unit}`;
+}
+
+/**
+ * A weight and its edible portion in one unit of the household's system, so the pair reads at a
+ * glance: the entry's own unit when it belongs to the system, else the unit formatWeight picks for
+ * the larger figure. Example: `formatWeightPair(450, 396, 'metric', 'kg')` →
+ * { weight: '0.45 kg', edible: '0.4 kg', unit: 'kg' }; `formatWeightPair(450, 396, 'metric')` → '450 g' and '396 g'.
+ */
+export function formatWeightPair(grams: number, edibleGrams: number, system: UnitSystem, entryUnit?: WeightUnit): { weight: string; edible: string; unit: WeightUnit } {
+  const [small, large] = SYSTEM_UNITS[system];
+  const unit = entryUnit && SYSTEM_UNITS[system].includes(entryUnit) ? entryUnit : formatWeight(Math.max(grams, edibleGrams), system).endsWith(` ${large}`) ? large : small;
+  return { weight: formatWeightIn(grams, unit), edible: formatWeightIn(edibleGrams, unit), unit };
+}
+
+/** The pair as one line, e.g. `weightPairText(450, 396, 'metric', 'kg')` → '0.45 kg · edible 0.4 kg'. */
+export function weightPairText(grams: number, edibleGrams: number, system: UnitSystem, entryUnit?: WeightUnit): string {
+  const p = formatWeightPair(grams, edibleGrams, system, entryUnit);
+  return `${p.weight} · edible ${p.edible}`;
+}

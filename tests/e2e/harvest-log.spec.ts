@@ -73,7 +73,8 @@ test('a grower logs a harvest on a phone, sees it in the log and undoes it', asy
   await expect(row).toHaveCount(1);
   await expect(row).toContainText('Potato (Charlotte)');
   await expect(row).toContainText('1.2 kg');
-  await expect(row).toContainText('900 g');
+  // The edible portion is written in the weighing's own unit beside it (0.9 kg, not 900 g).
+  await expect(row).toContainText('edible 0.9 kg');
   await expect(table.getByTestId('totals')).toContainText('1.2 kg weighed');
 
   // Undo on the phone form; the log no longer has it.

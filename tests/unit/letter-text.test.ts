@@ -66,14 +66,14 @@ describe('monthly letter text', () => {
   it('writes crops, the larder and the suggestion with units and formatted numbers', () => {
     const t = letterText(data());
     expect(t.text).toContain('- Potato: 12,346 kcal, 328 g protein (61 % of the home-grown calories).');
-    expect(t.text).toContain('- Potato: 42.5 kg, runs out about 14 March 2027.');
+    expect(t.text).toContain('- Potato: 42.5 kg, runs out about 14 Mar 2027.');
     expect(t.text).toContain('61 kg in store altogether. And 2 more in store. At the present rate nothing stored is left to eat in April 2027.');
     expect(t.text).toContain('Vitamin C is furthest behind this growing year (1,234 mg short so far). The crop that gives the most of it per square metre is Kale: about 2.5 m² would cover that, by a typical reference yield.');
   });
 
   it('says plainly when the larder is empty and when the gap finder has no idea', () => {
     const t = letterText(data({ larder: { today: '2026-12-01', stores: [], moreStores: 0, totalGrams: 0, firstEmptyMonth: null }, suggestion: null }));
-    expect(t.text).toContain('Nothing is recorded in store on 1 December 2026.');
+    expect(t.text).toContain('Nothing is recorded in store on 1 Dec 2026.');
     expect(t.text).toContain('The gap finder has nothing to suggest');
   });
 
@@ -107,7 +107,7 @@ describe('monthly letter text', () => {
   it('names months, days and areas right', () => {
     expect(monthText('2026-12')).toBe('December 2026');
     expect(monthText('2027-01')).toBe('January 2027');
-    expect(dayText('2027-02-28')).toBe('28 February 2027');
+    expect(dayText('2027-02-28')).toBe('28 Feb 2027');
     // 1 ft² = 0.09290304 m² exactly (International Yard and Pound Agreement, 1959): 2.5 m² = 26.9 ft²
     expect(areaText(2.5, 'us')).toBe('2.5 m² (26.9 ft²)');
     expect(areaText(2.5, 'metric')).toBe('2.5 m²');

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatWeight, fromGrams, GRAMS_PER_UNIT, parseWeightUnit, toGrams, WEIGHT_UNITS } from '@/lib/units';
+import { formatWeight, formatWeightIn, formatWeightPair, fromGrams, GRAMS_PER_UNIT, parseWeightUnit, toGrams, weightPairText, WEIGHT_UNITS } from '@/lib/units';
 
 describe('converting weights to grams', () => {
   it('uses the exact international pound', () => {
@@ -77,5 +77,32 @@ describe('writing weights for the household', () => {
   });
   it('refuses an unknown unit system', () => {
     expect(() => formatWeight(1, 'imperial' as never)).toThrow(/Unknown unit system "imperial"/);
+  });
+});
+
+describe('weight pairs in one unit', () => {
+  it('writes a weighing and its edible portion in the entry’s unit when it is of the household’s system', () => {
+    expect(weightPairText(450, 396, 'metric', 'kg')).toBe('0.45 kg · edible 0.4 kg');
+    expect(formatWeightPair(450, 396, 'metric', 'g')).toEqual({ weight: '450 g', edible: '396 g', unit: 'g' });
+  });
+
+  it('picks the system’s unit for the larger figure when the entry’s unit is of the other system', () => {
+    // 1 lb = 453.59237 g exactly (International Yard and Pound Agreement, 1959): 2 lb = 907.18 g
+    expect(formatWeightPair(907.18474, 800, 'metric', 'lb')).toEqual({ weight: '907 g', edible: '800 g', unit: 'g' });
+    // 2500 g = 5.51 lb; 2000 g = 4.41 lb
+    expect(formatWeightPair(2500, 2000, 'us', 'kg')).toEqual({ weight: '5.51 lb', edible: '4.41 lb', unit: 'lb' });
+  });
+
+  it('never mixes units across the pair even where one figure alone would switch', () => {
+    // formatWeight alone writes 1.2 kg and 900 g; the pair keeps kg for both
+    const p = formatWeightPair(1200, 900, 'metric');
+    expect(p.weight).toBe('1.2 kg');
+    expect(p.edible).toBe('0.9 kg');
+  });
+
+  it('writes grams in a chosen unit with that unit’s decimals', () => {
+    // 1 oz = 28.349523125 g exactly: 100 g = 3.53 oz → one decimal
+    expect(formatWeightIn(100, 'oz')).toBe('3.5 oz');
+    expect(formatWeightIn(396.4, 'g')).toBe('396 g');
   });
 });

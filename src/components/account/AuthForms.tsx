@@ -110,8 +110,8 @@ export function SignInForm({ next, outbox }: { next: string | null; outbox: bool
         {busy ? 'Signing in…' : 'Sign in'}
       </button>
       <p className="mt-4 flex flex-wrap justify-between gap-2">
-        <a className="text-sprout-700 underline" href="/forgot-password">Forgot your password?</a>
-        <a className="text-sprout-700 underline" href={withNext('/sign-up', next)}>Create an account</a>
+        <a className="link" href="/forgot-password">Forgot your password?</a>
+        <a className="link" href={withNext('/sign-up', next)}>Create an account</a>
       </p>
     </form>
   );
@@ -179,7 +179,7 @@ export function ResetPasswordForm({ token }: { token: string }) {
         {isSubmitting ? 'Saving…' : 'Set the new password'}
       </button>
       <p className="mt-4">
-        <a className="text-sprout-700 underline" href="/forgot-password">Ask for a new link</a>
+        <a className="link" href="/forgot-password">Ask for a new link</a>
       </p>
     </form>
   );

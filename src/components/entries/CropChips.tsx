@@ -22,7 +22,7 @@ export function CropChips({ ordered, value, today, error, onPick }: { ordered: O
           return (
             <label
               key={c.id}
-              className={`flex min-h-16 cursor-pointer flex-col justify-center rounded-xl border px-3 py-2 leading-tight has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-rind-500 ${
+              className={`flex min-h-16 cursor-pointer flex-col justify-center rounded-xl border px-3 py-2 leading-tight has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-focus ${
                 on ? 'border-sprout-700 bg-sprout-100 ring-2 ring-sprout-700' : 'border-loam-200 bg-white hover:bg-loam-100'
               }`}
             >

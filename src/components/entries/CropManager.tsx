@@ -11,7 +11,8 @@ import { USE_LABELS } from '@/lib/entry-schemas';
 import { ApiError, canWrite, get, keys, request, urls, type Crop, type HouseholdInfo } from './api';
 import { CropForm } from './CropForm';
 import { FactsGrid } from './FoodPicker';
-import { formatDay } from './local-date';
+import { formatDate } from '@/lib/format-date';
+import { countText } from '@/lib/plural';
 import { QueryProvider } from '@/components/QueryProvider';
 import { Alert, ConfirmDelete, pct } from './ui';
 
@@ -95,7 +96,7 @@ function CropManagerInner({ household }: { household: HouseholdInfo }) {
 
       <div className="mt-6 flex flex-wrap items-center justify-between gap-3">
         <h2 className="text-xl font-bold">
-          {crops.length} {crops.length === 1 ? 'crop' : 'crops'}
+          {countText(crops.length, 'crop')}
         </h2>
         {archivedCount > 0 ? (
           <label className="flex min-h-12 cursor-pointer items-center gap-2">
@@ -148,13 +149,13 @@ function CropManagerInner({ household }: { household: HouseholdInfo }) {
                 {!c.notFood ? (
                   <>
                     <dt className="text-loam-700">If stored, eaten over</dt>
-                    <dd className="font-semibold">{defaultSpreadMonths({ use: 'stored', category: c.category, cropDefault: c.defaultSpreadMonths })} months</dd>
+                    <dd className="font-semibold">{countText(defaultSpreadMonths({ use: 'stored', category: c.category, cropDefault: c.defaultSpreadMonths }), 'month')}</dd>
                   </>
                 ) : null}
                 <dt className="text-loam-700">Harvests</dt>
                 <dd className="font-semibold">
                   {c.harvestCount}
-                  {c.lastHarvestDate ? `, last ${formatDay(c.lastHarvestDate)}` : ''}
+                  {c.lastHarvestDate ? `, last ${formatDate(c.lastHarvestDate)}` : ''}
                 </dd>
               </dl>
               {writer ? (

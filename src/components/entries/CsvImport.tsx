@@ -8,7 +8,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useRef, useState, type FormEvent } from 'react';
 import { CROP_CATEGORIES, CROP_CATEGORY_LABELS, type CropCategory } from '@/lib/crop-categories';
 import { CSV_LIMITS, HARVEST_CSV_COLUMNS, PURCHASE_CSV_COLUMNS } from '@/lib/csv-import';
-import { formatWeight } from '@/lib/units';
+import { formatWeightPair, toGrams } from '@/lib/units';
 import { ApiError, canWrite, keys, request, urls, type CsvError, type HouseholdInfo } from './api';
 import { FoodPicker, type FoodChoice } from './FoodPicker';
 import { formatDay } from './local-date';
@@ -16,6 +16,7 @@ import { QueryProvider } from '@/components/QueryProvider';
 import { formatQuantity } from './quantity-text';
 import { Alert } from './ui';
 import type { ImportAnswer as ImportAnswerOf } from '@/lib/api-types';
+import { countText } from '@/lib/plural';
 
 type Kind = 'harvests' | 'purchases';
 
@@ -74,7 +75,7 @@ function CsvImportInner({ household }: { household: HouseholdInfo }) {
     },
     onSuccess: (a, mode) => {
       if (mode === 'commit' && a.ok) {
-        setDone(`Imported ${a.created ?? a.rowCount} ${kind === 'harvests' ? 'harvests' : 'bought-food entries'}.`);
+        setDone(`Imported ${kind === 'harvests' ? countText(a.created ?? a.rowCount, 'harvest') : countText(a.created ?? a.rowCount, 'bought-food entry', 'bought-food entries')}.`);
         setPreview(null);
         setNewCrops({});
         setFile(null);
@@ -127,8 +128,8 @@ function CsvImportInner({ household }: { household: HouseholdInfo }) {
           <legend className="font-semibold">The file holds</legend>
           <div className="mt-2 flex flex-wrap gap-2">
             {(['harvests', 'purchases'] as const).map((k) => (
-              <label key={k} className={`flex min-h-12 cursor-pointer items-center gap-2 rounded-xl border px-4 ${kind === k ? 'border-sprout-700 bg-sprout-100 ring-2 ring-sprout-700' : 'border-loam-200 bg-white'}`}>
-                <input type="radio" name="kind" value={k} className="size-5 accent-sprout-700" checked={kind === k} onChange={() => (setKind(k), setPreview(null))} />
+              <label key={k} className="chip">
+                <input type="radio" name="kind" value={k} className="chip-dot" checked={kind === k} onChange={() => (setKind(k), setPreview(null))} />
                 {k === 'harvests' ? 'Harvests' : 'Bought food'}
               </label>
             ))}
@@ -174,8 +175,8 @@ function CsvImportInner({ household }: { household: HouseholdInfo }) {
           <div className={`mt-2 rounded-2xl px-4 py-3 ${preview.ok ? 'bg-sprout-100 text-sprout-900' : 'bg-berry-700/10 text-berry-700'}`} role="status">
             <p className="font-bold">
               {preview.ok
-                ? `${preview.rowCount} rows are ready to import: ${formatWeight(preview.totals.grams, household.units)} weighed, ${formatWeight(preview.totals.edibleGrams, household.units)} edible portion.`
-                : `${preview.errors.length} ${preview.errors.length === 1 ? 'problem' : 'problems'} to fix first — nothing is imported until every row is right.`}
+                ? `${countText(preview.rowCount, 'row')} ${preview.rowCount === 1 ? 'is' : 'are'} ready to import: ${formatWeightPair(preview.totals.grams, preview.totals.edibleGrams, household.units).weight} weighed, ${formatWeightPair(preview.totals.grams, preview.totals.edibleGrams, household.units).edible} edible portion.`
+                : `${countText(preview.errors.length, 'problem')} to fix first — nothing is imported until every row is right.`}
             </p>
             {preview.ignoredColumns?.length ? <p className="text-sm">Columns ignored: {preview.ignoredColumns.join(', ')}.</p> : null}
           </div>
@@ -250,7 +251,7 @@ function CsvImportInner({ household }: { household: HouseholdInfo }) {
                       <td className="whitespace-nowrap px-3 py-2">{formatDay(r.date)}</td>
                       <td className="px-3 py-2">{r.crop ?? r.foodName ?? r.foodCode}</td>
                       <td className="whitespace-nowrap px-3 py-2 text-right tabular-nums">{formatQuantity(r.quantity, r.unit)}</td>
-                      <td className="whitespace-nowrap px-3 py-2 text-right tabular-nums">{formatWeight(r.edibleGrams, household.units)}</td>
+                      <td className="whitespace-nowrap px-3 py-2 text-right tabular-nums">{formatWeightPair(toGrams(r.quantity, r.unit), r.edibleGrams, household.units, r.unit).edible}</td>
                       <td className="px-3 py-2">{kind === 'harvests' ? r.use : r.price != null ? `${r.price} ${r.currency ?? ''}` : ''}</td>
                     </tr>
                   ))}
@@ -265,9 +266,9 @@ function CsvImportInner({ household }: { household: HouseholdInfo }) {
               {send.isPending && send.variables === 'commit'
                 ? 'Importing…'
                 : creating > 0
-                  ? `Create ${creating} ${creating === 1 ? 'crop' : 'crops'} and import`
+                  ? `Create ${countText(creating, 'crop')} and import`
                   : preview.ok
-                    ? `Import ${preview.rowCount} ${preview.rowCount === 1 ? 'row' : 'rows'}`
+                    ? `Import ${countText(preview.rowCount, 'row')}`
                     : 'Import (fix the problems first)'}
             </button>
             {stale ? <span className="text-sm text-loam-700">The import checks every row again; if anything is still wrong, nothing is written.</span> : null}

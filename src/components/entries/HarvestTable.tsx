@@ -37,7 +37,7 @@ function harvestColumns(units: UnitSystem): EntryColumn<Harvest>[] {
       header: 'Crop',
       meta: { sort: { asc: 'crop', desc: 'crop' }, cellClass: `px-3 py-2 font-semibold ${stack.name}` },
     }),
-    weightColumn<Harvest>('weighed', 'Weighed'),
+    weightColumn<Harvest>('weighed', 'Weighed', units),
     edibleColumn<Harvest>(units),
     col.accessor('use', {
       id: 'use',

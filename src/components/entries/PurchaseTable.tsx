@@ -15,6 +15,7 @@ import { formatDay, monthRange } from './local-date';
 import { formatQuantity, parseDecimal, trimNumber } from './quantity-text';
 import { MonthFilter, stack } from './table-bits';
 import { ErrorText, invalidProps } from './ui';
+import { countText } from '@/lib/plural';
 
 /** "3.49 EUR", or empty. */
 export function formatPrice(price: Purchase['price'], currency: string | null): string {
@@ -40,7 +41,7 @@ function purchaseColumns(units: UnitSystem): EntryColumn<Purchase>[] {
         </>
       ),
     }),
-    weightColumn<Purchase>('weight', 'Weight'),
+    weightColumn<Purchase>('weight', 'Weight', units),
     edibleColumn<Purchase>(units),
     col.accessor('price', {
       id: 'price',
@@ -58,7 +59,7 @@ function purchaseColumns(units: UnitSystem): EntryColumn<Purchase>[] {
         ) : (
           <>
             <span className="sm:hidden">eaten over </span>
-            {getValue()} months
+            {countText(getValue(), 'month')}
           </>
         ),
     }),

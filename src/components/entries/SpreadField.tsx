@@ -4,6 +4,7 @@
  */
 import type { Use } from '@/lib/entry-schemas';
 import { ErrorText, invalidProps } from './ui';
+import { countText } from '@/lib/plural';
 
 interface SpreadFieldProps {
   value: string;
@@ -22,7 +23,7 @@ export function SpreadField({ value, onChange, uses, usual, error }: SpreadField
       </label>
       <p id="spreadMonths-hint" className="text-sm text-loam-700">
         {usual
-          ? `Leave empty for this crop's usual: ${[...new Set(uses)].map((u) => `${usual(u)} months ${u}`).join(', ')}.`
+          ? `Leave empty for this crop's usual: ${[...new Set(uses)].map((u) => `${countText(usual(u), 'month')} ${u}`).join(', ')}.`
           : 'Stored and preserved food is counted in the months it is eaten.'}
       </p>
       <input

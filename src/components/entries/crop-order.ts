@@ -6,7 +6,7 @@ import { defaultUse } from '@/lib/crop-categories';
 import type { Use } from '@/lib/entry-schemas';
 import type { Crop } from './api';
 import { daysBetween } from '@/lib/months';
-import { formatDay } from './local-date';
+import { formatDate } from '@/lib/format-date';
 
 /** A crop harvested within this many days counts as recent. */
 const RECENT_DAYS = 28;
@@ -30,12 +30,12 @@ export function orderCrops(crops: Crop[], today: string, inSeasonIds: ReadonlySe
   return rows.map(({ crop, recent, inSeason }) => ({ crop, recent, inSeason }));
 }
 
-/** "harvested today", "harvested yesterday" or "last Wed, 2 Dec" for the crop buttons. */
+/** "harvested today", "harvested yesterday" or "last 2 Dec" for the crop buttons. */
 export function lastHarvestText(date: string, today: string): string {
   const days = daysBetween(date, today);
   if (days === 0) return 'harvested today';
   if (days === 1) return 'harvested yesterday';
-  return `last ${formatDay(date).replace(/ \d{4}$/, '')}`;
+  return `last ${formatDate(date, { year: false })}`;
 }
 
 /** The use a crop's harvest starts on: its own default, else its kind's (fresh with no crop). */

@@ -1,12 +1,12 @@
 /**
  * The columns the harvest log and the bought-food table share: the date, the weight as entered and
- * the edible portion in the household's units. Both tables show them the same way (same sort keys,
+ * the edible portion, both in one unit of the household's system (formatWeightPair: the entry's own
+ * unit when it is of that system), so a pair never reads "0.45 kg · edible 396 g". Both tables show them the same way (same sort keys,
  * same phone card positions), so they are written once here and each table adds its own columns.
  */
-import { formatWeight, type UnitSystem, type WeightUnit } from '@/lib/units';
+import { formatWeightPair, type UnitSystem, type WeightUnit } from '@/lib/units';
 import { entryColumns, type EntryColumn } from './EntriesTable';
 import { formatDay } from './local-date';
-import { formatQuantity } from './quantity-text';
 import { stack } from './table-bits';
 
 /** What a row needs for the shared columns: both a harvest and a purchase have these fields. */
@@ -28,26 +28,26 @@ export function dateColumn<T extends WeighedEntry>(): EntryColumn<T> {
   });
 }
 
-/** The weight as entered ("2.5 lb"), sortable by grams; `id` and `header` name it for the table. */
-export function weightColumn<T extends WeighedEntry>(id: string, header: string): EntryColumn<T> {
+/** The weight ("2.5 lb", as entered when its unit is of the household's system), sortable by grams; `id` and `header` name it for the table. */
+export function weightColumn<T extends WeighedEntry>(id: string, header: string, units: UnitSystem): EntryColumn<T> {
   return entryColumns<T>().accessor((e) => e.grams, {
     id,
     header,
     meta: { sort: { asc: 'grams', desc: '-grams' }, right: true, cellClass: `whitespace-nowrap px-3 py-2 text-right font-bold tabular-nums ${stack.weight}` },
-    cell: ({ row }) => formatQuantity(row.original.quantity, row.original.unit),
+    cell: ({ row: { original: e } }) => formatWeightPair(e.grams, e.edibleGrams, units, e.unit).weight,
   });
 }
 
-/** The edible portion in the household's units. */
+/** The edible portion, in the same unit as the weight beside it. */
 export function edibleColumn<T extends WeighedEntry>(units: UnitSystem): EntryColumn<T> {
   return entryColumns<T>().accessor((e) => e.edibleGrams, {
     id: 'edible',
     header: 'Edible',
     meta: { right: true, cellClass: `whitespace-nowrap px-3 py-2 text-right tabular-nums ${stack.edible}` },
-    cell: ({ getValue }) => (
+    cell: ({ row: { original: e } }) => (
       <>
         <span className="sm:hidden">edible </span>
-        {formatWeight(getValue(), units)}
+        {formatWeightPair(e.grams, e.edibleGrams, units, e.unit).edible}
       </>
     ),
   });

@@ -3,7 +3,8 @@
  * written for people, as 'YYYY-MM-DD'. The arithmetic itself lives in src/lib/months.ts; this file
  * only adds what the entry islands need on top of it.
  */
-import { daysInMonth, isMonth } from '@/lib/months';
+import { formatDate } from '@/lib/format-date';
+import { daysInMonth, isDate, isMonth } from '@/lib/months';
 
 // One todayIn and one daysBetween for the whole app, re-exported for the entry islands.
 
@@ -18,9 +19,7 @@ export function shiftYear(date: string, years: number): string {
   return `${String(Number(date.slice(0, 4)) + years).padStart(4, '0')}-${date.slice(5, 7)}`;
 }
 
-/** A date for people: 'Tue 14 Jul 2026'. Example: `formatDay('2026-07-14')` → 'Tue 14 Jul 2026' */
+/** A day in an entry list: 'Tue 14 Jul 2026' (src/lib/format-date.ts, the one date helper). */
 export function formatDay(date: string): string {
-  const d = new Date(`${date}T12:00:00Z`);
-  if (Number.isNaN(d.getTime())) return date;
-  return new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }).format(d);
+  return isDate(date) ? formatDate(date, { weekday: true }) : date;
 }

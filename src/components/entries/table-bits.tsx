@@ -1,7 +1,9 @@
 /** Pieces of the entries table (EntriesTable.tsx): sortable headers, the pager, the totals line, the phone's card classes. */
 import type { ReactNode } from 'react';
-import { formatWeight, type UnitSystem } from '@/lib/units';
+import { formatWeightPair, type UnitSystem } from '@/lib/units';
 import type { EntryTotals as Totals } from '@/lib/entry-types';
+import { formatCount } from '@/lib/format-number';
+import { nounFor } from '@/lib/plural';
 
 /**
  * A column header that sorts: `state` is how the table sorts by this column now, `onToggle` asks for
@@ -46,15 +48,15 @@ export function TotalsLine({ total, totals, units, children }: { total: number; 
   return (
     <div className="flex flex-wrap items-baseline gap-x-6 gap-y-1 rounded-2xl bg-sprout-100 px-4 py-3 text-sprout-900" data-testid="totals" role="status">
       <span>
-        <span className="text-2xl font-extrabold tabular-nums">{total}</span> {total === 1 ? 'entry' : 'entries'}
+        <span className="text-2xl font-extrabold tabular-nums">{formatCount(total)}</span> {nounFor(total, 'entry')}
       </span>
       {totals ? (
         <>
           <span>
-            <span className="text-2xl font-extrabold tabular-nums">{formatWeight(totals.grams, units)}</span> weighed
+            <span className="text-2xl font-extrabold tabular-nums">{formatWeightPair(totals.grams, totals.edibleGrams, units).weight}</span> weighed
           </span>
           <span>
-            <span className="text-2xl font-extrabold tabular-nums">{formatWeight(totals.edibleGrams, units)}</span> edible portion
+            <span className="text-2xl font-extrabold tabular-nums">{formatWeightPair(totals.grams, totals.edibleGrams, units).edible}</span> edible portion
           </span>
         </>
       ) : null}

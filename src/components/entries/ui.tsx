@@ -62,7 +62,7 @@ export function UseChips({ name, value, onChange, disabled = [], legend = 'What 
           return (
             <label
               key={u}
-              className={`flex min-h-14 cursor-pointer flex-col justify-center rounded-xl border px-3 py-2 leading-tight transition-colors has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-rind-500 ${
+              className={`flex min-h-14 cursor-pointer flex-col justify-center rounded-xl border px-3 py-2 leading-tight transition-colors has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-focus ${
                 on ? 'border-sprout-700 bg-sprout-100 text-sprout-900 ring-2 ring-sprout-700' : 'border-loam-200 bg-white hover:bg-loam-100'
               } ${off ? 'cursor-not-allowed opacity-40' : ''}`}
             >

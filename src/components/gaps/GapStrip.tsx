@@ -1,11 +1,12 @@
 /**
  * The picture of the Gaps page: one strip per key nutrient, one square per month, coloured by the
  * home share of need on Selfsown's own scale (src/lib/share-scale.ts). The leanest months carry a
- * mark. Every square says its month and share in text for screen readers, and the table beside
- * the strip gives the numbers.
+ * ring. Every square carries its figure (so colour is never the only cue: "none" is also hatched,
+ * a missing figure dashed) and says its month and share in words for screen readers; the table
+ * beside the strip gives the numbers.
  */
 import type { GapsResponse } from '@/lib/gap-types';
-import { SHARE_BANDS, UNKNOWN_BAND, percentText, shareBand } from '@/lib/share-scale';
+import { SHARE_BANDS, UNKNOWN_BAND, bandStyle, percentText, shareBand } from '@/lib/share-scale';
 import { longMonth, shortMonth } from '@/components/share/format';
 
 export function GapStrip({ report }: { report: GapsResponse }) {
@@ -16,13 +17,13 @@ export function GapStrip({ report }: { report: GapsResponse }) {
         Which nutrients, which months
       </h2>
       <p className="mt-1 text-loam-700">
-        Each square is one month’s home share of need. A ring marks the leanest months of each nutrient; pale dashed squares have no
-        figure (before your records start, still to come, or no need set).
+        Each square is one month’s home share of need, in percent. A red ring marks the leanest months of each nutrient; hatched
+        squares had nothing from home; dashed squares have no figure (before your records start, still to come, or no need set).
       </p>
       <ul className="mt-3 flex flex-wrap gap-x-3 gap-y-1 text-sm" aria-label="Colour key">
         {[...SHARE_BANDS, UNKNOWN_BAND].map((b) => (
           <li key={b.label} className="flex items-center gap-1.5">
-            <span className={`inline-block h-4 w-5 rounded ${b === UNKNOWN_BAND ? 'border border-dashed border-loam-500' : 'border border-loam-200'}`} style={{ background: b.background }} aria-hidden="true" />
+            <span className={`inline-block h-5 w-6 rounded ${b === UNKNOWN_BAND ? 'border border-dashed border-loam-500' : 'border border-loam-300'}`} style={bandStyle(b)} aria-hidden="true" />
             {b.label}
           </li>
         ))}
@@ -58,13 +59,14 @@ export function GapStrip({ report }: { report: GapsResponse }) {
                   return (
                     <td
                       key={m.month}
-                      className={`h-7 min-w-4 rounded ${band === UNKNOWN_BAND ? 'border border-dashed border-loam-300' : ''} ${lean ? 'outline-2 outline-offset-[-3px] outline-berry-700' : ''}`}
-                      style={{ background: band.background }}
+                      className={`h-8 min-w-5 rounded px-0.5 text-center text-[0.6875rem] leading-none font-semibold tabular-nums ${band === UNKNOWN_BAND ? 'border border-dashed border-loam-500' : ''} ${lean ? 'outline-2 outline-offset-[-3px] outline-berry-700' : ''}`}
+                      style={bandStyle(band)}
                       data-testid={`strip-${n.key}-${m.month}`}
                       data-band={band.label}
                       data-lean={lean ? 'true' : undefined}
                       title={`${n.name}, ${longMonth(m.month)}: ${share === null ? 'no figure' : percentText(share)}${lean ? ' (one of the leanest months)' : ''}`}
                     >
+                      <span aria-hidden="true">{share === null ? '' : percentText(share).replace(' %', '')}</span>
                       <span className="sr-only">
                         {longMonth(m.month)}: {share === null ? 'no figure' : `${percentText(share)} of need from home`}
                         {lean ? ', one of the leanest months' : ''}

@@ -11,6 +11,7 @@ import { GapStrip } from './GapStrip';
 import { GapTable } from './GapTable';
 import { PlanPanel } from './PlanPanel';
 import { getGaps } from './plan-api';
+import { countText } from '@/lib/plural';
 
 /** A frost date 'MM-DD' as words. Example: `dayText('05-01')` → '1 May' */
 function dayText(mmdd: string): string {
@@ -86,7 +87,7 @@ function Gaps({ householdId, years, initialYear, canPlant, peopleHref }: Props) 
               </>
             ) : null}
             . Yields are the reference
-            table’s typical ones{data.ownYieldCrops.length > 0 ? `, except your own measured yield for ${data.ownYieldCrops.length} crop${data.ownYieldCrops.length === 1 ? '' : 's'}` : ''}.
+            table’s typical ones{data.ownYieldCrops.length > 0 ? `, except your own measured yield for ${countText(data.ownYieldCrops.length, 'crop')}` : ''}.
           </p>
           <div className="grid grid-cols-1 gap-8 xl:grid-cols-[minmax(0,5fr)_minmax(0,7fr)]">
             <GapStrip report={data} />

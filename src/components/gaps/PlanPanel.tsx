@@ -15,6 +15,7 @@ import type { ShareNutrientKey } from '@/lib/nutrients';
 import { projectYearShares, type YearFigure } from '@/lib/plan-projection';
 import { percentText } from '@/lib/share-scale';
 import { makePlan, plantFromPlan, type PlanAnswer } from './plan-api';
+import { countText } from '@/lib/plural';
 
 const BASIS_LABEL: Record<(typeof PLAN_BASES)[number], string> = {
   year: 'Over the whole year',
@@ -91,12 +92,14 @@ export function PlanPanel({ householdId, report, canPlant }: { householdId: numb
         </fieldset>
         <fieldset className="mt-4">
           <legend className="font-semibold">Cover the need</legend>
-          {PLAN_BASES.map((b) => (
-            <label key={b} className="mt-1 flex min-h-11 items-center gap-2">
-              <input type="radio" value={b} {...form.register('basis')} className="h-5 w-5" />
-              {BASIS_LABEL[b]}
-            </label>
-          ))}
+          <div className="mt-2 flex flex-wrap gap-2">
+            {PLAN_BASES.map((b) => (
+              <label key={b} className="chip">
+                <input type="radio" value={b} {...form.register('basis')} className="chip-dot" />
+                {BASIS_LABEL[b]}
+              </label>
+            ))}
+          </div>
         </fieldset>
         <div className="mt-4">
           <label htmlFor="plan-max-area" className="block font-semibold">
@@ -185,8 +188,8 @@ export function PlanPanel({ householdId, report, canPlant }: { householdId: numb
             </button>
             {planted !== null ? (
               <p role="status" className="font-semibold text-sprout-900" data-testid="planted">
-                {planted} planting{planted === 1 ? '' : 's'} made for {report.year}.{' '}
-                <a className="underline" href={`/households/${householdId}/beds`}>
+                {countText(planted, 'planting')} made for {report.year}.{' '}
+                <a className="link" href={`/households/${householdId}/beds`}>
                   See them on the Beds page
                 </a>
               </p>

@@ -90,12 +90,12 @@ export function HouseholdDetailsForm({ household, zones, onSaved }: { household:
       <fieldset className="mt-4" aria-describedby={errors.units ? 'units-error' : undefined}>
         <legend className="font-semibold">Units</legend>
         <p className="text-sm text-loam-700">How weights are shown and entered. Stored weights do not change.</p>
-        <div className="mt-1 flex flex-wrap gap-3">
-          <label className="btn-quiet cursor-pointer">
-            <input type="radio" {...form.register('units')} value="metric" /> Metric (g, kg)
+        <div className="mt-2 flex flex-wrap gap-2">
+          <label className="chip">
+            <input type="radio" {...form.register('units')} value="metric" className="chip-dot" /> Metric (g, kg)
           </label>
-          <label className="btn-quiet cursor-pointer">
-            <input type="radio" {...form.register('units')} value="us" /> US (oz, lb)
+          <label className="chip">
+            <input type="radio" {...form.register('units')} value="us" className="chip-dot" /> US (oz, lb)
           </label>
         </div>
         <FieldError id="units" error={errors.units?.message} />

@@ -9,6 +9,7 @@ import { invitationInput, ROLE_LABELS, ROLE_VALUES, type RoleValue } from '@/lib
 import { Field, FieldError, FormAlert, formMessage, showFailure, useSchemaForm } from '@/components/forms';
 import { QueryProvider } from '@/components/QueryProvider';
 import { get, request } from '@/components/request';
+import { formatInstantDate } from '@/lib/format-date';
 
 interface Props {
   householdId: number;
@@ -113,7 +114,7 @@ function Members({ householdId, me, myRole }: Props) {
             {(invitations.data ?? []).map((inv) => (
               <li key={inv.id} className="flex flex-wrap items-center gap-3 py-3">
                 <span className="font-semibold">{inv.email}</span>
-                <span className="text-loam-700">as {inv.role} · until {new Date(inv.expiresAt).toLocaleDateString()}</span>
+                <span className="text-loam-700">as {inv.role} · until {formatInstantDate(inv.expiresAt)}</span>
                 <button type="button" className="btn-quiet ml-auto" disabled={revoke.isPending} onClick={() => revoke.mutate(inv.id)} aria-label={`Withdraw the invitation to ${inv.email}`}>
                   Withdraw
                 </button>

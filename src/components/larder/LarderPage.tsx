@@ -6,6 +6,7 @@
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { QueryProvider } from '@/components/QueryProvider';
+import { Icon } from '@/components/icons/Icon';
 import { addMonths, monthOf } from '@/lib/months';
 import { formatWeight } from '@/lib/units';
 import { dateText, energyText, monthText, proteinText } from './larder-format';
@@ -79,10 +80,11 @@ function Larder({ householdId, canWrite, leanMonths, gapsHref, logHref }: Props)
             const empty = data.emptyMonths.includes(m);
             const lean = leanMonths?.includes(m) ?? false;
             return (
-              <li key={m} data-month={m} data-empty={empty} className={`rounded-xl border p-2 text-center ${empty ? 'border-berry-500 bg-berry-700/10' : 'border-sprout-300 bg-sprout-100'}`}>
+              <li key={m} data-month={m} data-empty={empty} className={`rounded-xl border p-2 text-center ${empty ? 'border-berry-500 bg-berry-100 text-berry-700' : 'border-sprout-300 bg-sprout-100 text-sprout-900'}`}>
                 <span className="block font-semibold">{monthText(m)}</span>
+                <Icon name={empty ? 'jar-empty' : 'jar'} size={20} className="mx-auto my-0.5" />
                 <span className="block text-sm">{empty ? 'empty' : 'stores'}</span>
-                {lean ? <span className="mt-1 block rounded bg-rind-300 px-1 text-xs font-semibold">lean</span> : null}
+                {lean ? <span className="mt-1 block rounded bg-rind-200 px-1 text-xs font-semibold text-loam-900">lean</span> : null}
               </li>
             );
           })}

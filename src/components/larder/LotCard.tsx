@@ -8,6 +8,7 @@ import { useState } from 'react';
 import { CROP_CATEGORY_LABELS } from '@/lib/crop-categories';
 import { LARDER_OUTCOME_LABELS } from '@/lib/larder-outcomes';
 import type { LarderLot, LarderOutcomeJson } from '@/lib/larder-types';
+import { CHART_COLOURS } from '@/lib/palette';
 import { USE_LABELS } from '@/lib/uses';
 import { formatWeight, type UnitSystem } from '@/lib/units';
 import { dateText, energyText, proteinText } from './larder-format';
@@ -36,9 +37,9 @@ export function LotCard({ lot, householdId, units, today, canWrite }: Props) {
   });
   const whole = lot.edibleGrams || 1;
   const parts = [
-    { key: 'eaten', grams: lot.eatenEdibleGrams, colour: '#a8d48f', label: 'eaten' },
-    { key: 'left', grams: lot.remainingEdibleGrams, colour: '#3b6a24', label: 'left' },
-    { key: 'lost', grams: lot.lostGrams, colour: '#b3413a', label: 'lost' },
+    { key: 'eaten', grams: lot.eatenEdibleGrams, colour: CHART_COLOURS.eaten, label: 'eaten' },
+    { key: 'left', grams: lot.remainingEdibleGrams, colour: CHART_COLOURS.left, label: 'left' },
+    { key: 'lost', grams: lot.lostGrams, colour: CHART_COLOURS.lost, label: 'lost' },
   ];
   return (
     <article className="card" data-testid="larder-lot" data-harvest-id={lot.harvestId}>

@@ -38,8 +38,8 @@ export function OutcomeForm({ householdId, harvestId, today, onDone }: Props) {
         <legend className="font-semibold">What happened?</legend>
         <div className="mt-2 grid gap-2 sm:grid-cols-3">
           {LARDER_OUTCOMES.map((k) => (
-            <label key={k} className="flex min-h-12 items-center gap-3 rounded-xl border border-loam-200 bg-white px-4">
-              <input type="radio" value={k} {...register('kind')} className="h-5 w-5" />
+            <label key={k} className="chip">
+              <input type="radio" value={k} {...register('kind')} className="chip-dot" />
               {LARDER_OUTCOME_LABELS[k]}
             </label>
           ))}

@@ -1,18 +1,12 @@
-/** How the Larder page writes dates, months, energy and protein. */
+/** How the Larder page writes energy and protein; days and months go through src/lib/format-date.ts like every page. */
+import { formatDate, formatMonthText } from '@/lib/format-date';
 import { formatAmount } from '@/lib/format-number';
-import { monthName } from '@/lib/months';
 
 /** Example: `dateText('2027-03-01')` → '1 Mar 2027' */
-export function dateText(date: string): string {
-  const [y, m, d] = date.split('-').map(Number);
-  return `${d} ${monthName(m!, 'short')} ${y}`;
-}
+export const dateText = (date: string): string => formatDate(date);
 
 /** Example: `monthText('2027-03')` → 'Mar 2027' */
-export function monthText(month: string): string {
-  const [y, m] = month.split('-').map(Number);
-  return `${monthName(m!, 'short')} ${y}`;
-}
+export const monthText = (month: string): string => formatMonthText(month);
 
 export const energyText = (kcal: number | null) => (kcal === null ? 'energy unknown' : `${formatAmount(Math.round(kcal))} kcal`);
 export const proteinText = (g: number | null) => (g === null ? 'protein unknown' : `${formatAmount(Math.round(g))} g protein`);

@@ -8,16 +8,19 @@ import { heightText, weightText } from '@/lib/body-plausibility';
 import { formatAmount } from '@/lib/format-number';
 import { ACTIVITY_LABELS, DIET_LABELS } from '@/lib/people-schemas';
 import type { UnitSystem } from '@/lib/units';
+import { formatMonthText } from '@/lib/format-date';
+import { countText, nounFor } from '@/lib/plural';
 
 function ageText(p: PersonJson): string {
   if (p.birthMonth != null) {
-    if (!p.energy) return `born ${p.birthMonth}`;
+    const born = `born ${formatMonthText(p.birthMonth, 'long')}`;
+    if (!p.energy) return born;
     const months = Math.round(p.energy.ageYears * 12);
-    return `born ${p.birthMonth} (${months < 24 ? `${months} months old` : `${Math.floor(p.energy.ageYears)} years`})`;
+    return `${born} (${months < 24 ? `${countText(months, 'month')} old` : countText(Math.floor(p.energy.ageYears), 'year')})`;
   }
   if (p.birthYear != null) return `born ${p.birthYear}${p.energy ? ` (${p.energy.ageYears} this year)` : ''}`;
   if (p.ageYears == null) return '';
-  return p.ageYears < 1 ? `${Math.round(p.ageYears * 12)} months old` : `${formatAmount(p.ageYears)} years`;
+  return p.ageYears < 1 ? `${countText(Math.round(p.ageYears * 12), 'month')} old` : `${formatAmount(p.ageYears)} ${nounFor(p.ageYears, 'year')}`;
 }
 
 function conditionText(p: PersonJson): string {

@@ -25,7 +25,7 @@ interface Props {
   onCancel: () => void;
 }
 
-const radio = 'inline-flex min-h-12 items-center gap-2';
+const radio = 'chip';
 
 export function PersonForm({ title, initial, units, month, onSave, onCancel }: Props) {
   const id = useId();
@@ -88,23 +88,23 @@ export function PersonForm({ title, initial, units, month, onSave, onCancel }: P
         <p className="text-sm text-loam-700">The reference intakes are published by sex.</p>
         <div className="mt-1 flex gap-2">
           {(['female', 'male'] as const).map((s) => (
-            <label key={s} className={`btn-quiet cursor-pointer ${sex === s ? 'border-sprout-700 bg-sprout-100' : ''}`}>
-              <input type="radio" {...form.register('sex')} value={s} className="h-5 w-5" /> {s}
+            <label key={s} className="chip">
+              <input type="radio" {...form.register('sex')} value={s} className="chip-dot" /> {s}
             </label>
           ))}
         </div>
       </fieldset>
       <fieldset className="mt-4">
         <legend className="font-semibold">Age</legend>
-        <div className="mt-1 flex flex-wrap gap-x-4 gap-y-1">
+        <div className="mt-2 flex flex-wrap gap-2">
           <label className={radio}>
-            <input type="radio" {...form.register('ageKind')} value="age" className="h-5 w-5" /> Age in years
+            <input type="radio" {...form.register('ageKind')} value="age" className="chip-dot" /> Age in years
           </label>
           <label className={radio}>
-            <input type="radio" {...form.register('ageKind')} value="birthYear" className="h-5 w-5" /> Birth year (the age then follows the calendar)
+            <input type="radio" {...form.register('ageKind')} value="birthYear" className="chip-dot" /> Birth year (the age then follows the calendar)
           </label>
           <label className={radio}>
-            <input type="radio" {...form.register('ageKind')} value="birthMonth" className="h-5 w-5" /> Birth month (for a child: the age counts in months)
+            <input type="radio" {...form.register('ageKind')} value="birthMonth" className="chip-dot" /> Birth month (for a child: the age counts in months)
           </label>
         </div>
         {ageKind === 'age' ? (

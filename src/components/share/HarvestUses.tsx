@@ -1,20 +1,10 @@
 /** Where the period's harvest went: eaten fresh, stored, preserved, seed, given, sold, lost. */
 import type { ShareResponse } from '@/lib/share-types';
 import { USE_LABELS } from '@/lib/entry-schemas';
-import { formatWeight, type UnitSystem } from '@/lib/units';
+import { formatWeight, formatWeightPair, type UnitSystem } from '@/lib/units';
 import { percentText } from '@/lib/share-scale';
+import { USE_COLOURS as COLOURS } from '@/lib/palette';
 import { amountText } from './format';
-
-// Eaten uses in greens, the rest in ambers and berry: the bar says at a glance how much stayed home.
-const COLOURS: Record<string, string> = {
-  fresh: '#5f9a3f',
-  stored: '#3b6a24',
-  preserved: '#a8d48f',
-  seed: '#d9901c',
-  given: '#f6c866',
-  sold: '#9a5d0b',
-  lost: '#b3413a',
-};
 
 export function HarvestUses({ report, units }: { report: ShareResponse; units: UnitSystem }) {
   const total = report.uses.reduce((s, u) => s + u.grams, 0);
@@ -56,8 +46,8 @@ export function HarvestUses({ report, units }: { report: ShareResponse; units: U
                     <span className="mr-2 inline-block h-3 w-3 rounded-full" style={{ background: COLOURS[u.use] }} aria-hidden="true" />
                     {USE_LABELS[u.use]}
                   </th>
-                  <td className="p-2">{formatWeight(u.grams, units)}</td>
-                  <td className="p-2">{formatWeight(u.edibleGrams, units)}</td>
+                  <td className="p-2">{formatWeightPair(u.grams, u.edibleGrams, units).weight}</td>
+                  <td className="p-2">{formatWeightPair(u.grams, u.edibleGrams, units).edible}</td>
                   <td className="p-2">{amountText(u.energyKcal, 'kcal')}</td>
                   <td className="p-2">{percentText(u.grams / total)}</td>
                 </tr>

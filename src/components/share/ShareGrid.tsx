@@ -9,7 +9,7 @@ import { Fragment, useEffect, useRef } from 'react';
 import { nutrientCautions } from '@/lib/cautions';
 import type { ShareResponse } from '@/lib/share-types';
 import type { ShareValue } from '@/lib/shares';
-import { BEFORE_RECORDS_BAND, SHARE_BANDS, UNKNOWN_BAND, percentText, shareBand, unknownText } from '@/lib/share-scale';
+import { BEFORE_RECORDS_BAND, SHARE_BANDS, UNKNOWN_BAND, bandStyle, percentText, shareBand, unknownText } from '@/lib/share-scale';
 import { basisLong, basisShort, longMonth, needText, shortMonth } from './format';
 
 type Kind = 'before' | 'counted' | 'future';
@@ -191,7 +191,7 @@ function Cell({ value, label, what, testId, beforeRecords = false, strong = fals
     return (
       <td
         className="min-w-12 rounded-md px-1 py-2 text-center"
-        style={{ background: BEFORE_RECORDS_BAND.background, color: BEFORE_RECORDS_BAND.text }}
+        style={bandStyle(BEFORE_RECORDS_BAND)}
         data-testid={testId}
         data-band={BEFORE_RECORDS_BAND.label}
       >
@@ -208,7 +208,7 @@ function Cell({ value, label, what, testId, beforeRecords = false, strong = fals
   return (
     <td
       className={`min-w-12 rounded-md px-1 py-2 text-center tabular-nums whitespace-nowrap ${strong ? 'font-extrabold' : 'font-semibold'} ${band === UNKNOWN_BAND || flagged ? 'border border-dashed border-loam-500' : ''}`}
-      style={{ background: band.background, color: band.text }}
+      style={bandStyle(band)}
       data-testid={testId}
       data-band={band.label}
       data-uncertain={value.uncertain ? 'true' : undefined}
@@ -227,16 +227,31 @@ function Cell({ value, label, what, testId, beforeRecords = false, strong = fals
   );
 }
 
+/** The figure a cell of each band might show, drawn in the key's swatch. */
+const SAMPLE: Record<string, string> = {
+  'none from home': '0',
+  'under 10 %': '6',
+  '10–25 %': '18',
+  '25–50 %': '40',
+  '50–75 %': '62',
+  '75–100 %': '90',
+  covered: '120',
+  'no figure': '–',
+  'before records': '·',
+};
+
 function Legend() {
   return (
     <ul className="mt-3 flex flex-wrap gap-2 text-sm" aria-label="Colour key">
       {[...SHARE_BANDS, UNKNOWN_BAND, BEFORE_RECORDS_BAND].map((b) => (
         <li key={b.label} className="flex items-center gap-2">
           <span
-            className={`inline-block h-6 w-8 rounded-md ${b === UNKNOWN_BAND ? 'border border-dashed border-loam-500' : 'border border-loam-200'}`}
-            style={{ background: b.background }}
+            className={`inline-flex h-7 w-10 items-center justify-center rounded-md text-xs font-semibold ${b === UNKNOWN_BAND ? 'border border-dashed border-loam-500' : 'border border-loam-300'}`}
+            style={bandStyle(b)}
             aria-hidden="true"
-          />
+          >
+            {SAMPLE[b.label] ?? ''}
+          </span>
           {b.label === 'no figure' ? 'no figure (–)' : b.label === 'covered' ? 'covered (100 % or more)' : b.label}
         </li>
       ))}

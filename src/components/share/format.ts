@@ -3,6 +3,7 @@
  * come from src/lib/months.ts and numbers from src/lib/format-number.ts, so the dashboard writes
  * them as the rest of the app does.
  */
+import { formatMonthText } from '@/lib/format-date';
 import { formatAmount } from '@/lib/format-number';
 import { monthName, parseMonth } from '@/lib/months';
 import type { NeedBasis } from '@/lib/need-basis';
@@ -14,8 +15,7 @@ export function shortMonth(month: string): string {
 
 /** Example: `longMonth('2027-01')` → 'January 2027' */
 export function longMonth(month: string): string {
-  const { year, month: m } = parseMonth(month);
-  return `${monthName(m)} ${year}`;
+  return formatMonthText(month, 'long');
 }
 
 /** Example: `rangeText('2026-10', '2027-09')` → 'October 2026 – September 2027' */

@@ -6,13 +6,12 @@
  */
 import type { ChartData } from 'chart.js';
 import type { ShareNutrientKey } from '@/lib/nutrients';
+import { CHART_COLOURS } from '@/lib/palette';
 import type { ShareResponse } from '@/lib/share-types';
 import { shortMonth } from './format';
 
-// Palette of src/styles/global.css: sprout for home, rind for bought, loam for need.
-const HOME = '#5f9a3f';
-const BOUGHT = '#f6c866';
-const NEED = '#2e2218';
+// The one palette (src/lib/palette.ts): sprout for home, rind for bought, loam for need.
+const { home: HOME, bought: BOUGHT, need: NEED } = CHART_COLOURS;
 
 /** Example: `monthChartData(report, 'fat_g').datasets.map((d) => d.label)` → ['Home-grown', 'Bought', 'Recommended, least', 'Recommended, most'] */
 export function monthChartData(report: ShareResponse, k: ShareNutrientKey): ChartData<'bar' | 'line', (number | null)[], string | string[]> {
