@@ -94,13 +94,14 @@ export function plantingHarvests({ planting, spec, row, food, totalKg, rng }: Pl
     const shares = humpShares(days.length, rng);
     days.forEach((date, i) => {
       const kg = totalKg * shares[i]!;
-      const middle = i >= days.length / 4 && i < (days.length * 3) / 4;
+      // Preserving days: every third picking of the peak (the middle half), so the larder holds a few batches.
+      const batchDay = i >= days.length / 4 && i < (days.length * 3) / 4 && i % 3 === 1;
       if (spec.givenShare && rng.next() < spec.givenShare) {
         out.push(entry(src, date, kg, 'given', { note: 'glut shared with neighbours' }));
-      } else if (spec.preserved && middle && kg >= 0.4) {
-        // At the peak part of a picking is frozen, bottled or fermented the same day.
+      } else if (spec.preserved && batchDay && kg >= 0.3) {
+        // Part of that day's picking is frozen, bottled or fermented the same day.
         const split = `${planting.key}:${date}`;
-        const part = Math.min(0.9, spec.preserved.share * 2);
+        const part = Math.min(0.9, spec.preserved.share * 4);
         out.push(entry(src, date, kg * (1 - part), 'fresh', { split }));
         out.push(entry(src, date, kg * part, 'preserved', { split, spread: spec.preserved.spread, method: spec.preserved.method }));
       } else {
