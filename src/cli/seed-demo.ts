@@ -11,7 +11,6 @@ import { eq, inArray } from 'drizzle-orm';
 import { drizzle } from 'drizzle-orm/mysql2';
 import { createPool } from '@/db/client';
 import * as schema from '@/db/schema';
-import { todayIn } from '@/lib/months';
 import { databaseUrl, loadDotEnv } from '@/server/config';
 import { loadCropTable } from '@/server/crop-table-file';
 import { DEMO_HOUSEHOLD } from '@/server/demo/demo-catalogue';
@@ -66,7 +65,7 @@ export async function seedDemo(url: string, options: SeedOptions | ((line: strin
     const cropTable = loadCropTable();
     const foods = await loadDemoFoods(db, demoFoodCodes(cropTable));
     const started = Date.now();
-    const data = generateDemo({ seed: opts.seed ?? DEFAULT_DEMO_SEED, anchor: opts.anchor ?? todayIn(DEMO_HOUSEHOLD.timezone), cropTable, foods });
+    const data = generateDemo({ seed: opts.seed ?? DEFAULT_DEMO_SEED, anchor: opts.anchor, cropTable, foods });
     const hash = await hashPassword(DEMO_PASSWORD);
     const result = await db.transaction(async (tx) => {
       const now = new Date();

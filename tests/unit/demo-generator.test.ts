@@ -105,5 +105,6 @@ describe('the demo generator', () => {
     expect(small.harvests.length).toBeLessThan(a.harvests.length / 3);
     expect(small.beds[0]!.areaM2).toBe(45);
     expect(() => demo(3, { years: 11 })).toThrow(/years must be/);
+    expect(() => demo(3, { anchor: '2026-02-30' })).toThrow(/anchor must be a date/);
   });
 });

@@ -22,8 +22,8 @@ export interface DemoFood {
 export interface DemoOptions {
   /** Any whole number; the same seed and anchor give the same household. */
   seed: number;
-  /** The last day with entries ('YYYY-MM-DD'), usually today in the household's zone. */
-  anchor: string;
+  /** The last day with entries ('YYYY-MM-DD'); default today in the household's zone. */
+  anchor?: string;
   /** Growing years of records, ending with the one holding the anchor (default 3, at most 10). */
   years?: number;
   /** The reference crop table (reference-data/crops.csv, parsed). */

@@ -1,7 +1,8 @@
 /**
  * The demo household, generated (INVENTED data, for the demo and the benchmarks only — never a test
- * oracle). Pure and deterministic: given a seed, an anchor day, the reference crop table and the
- * energy of the foods it names, it returns the same household every time — people, beds, a crop per
+ * oracle). Deterministic: given a seed, an anchor day (default today in the household's zone, its
+ * one reading of the clock), the reference crop table and the energy of the foods it names, it
+ * returns the same household every time — no database, no I/O: people, beds, a crop per
  * crop-table row it grows, plantings per season (veg beds and field strips rotate a step a year),
  * every weighing with its uses, eggs and honey, a few larder records and a year of bought food per
  * year sized so that what is eaten meets the need. Nothing is dated after the anchor.
@@ -13,7 +14,7 @@
 import type { CropTableRow } from '@/lib/crop-table';
 import { addDays, harvestWindow, type FrostDates } from '@/lib/growing-season';
 import { growingYear } from '@/lib/growing-year';
-import { addMonths, listMonths, monthOf } from '@/lib/months';
+import { addMonths, isDate, listMonths, monthOf, todayIn } from '@/lib/months';
 import { monthlyNeeds } from '@/lib/needs';
 import { needsPerson, personInput } from '@/lib/people-schemas';
 import { spreadByDay, spreadEnd } from '@/lib/spread';
@@ -57,7 +58,9 @@ function slotWindow(window: { from: string; to: string }, slot: 'main' | 'early'
 
 /** Generates the demo household. Throws with a sentence when an option or a crop or food is missing. */
 export function generateDemo(options: DemoOptions): DemoData {
-  const { seed, anchor, cropTable, foods } = options;
+  const { seed, cropTable, foods } = options;
+  const anchor = options.anchor ?? todayIn(DEMO_HOUSEHOLD.timezone);
+  if (!isDate(anchor)) throw new Error(`The anchor must be a date written YYYY-MM-DD, got "${anchor}".`);
   const years = options.years ?? 3;
   if (!Number.isInteger(years) || years < 1 || years > MAX_YEARS) throw new Error(`years must be a whole number from 1 to ${MAX_YEARS}, got ${years}.`);
   const areaScale = options.areaScale ?? 1;
