@@ -100,7 +100,8 @@ describe('the demo generator', () => {
   it('takes years and sizes as parameters (a ten-year household, a small one)', () => {
     const long = demo(3, { years: 10 });
     expect(long.household.recordsSince).toBe('2017-03');
-    const small = demo(3, { years: 1, bedCount: 4, areaScale: 0.5, hens: 3 });
+    const small = demo(3, { years: 1, bedCount: 4, areaScale: 0.5, hens: 3, hives: 0 });
+    expect(small.harvests.some((h) => h.food === '19296')).toBe(false);
     expect(small.beds).toHaveLength(4);
     expect(small.harvests.length).toBeLessThan(a.harvests.length / 3);
     expect(small.beds[0]!.areaM2).toBe(45);

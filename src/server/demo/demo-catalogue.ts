@@ -108,7 +108,8 @@ export interface DemoBedSpec {
 }
 
 const strip = (n: number, plan: BedPlanPart[]): DemoBedSpec => ({ key: `strip-${n}`, name: `Field strip ${n}`, areaM2: 90, notes: '3 × 30 m, dug by hand', group: 'strip', plan });
-const veg = (n: number, plan: BedPlanPart[]): DemoBedSpec => ({ key: `bed-${n}`, name: `Bed ${n}`, areaM2: 24, notes: '1.2 × 20 m raised bed', group: 'veg', plan });
+// Lettered, so a list sorted by name reads in order (Bed J after Bed I, not after Bed 1).
+const veg = (n: number, plan: BedPlanPart[]): DemoBedSpec => ({ key: `bed-${n}`, name: `Bed ${String.fromCharCode(64 + n)}`, areaM2: 24, notes: '1.2 × 20 m raised bed', group: 'veg', plan });
 
 /** About 20 beds, in the order a smaller demo keeps them (bedCount takes the first ones). */
 export const DEMO_BEDS: readonly DemoBedSpec[] = [

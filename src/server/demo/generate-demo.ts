@@ -110,12 +110,18 @@ export function generateDemo(options: DemoOptions): DemoData {
         if (season >= firstSeason && planting.harvestFrom <= anchor) plantings.push(planting);
       }
     }
-    const honeyRow = tableRow(cropTable, 'honey-hive');
-    const hw = harvestWindow(honeyRow, season, frost);
-    harvests.push(...honeyHarvests({ window: hw, hives: options.hives ?? DEMO_ANIMALS.hives, perHiveKg: honeyRow.yieldKg.typical, food: foodOf(foods, DEMO_ANIMALS.honeyCode), rng: streamOf(seed, `honey:${season}`) }));
+    const hives = options.hives ?? DEMO_ANIMALS.hives;
+    if (hives > 0) {
+      const honeyRow = tableRow(cropTable, 'honey-hive');
+      const hw = harvestWindow(honeyRow, season, frost);
+      harvests.push(...honeyHarvests({ window: hw, hives, perHiveKg: honeyRow.yieldKg.typical, food: foodOf(foods, DEMO_ANIMALS.honeyCode), rng: streamOf(seed, `honey:${season}`) }));
+    }
   }
-  const eggRow = tableRow(cropTable, 'eggs-hen');
-  harvests.push(...eggHarvests({ from: startDate, to: anchor, hens: options.hens ?? DEMO_ANIMALS.hens, perHenKg: eggRow.yieldKg.typical, food: foodOf(foods, DEMO_ANIMALS.eggCode), rng: streamOf(seed, 'eggs') }));
+  const hens = options.hens ?? DEMO_ANIMALS.hens;
+  if (hens > 0) {
+    const eggRow = tableRow(cropTable, 'eggs-hen');
+    harvests.push(...eggHarvests({ from: startDate, to: anchor, hens, perHenKg: eggRow.yieldKg.typical, food: foodOf(foods, DEMO_ANIMALS.eggCode), rng: streamOf(seed, 'eggs') }));
+  }
 
   // Keep what is dated by the anchor and either falls in the records or is a lot still in store when they start.
   const kept = harvests
