@@ -11,7 +11,7 @@ import { bindHost, bindPort, childEnv, databaseUrl, hasAuthSecret, loadDotEnv, m
 import { serverPaths, stopServer } from './mariadb';
 import { importFoods } from './import-foods';
 import { startMailFake, type MailFake } from './mail-fake';
-import { seedDemo } from './seed-demo';
+import { demoAccountLines, seedDemo } from './seed-demo';
 import { run, startService, stopService, waitForHttp } from './processes';
 
 async function main(): Promise<void> {
@@ -56,7 +56,10 @@ async function main(): Promise<void> {
   process.on('SIGTERM', stopAll);
   await waitForHttp(`http://${env.HOST}:${env.PORT}/`, 30_000, app);
   console.log(`\n  Selfsown is running at ${publicOrigin()}  (Ctrl-C to stop)`);
-  console.log(`  Demo: sign in as demo@selfsown.invalid / selfsown-demo${mail.fake ? `; local mail at ${publicOrigin()}/dev/mail` : ''}\n`);
+  console.log(`  Demo household: sign in at ${publicOrigin()}/sign-in as one of (npm run demo:reset rebuilds it)`);
+  for (const line of demoAccountLines()) console.log(`    ${line}`);
+  if (mail.fake) console.log(`  Local mail: ${publicOrigin()}/dev/mail`);
+  console.log('');
   app.on('exit', (code) => {
     if (!stopping) {
       console.error(`the app server exited (code ${code})`);

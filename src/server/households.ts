@@ -3,7 +3,7 @@ import { and, asc, eq, sql } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { crops, harvests, households, memberships, plantings, purchases, staples, user, type Household, type Role } from '@/db/schema';
 import { compareMonths, monthOf, todayIn } from '@/lib/months';
-import { fieldError } from './entry-input';
+import { fieldError, type Tx } from './entry-input';
 import { HttpError } from './http';
 
 export interface HouseholdInput {
@@ -76,15 +76,18 @@ export async function updateHousehold(current: Household, patch: HouseholdPatch)
  * keys ON DELETE CASCADE, tested in tests/integration/household-delete.test.ts).
  */
 export async function deleteHousehold(householdId: number): Promise<void> {
-  await getDb().transaction(async (tx) => {
-    await tx.delete(harvests).where(eq(harvests.householdId, householdId));
-    await tx.delete(purchases).where(eq(purchases.householdId, householdId));
-    await tx.delete(staples).where(eq(staples.householdId, householdId));
-    // Plantings point at crops (restrict), so they go first; beds go with the household (cascade).
-    await tx.delete(plantings).where(eq(plantings.householdId, householdId));
-    await tx.delete(crops).where(eq(crops.householdId, householdId));
-    await tx.delete(households).where(eq(households.id, householdId));
-  });
+  await getDb().transaction((tx) => deleteHouseholdRows(tx, householdId));
+}
+
+/** deleteHousehold's statements inside a transaction of the caller's (the demo reset uses its own pool). */
+export async function deleteHouseholdRows(tx: Tx, householdId: number): Promise<void> {
+  await tx.delete(harvests).where(eq(harvests.householdId, householdId));
+  await tx.delete(purchases).where(eq(purchases.householdId, householdId));
+  await tx.delete(staples).where(eq(staples.householdId, householdId));
+  // Plantings point at crops (restrict), so they go first; beds go with the household (cascade).
+  await tx.delete(plantings).where(eq(plantings.householdId, householdId));
+  await tx.delete(crops).where(eq(crops.householdId, householdId));
+  await tx.delete(households).where(eq(households.id, householdId));
 }
 
 export async function listMembers(householdId: number) {
