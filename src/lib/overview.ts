@@ -30,7 +30,7 @@ export function nextSteps(c: StepCounts): NextStep[] {
     { key: 'people', label: 'Add the people who eat here', path: '/people', done: c.people > 0 },
     { key: 'crops', label: 'List the crops you grow', path: '/crops', done: c.crops > 0 },
     { key: 'harvest', label: 'Log your first harvest', path: '/log', done: c.harvests > 0 },
-    { key: 'share', label: 'See your home share', path: '/share', done: c.shareKnown },
+    { key: 'share', label: 'See your home share', path: '/share', done: c.harvests > 0 && c.shareKnown },
   ];
 }
 

@@ -8,6 +8,8 @@ describe('a new household’s next steps', () => {
     ]);
     expect(nextSteps({ people: 2, crops: 3, harvests: 1, shareKnown: true }).every((s) => s.done)).toBe(true);
     expect(nextSteps({ people: 0, crops: 1, harvests: 0, shareKnown: false }).map((s) => s.done)).toEqual([false, true, false, false]);
+    // A known 0 % before anything is logged is not yet a home share worth ticking.
+    expect(nextSteps({ people: 1, crops: 1, harvests: 0, shareKnown: true }).map((s) => s.done)).toEqual([true, true, false, false]);
   });
 });
 
