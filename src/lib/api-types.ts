@@ -59,6 +59,20 @@ export interface PersonJson extends PersonFields {
   energy: PersonEnergy | null;
 }
 
+/**
+ * A person as growers and viewers get them (src/lib/privacy.ts): no age, birth dates, height,
+ * weight, pregnancy or breastfeeding — the name, presence and the energy need only.
+ */
+export interface PersonSummaryJson {
+  id: number;
+  name: string;
+  atHomePct: number;
+  presentFrom: string | null;
+  presentTo: string | null;
+  energy: Pick<PersonEnergy, 'kcalPerDay' | 'atHomeKcalPerDay' | 'basis'> | null;
+  bodyDataHidden: true;
+}
+
 /** A row of a CSV import preview as it would be stored. */
 export interface PreviewRow {
   row: number;
@@ -107,7 +121,8 @@ export interface MemberJson {
   userId: string;
   role: RoleValue;
   name: string;
-  email: string;
+  /** Owners see every member's address; others only their own (src/lib/privacy.ts). */
+  email?: string;
 }
 
 /** A pending invitation as GET /api/households/{id}/invitations lists it. */

@@ -24,7 +24,10 @@ test('a viewer switches the monthly letter on from the account page, on a phone 
   await context.addCookies(cookiesFor(viewer.cookie));
 
   await page.setViewportSize({ width: 390, height: 844 });
+  // One household: the list opens it. The account is in the header's one menu.
   await page.goto('/households');
+  await expect(page).toHaveURL(new RegExp(`/households/${h.id}$`));
+  await page.getByTestId('household-switcher').locator('summary').click();
   await page.getByTestId('signed-in-as').click();
   await expect(page).toHaveURL(/\/account$/);
   await expect(page.getByTestId('account-details')).toContainText('Vic Viewer');

@@ -3,6 +3,7 @@
  * prefilled from the reference row and the default frost dates, and both are listed.
  */
 import { expect, test } from './fixtures';
+import { householdLink } from './nav';
 import { apiAs, BASE_URL, householdWithRoles } from '../support/users';
 
 test.use({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, deviceScaleFactor: 2 });
@@ -19,7 +20,8 @@ test('a grower adds a bed and a planting on a phone and sees them listed', async
   await context.addCookies(cookiesFor(f.grower.cookie));
 
   await page.goto(`/households/${f.household.id}/beds`);
-  await expect(page.getByRole('link', { name: 'Beds' })).toHaveAttribute('aria-current', 'page');
+  await expect(await householdLink(page, 'Beds')).toHaveAttribute('aria-current', 'page');
+  await page.keyboard.press('Escape');
   // common practice (no published source): northern default frost dates 1 May and 1 October
   await expect(page.getByTestId('frost-dates')).toContainText('05-01 (default)');
 

@@ -5,6 +5,7 @@
  * at phone and desk size go to the run's artifacts for a person to look at.
  */
 import { expect, test } from './fixtures';
+import { goToTab, householdLink } from './nav';
 import { foodId, logHarvest, makeCrop } from '../support/entries';
 import { apiAs, BASE_URL, householdWithRoles } from '../support/users';
 
@@ -26,8 +27,8 @@ test('a grower finds the gaps, plans by month for energy and vitamin C, and turn
   await context.addCookies(cookiesFor(f.grower.cookie));
 
   await page.goto(`/households/${hid}`);
-  await page.getByRole('link', { name: 'Gaps' }).click();
-  await expect(page.getByRole('link', { name: 'Gaps' })).toHaveAttribute('aria-current', 'page');
+  await goToTab(page, 'Gaps');
+  await expect(await householdLink(page, 'Gaps')).toHaveAttribute('aria-current', 'page');
   await expect(page.getByTestId('gaps-caution')).toContainText('not medical or dietary advice');
   const report = page.getByTestId('gaps-report');
   await expect(report).toBeVisible();

@@ -84,6 +84,7 @@ test('an owner signs up, starts a household and invites a second person, who joi
   await other.close();
 
   // Signing out ends it: the household's pages ask for sign-in again.
+  await page.getByTestId('household-switcher').locator('summary').click();
   await page.getByRole('button', { name: 'Sign out' }).click();
   await expect(page).toHaveURL(/\/$/);
   await expect(page.getByRole('banner').getByRole('link', { name: 'Sign in' })).toBeVisible();

@@ -4,6 +4,7 @@
  * in the lot's bar and undoes it; a viewer sees the same lot without any buttons.
  */
 import { expect, test } from './fixtures';
+import { goToTab, householdLink } from './nav';
 import { foodId, logHarvest, makeCrop } from '../support/entries';
 import { BASE_URL, householdWithRoles } from '../support/users';
 
@@ -28,8 +29,8 @@ test('a grower sees a stored lot in the larder, records a spoilage and undoes it
   await context.addCookies(cookiesFor(f.grower.cookie));
 
   await page.goto(`/households/${hid}`);
-  await page.getByRole('link', { name: 'Larder' }).click();
-  await expect(page.getByRole('link', { name: 'Larder' })).toHaveAttribute('aria-current', 'page');
+  await goToTab(page, 'Larder');
+  await expect(await householdLink(page, 'Larder')).toHaveAttribute('aria-current', 'page');
   await expect(page.getByTestId('larder-caution')).toContainText('tested recipes');
   const card = page.locator(`[data-harvest-id="${lot.id}"]`);
   await expect(card).toBeVisible();

@@ -12,7 +12,7 @@ function cookiesFor(header: string) {
   });
 }
 
-test('a grower adds a person, is told beside the field what is missing, and changes them later', async ({ page, context }) => {
+test('an owner adds a person, is told beside the field what is missing, and changes them later', async ({ page, context }) => {
   const owner = await newVerifiedUser({ name: 'Pia People' });
   const h = await createHousehold(owner.cookie, { name: 'People e2e plot' });
   await context.addCookies(cookiesFor(owner.cookie));

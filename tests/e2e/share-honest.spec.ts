@@ -85,7 +85,7 @@ test('the owner moves the records start back on the settings page, and the share
 
   await page.goto(`/households/${h.id}`);
   // A household made this month with no entries counts from this month (the default rule).
-  await expect(page.getByTestId('records-from')).toContainText(`Records count from ${month}.`);
+  await expect(page.getByTestId('records-from')).toContainText(`records count from ${month}.`);
   await expect(page.getByRole('link', { name: 'Change it in the settings.' })).toHaveAttribute('href', `/households/${h.id}/settings`);
   await page.goto(`/households/${h.id}/settings`);
   await expect(page.getByTestId('records-since-form')).toContainText(`Now counted from ${month}`);

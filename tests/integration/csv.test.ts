@@ -213,7 +213,9 @@ describe('exports', () => {
       'name,sex,age_years,birth_year,height_cm,weight_kg,activity,condition,kcal_per_day,at_home_pct,present_from,present_to,birth_month,pregnancy_due_month,lactation_from,lactation_to,fed_from_household,diet',
       'Ana,female,,1988,,,active,none,,85,,,,,,,false,omnivore',
     ]);
-    const backup = await api(`/api/households/${hid}/exports/backup.json`, { headers: { cookie: t.viewer.cookie } });
+    // The backup holds people's body data: the owner's to download (src/lib/privacy.ts).
+    expect((await api(`/api/households/${hid}/exports/backup.json`, { headers: { cookie: t.viewer.cookie } })).status).toBe(403);
+    const backup = await api(`/api/households/${hid}/exports/backup.json`, { headers: { cookie: t.owner.cookie } });
     expect(backup.status).toBe(200);
     expect(backup.headers.get('content-disposition')).toMatch(/backup-\d{4}-\d{2}-\d{2}\.json"$/);
     expect(backup.body).toMatchObject({ format: 'selfsown-household-backup', version: 1, household: { id: hid } });

@@ -131,7 +131,7 @@ describe('the share report follows the records', () => {
     // A record after it that no longer fits its lot blocks deleting it: 409 names it
     const late = await apiAs(t.owner.cookie, 'POST', url('/outcomes'), { harvestId: lotId, kind: 'spoiled', date: '2026-04-10', lostFraction: 0.5 });
     expect(late.status).toBe(201);
-    const backup = await apiAs(t.viewer.cookie, 'GET', `/api/households/${hid}/exports/backup.json`);
+    const backup = await apiAs(t.owner.cookie, 'GET', `/api/households/${hid}/exports/backup.json`);
     expect(backup.body.larderOutcomes.map((o: any) => [o.harvestId, o.kind, o.date])).toEqual([
       [lotId, 'lasted_longer', '2026-03-01'],
       [lotId, 'spoiled', '2026-04-10'],

@@ -22,7 +22,7 @@ describe('people API', () => {
   });
 
   it('estimates the energy need by the IOM 2005 EER when none is stated', async () => {
-    const r = await apiAs(t.grower.cookie, 'POST', base(), { name: 'Tomas', sex: 'male', ageYears: 30, heightCm: 177, weightKg: 70, activity: 'very' });
+    const r = await apiAs(t.owner.cookie, 'POST', base(), { name: 'Tomas', sex: 'male', ageYears: 30, heightCm: 177, weightKg: 70, activity: 'very' });
     expect(r.status).toBe(201);
     // IOM 2005 EER men ≥19 y: 662 − 9.53 × 30 + 1.48 × (15.91 × 70 + 539.6 × 1.77), PA "very active" = 1.48
     const eer = 662 - 9.53 * 30 + 1.48 * (15.91 * 70 + 539.6 * 1.77);
@@ -41,11 +41,11 @@ describe('people API', () => {
   it('changes a person with PATCH, null clearing a field', async () => {
     const list = (await apiAs(t.owner.cookie, 'GET', base())).body.people;
     const rosa = list.find((p: { name: string }) => p.name === 'Rosa');
-    const r = await apiAs(t.grower.cookie, 'PATCH', `${base()}/${rosa.id}`, { kcalPerDay: null, ageYears: null, birthYear: 1990, presentFrom: '2026-05-01' });
+    const r = await apiAs(t.owner.cookie, 'PATCH', `${base()}/${rosa.id}`, { kcalPerDay: null, ageYears: null, birthYear: 1990, presentFrom: '2026-05-01' });
     expect(r.status).toBe(200);
     expect(r.body.person).toMatchObject({ kcalPerDay: null, ageYears: null, birthYear: 1990, presentFrom: '2026-05-01', atHomePct: 80 });
     expect(r.body.person.energy.basis).toBe('EER');
-    const again = await apiAs(t.viewer.cookie, 'GET', `${base()}/${rosa.id}`);
+    const again = await apiAs(t.owner.cookie, 'GET', `${base()}/${rosa.id}`);
     expect(again.body.person.birthYear).toBe(1990);
   });
 
@@ -72,8 +72,11 @@ describe('people API', () => {
     expect(text.status).toBe(415);
   });
 
-  it('lets only owners and growers change people', async () => {
+  it('lets only owners change people: the body data is theirs to keep', async () => {
     const rosa = (await apiAs(t.owner.cookie, 'GET', base())).body.people.find((p: { name: string }) => p.name === 'Rosa');
+    expect((await apiAs(t.grower.cookie, 'POST', base(), { name: 'G', sex: 'male', ageYears: 9 })).status).toBe(403);
+    expect((await apiAs(t.grower.cookie, 'PATCH', `${base()}/${rosa.id}`, { atHomePct: 10 })).status).toBe(403);
+    expect((await apiAs(t.grower.cookie, 'DELETE', `${base()}/${rosa.id}`)).status).toBe(403);
     expect((await apiAs(t.viewer.cookie, 'POST', base(), { name: 'V', sex: 'male', ageYears: 9 })).status).toBe(403);
     expect((await apiAs(t.viewer.cookie, 'PATCH', `${base()}/${rosa.id}`, { atHomePct: 10 })).status).toBe(403);
     expect((await apiAs(t.viewer.cookie, 'DELETE', `${base()}/${rosa.id}`)).status).toBe(403);
@@ -98,7 +101,7 @@ describe('people API', () => {
 
   it('removes a person (204), after which they are gone', async () => {
     const tomas = (await apiAs(t.owner.cookie, 'GET', base())).body.people.find((p: { name: string }) => p.name === 'Tomas');
-    expect((await apiAs(t.grower.cookie, 'DELETE', `${base()}/${tomas.id}`)).status).toBe(204);
+    expect((await apiAs(t.owner.cookie, 'DELETE', `${base()}/${tomas.id}`)).status).toBe(204);
     expect((await apiAs(t.owner.cookie, 'GET', `${base()}/${tomas.id}`)).status).toBe(404);
     expect((await apiAs(t.owner.cookie, 'DELETE', `${base()}/${tomas.id}`)).status).toBe(404);
   });

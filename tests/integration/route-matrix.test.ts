@@ -93,10 +93,10 @@ const ROUTES: Row[] = [
   ['DELETE', 'crops/[cropId]',               write(404)],
   // people (who eats)
   ['GET',    'people/index',                 read(200)],
-  ['POST',   'people/index',                 write(400)],
+  ['POST',   'people/index',                 own(400)],
   ['GET',    'people/[personId]',            read(404)],
-  ['PATCH',  'people/[personId]',            write(400)],
-  ['DELETE', 'people/[personId]',            write(404)],
+  ['PATCH',  'people/[personId]',            own(400)],
+  ['DELETE', 'people/[personId]',            own(404)],
   // beds, plantings, growing season
   ['GET',    'beds/index',                   read(200)],
   ['POST',   'beds/index',                   write(400)],

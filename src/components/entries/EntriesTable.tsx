@@ -22,7 +22,7 @@ import {
 import { useMemo, useState, type ComponentType, type ReactNode } from 'react';
 import type { EntryTotals } from '@/lib/entry-types';
 import { request, type HouseholdInfo } from './api';
-import { FilterBar, MessageRow, Pager, SortHeader, SortSelect, stack, TotalsLine } from './table-bits';
+import { FilterBar, MessageRow, Pager, SortHeader, SortSelect, stack, stickyFirst, TotalsLine } from './table-bits';
 import { paramFromSorting, sortingFromParam, type ColumnSortKeys, type Sorting } from './table-sort';
 import { Alert, ConfirmDelete } from './ui';
 
@@ -208,9 +208,9 @@ export function EntriesTable<T extends { id: number } & RowData>(props: EntriesT
           <thead className={stack.thead}>
             {table.getHeaderGroups().map((group) => (
               <tr key={group.id}>
-                {group.headers.map((header) => {
+                {group.headers.map((header, i) => {
                   const meta = header.column.columnDef.meta;
-                  const right = meta?.right ? 'text-right' : '';
+                  const right = `${meta?.right ? 'text-right' : ''} ${i === 0 ? stickyFirst.head : ''}`;
                   if (meta?.sort)
                     return (
                       <SortHeader key={header.id} label={String(header.column.columnDef.header)} state={header.column.getIsSorted()} onToggle={header.column.getToggleSortingHandler()} className={right} />
@@ -235,8 +235,8 @@ export function EntriesTable<T extends { id: number } & RowData>(props: EntriesT
                   <EditRow key={row.id} entry={row.original} colSpan={colCount} household={household} onDone={() => setEditing(null)} />
                 ) : (
                   <tr key={row.id} className={stack.row} data-testid={props.testIds.row} data-id={row.original.id}>
-                    {row.getAllCells().map((cell) => (
-                      <td key={cell.id} className={cell.column.columnDef.meta?.cellClass}>
+                    {row.getAllCells().map((cell, i) => (
+                      <td key={cell.id} className={`${cell.column.columnDef.meta?.cellClass ?? ''} ${i === 0 ? stickyFirst.cell : ''}`}>
                         <FlexRender cell={cell} />
                       </td>
                     ))}

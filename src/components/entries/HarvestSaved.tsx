@@ -18,12 +18,13 @@ export interface SavedEntry {
 export function SavedList({ saved, onUndo, undoing }: { saved: SavedEntry[]; onUndo: (s: SavedEntry) => void; undoing: string | undefined }) {
   const ref = useRef<HTMLElement>(null);
   const newest = saved[0]?.key;
-  // On a phone the confirmation lands below the fold: bring it up so the thumb sees it (and Undo).
+  // On a phone the confirmation lands below the fold: bring it up so the thumb sees it (and Undo),
+  // clear of the bottom bar (scroll-mb-24).
   useEffect(() => {
     if (newest) ref.current?.scrollIntoView({ block: 'nearest', behavior: 'smooth' });
   }, [newest]);
   return (
-    <section ref={ref} aria-label="Just saved" aria-live="polite" className="mt-4 scroll-mb-4" data-testid="just-saved">
+    <section ref={ref} aria-label="Just saved" aria-live="polite" className="mt-4 scroll-mb-24 sm:scroll-mb-4" data-testid="just-saved">
       {saved.map((s, i) => (
         <div key={s.key} className={`flex flex-wrap items-center gap-3 rounded-2xl border p-4 ${i === 0 ? 'border-sprout-300 bg-sprout-100' : 'mt-2 border-loam-200 bg-white'}`}>
           <div className="min-w-0 flex-1">

@@ -106,6 +106,15 @@ export const stack = {
   actions: 'max-sm:order-6 max-sm:col-span-2 max-sm:p-0 max-sm:pt-2 max-sm:text-left',
 } as const;
 
+/**
+ * The first column (what the row is) stays in view while a wide table scrolls sideways on a
+ * tablet-sized screen; on a phone the table is cards already (`stack`) and nothing sticks.
+ */
+export const stickyFirst = {
+  head: 'sm:sticky sm:left-0 sm:z-10 sm:bg-loam-50',
+  cell: 'sm:sticky sm:left-0 sm:z-10 sm:bg-white',
+} as const;
+
 /** A sort picker for phones, where the column headers are hidden. */
 export function SortSelect({ id, sort, onSort, options }: { id: string; sort: string; onSort: (s: string) => void; options: [string, string][] }) {
   return (

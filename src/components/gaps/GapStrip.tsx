@@ -33,7 +33,7 @@ export function GapStrip({ report }: { report: GapsResponse }) {
           <caption className="sr-only">Home share of need per nutrient and month, with the leanest months marked</caption>
           <thead>
             <tr>
-              <th scope="col" className="text-left text-xs font-semibold text-loam-700">
+              <th scope="col" className="sticky left-0 z-10 bg-white text-left text-xs font-semibold text-loam-700">
                 Nutrient
               </th>
               {months.map((m) => (
@@ -49,7 +49,7 @@ export function GapStrip({ report }: { report: GapsResponse }) {
           <tbody>
             {report.nutrients.map((n) => (
               <tr key={n.key} data-testid={`strip-${n.key}`}>
-                <th scope="row" className="max-w-[5.5rem] truncate pr-1 text-left font-semibold sm:max-w-none" title={n.name}>
+                <th scope="row" className="sticky left-0 z-10 max-w-[5.5rem] truncate bg-white pr-1 text-left font-semibold sm:max-w-none" title={n.name}>
                   {n.name}
                 </th>
                 {n.months.map((m) => {

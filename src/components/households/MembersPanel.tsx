@@ -134,7 +134,7 @@ function MemberRow({ m, isMe, isOwner, busy, onRole, onRemove }: { m: MemberJson
     <li className="flex flex-wrap items-center gap-3 py-3" data-testid="member">
       <div className="min-w-48">
         <div className="font-semibold">{m.name}{isMe ? ' (you)' : ''}</div>
-        <div className="text-sm text-loam-700">{m.email}</div>
+        {m.email ? <div className="text-sm text-loam-700">{m.email}</div> : null}
       </div>
       {isOwner ? (
         <div className="ml-auto flex flex-wrap items-center gap-2">

@@ -1,17 +1,17 @@
 /**
- * People who eat in the household: list, add, edit and remove (owners and growers), each with
+ * People who eat in the household: list, add, edit and remove (owners), each with
  * their daily energy need and what it rests on. The form (PersonForm.tsx) is react-hook-form,
  * checked with the shared zod schema of src/lib/people-schemas.ts before sending and again by the
  * API; heights and weights are shown and typed in the household's units.
  */
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
-import type { PersonJson } from '@/lib/api-types';
+import type { PersonJson, PersonSummaryJson } from '@/lib/api-types';
 import type { UnitSystem } from '@/lib/units';
 import { Alert, ConfirmDelete } from '@/components/entries/ui';
 import { QueryProvider } from '@/components/QueryProvider';
 import { get, request } from '@/components/request';
-import { PersonCard } from './PersonCard';
+import { PersonCard, PersonSummaryCard } from './PersonCard';
 import { PersonForm } from './PersonForm';
 
 interface Props {
@@ -29,7 +29,8 @@ export default function PeoplePanel(props: Props) {
   );
 }
 
-type PeopleList = { month: string; people: PersonJson[] };
+/** Owners get whole people; growers and viewers a summary without body data (src/lib/privacy.ts). */
+type PeopleList = { month: string; people: (PersonJson | PersonSummaryJson)[] };
 
 function People({ householdId, canWrite, units = 'metric' }: Props) {
   const base = `/api/households/${householdId}/people`;
@@ -59,7 +60,11 @@ function People({ householdId, canWrite, units = 'metric' }: Props) {
       ) : null}
       <ul className="mt-4 grid gap-4" data-testid="people-list">
         {people.map((p) =>
-          editing === p.id ? (
+          'bodyDataHidden' in p ? (
+            <li key={p.id} className="card" data-testid="person">
+              <PersonSummaryCard person={p} />
+            </li>
+          ) : editing === p.id ? (
             <li key={p.id} className="card">
               <PersonForm
                 title={`Change ${p.name}`}
@@ -112,7 +117,10 @@ function People({ householdId, canWrite, units = 'metric' }: Props) {
           </button>
         )
       ) : (
-        <p className="mt-4 text-loam-700">Your role can read the people of this household but not change them.</p>
+        <p className="mt-4 text-loam-700" data-testid="people-owner-only">
+          Ages, sizes and pregnancies stay with the household’s owners: an owner adds and changes people. You see each person’s
+          name and the energy they need.
+        </p>
       )}
     </div>
   );

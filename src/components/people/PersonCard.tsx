@@ -3,7 +3,7 @@
  * and breastfeeding, diet, height and weight in the household's units, and the daily energy need
  * with what it rests on.
  */
-import type { PersonJson } from '@/lib/api-types';
+import type { PersonJson, PersonSummaryJson } from '@/lib/api-types';
 import { heightText, weightText } from '@/lib/body-plausibility';
 import { formatAmount } from '@/lib/format-number';
 import { ACTIVITY_LABELS, DIET_LABELS } from '@/lib/people-schemas';
@@ -102,6 +102,30 @@ export function PersonCard({ person: p, units }: { person: PersonJson; units: Un
           ) : null}
         </details>
       ) : null}
+    </div>
+  );
+}
+
+/** A person as growers and viewers see them: the name, when they eat here and the energy they need. */
+export function PersonSummaryCard({ person: p }: { person: PersonSummaryJson }) {
+  const e = p.energy;
+  return (
+    <div>
+      <h2 className="text-xl font-extrabold">{p.name}</h2>
+      {e ? (
+        <p className="mt-2">
+          <span className="text-3xl font-extrabold text-sprout-900" data-testid="person-kcal">
+            {formatAmount(e.kcalPerDay)} kcal
+          </span>{' '}
+          <span className="text-loam-700">a day</span>
+        </p>
+      ) : (
+        <p className="mt-2 text-loam-700">No need counted this month.</p>
+      )}
+      <p className="mt-1 text-sm text-loam-700">
+        Meals from the household: {formatAmount(p.atHomePct)} %
+        {p.presentFrom || p.presentTo ? ` · eats here ${p.presentFrom ? `from ${p.presentFrom}` : ''} ${p.presentTo ? `to ${p.presentTo}` : ''}` : ''}
+      </p>
     </div>
   );
 }

@@ -32,7 +32,7 @@ export function HarvestUses({ report, units }: { report: ShareResponse; units: U
             <caption className="sr-only">The period's harvest by use</caption>
             <thead>
               <tr className="text-left">
-                <th scope="col" className="p-2">Use</th>
+                <th scope="col" className="sticky left-0 z-10 bg-white p-2">Use</th>
                 <th scope="col" className="p-2">Harvested</th>
                 <th scope="col" className="p-2">Edible portion</th>
                 <th scope="col" className="p-2">Energy</th>
@@ -42,7 +42,7 @@ export function HarvestUses({ report, units }: { report: ShareResponse; units: U
             <tbody>
               {report.uses.map((u) => (
                 <tr key={u.use} className="border-t border-loam-200" data-use={u.use}>
-                  <th scope="row" className="p-2 text-left font-semibold">
+                  <th scope="row" className="sticky left-0 z-10 bg-white p-2 text-left font-semibold">
                     <span className="mr-2 inline-block h-3 w-3 rounded-full" style={{ background: COLOURS[u.use] }} aria-hidden="true" />
                     {USE_LABELS[u.use]}
                   </th>

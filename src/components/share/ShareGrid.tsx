@@ -35,15 +35,16 @@ export function ShareGrid({ report, vegetarian = false }: { report: ShareRespons
   const columns = 1 + report.months.length + (firstFuture >= 0 ? 1 : 0) + 1 + (soFar ? 1 : 0) + 1;
   const groups = runs(report.months);
   const lastCounted = report.months.findLast((m) => !m.beforeRecords && !m.future)?.month;
-  // On a narrow screen, open the grid at the latest month on record rather than at a row of grey.
+  // On a narrow screen, open the grid at the current month (else the latest on record) rather than at a row of grey.
+  const openAt = report.months.some((m) => m.month === report.currentMonth) ? report.currentMonth : lastCounted;
   const scroller = useRef<HTMLDivElement>(null);
   useEffect(() => {
     const box = scroller.current;
-    const head = lastCounted ? box?.querySelector<HTMLElement>(`[data-testid="month-head-${lastCounted}"]`) : null;
+    const head = openAt ? box?.querySelector<HTMLElement>(`[data-testid="month-head-${openAt}"]`) : null;
     if (!box || !head) return;
     // Right-align it, so that as many months before it as fit stay in view.
     box.scrollLeft = Math.max(0, head.offsetLeft + head.offsetWidth + 8 - box.clientWidth);
-  }, [lastCounted, report.from, report.to]);
+  }, [openAt, report.from, report.to]);
   // A caution shared by neighbouring rows (the AMDR range of fat and carbohydrate) is said once, under the last.
   const cautionsOf = report.nutrients.map((n) => nutrientCautions(n.key, { vegetarian }));
   const shown = cautionsOf.map((list, i) => list.filter((c) => !(cautionsOf[i + 1] ?? []).some((d) => d.id === c.id)));

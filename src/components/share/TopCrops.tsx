@@ -19,7 +19,7 @@ export function TopCrops({ report }: { report: ShareResponse }) {
             <caption className="sr-only">The home-grown crops that supplied most of each nutrient, with amount and share of everything home-grown</caption>
             <thead>
               <tr className="text-left">
-                <th scope="col" className="p-2">Nutrient</th>
+                <th scope="col" className="sticky left-0 z-10 bg-white p-2">Nutrient</th>
                 {Array.from({ length: PER_NUTRIENT }, (_, i) => (
                   <th key={i} scope="col" className="p-2">
                     {i === 0 ? 'Most' : i === 1 ? 'Second' : 'Third'}
@@ -35,7 +35,7 @@ export function TopCrops({ report }: { report: ShareResponse }) {
                   .slice(0, PER_NUTRIENT);
                 return (
                   <tr key={n.key} className="border-t border-loam-200">
-                    <th scope="row" className="p-2 text-left font-semibold">
+                    <th scope="row" className="sticky left-0 z-10 bg-white p-2 text-left font-semibold">
                       {n.name}
                     </th>
                     {Array.from({ length: PER_NUTRIENT }, (_, i) => {
