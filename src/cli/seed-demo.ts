@@ -17,11 +17,13 @@ import { DEMO_HOUSEHOLD } from '@/server/demo/demo-catalogue';
 import { demoFoodCodes } from '@/server/demo/demo-foods';
 import { DEFAULT_DEMO_SEED, generateDemo } from '@/server/demo/generate-demo';
 import { loadDemoFoods, writeDemo } from '@/server/demo/write-demo';
+import { DEMO_OWNER_EMAIL } from '@/server/demo-preview';
 import { isMain } from './is-main';
 
 export { DEMO_HOUSEHOLD };
 export const DEMO_PASSWORD = 'selfsown-demo';
-export const DEMO_EMAIL = 'demo@selfsown.invalid';
+/** The owner's address has one home, beside the landing page's preview that looks it up. */
+export const DEMO_EMAIL = DEMO_OWNER_EMAIL;
 
 /** The demo's accounts, one per role (invented people; `.invalid` addresses never receive mail). */
 export const DEMO_ACCOUNTS = [

@@ -12,7 +12,7 @@ import { growingYear, growingYearLabel } from '@/lib/growing-year';
 import { currentMonth } from './people';
 import { householdShare } from './share-data';
 
-/** The demo owner's address, as src/cli/seed-demo.ts creates it. */
+/** The demo owner's address: src/cli/seed-demo.ts creates the account under it. */
 export const DEMO_OWNER_EMAIL = 'demo@selfsown.invalid';
 const KEEP_MS = 60 * 1000;
 

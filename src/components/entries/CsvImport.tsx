@@ -231,7 +231,7 @@ function CsvImportInner({ household }: { household: HouseholdInfo }) {
           ) : null}
 
           {preview.rows.length > 0 ? (
-            <div className="mt-4 overflow-x-auto rounded-2xl border border-loam-200 bg-white">
+            <div role="region" aria-label="Rows of the file" tabIndex={0} className="mt-4 overflow-x-auto focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-focus rounded-2xl border border-loam-200 bg-white">
               <table className="w-full min-w-[36rem] border-collapse text-left text-sm">
                 <caption className="sr-only">Rows as they would be stored</caption>
                 <thead className="border-b border-loam-200 bg-loam-50">

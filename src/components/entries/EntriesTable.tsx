@@ -202,7 +202,7 @@ export function EntriesTable<T extends { id: number } & RowData>(props: EntriesT
       <Alert message={alert} />
       {list.isError ? <Alert message={`${words.loadError}: ${(list.error as Error).message}`} /> : null}
 
-      <div className="mt-4 overflow-x-auto rounded-2xl border border-loam-200 bg-white">
+      <div role="region" aria-label="Entries" tabIndex={0} className="mt-4 overflow-x-auto focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-focus rounded-2xl border border-loam-200 bg-white">
         <table className={stack.table} data-testid={props.testIds.table}>
           <caption className="sr-only">{words.caption(sort)}</caption>
           <thead className={stack.thead}>

@@ -28,7 +28,7 @@ export function GapStrip({ report }: { report: GapsResponse }) {
           </li>
         ))}
       </ul>
-      <div className="mt-3 overflow-x-auto rounded-2xl border border-loam-200 bg-white p-2">
+      <div role="region" aria-label="Gaps by nutrient and month" tabIndex={0} className="mt-3 overflow-x-auto focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-focus rounded-2xl border border-loam-200 bg-white p-2">
         <table className="w-full border-separate border-spacing-0.5 text-sm" data-testid="gap-strip">
           <caption className="sr-only">Home share of need per nutrient and month, with the leanest months marked</caption>
           <thead>

@@ -27,7 +27,7 @@ export function HarvestUses({ report, units }: { report: ShareResponse; units: U
                 <span key={u.use} style={{ width: `${(u.grams / total) * 100}%`, background: COLOURS[u.use] }} />
               ))}
           </div>
-          <div className="relative mt-3 overflow-x-auto">
+          <div role="region" aria-label="Where the harvest went, table" tabIndex={0} className="relative mt-3 overflow-x-auto focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-focus">
           <table className="w-full max-w-2xl border-collapse text-sm" data-testid="harvest-uses">
             <caption className="sr-only">The period's harvest by use</caption>
             <thead>

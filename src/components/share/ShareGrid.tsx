@@ -59,7 +59,7 @@ export function ShareGrid({ report, vegetarian = false }: { report: ShareRespons
         at home, or the reference food has no value for it. 100 % is covered; more is not better.
       </p>
       <Legend />
-      <div ref={scroller} className="relative mt-3 overflow-x-auto rounded-2xl border border-loam-200 bg-white">
+      <div role="region" aria-label="Home share by nutrient and month" tabIndex={0} ref={scroller} className="relative mt-3 overflow-x-auto focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-focus rounded-2xl border border-loam-200 bg-white">
         <table className="min-w-max border-separate border-spacing-0.5 p-2 text-sm" data-testid="share-grid">
           <caption className="sr-only">Home share of the recommended intake per nutrient and month, in percent</caption>
           <thead>

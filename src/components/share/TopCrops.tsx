@@ -14,7 +14,7 @@ export function TopCrops({ report }: { report: ShareResponse }) {
       {report.topCrops.length === 0 ? (
         <p className="mt-2 text-loam-700">Nothing home-grown was eaten in this period yet.</p>
       ) : (
-        <div className="relative mt-3 overflow-x-auto">
+        <div role="region" aria-label="Top crops, table" tabIndex={0} className="relative mt-3 overflow-x-auto focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-focus">
           <table className="w-full min-w-max border-collapse text-sm" data-testid="top-crops">
             <caption className="sr-only">The home-grown crops that supplied most of each nutrient, with amount and share of everything home-grown</caption>
             <thead>
