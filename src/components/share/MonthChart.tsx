@@ -91,7 +91,7 @@ export function MonthChart({ report, units }: { report: ShareResponse; units: Un
       </div>
       <details className="mt-3">
         <summary className="cursor-pointer font-semibold text-sprout-700">Show {nutrient.name.toLowerCase()} as a table</summary>
-        <div role="region" aria-label="Home share by month, chart" tabIndex={0} className="relative mt-2 overflow-x-auto focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-focus">
+        <div role="region" aria-label="Home share by month, table" tabIndex={0} className="relative mt-2 overflow-x-auto focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-focus">
           <table className="w-full min-w-max border-collapse text-sm" data-testid="month-table">
             <caption className="sr-only">
               {nutrient.name} per month in {nutrient.unit}
