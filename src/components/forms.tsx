@@ -9,6 +9,7 @@ import type { ReactNode } from 'react';
 import { useForm, type DefaultValues, type FieldValues, type Path, type UseFormRegisterReturn, type UseFormReturn } from 'react-hook-form';
 import type { z } from 'zod';
 import { ApiError } from './request';
+import { useThumbFloat } from './thumb-float';
 
 export type FieldErrors = Record<string, string>;
 
@@ -95,10 +96,11 @@ export function FieldError({ id, error }: { id: string; error?: string | undefin
 
 /** A message about the whole form; role=alert so screen readers read it when it appears. */
 export function FormAlert({ message, tone = 'error' }: { message: string | null; tone?: 'error' | 'ok' }) {
+  const float = useThumbFloat(message, tone === 'ok');
   return (
     <div role={tone === 'error' ? 'alert' : 'status'} aria-live={tone === 'error' ? 'assertive' : 'polite'}>
       {message ? (
-        <p className={`mt-4 rounded-xl p-3 font-semibold ${tone === 'error' ? 'bg-berry-700/10 text-berry-700' : 'bg-sprout-100 text-sprout-900'}`}>{message}</p>
+        <p className={`mt-4 rounded-xl p-3 font-semibold ${tone === 'error' ? 'bg-berry-700/10 text-berry-700' : 'bg-sprout-100 text-sprout-900'} ${float}`}>{message}</p>
       ) : null}
     </div>
   );

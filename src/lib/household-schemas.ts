@@ -10,7 +10,7 @@ export type RoleValue = (typeof ROLE_VALUES)[number];
 
 export const ROLE_LABELS: Record<RoleValue, string> = {
   owner: 'Owner — everything, including members, the household’s settings and deleting it',
-  grower: 'Grower — logs harvests and food, edits crops, people and plans',
+  grower: 'Grower — logs harvests and food, records what happened in the larder, edits crops, beds and plans',
   viewer: 'Viewer — reads everything, changes nothing',
 };
 

@@ -7,14 +7,12 @@
 import { useEffect, useState, type ReactNode } from 'react';
 import { USE_LABELS, USES, type Use } from '@/lib/entry-schemas';
 import { FieldError as ErrorText } from '@/components/forms';
+import { useThumbFloat } from '@/components/thumb-float';
 import { DEFAULT_ENTRY_UNIT, WEIGHT_UNITS, isWeightUnit, type UnitSystem, type WeightUnit } from '@/lib/units';
 
 // The field pieces live in ../forms (shared with the account and household forms); re-exported
 // here so the entry islands keep one import.
 export { describedBy, invalidProps, FieldShell, FieldError as ErrorText, type FieldErrors as Errors } from '@/components/forms';
-
-/** How long good news floats above a phone's bottom bar before it settles into the page. */
-const FLOAT_MS = 6000;
 
 /**
  * A message for the whole form: role=alert for errors, role=status for good news. On a phone,
@@ -23,14 +21,7 @@ const FLOAT_MS = 6000;
  */
 export function Alert({ message, tone = 'error' }: { message: ReactNode | null; tone?: 'error' | 'ok' | 'wait' }) {
   const style = tone === 'error' ? 'bg-berry-700/10 text-berry-700' : tone === 'ok' ? 'bg-sprout-100 text-sprout-900' : 'bg-rind-100 text-loam-900';
-  const [floating, setFloating] = useState(false);
-  useEffect(() => {
-    if (tone !== 'ok' || !message) return;
-    setFloating(true);
-    const t = setTimeout(() => setFloating(false), FLOAT_MS);
-    return () => clearTimeout(t);
-  }, [message, tone]);
-  const float = floating ? 'max-sm:fixed max-sm:inset-x-3 max-sm:bottom-20 max-sm:z-40 max-sm:shadow-lg' : '';
+  const float = useThumbFloat(message, tone === 'ok');
   return (
     <div role={tone === 'error' ? 'alert' : 'status'}>
       {message ? <div className={`mt-4 rounded-xl p-3 font-semibold ${style} ${float}`} data-testid={tone === 'ok' ? 'confirmation' : undefined}>{message}</div> : null}

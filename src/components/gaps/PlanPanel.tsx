@@ -8,6 +8,7 @@
 import { useMutation } from '@tanstack/react-query';
 import { useMemo, useState } from 'react';
 import { FormAlert, formMessage, showFailure, useSchemaForm } from '@/components/forms';
+import { useThumbFloat } from '@/components/thumb-float';
 import type { GapsResponse } from '@/lib/gap-types';
 import { PLAN_BASES, TARGET_PERCENTS, planBody, planForm, type PlanFormValues } from '@/lib/gaps-schemas';
 import { formatAmount } from '@/lib/format-number';
@@ -27,6 +28,7 @@ export function PlanPanel({ householdId, report, canPlant }: { householdId: numb
   const [plan, setPlan] = useState<PlanAnswer | null>(null);
   const [areas, setAreas] = useState<Record<string, string>>({});
   const [planted, setPlanted] = useState<number | null>(null);
+  const plantedFloat = useThumbFloat(planted);
 
   const planning = useMutation({
     mutationFn: (body: Parameters<typeof makePlan>[1]) => makePlan(householdId, body),
@@ -187,7 +189,7 @@ export function PlanPanel({ householdId, report, canPlant }: { householdId: numb
               {planting.isPending ? 'Making plantings…' : 'Turn into plantings'}
             </button>
             {planted !== null ? (
-              <p role="status" className="font-semibold text-sprout-900" data-testid="planted">
+              <p role="status" className={`rounded-xl bg-sprout-100 p-3 font-semibold text-sprout-900 ${plantedFloat}`} data-testid="planted">
                 {countText(planted, 'planting')} made for {report.year}.{' '}
                 <a className="link" href={`/households/${householdId}/beds`}>
                   See them on the Beds page
