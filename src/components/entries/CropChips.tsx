@@ -4,6 +4,7 @@
  */
 import { lastHarvestText, type OrderedCrop } from './crop-order';
 import { ErrorText } from './ui';
+import { countText } from '@/lib/plural';
 
 /** How many crops get a big button of their own; the rest are in a list below them. */
 const CHIP_COUNT = 8;
@@ -42,7 +43,7 @@ export function CropChips({ ordered, value, today, error, onPick }: { ordered: O
             Another crop
           </label>
           <select id="crop-more" className="field mt-1" value={chosenOutside ? String(value) : ''} onChange={(e) => e.target.value && onPick(Number(e.target.value))}>
-            <option value="">Choose from all {ordered.length} crops…</option>
+            <option value="">{ordered.length === 1 ? 'Choose the crop…' : `Choose from all ${countText(ordered.length, 'crop')}…`}</option>
             {ordered.map(({ crop: c }) => (
               <option key={c.id} value={c.id}>
                 {c.displayName}
