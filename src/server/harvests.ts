@@ -240,7 +240,8 @@ async function reviseHarvest(tx: Tx, householdId: number, row: Harvest, patch: H
     plantingId: row.plantingId,
   };
   // A new crop or food leaves the old crop's planting behind unless the patch names one.
-  const base = patch.cropId !== undefined || patch.foodId !== undefined ? { ...current, plantingId: patch.plantingId ?? null } : current;
+  const newCrop = (patch.cropId !== undefined && patch.cropId !== row.cropId) || (patch.foodId !== undefined && row.cropId !== null);
+  const base = newCrop ? { ...current, plantingId: patch.plantingId ?? null } : current;
   const merged = mergeHarvestPatch(base, patch);
   if (!merged.success) throw invalidInput(merged.error);
   if (patch.date !== undefined) await checkNotFuture(tx, householdId, merged.data.date);
