@@ -55,7 +55,7 @@ test('the harvest log shows a split as one weighing with its parts; a new date m
   const parts = [{ quantity: 2, use: 'fresh' }, { quantity: 10, use: 'stored', spreadMonths: 5 }];
   expect((await apiAs(owner.cookie, 'POST', `/api/households/${h.id}/harvests`, { date: '2026-09-10', cropId: potato.id, unit: 'kg', parts })).status).toBe(201);
   await page.goto(`/households/${h.id}/harvests`);
-  await expect(page.getByTestId('split-weighing')).toHaveText(/One weighing of Potato \(Charlotte\), .*: 12 kg in 2 parts — 2 kg fresh, 10 kg stored/);
+  await expect(page.getByTestId('split-weighing')).toHaveText(/One weighing of Potato \(Charlotte\), .*: 12 kg in 2 parts — 2 kg eaten fresh, 10 kg stored/);
   await expect(page.getByTestId('harvest-row')).toHaveCount(2);
 
   // The first part's date changed: both parts move to the new day.

@@ -69,7 +69,8 @@ function harvestColumns(units: UnitSystem): EntryColumn<Harvest>[] {
 
 /** The page's rows with the parts of each split weighing together, where its first part stands. */
 function weighingOrder(rows: Harvest[]): Harvest[] {
-  return groupWeighings(rows).flatMap((line) => (line.kind === 'split' ? line.parts : [line.entry]));
+  // Within a weighing the parts keep the order they were entered in, whatever the list's sort.
+  return groupWeighings(rows).flatMap((line) => (line.kind === 'split' ? [...line.parts].sort((a, b) => a.id - b.id) : [line.entry]));
 }
 
 /** Above the first part of a split weighing on the page: the weighing, its total and its parts. */
