@@ -239,10 +239,8 @@ async function reviseHarvest(tx: Tx, householdId: number, row: Harvest, patch: H
     note: row.note,
     plantingId: row.plantingId,
   };
-  // A new crop or food leaves the old crop's planting behind unless the patch names one.
-  const newCrop = (patch.cropId !== undefined && patch.cropId !== row.cropId) || (patch.foodId !== undefined && row.cropId !== null);
-  const base = newCrop ? { ...current, plantingId: patch.plantingId ?? null } : current;
-  const merged = mergeHarvestPatch(base, patch);
+  // A planting of the old crop stays and is refused (422) unless the patch clears or replaces it.
+  const merged = mergeHarvestPatch(current, patch);
   if (!merged.success) throw invalidInput(merged.error);
   if (patch.date !== undefined) await checkNotFuture(tx, householdId, merged.data.date);
   const basis = await harvestBasis(tx, householdId, merged.data);

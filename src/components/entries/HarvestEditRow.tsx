@@ -37,7 +37,8 @@ export function HarvestEditRow({ entry: harvest, colSpan, household, onDone }: {
       note,
       trimmed,
       // Crop and date only when changed: on a split part they move every part of the weighing.
-      ...(cropId !== '' && Number(cropId) !== harvest.cropId ? { cropId: Number(cropId) } : {}),
+      // A new crop leaves the old crop's planting behind (the API refuses a planting of another crop).
+      ...(cropId !== '' && Number(cropId) !== harvest.cropId ? { cropId: Number(cropId), plantingId: null } : {}),
       ...(date !== harvest.date ? { date } : {}),
       // Blank months: kept as stored, or after a change of use the new use's default (the crop's usual).
       ...(isSpreadUse(use) && spread !== '' ? { spreadMonths: parseDecimal(spread) } : {}),
