@@ -4,6 +4,7 @@ import { atMostCharsShort } from './zod-messages';
 import { isPlainLine, PLAIN_LINE_MESSAGE } from './plain-text';
 import { isMonth } from './months';
 import { UNIT_SYSTEMS } from './units';
+import { currentZoneList, currentZoneName } from './time-zones';
 
 export const ROLE_VALUES = ['owner', 'grower', 'viewer'] as const;
 export type RoleValue = (typeof ROLE_VALUES)[number];
@@ -14,12 +15,16 @@ export const ROLE_LABELS: Record<RoleValue, string> = {
   viewer: 'Viewer — reads everything, changes nothing',
 };
 
+// Every name the runtime knows (old ICU spellings too), for the check; the picker offers current names only.
 const zones = new Set<string>([...Intl.supportedValuesOf('timeZone'), 'UTC', 'Etc/UTC']);
+const offeredZones = currentZoneList([...zones]);
 
-/** The IANA zones this runtime knows, sorted, for the time zone picker. */
+/** The IANA zones this runtime knows under their current names (no Asia/Calcutta), sorted, for the time zone picker. */
 export function timeZoneList(): string[] {
-  return [...zones].sort();
+  return [...offeredZones];
 }
+
+export { currentZoneName } from './time-zones';
 
 // Month names live with the other calendar code in ./months; re-exported for the household forms.
 export { MONTH_NAMES } from './months';
@@ -44,7 +49,8 @@ export function isTimeZone(tz: string): boolean {
 
 const householdFields = {
   name: z.string().trim().min(1, 'Give the household a name.').max(120, atMostCharsShort(120)).refine(isPlainLine, PLAIN_LINE_MESSAGE),
-  timezone: z.string().trim().refine(isTimeZone, 'Not a known IANA time zone (e.g. Europe/Berlin).'),
+  // An old spelling is accepted and stored under its current name (Asia/Calcutta → Asia/Kolkata).
+  timezone: z.string().trim().refine(isTimeZone, 'Not a known IANA time zone (e.g. Europe/Berlin).').transform(currentZoneName),
   units: z.enum(UNIT_SYSTEMS, { error: 'Choose metric or us.' }),
   yearStartMonth: z.number({ error: 'A month number from 1 to 12.' }).int('A month number from 1 to 12.').min(1, 'A month number from 1 to 12.').max(12, 'A month number from 1 to 12.'),
 };

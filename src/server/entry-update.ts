@@ -21,6 +21,8 @@ export interface EntryUpdateSpec<T extends EntryTable, Patch, Json> {
   notFound: string;
   /** The columns to store after `patch`, worked out again from the merged entry; throws a 400 for a bad merge. */
   revise: (tx: Tx, householdId: number, row: RowOf<T>, patch: Patch) => Promise<Partial<T['$inferInsert']>>;
+  /** Other rows that change with this one (the rest of a split weighing), in the same transaction. */
+  alsoUpdate?: (tx: Tx, householdId: number, row: RowOf<T>, patch: Patch) => Promise<void>;
   /** The entry as JSON, read inside the same transaction. */
   get: (householdId: number, id: number, ex: Executor) => Promise<Json>;
 }
@@ -41,6 +43,7 @@ export async function updateEntry<T extends EntryTable, Patch, Json>(spec: Entry
     if (!row) throw new HttpError(404, 'not_found', spec.notFound);
     const values = await spec.revise(tx, householdId, row as RowOf<T>, patch);
     await tx.update(table).set(values).where(where);
+    if (spec.alsoUpdate) await spec.alsoUpdate(tx, householdId, row as RowOf<T>, patch);
     return spec.get(householdId, id, tx);
   });
 }

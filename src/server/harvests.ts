@@ -4,7 +4,7 @@
  * unit and its crop (or reference food), and again on every change.
  */
 import { randomUUID } from 'node:crypto';
-import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, ne, sql } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { crops, foods, harvests, households, type Crop, type Harvest } from '@/db/schema';
 import { defaultSpreadMonths, type CropCategory } from '@/lib/crop-categories';
@@ -18,7 +18,8 @@ import { todayIn } from '@/lib/months';
 import { fieldError, invalidInput, type Executor, type Tx } from './entry-input';
 import { listEntries, type EntryListSpec } from './entry-list';
 import { requirePlantingOfCrop } from './plantings';
-import { deleteEntry, updateEntry, type EntryUpdateSpec } from './entry-update';
+import { updateEntry, type EntryUpdateSpec } from './entry-update';
+import { groupAfterDelete, sharedSplitPatch } from '@/lib/split-weighing';
 import { reconcileOutcomes } from './larder-outcomes';
 
 export type { HarvestJson, HarvestList } from '@/lib/entry-types';
@@ -223,33 +224,56 @@ export async function listHarvests(householdId: number, q: HarvestQuery): Promis
   return { harvests: rows, ...page };
 }
 
-/** A harvest's part of the shared update: the patch merged over the stored entry, its basis looked up again. */
+/** The columns of a stored harvest after `patch`: merged, checked again (date, crop, use, planting), larder outcomes reconciled. */
+async function reviseHarvest(tx: Tx, householdId: number, row: Harvest, patch: HarvestPatch): Promise<HarvestValues> {
+  // A harvest of a crop also stores the crop's food: as input it names the crop only.
+  const current = {
+    date: row.date,
+    ...(row.cropId !== null ? { cropId: row.cropId } : { foodId: row.foodId }),
+    quantity: row.quantity,
+    unit: row.unit,
+    use: row.use,
+    spreadMonths: row.spreadMonths,
+    preserveMethod: row.preserveMethod,
+    trimmed: row.trimmed,
+    note: row.note,
+    plantingId: row.plantingId,
+  };
+  // A planting of the old crop stays and is refused (422) unless the patch clears or replaces it.
+  const merged = mergeHarvestPatch(current, patch);
+  if (!merged.success) throw invalidInput(merged.error);
+  if (patch.date !== undefined) await checkNotFuture(tx, householdId, merged.data.date);
+  const basis = await harvestBasis(tx, householdId, merged.data);
+  checkUse(merged.data, basis);
+  await checkPlanting(tx, householdId, merged.data, basis);
+  const values = harvestValues(merged.data, basis);
+  await reconcileOutcomes(tx, householdId, row.id, values);
+  return values;
+}
+
+/** The other parts of a harvest's split weighing, locked; none when it is not split. */
+async function otherParts(tx: Tx, householdId: number, row: Harvest): Promise<Harvest[]> {
+  if (row.splitGroup === null) return [];
+  return tx
+    .select()
+    .from(harvests)
+    .where(and(eq(harvests.householdId, householdId), eq(harvests.splitGroup, row.splitGroup), ne(harvests.id, row.id)))
+    .orderBy(asc(harvests.id))
+    .for('update');
+}
+
+/** A harvest's part of the shared update; a split part's crop, planting or date goes to the whole weighing (split-weighing.ts). */
 const harvestUpdate: EntryUpdateSpec<typeof harvests, HarvestPatch, HarvestJson> = {
   table: harvests,
   notFound: NOT_FOUND,
-  revise: async (tx, householdId, row, patch) => {
-    // A harvest of a crop also stores the crop's food: as input it names the crop only.
-    const current = {
-      date: row.date,
-      ...(row.cropId !== null ? { cropId: row.cropId } : { foodId: row.foodId }),
-      quantity: row.quantity,
-      unit: row.unit,
-      use: row.use,
-      spreadMonths: row.spreadMonths,
-      preserveMethod: row.preserveMethod,
-      trimmed: row.trimmed,
-      note: row.note,
-      plantingId: row.plantingId,
-    };
-    const merged = mergeHarvestPatch(current, patch);
-    if (!merged.success) throw invalidInput(merged.error);
-    if (patch.date !== undefined) await checkNotFuture(tx, householdId, merged.data.date);
-    const basis = await harvestBasis(tx, householdId, merged.data);
-    checkUse(merged.data, basis);
-    await checkPlanting(tx, householdId, merged.data, basis);
-    const values = harvestValues(merged.data, basis);
-    await reconcileOutcomes(tx, householdId, row.id, values);
-    return values;
+  revise: reviseHarvest,
+  alsoUpdate: async (tx, householdId, row, patch) => {
+    const shared = sharedSplitPatch(patch);
+    if (!shared) return;
+    for (const part of await otherParts(tx, householdId, row)) {
+      const values = await reviseHarvest(tx, householdId, part, shared);
+      await tx.update(harvests).set(values).where(eq(harvests.id, part.id));
+    }
   },
   get: getHarvest,
 };
@@ -259,7 +283,18 @@ export async function updateHarvest(householdId: number, harvestId: number, patc
   return updateEntry(harvestUpdate, householdId, harvestId, patch);
 }
 
-/** Deletes a harvest of the household; 404 when it has none with this id. */
+/**
+ * Deletes a harvest of the household (404 when it has none with this id). The other parts of its
+ * split weighing stay; a single part left becomes an ordinary harvest. One transaction.
+ */
 export async function deleteHarvest(householdId: number, harvestId: number): Promise<void> {
-  await deleteEntry(harvests, householdId, harvestId, NOT_FOUND);
+  await getDb().transaction(async (tx) => {
+    const [row] = await tx.select().from(harvests).where(and(eq(harvests.householdId, householdId), eq(harvests.id, harvestId))).limit(1).for('update');
+    if (!row) throw new HttpError(404, 'not_found', NOT_FOUND);
+    const others = await otherParts(tx, householdId, row);
+    await tx.delete(harvests).where(eq(harvests.id, row.id));
+    if (row.splitGroup !== null && groupAfterDelete(others.length) === 'clear') {
+      await tx.update(harvests).set({ splitGroup: null }).where(inArray(harvests.id, others.map((p) => p.id)));
+    }
+  });
 }

@@ -3,6 +3,7 @@ import { and, asc, eq, sql } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { crops, harvests, households, memberships, plantings, purchases, staples, user, type Household, type Role } from '@/db/schema';
 import { compareMonths, monthOf, todayIn } from '@/lib/months';
+import { currentZoneName } from '@/lib/time-zones';
 import { fieldError, type Tx } from './entry-input';
 import { HttpError } from './http';
 
@@ -23,7 +24,8 @@ export function householdJson(h: Household, role?: Role) {
   return {
     id: h.id,
     name: h.name,
-    timezone: h.timezone,
+    // A household stored with an old spelling (Asia/Calcutta) is shown under its current name.
+    timezone: currentZoneName(h.timezone),
     units: h.units,
     yearStartMonth: h.yearStartMonth,
     recordsSince: h.recordsSince,

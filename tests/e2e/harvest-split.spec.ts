@@ -5,7 +5,7 @@
 import type { BrowserContext } from '@playwright/test';
 import { expect, test } from './fixtures';
 import { allHarvests, foodId, makeCrop } from '../support/entries';
-import { BASE_URL, createHousehold, newVerifiedUser } from '../support/users';
+import { apiAs, BASE_URL, createHousehold, newVerifiedUser } from '../support/users';
 
 test.use({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, deviceScaleFactor: 2 });
 
@@ -13,14 +13,14 @@ async function potatoPlot(context: BrowserContext) {
   const owner = await newVerifiedUser({ name: 'Sam Splitter' });
   const h = await createHousehold(owner.cookie, { name: 'Split plot', timezone: 'Europe/Berlin', units: 'metric' });
   // USDA SR28, NDB 11352 "Potatoes, flesh and skin, raw"
-  await makeCrop(owner.cookie, h.id, { name: 'Potato', variety: 'Charlotte', foodId: await foodId('11352'), category: 'root_tuber' });
+  const potato = await makeCrop(owner.cookie, h.id, { name: 'Potato', variety: 'Charlotte', foodId: await foodId('11352'), category: 'root_tuber' });
   await context.addCookies(
     owner.cookie.split('; ').map((pair) => {
       const i = pair.indexOf('=');
       return { name: pair.slice(0, i), value: pair.slice(i + 1), url: BASE_URL };
     }),
   );
-  return { owner, h };
+  return { owner, h, potato };
 }
 
 test('a weighing split between fresh and stored is saved as two harvests, the last part taking the rest', async ({ page, context }) => {
@@ -49,3 +49,24 @@ test('a weighing split between fresh and stored is saved as two harvests, the la
   await expect(page.getByRole('button', { name: 'Split this weighing between uses' })).toBeVisible();
   await expect(page.getByLabel('Weight', { exact: true })).toHaveValue('');
 });
+
+test('the harvest log shows a split as one weighing with its parts; a new date moves every part, a new amount one', async ({ page, context }) => {
+  const { owner, h, potato } = await potatoPlot(context);
+  const parts = [{ quantity: 2, use: 'fresh' }, { quantity: 10, use: 'stored', spreadMonths: 5 }];
+  expect((await apiAs(owner.cookie, 'POST', `/api/households/${h.id}/harvests`, { date: '2026-09-10', cropId: potato.id, unit: 'kg', parts })).status).toBe(201);
+  await page.goto(`/households/${h.id}/harvests`);
+  await expect(page.getByTestId('split-weighing')).toHaveText(/One weighing of Potato \(Charlotte\), .*: 12 kg in 2 parts — 2 kg eaten fresh, 10 kg stored/);
+  await expect(page.getByTestId('harvest-row')).toHaveCount(2);
+
+  // The first part's date changed: both parts move to the new day.
+  await page.getByRole('button', { name: /^Edit/ }).first().tap();
+  await expect(page.getByTestId('split-edit-hint')).toBeVisible();
+  expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+  await page.locator('[id^="edit-"][id$="-date"]').fill('2026-09-12');
+  await page.locator('[id^="edit-"][id$="-quantity"]').fill('3');
+  await page.getByRole('button', { name: 'Save changes' }).tap();
+  await expect(page.getByTestId('split-weighing')).toContainText('13 kg in 2 parts');
+  const after = await allHarvests(owner.cookie, h.id);
+  expect(after.harvests.map((x: { date: string; quantity: number }) => `${x.date} ${x.quantity}`).sort()).toEqual(['2026-09-12 10', '2026-09-12 3']);
+});
+

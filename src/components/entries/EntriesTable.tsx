@@ -19,7 +19,7 @@ import {
   type PaginationState,
   type RowData,
 } from '@tanstack/react-table';
-import { useMemo, useState, type ComponentType, type ReactNode } from 'react';
+import { Fragment, useMemo, useState, type ComponentType, type ReactNode } from 'react';
 import type { EntryTotals } from '@/lib/entry-types';
 import { request, type HouseholdInfo } from './api';
 import { FilterBar, MessageRow, Pager, SortHeader, SortSelect, stack, stickyFirst, TotalsLine } from './table-bits';
@@ -93,6 +93,8 @@ export interface EntriesTableProps<T extends { id: number } & RowData> {
   words: { caption: (sort: string) => string; loadError: string; empty: string; emptyFiltered: string };
   /** Show "updating…" in the totals line while a page loads. */
   showFetching?: boolean;
+  /** A line shown above a row (the harvest log's split weighing above its first part), or null. */
+  rowLead?: (entry: T, previous: T | undefined, page: T[]) => ReactNode | null;
 }
 
 const PAGE_SIZE = 25;
@@ -230,19 +232,31 @@ export function EntriesTable<T extends { id: number } & RowData>(props: EntriesT
             ) : rows.length === 0 ? (
               <MessageRow colSpan={colCount}>{filtered ? words.emptyFiltered : words.empty}</MessageRow>
             ) : (
-              rows.map((row) =>
-                editing === row.original.id ? (
-                  <EditRow key={row.id} entry={row.original} colSpan={colCount} household={household} onDone={() => setEditing(null)} />
-                ) : (
-                  <tr key={row.id} className={stack.row} data-testid={props.testIds.row} data-id={row.original.id}>
-                    {row.getAllCells().map((cell, i) => (
-                      <td key={cell.id} className={`${cell.column.columnDef.meta?.cellClass ?? ''} ${i === 0 ? stickyFirst.cell : ''}`}>
-                        <FlexRender cell={cell} />
-                      </td>
-                    ))}
-                  </tr>
-                ),
-              )
+              rows.map((row, index) => {
+                const lead = props.rowLead?.(row.original, rows[index - 1]?.original, list.data?.rows ?? []);
+                return (
+                  <Fragment key={row.id}>
+                    {lead ? (
+                      <tr className="border-b border-loam-200 bg-rind-100/40 max-sm:block">
+                        <td colSpan={colCount} className="px-3 py-2 max-sm:block">
+                          {lead}
+                        </td>
+                      </tr>
+                    ) : null}
+                    {editing === row.original.id ? (
+                      <EditRow entry={row.original} colSpan={colCount} household={household} onDone={() => setEditing(null)} />
+                    ) : (
+                      <tr className={stack.row} data-testid={props.testIds.row} data-id={row.original.id}>
+                        {row.getAllCells().map((cell, i) => (
+                          <td key={cell.id} className={`${cell.column.columnDef.meta?.cellClass ?? ''} ${i === 0 ? stickyFirst.cell : ''}`}>
+                            <FlexRender cell={cell} />
+                          </td>
+                        ))}
+                      </tr>
+                    )}
+                  </Fragment>
+                );
+              })
             )}
           </tbody>
         </table>

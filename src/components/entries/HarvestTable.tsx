@@ -4,19 +4,20 @@
  * EntriesTable; this file brings the harvest log's columns, filters, edit row and words.
  */
 import { useQuery } from '@tanstack/react-query';
-import { useState } from 'react';
-import { harvestPatch, USE_LABELS, USES, type Use } from '@/lib/entry-schemas';
-import { WEIGHT_UNITS, type UnitSystem, type WeightUnit } from '@/lib/units';
+import { useState, type ReactNode } from 'react';
+import { USE_LABELS, USES } from '@/lib/entry-schemas';
+import { groupWeighings } from '@/lib/split-weighing';
+import { type UnitSystem } from '@/lib/units';
 import { canWrite, get, keys, urls, type Crop, type Harvest, type HarvestPage, type HouseholdInfo } from './api';
-import { EditRowShell, useEntryPatch } from './EditEntryRow';
+import { HarvestEditRow } from './HarvestEditRow';
 import { PRESERVE_METHOD_LABELS } from './PreserveField';
 import { EntriesTable, entryColumns, type EntryColumn } from './EntriesTable';
 import { dateColumn, edibleColumn, weightColumn } from './entry-columns';
 import { formatDay, monthRange } from './local-date';
 import { QueryProvider } from '@/components/QueryProvider';
-import { formatQuantity, parseDecimal, trimNumber } from './quantity-text';
+import { formatInUnit, formatQuantity } from './quantity-text';
 import { MonthFilter, stack } from './table-bits';
-import { ErrorText, invalidProps, splitUseLabel } from './ui';
+import { splitUseLabel } from './ui';
 
 export default function HarvestTable(props: { household: HouseholdInfo }) {
   return (
@@ -66,6 +67,30 @@ function harvestColumns(units: UnitSystem): EntryColumn<Harvest>[] {
   ];
 }
 
+/** The page's rows with the parts of each split weighing together, where its first part stands. */
+function weighingOrder(rows: Harvest[]): Harvest[] {
+  // Within a weighing the parts keep the order they were entered in, whatever the list's sort.
+  return groupWeighings(rows).flatMap((line) => (line.kind === 'split' ? [...line.parts].sort((a, b) => a.id - b.id) : [line.entry]));
+}
+
+/** Above the first part of a split weighing on the page: the weighing, its total and its parts. */
+function splitLead(h: Harvest, previous: Harvest | undefined, page: Harvest[]): ReactNode {
+  if (h.splitGroup === null || previous?.splitGroup === h.splitGroup) return null;
+  const parts = page.filter((p) => p.splitGroup === h.splitGroup);
+  const grams = parts.reduce((sum, p) => sum + p.grams, 0);
+  return (
+    <p data-testid="split-weighing" className="text-sm">
+      <span className="font-bold">
+        One weighing of {h.cropName ?? h.foodName}, {formatDay(h.date)}: {formatInUnit(grams, h.unit)}
+      </span>
+      <span className="text-loam-700">
+        {' '}
+        in {parts.length} parts — {parts.map((p) => `${formatQuantity(p.quantity, p.unit)} ${splitUseLabel(p.use)[0].toLowerCase()}`).join(', ')}
+      </span>
+    </p>
+  );
+}
+
 function sortCaption(sort: string): string {
   return { date: 'oldest first', '-date': 'newest first', grams: 'lightest first', '-grams': 'heaviest first', crop: 'by crop' }[sort] ?? '';
 }
@@ -86,7 +111,8 @@ function HarvestTableInner({ household }: { household: HouseholdInfo }) {
       writer={canWrite(household.role)}
       columns={columns}
       listKey={keys.harvests(hid)}
-      fetchPage={(params) => get<HarvestPage>(api.harvests(params)).then((p) => ({ rows: p.harvests, total: p.total, totals: p.totals }))}
+      fetchPage={(params) => get<HarvestPage>(api.harvests(params)).then((p) => ({ rows: weighingOrder(p.harvests), total: p.total, totals: p.totals }))}
+      rowLead={splitLead}
       filters={{ from: range?.from, to: range?.to, cropId: cropId || undefined, use: use || undefined }}
       filterFields={
         <>
@@ -131,75 +157,5 @@ function HarvestTableInner({ household }: { household: HouseholdInfo }) {
       words={{ caption: (sort) => `Harvest log, ${sortCaption(sort)}`, loadError: 'Could not load the harvest log', empty: 'No harvests logged yet.', emptyFiltered: 'No harvests match these filters.' }}
       showFetching
     />
-  );
-}
-
-function HarvestEditRow({ entry: harvest, colSpan, household, onDone }: { entry: Harvest; colSpan: number; household: HouseholdInfo; onDone: () => void }) {
-  const [quantity, setQuantity] = useState(trimNumber(harvest.quantity, 3));
-  const [unit, setUnit] = useState<WeightUnit>(harvest.unit);
-  const [use, setUse] = useState<Use>(harvest.use);
-  const [date, setDate] = useState(harvest.date);
-  const [note, setNote] = useState(harvest.note ?? '');
-  const { errors, send, saving } = useEntryPatch(harvestPatch, urls(household.id).harvest(harvest.id), [keys.harvests(household.id), keys.allCrops(household.id)], onDone);
-  const p = `edit-${harvest.id}`;
-
-  return (
-    <EditRowShell
-      colSpan={colSpan}
-      label={`Edit ${harvest.cropName ?? 'harvest'} of ${harvest.date}`}
-      title={`Editing ${harvest.cropName ?? harvest.foodName}`}
-      layout={{ grid: 'sm:grid-cols-5', span: 'sm:col-span-5' }}
-      saving={saving}
-      formError={errors._form ?? errors.spreadMonths ?? errors.cropId}
-      onSubmit={() => send({ quantity: parseDecimal(quantity), unit, use, date, note })}
-      onCancel={onDone}
-    >
-      <div>
-        <label htmlFor={`${p}-quantity`} className="block text-sm font-semibold">
-          Quantity
-        </label>
-        <input {...invalidProps(`${p}-quantity`, errors.quantity)} type="text" inputMode="decimal" className="field mt-1 text-right tabular-nums" value={quantity} onChange={(e) => setQuantity(e.target.value)} />
-        <ErrorText id={`${p}-quantity`} error={errors.quantity} />
-      </div>
-      <div>
-        <label htmlFor={`${p}-unit`} className="block text-sm font-semibold">
-          Unit
-        </label>
-        <select id={`${p}-unit`} className="field mt-1" value={unit} onChange={(e) => setUnit(e.target.value as WeightUnit)}>
-          {WEIGHT_UNITS.map((u) => (
-            <option key={u} value={u}>
-              {u}
-            </option>
-          ))}
-        </select>
-      </div>
-      <div>
-        <label htmlFor={`${p}-use`} className="block text-sm font-semibold">
-          Use
-        </label>
-        <select {...invalidProps(`${p}-use`, errors.use)} className="field mt-1" value={use} onChange={(e) => setUse(e.target.value as Use)}>
-          {USES.map((u) => (
-            <option key={u} value={u}>
-              {USE_LABELS[u]}
-            </option>
-          ))}
-        </select>
-        <ErrorText id={`${p}-use`} error={errors.use} />
-      </div>
-      <div>
-        <label htmlFor={`${p}-date`} className="block text-sm font-semibold">
-          Date
-        </label>
-        <input {...invalidProps(`${p}-date`, errors.date)} type="date" className="field mt-1" value={date} onChange={(e) => setDate(e.target.value)} />
-        <ErrorText id={`${p}-date`} error={errors.date} />
-      </div>
-      <div>
-        <label htmlFor={`${p}-note`} className="block text-sm font-semibold">
-          Note
-        </label>
-        <input {...invalidProps(`${p}-note`, errors.note)} type="text" className="field mt-1" maxLength={500} value={note} onChange={(e) => setNote(e.target.value)} />
-        <ErrorText id={`${p}-note`} error={errors.note} />
-      </div>
-    </EditRowShell>
   );
 }

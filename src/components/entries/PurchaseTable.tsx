@@ -116,6 +116,8 @@ function PurchaseEditRow({ entry: purchase, colSpan, household, onDone }: { entr
   const [date, setDate] = useState(purchase.date);
   const [spread, setSpread] = useState(String(purchase.spreadMonths));
   const [note, setNote] = useState(purchase.note ?? '');
+  const [food, setFood] = useState<FoodChoice | null>({ id: purchase.foodId, name: purchase.foodName, code: purchase.foodCode });
+  const [trimmed, setTrimmed] = useState(purchase.trimmed);
   const { errors, send, saving } = useEntryPatch(purchasePatch, urls(household.id).purchase(purchase.id), [keys.purchases(household.id)], onDone);
   const p = `pedit-${purchase.id}`;
 
@@ -145,11 +147,17 @@ function PurchaseEditRow({ entry: purchase, colSpan, household, onDone }: { entr
           currency: currency.trim() === '' ? null : currency,
           date,
           spreadMonths: parseDecimal(spread),
+          trimmed,
           note,
+          // A cleared picker keeps the food; a new one replaces it (its refuse with it).
+          ...(food && food.id !== purchase.foodId ? { foodId: food.id } : {}),
         })
       }
       onCancel={onDone}
     >
+      <div className="sm:col-span-4">
+        <FoodPicker id={`${p}-food`} label="Food" value={food} onChange={setFood} error={errors.foodId} facts={false} compact />
+      </div>
       {field('quantity', 'Quantity', <input {...invalidProps(`${p}-quantity`, errors.quantity)} type="text" inputMode="decimal" className="field mt-1 text-right" value={quantity} onChange={(e) => setQuantity(e.target.value)} />)}
       {field(
         'unit',
@@ -163,8 +171,14 @@ function PurchaseEditRow({ entry: purchase, colSpan, household, onDone }: { entr
       {field('price', 'Price', <input {...invalidProps(`${p}-price`, errors.price)} type="text" inputMode="decimal" className="field mt-1 text-right" value={price} onChange={(e) => setPrice(e.target.value)} />)}
       {field('currency', 'Currency', <input {...invalidProps(`${p}-currency`, errors.currency)} type="text" maxLength={3} className="field mt-1 uppercase" value={currency} onChange={(e) => setCurrency(e.target.value.toUpperCase())} />)}
       {field('date', 'Date', <input {...invalidProps(`${p}-date`, errors.date)} type="date" className="field mt-1" value={date} onChange={(e) => setDate(e.target.value)} />)}
+      <div className="flex items-end">
+        <label className="flex min-h-11 items-center gap-2 font-semibold">
+          <input type="checkbox" className="size-5" checked={trimmed} onChange={(e) => setTrimmed(e.target.checked)} />
+          Weighed trimmed
+        </label>
+      </div>
       {field('spreadMonths', 'Eaten over (months)', <input {...invalidProps(`${p}-spreadMonths`, errors.spreadMonths)} type="text" inputMode="numeric" className="field mt-1" value={spread} onChange={(e) => setSpread(e.target.value)} />)}
-      <div className="sm:col-span-2">
+      <div className="sm:col-span-3">
         {field('note', 'Note', <input {...invalidProps(`${p}-note`, errors.note)} type="text" maxLength={500} className="field mt-1" value={note} onChange={(e) => setNote(e.target.value)} />)}
       </div>
     </EditRowShell>

@@ -5,7 +5,7 @@
  */
 import { useEffect, useState } from 'react';
 import { useController } from 'react-hook-form';
-import { householdInput, isTimeZone, MONTH_NAMES } from '@/lib/household-schemas';
+import { currentZoneName, householdInput, isTimeZone, MONTH_NAMES } from '@/lib/household-schemas';
 import { Field, FieldError, FormAlert, formMessage, showFailure, useSchemaForm } from '@/components/forms';
 import { request } from '@/components/request';
 
@@ -18,8 +18,10 @@ export function HouseholdCreateForm({ zones }: { zones: string[] }) {
 
   // The browser knows where it is: preselect its zone (adding it when the list spells it differently).
   useEffect(() => {
-    const tz = Intl.DateTimeFormat().resolvedOptions().timeZone;
-    if (!tz || !isTimeZone(tz)) return;
+    // Browsers may answer an old spelling (Asia/Calcutta); the list and the household use the current one.
+    const found = Intl.DateTimeFormat().resolvedOptions().timeZone;
+    if (!found || !isTimeZone(found)) return;
+    const tz = currentZoneName(found);
     if (!zones.includes(tz)) setOptions([...zones, tz].sort());
     setValue('timezone', tz);
   }, [zones, setValue]);

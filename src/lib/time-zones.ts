@@ -1,0 +1,155 @@
+/**
+ * Time-zone names as people should see them today. The runtime's own list (ICU) still spells some
+ * zones the old way (Asia/Calcutta, Europe/Kiev) and a browser may answer either spelling, so every
+ * name we offer or store goes through `currentZoneName` first. An old name still works everywhere
+ * (Intl accepts both); it is only never offered.
+ */
+
+/**
+ * Old spellings → current zone names.
+ * from memory: IANA tzdb backward file (links kept for backward compatibility), as of 2025
+ */
+export const LEGACY_ZONE_NAMES: Readonly<Record<string, string>> = {
+  'Africa/Asmera': 'Africa/Asmara',
+  'Africa/Timbuktu': 'Africa/Bamako',
+  'America/Argentina/ComodRivadavia': 'America/Argentina/Catamarca',
+  'America/Atka': 'America/Adak',
+  'America/Buenos_Aires': 'America/Argentina/Buenos_Aires',
+  'America/Catamarca': 'America/Argentina/Catamarca',
+  // Older backward files linked Coral_Harbour to Atikokan, the zone.tab name for that part of Canada.
+  'America/Coral_Harbour': 'America/Atikokan',
+  'America/Cordoba': 'America/Argentina/Cordoba',
+  'America/Ensenada': 'America/Tijuana',
+  'America/Fort_Wayne': 'America/Indiana/Indianapolis',
+  'America/Godthab': 'America/Nuuk',
+  'America/Indianapolis': 'America/Indiana/Indianapolis',
+  'America/Jujuy': 'America/Argentina/Jujuy',
+  'America/Knox_IN': 'America/Indiana/Knox',
+  'America/Louisville': 'America/Kentucky/Louisville',
+  'America/Mendoza': 'America/Argentina/Mendoza',
+  'America/Montreal': 'America/Toronto',
+  'America/Nipigon': 'America/Toronto',
+  'America/Pangnirtung': 'America/Iqaluit',
+  'America/Porto_Acre': 'America/Rio_Branco',
+  'America/Rainy_River': 'America/Winnipeg',
+  'America/Rosario': 'America/Argentina/Cordoba',
+  'America/Santa_Isabel': 'America/Tijuana',
+  'America/Shiprock': 'America/Denver',
+  'America/Thunder_Bay': 'America/Toronto',
+  'America/Yellowknife': 'America/Edmonton',
+  'Antarctica/South_Pole': 'Antarctica/McMurdo',
+  'Asia/Ashkhabad': 'Asia/Ashgabat',
+  'Asia/Calcutta': 'Asia/Kolkata',
+  'Asia/Chongqing': 'Asia/Shanghai',
+  'Asia/Chungking': 'Asia/Shanghai',
+  'Asia/Dacca': 'Asia/Dhaka',
+  'Asia/Harbin': 'Asia/Shanghai',
+  'Asia/Istanbul': 'Europe/Istanbul',
+  'Asia/Kashgar': 'Asia/Urumqi',
+  'Asia/Katmandu': 'Asia/Kathmandu',
+  'Asia/Macao': 'Asia/Macau',
+  'Asia/Rangoon': 'Asia/Yangon',
+  'Asia/Saigon': 'Asia/Ho_Chi_Minh',
+  'Asia/Tel_Aviv': 'Asia/Jerusalem',
+  'Asia/Thimbu': 'Asia/Thimphu',
+  'Asia/Ujung_Pandang': 'Asia/Makassar',
+  'Asia/Ulan_Bator': 'Asia/Ulaanbaatar',
+  'Atlantic/Faeroe': 'Atlantic/Faroe',
+  'Atlantic/Jan_Mayen': 'Europe/Oslo',
+  'Australia/ACT': 'Australia/Sydney',
+  'Australia/Canberra': 'Australia/Sydney',
+  'Australia/Currie': 'Australia/Hobart',
+  'Australia/LHI': 'Australia/Lord_Howe',
+  'Australia/NSW': 'Australia/Sydney',
+  'Australia/North': 'Australia/Darwin',
+  'Australia/Queensland': 'Australia/Brisbane',
+  'Australia/South': 'Australia/Adelaide',
+  'Australia/Tasmania': 'Australia/Hobart',
+  'Australia/Victoria': 'Australia/Melbourne',
+  'Australia/West': 'Australia/Perth',
+  'Australia/Yancowinna': 'Australia/Broken_Hill',
+  'Brazil/Acre': 'America/Rio_Branco',
+  'Brazil/DeNoronha': 'America/Noronha',
+  'Brazil/East': 'America/Sao_Paulo',
+  'Brazil/West': 'America/Manaus',
+  'Canada/Atlantic': 'America/Halifax',
+  'Canada/Central': 'America/Winnipeg',
+  'Canada/Eastern': 'America/Toronto',
+  'Canada/Mountain': 'America/Edmonton',
+  'Canada/Newfoundland': 'America/St_Johns',
+  'Canada/Pacific': 'America/Vancouver',
+  'Canada/Saskatchewan': 'America/Regina',
+  'Canada/Yukon': 'America/Whitehorse',
+  'Chile/Continental': 'America/Santiago',
+  'Chile/EasterIsland': 'Pacific/Easter',
+  Cuba: 'America/Havana',
+  Egypt: 'Africa/Cairo',
+  Eire: 'Europe/Dublin',
+  'Europe/Belfast': 'Europe/London',
+  'Europe/Kiev': 'Europe/Kyiv',
+  'Europe/Nicosia': 'Asia/Nicosia',
+  'Europe/Tiraspol': 'Europe/Chisinau',
+  'Europe/Uzhgorod': 'Europe/Kyiv',
+  'Europe/Zaporozhye': 'Europe/Kyiv',
+  GB: 'Europe/London',
+  'GB-Eire': 'Europe/London',
+  Hongkong: 'Asia/Hong_Kong',
+  Iceland: 'Atlantic/Reykjavik',
+  Iran: 'Asia/Tehran',
+  Israel: 'Asia/Jerusalem',
+  Jamaica: 'America/Jamaica',
+  Japan: 'Asia/Tokyo',
+  Kwajalein: 'Pacific/Kwajalein',
+  Libya: 'Africa/Tripoli',
+  'Mexico/BajaNorte': 'America/Tijuana',
+  'Mexico/BajaSur': 'America/Mazatlan',
+  'Mexico/General': 'America/Mexico_City',
+  NZ: 'Pacific/Auckland',
+  'NZ-CHAT': 'Pacific/Chatham',
+  Navajo: 'America/Denver',
+  PRC: 'Asia/Shanghai',
+  'Pacific/Enderbury': 'Pacific/Kanton',
+  'Pacific/Johnston': 'Pacific/Honolulu',
+  'Pacific/Ponape': 'Pacific/Pohnpei',
+  'Pacific/Samoa': 'Pacific/Pago_Pago',
+  'Pacific/Truk': 'Pacific/Chuuk',
+  'Pacific/Yap': 'Pacific/Chuuk',
+  Poland: 'Europe/Warsaw',
+  Portugal: 'Europe/Lisbon',
+  ROC: 'Asia/Taipei',
+  ROK: 'Asia/Seoul',
+  Singapore: 'Asia/Singapore',
+  Turkey: 'Europe/Istanbul',
+  UCT: 'Etc/UTC',
+  'US/Alaska': 'America/Anchorage',
+  'US/Aleutian': 'America/Adak',
+  'US/Arizona': 'America/Phoenix',
+  'US/Central': 'America/Chicago',
+  'US/East-Indiana': 'America/Indiana/Indianapolis',
+  'US/Eastern': 'America/New_York',
+  'US/Hawaii': 'Pacific/Honolulu',
+  'US/Indiana-Starke': 'America/Indiana/Knox',
+  'US/Michigan': 'America/Detroit',
+  'US/Mountain': 'America/Denver',
+  'US/Pacific': 'America/Los_Angeles',
+  'US/Samoa': 'Pacific/Pago_Pago',
+  Universal: 'Etc/UTC',
+  'W-SU': 'Europe/Moscow',
+  Zulu: 'Etc/UTC',
+};
+
+/**
+ * The current IANA name of a zone; a name that is already current comes back as it is.
+ * Example: `currentZoneName('Asia/Calcutta')` → 'Asia/Kolkata'; `currentZoneName('Europe/Oslo')` → 'Europe/Oslo'
+ */
+export function currentZoneName(tz: string): string {
+  return LEGACY_ZONE_NAMES[tz] ?? tz;
+}
+
+/**
+ * The zones to offer: each of `known` under its current name, once, sorted, with UTC.
+ * Example: `currentZoneList(['Asia/Calcutta', 'Asia/Kolkata'])` → ['Asia/Kolkata', 'UTC']
+ */
+export function currentZoneList(known: readonly string[]): string[] {
+  return [...new Set([...known.map(currentZoneName), 'UTC'])].sort();
+}

@@ -1,0 +1,41 @@
+import { describe, expect, it } from 'vitest';
+import { groupAfterDelete, groupWeighings, sharedSplitPatch } from '@/lib/split-weighing';
+
+describe('editing a part of a split weighing', () => {
+  it('takes crop, food, planting and date to every part', () => {
+    expect(sharedSplitPatch({ cropId: 4 })).toEqual({ cropId: 4 });
+    expect(sharedSplitPatch({ foodId: 9, date: '2026-09-21' })).toEqual({ foodId: 9, date: '2026-09-21' });
+    expect(sharedSplitPatch({ plantingId: null })).toEqual({ plantingId: null });
+  });
+
+  it('keeps the amount, use, spread, trimmed and note to the part edited', () => {
+    expect(sharedSplitPatch({ quantity: 3, unit: 'kg', use: 'fresh', spreadMonths: 1, trimmed: true, note: 'x' })).toBeUndefined();
+    expect(sharedSplitPatch({ date: '2026-09-21', quantity: 3, use: 'stored' })).toEqual({ date: '2026-09-21' });
+  });
+});
+
+describe('deleting a part of a split weighing', () => {
+  it('keeps a group of two or more, clears a lone part, and has nothing left at none', () => {
+    expect(groupAfterDelete(3)).toBe('keep');
+    expect(groupAfterDelete(2)).toBe('keep');
+    expect(groupAfterDelete(1)).toBe('clear');
+    expect(groupAfterDelete(0)).toBe('gone');
+  });
+});
+
+describe('the harvest log as weighings', () => {
+  it('puts the parts of a group on one line where its first part stands, with their grams summed', () => {
+    const rows = [
+      { id: 1, splitGroup: 'g1', grams: 20_000 },
+      { id: 2, splitGroup: null, grams: 500 },
+      { id: 3, splitGroup: 'g1', grams: 2_000 },
+      { id: 4, splitGroup: 'g2', grams: 1_000 },
+    ];
+    const lines = groupWeighings(rows);
+    expect(lines.map((l) => (l.kind === 'split' ? `${l.group}:${l.parts.map((p) => p.id).join('+')}:${l.grams}` : `${l.entry.id}`))).toEqual([
+      'g1:1+3:22000',
+      '2',
+      'g2:4:1000',
+    ]);
+  });
+});
