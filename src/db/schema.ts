@@ -30,94 +30,10 @@ import { DIETS } from '@/lib/diet';
 import { PRESERVE_METHODS } from '@/lib/retention';
 import { PLANTING_SLOTS } from '@/lib/planting-slots';
 import { LARDER_OUTCOMES } from '@/lib/larder-outcomes';
+import { foods } from './schema-reference';
 
-// ── Reference data: food composition datasets ────────────────────────────────────────────────
-
-/** A public food composition dataset (e.g. USDA SR28), with its release and licence. */
-export const datasets = mysqlTable(
-  'datasets',
-  {
-    id: int('id').autoincrement().primaryKey(),
-    slug: varchar('slug', { length: 40 }).notNull(),
-    name: varchar('name', { length: 200 }).notNull(),
-    release: varchar('release', { length: 80 }).notNull(),
-    publisher: varchar('publisher', { length: 200 }).notNull(),
-    licence: varchar('licence', { length: 200 }).notNull(),
-    sourceNote: varchar('source_note', { length: 400 }).notNull().default(''),
-    foodCount: int('food_count').notNull().default(0),
-    importedAt: timestamp('imported_at').notNull().defaultNow(),
-  },
-  (t) => [uniqueIndex('datasets_slug_uq').on(t.slug)],
-);
-
-/** The nutrients the app knows; rows mirror src/lib/nutrients.ts (written by the importer). */
-export const nutrients = mysqlTable('nutrients', {
-  key: varchar('key', { length: 40 }).primaryKey(),
-  name: varchar('name', { length: 80 }).notNull(),
-  unit: varchar('unit', { length: 8 }).notNull(),
-  nutrientGroup: varchar('nutrient_group', { length: 16 }).notNull(),
-  sortOrder: smallint('sort_order').notNull(),
-});
-
-/** One food of a dataset. `code` is the dataset's own code (SR28: the 5-digit NDB number). */
-export const foods = mysqlTable(
-  'foods',
-  {
-    id: int('id').autoincrement().primaryKey(),
-    datasetId: int('dataset_id')
-      .notNull()
-      .references(() => datasets.id, { onDelete: 'cascade' }),
-    code: varchar('code', { length: 20 }).notNull(),
-    name: varchar('name', { length: 255 }).notNull(),
-    originalName: varchar('original_name', { length: 255 }).notNull(),
-    foodGroup: varchar('food_group', { length: 80 }).notNull(),
-    /** Refuse, % of weight as bought or harvested that is not eaten; null when not given. */
-    refusePct: double('refuse_pct'),
-    /** 0 = raw/whole form, higher = more processed; used to rank search results. */
-    rawness: tinyint('rawness').notNull().default(5),
-    /** Words the FULLTEXT index searches: readable name, original text, group. */
-    searchText: text('search_text').notNull(),
-  },
-  (t) => [
-    uniqueIndex('foods_dataset_code_uq').on(t.datasetId, t.code),
-    index('foods_code_idx').on(t.code),
-    index('foods_group_idx').on(t.foodGroup),
-  ],
-);
-
-/** Amount per 100 g edible portion. A missing row means the dataset has no value (unknown, not 0). */
-export const foodNutrients = mysqlTable(
-  'food_nutrients',
-  {
-    foodId: int('food_id')
-      .notNull()
-      .references(() => foods.id, { onDelete: 'cascade' }),
-    nutrientKey: varchar('nutrient_key', { length: 40 })
-      .notNull()
-      .references(() => nutrients.key),
-    amount: double('amount').notNull(),
-  },
-  (t) => [primaryKey({ columns: [t.foodId, t.nutrientKey] }), index('food_nutrients_key_idx').on(t.nutrientKey)],
-);
-
-/** Household measures from the dataset ("1 cup, cubes" = 140 g). */
-export const foodWeights = mysqlTable(
-  'food_weights',
-  {
-    id: bigint('id', { mode: 'number', unsigned: true }).autoincrement().primaryKey(),
-    foodId: int('food_id')
-      .notNull()
-      .references(() => foods.id, { onDelete: 'cascade' }),
-    seq: tinyint('seq').notNull(),
-    description: varchar('description', { length: 200 }).notNull(),
-    grams: double('grams').notNull(),
-  },
-  (t) => [uniqueIndex('food_weights_food_seq_uq').on(t.foodId, t.seq)],
-);
-
-export type Dataset = typeof datasets.$inferSelect;
-export type Food = typeof foods.$inferSelect;
-export type NewFood = typeof foods.$inferInsert;
+// Reference foods live in their own file, one job each; the schema is still imported from here.
+export * from './schema-reference';
 
 // ── Accounts (better-auth's tables: user, session, account, verification, rateLimit) ──────────
 
