@@ -4,7 +4,7 @@
  * food's energy and protein, its recorded outcomes and the crop table's typical winter loss, and
  * hands them to the pure larderReport() (src/lib/larder-report.ts). Also read by the monthly letter.
  */
-import { and, asc, eq, gt, gte, inArray, isNotNull, isNull, lte, or, sql } from 'drizzle-orm';
+import { and, asc, eq, gt, gte, inArray, lte } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { crops, foodNutrients, foods, harvests, larderOutcomes, type Household } from '@/db/schema';
 import { ENTRY_LIMITS } from '@/lib/entry-schemas';
@@ -13,6 +13,7 @@ import type { LarderOutcomeJson, LarderResponse } from '@/lib/larder-types';
 import { addMonths, monthOf, todayIn } from '@/lib/months';
 import { cropByKey } from './crop-table-file';
 import type { Executor } from './entry-input';
+import { countsAsFood, cropOfHarvest, foodOfHarvest, harvestNameSql } from './harvest-sql';
 
 /** Stored and preserved lots that can hold food on `today`, or the given harvests only. */
 export async function larderLotRows(db: Executor, householdId: number, today: string, onlyIds?: readonly number[]) {
@@ -22,7 +23,7 @@ export async function larderLotRows(db: Executor, householdId: number, today: st
       harvestId: harvests.id,
       cropId: harvests.cropId,
       foodId: harvests.foodId,
-      name: sql<string | null>`COALESCE(NULLIF(CONCAT_WS(', ', ${crops.name}, NULLIF(${crops.variety}, '')), ''), ${foods.name})`,
+      name: harvestNameSql(),
       category: crops.category,
       referenceKey: crops.referenceKey,
       use: harvests.use,
@@ -35,16 +36,15 @@ export async function larderLotRows(db: Executor, householdId: number, today: st
       edibleGrams: harvests.edibleGrams,
     })
     .from(harvests)
-    .leftJoin(crops, and(eq(crops.id, harvests.cropId), eq(crops.householdId, harvests.householdId)))
-    .leftJoin(foods, eq(foods.id, harvests.foodId))
+    .leftJoin(crops, cropOfHarvest())
+    .leftJoin(foods, foodOfHarvest())
     .where(
       and(
         eq(harvests.householdId, householdId),
         inArray(harvests.use, ['stored', 'preserved']),
         onlyIds ? inArray(harvests.id, [...onlyIds]) : and(gte(harvests.date, since), lte(harvests.date, today)),
         gt(harvests.edibleGrams, 0),
-        or(isNull(crops.id), eq(crops.notFood, false)),
-        or(isNull(harvests.cropId), isNotNull(crops.id)),
+        countsAsFood(),
       ),
     )
     .orderBy(asc(harvests.date), asc(harvests.id));

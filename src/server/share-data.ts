@@ -9,7 +9,7 @@
  * months or more is grouped by its day instead of its month, because it is spread by day. They go through Drizzle's builder and `sql`
  * templates that name the schema's columns, so a renamed column fails the type check.
  */
-import { and, eq, exists, gte, inArray, isNotNull, isNull, lte, min, notExists, or, sql } from 'drizzle-orm';
+import { and, eq, exists, gte, inArray, lte, min, notExists, or, sql } from 'drizzle-orm';
 import type { Pool } from 'mysql2/promise';
 import { getDb, type Db } from '@/db/client';
 import { crops, datasets, foodNutrients, foods, harvests, larderOutcomes, purchases, type Household } from '@/db/schema';
@@ -25,6 +25,7 @@ import { computeShare } from '@/lib/shares';
 import { topCrops } from '@/lib/top-crops';
 import { useTotals } from '@/lib/use-totals';
 import { dbOn } from './db-on';
+import { countsAsFood, cropOfHarvest, foodOfHarvest, harvestNameSql } from './harvest-sql';
 import { outcomesOf } from './larder';
 import { currentMonth, listPeople, personFields } from './people';
 import { loadRetention } from './retention-file';
@@ -56,21 +57,20 @@ async function harvestGroups(db: Db, householdId: number, from: string, to: stri
       preserveMethod: harvests.preserveMethod,
       cropId: harvests.cropId,
       foodId: harvests.foodId,
-      name: sql<string | null>`MAX(COALESCE(NULLIF(CONCAT_WS(', ', ${crops.name}, NULLIF(${crops.variety}, '')), ''), ${foods.name}))`,
+      name: sql<string | null>`MAX(${harvestNameSql()})`,
       grams: sql<number>`SUM(${harvests.grams})`.mapWith(Number),
       edibleGrams: sql<number>`SUM(${harvests.edibleGrams})`.mapWith(Number),
       entries: sql<number>`COUNT(*)`.mapWith(Number),
     })
     .from(harvests)
-    .leftJoin(crops, and(eq(crops.id, harvests.cropId), eq(crops.householdId, harvests.householdId)))
-    .leftJoin(foods, eq(foods.id, harvests.foodId))
+    .leftJoin(crops, cropOfHarvest())
+    .leftJoin(foods, foodOfHarvest())
     .where(
       and(
         eq(harvests.householdId, householdId),
         gte(harvests.date, lookback(from)),
         lte(harvests.date, lastDay(to)),
-        or(isNull(crops.id), eq(crops.notFood, false)),
-        or(isNull(harvests.cropId), isNotNull(crops.id)),
+        countsAsFood(),
         // Lots with larder records are read one by one (outcomeLotGroups).
         notExists(db.select({ one: sql`1` }).from(larderOutcomes).where(eq(larderOutcomes.harvestId, harvests.id))),
         or(
@@ -102,20 +102,19 @@ async function outcomeLotGroups(db: Db, householdId: number, from: string, to: s
       preserveMethod: harvests.preserveMethod,
       cropId: harvests.cropId,
       foodId: harvests.foodId,
-      name: sql<string | null>`COALESCE(NULLIF(CONCAT_WS(', ', ${crops.name}, NULLIF(${crops.variety}, '')), ''), ${foods.name})`,
+      name: harvestNameSql(),
       grams: harvests.grams,
       edibleGrams: harvests.edibleGrams,
     })
     .from(harvests)
-    .leftJoin(crops, and(eq(crops.id, harvests.cropId), eq(crops.householdId, harvests.householdId)))
-    .leftJoin(foods, eq(foods.id, harvests.foodId))
+    .leftJoin(crops, cropOfHarvest())
+    .leftJoin(foods, foodOfHarvest())
     .where(
       and(
         eq(harvests.householdId, householdId),
         gte(harvests.date, lookback(from)),
         lte(harvests.date, lastDay(to)),
-        or(isNull(crops.id), eq(crops.notFood, false)),
-        or(isNull(harvests.cropId), isNotNull(crops.id)),
+        countsAsFood(),
         exists(db.select({ one: sql`1` }).from(larderOutcomes).where(eq(larderOutcomes.harvestId, harvests.id))),
       ),
     );
