@@ -24,7 +24,8 @@ import {
 import { CROP_CATEGORIES } from '@/lib/crop-categories';
 import { ROLE_VALUES } from '@/lib/household-schemas';
 import { ACTIVITY_LEVELS, CONDITIONS, SEXES } from '@/lib/people-schemas';
-import { UNIT_SYSTEMS, WEIGHT_UNITS } from '@/lib/units';
+import { UNIT_SYSTEMS, type WeightUnit } from '@/lib/units';
+import { ENTRY_UNITS } from '@/lib/entry-units';
 import { USES } from '@/lib/uses';
 import { DIETS } from '@/lib/diet';
 import { PRESERVE_METHODS } from '@/lib/retention';
@@ -134,6 +135,8 @@ export const households = mysqlTable('households', {
   /** Growing season as 'MM-DD' (last spring frost, first autumn frost); null = the default for the time zone's hemisphere. */
   lastSpringFrost: char('last_spring_frost', { length: 5 }),
   firstAutumnFrost: char('first_autumn_frost', { length: 5 }),
+  /** ISO 4217 code new purchases start with; null = none chosen yet. */
+  currency: char('currency', { length: 3 }),
   createdAt: timestamp('created_at').notNull().defaultNow(),
 });
 
@@ -201,6 +204,10 @@ export const crops = mysqlTable(
     notFood: boolean('not_food').notNull().default(false),
     /** The row of reference-data/crops.csv this crop is (yields, harvest window, sowing rate); null = none. */
     referenceKey: varchar('reference_key', { length: 40 }),
+    /** Grams of one piece, bunch or head as the grower counts this crop; null = use the food's household weights. */
+    countGrams: double('count_grams'),
+    /** Place among the pinned crop chips (1 = first); null = not pinned. */
+    pinRank: tinyint('pin_rank'),
     archived: boolean('archived').notNull().default(false),
     createdAt: timestamp('created_at').notNull().defaultNow(),
   },
@@ -267,9 +274,11 @@ export const harvests = mysqlTable(
     foodId: int('food_id').references(() => foods.id, { onDelete: 'restrict' }),
     date: date('date', { mode: 'string' }).notNull(),
     quantity: double('quantity').notNull(),
-    unit: mysqlEnum('unit', WEIGHT_UNITS).notNull(),
+    unit: mysqlEnum('unit', ENTRY_UNITS).$type<WeightUnit>().notNull(),
     grams: double('grams').notNull(),
     edibleGrams: double('edible_grams').notNull(),
+    /** Where a count or volume got its grams ("USDA SR28 01123: 1 large = 50 g"); null for a weight. */
+    weightSource: varchar('weight_source', { length: 200 }),
     use: mysqlEnum('use', USES).notNull(),
     spreadMonths: tinyint('spread_months').notNull().default(1),
     /** The planting it came from, so the household's own yield per m² can be measured. */
@@ -303,9 +312,11 @@ export const purchases = mysqlTable(
       .references(() => foods.id, { onDelete: 'restrict' }),
     date: date('date', { mode: 'string' }).notNull(),
     quantity: double('quantity').notNull(),
-    unit: mysqlEnum('unit', WEIGHT_UNITS).notNull(),
+    unit: mysqlEnum('unit', ENTRY_UNITS).$type<WeightUnit>().notNull(),
     grams: double('grams').notNull(),
     edibleGrams: double('edible_grams').notNull(),
+    /** Where a count or volume got its grams; null for a weight. */
+    weightSource: varchar('weight_source', { length: 200 }),
     price: decimal('price', { precision: 12, scale: 2 }),
     currency: varchar('currency', { length: 3 }),
     spreadMonths: tinyint('spread_months').notNull().default(1),
@@ -347,7 +358,7 @@ export const staples = mysqlTable(
       .references(() => foods.id, { onDelete: 'restrict' }),
     label: varchar('label', { length: 120 }).notNull(),
     quantity: double('quantity').notNull(),
-    unit: mysqlEnum('unit', WEIGHT_UNITS).notNull(),
+    unit: mysqlEnum('unit', ENTRY_UNITS).$type<WeightUnit>().notNull(),
     spreadMonths: tinyint('spread_months').notNull().default(1),
     createdAt: timestamp('created_at').notNull().defaultNow(),
   },
