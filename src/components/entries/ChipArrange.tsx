@@ -66,10 +66,10 @@ export function ChipArrange({ crops, householdId, onSaved, onClose }: { crops: C
             <span className="min-w-0 flex-1 font-semibold">
               {i + 1}. {c.displayName}
             </span>
-            <button type="button" data-arrange={`up-${c.id}`} className="btn-quiet min-h-12 min-w-12 px-3" disabled={i === 0} aria-label={`Move ${c.displayName} up`} onClick={() => move(c, -1)}>
+            <button type="button" data-arrange={`up-${c.id}`} className="btn-quiet min-h-12 min-w-12 px-3 disabled:opacity-40" disabled={i === 0} aria-label={`Move ${c.displayName} up`} onClick={() => move(c, -1)}>
               Up
             </button>
-            <button type="button" data-arrange={`down-${c.id}`} className="btn-quiet min-h-12 min-w-12 px-3" disabled={i === pinned.length - 1} aria-label={`Move ${c.displayName} down`} onClick={() => move(c, 1)}>
+            <button type="button" data-arrange={`down-${c.id}`} className="btn-quiet min-h-12 min-w-12 px-3 disabled:opacity-40" disabled={i === pinned.length - 1} aria-label={`Move ${c.displayName} down`} onClick={() => move(c, 1)}>
               Down
             </button>
             <button type="button" data-arrange={`unpin-${c.id}`} className="btn-quiet min-h-12 px-3" aria-label={`Unpin ${c.displayName}`} onClick={() => change(togglePin(pins, c.id), `pin-${c.id}`, `${c.displayName} is no longer pinned.`)}>

@@ -87,7 +87,7 @@ export function CropChips({ ordered, value, today, error, onPick, householdId, o
         <ErrorText id="cropId" error={error} />
       </fieldset>
       {ordered.length > 1 ? (
-        <button ref={arrangeButton} type="button" className="btn-quiet mt-3 min-h-12 w-full sm:w-auto" aria-expanded={arranging} onClick={() => setArranging((a) => !a)}>
+        <button ref={arrangeButton} type="button" className="link mt-1 gap-2" aria-expanded={arranging} onClick={() => setArranging((a) => !a)}>
           <Icon name="stake" size={20} />
           {arranging ? 'Close arranging' : 'Arrange: pin and order crops'}
         </button>

@@ -89,7 +89,7 @@ export function HarvestEditRow({ entry: harvest, colSpan, household, onDone }: {
           Crop
         </label>
         <select {...invalidProps(`${p}-crop`, errors.cropId)} className="field mt-1" value={cropId} onChange={(e) => setCropId(e.target.value)}>
-          {harvest.cropId === null ? <option value="">A reference food (choose it beside)</option> : null}
+          {harvest.cropId === null ? <option value="">A reference food, not a crop</option> : null}
           {(crops.data ?? []).filter((c) => !c.archived || c.id === harvest.cropId).map((c) => (
             <option key={c.id} value={c.id}>
               {c.displayName}
