@@ -49,8 +49,18 @@ export function UndoProvider({ children }: { children: ReactNode }) {
 function UndoToast({ shown, setShown }: { shown: Shown | null; setShown: (s: Shown | null | ((s: Shown | null) => Shown | null)) => void }) {
   const box = useRef<HTMLDivElement>(null);
   const undoButton = useRef<HTMLButtonElement>(null);
+  const closeButton = useRef<HTMLButtonElement>(null);
+  // A keyboard user who undid keeps the focus in the toast (on Close) when Undo goes away.
+  const keepFocus = useRef(false);
   const [held, setHeld] = useState({ pointer: false, focus: false });
   const paused = held.pointer || held.focus;
+
+  useEffect(() => {
+    if (keepFocus.current && shown && shown.state !== 'undoing') {
+      keepFocus.current = false;
+      closeButton.current?.focus();
+    }
+  }, [shown]);
 
   // A delete takes the focused button with its row: give the focus to Undo rather than the page.
   useEffect(() => {
@@ -70,6 +80,7 @@ function UndoToast({ shown, setShown }: { shown: Shown | null; setShown: (s: Sho
   async function undo() {
     if (!shown?.undo) return;
     const serial = shown.serial;
+    keepFocus.current = box.current?.contains(document.activeElement) ?? false;
     setShown({ ...shown, state: 'undoing' });
     try {
       const message = await shown.undo();
@@ -83,7 +94,12 @@ function UndoToast({ shown, setShown }: { shown: Shown | null; setShown: (s: Sho
     const inside = box.current?.contains(document.activeElement);
     setShown(null);
     setHeld({ pointer: false, focus: false });
-    if (inside) (document.querySelector('main') as HTMLElement | null)?.focus();
+    // The toast's buttons go: the focus goes to the start of the page's content, not to nowhere.
+    const main = document.getElementById('main');
+    if (inside && main) {
+      main.tabIndex = -1;
+      main.focus({ preventScroll: true });
+    }
   };
 
   const visible = shown !== null;
@@ -100,7 +116,8 @@ function UndoToast({ shown, setShown }: { shown: Shown | null; setShown: (s: Sho
       }
       onPointerEnter={() => setHeld((h) => ({ ...h, pointer: true }))}
       onPointerLeave={() => setHeld((h) => ({ ...h, pointer: false }))}
-      onFocus={() => setHeld((h) => ({ ...h, focus: true }))}
+      // Only a keyboard's focus holds the countdown (a tap on a button focuses it too).
+      onFocus={(e) => e.target.matches(':focus-visible') && setHeld((h) => ({ ...h, focus: true }))}
       onBlur={(e) => {
         if (!e.currentTarget.contains(e.relatedTarget as Node | null)) setHeld((h) => ({ ...h, focus: false }));
       }}
@@ -118,7 +135,7 @@ function UndoToast({ shown, setShown }: { shown: Shown | null; setShown: (s: Sho
         </button>
       ) : null}
       {visible ? (
-        <button type="button" className="btn-quiet min-h-12 min-w-12 px-3" aria-label="Close this message" onClick={close}>
+        <button ref={closeButton} type="button" className="btn-quiet min-h-12 min-w-12 px-3" aria-label="Close this message" onClick={close}>
           <span aria-hidden="true">×</span>
         </button>
       ) : null}
