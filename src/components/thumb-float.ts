@@ -8,8 +8,11 @@ import { useEffect, useState } from 'react';
 /** How long a confirmation floats above the bar before it settles. */
 export const FLOAT_MS = 6000;
 
+/** Where the thumb is on a phone: fixed just above the bottom navigation bar (none from `sm` up). */
+export const THUMB_ZONE = 'max-sm:fixed max-sm:inset-x-3 max-sm:bottom-20 max-sm:z-40';
+
 /** Classes that float a message above the phone's bottom bar (none from the `sm` breakpoint up). */
-const FLOATING = 'max-sm:fixed max-sm:inset-x-3 max-sm:bottom-20 max-sm:z-40 max-sm:shadow-lg';
+const FLOATING = `${THUMB_ZONE} max-sm:shadow-lg`;
 
 /**
  * The classes for a confirmation that should float for a while after `message` changes; '' while

@@ -38,6 +38,10 @@ export interface CropJson {
   archived: boolean;
   harvestCount: number;
   lastHarvestDate: string | null;
+  /** Harvests of the last 365 days up to the household's today (the chips' "most used"). */
+  harvestsLastYear: number;
+  /** Place among the pinned crop chips (1 = first); null = not pinned. */
+  pinRank: number | null;
 }
 
 /** A food on the household's staples list, logged again with one tap. */

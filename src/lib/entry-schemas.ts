@@ -201,7 +201,8 @@ const cropOrFood = { cropId: recordId.optional(), foodId: recordId.optional() };
  */
 export const harvestInput = z
   // plantingId: the planting it came from (its own crop's), for the household's own yield per m².
-  .strictObject({ ...cropOrFood, ...harvestFields, plantingId: recordId.optional() })
+  // splitWith: a harvest whose weighing this one joins as a part (undoing the delete of a part).
+  .strictObject({ ...cropOrFood, ...harvestFields, plantingId: recordId.optional(), splitWith: recordId.optional() })
   .superRefine((v, ctx) => checkOneOfCropFood(v, ctx, true))
   .superRefine(checkSpreadForUse)
   .superRefine(checkPreserveForUse)

@@ -42,3 +42,8 @@ export const larderOutcomeInput = z
   });
 
 export type LarderOutcomeInput = z.output<typeof larderOutcomeInput>;
+
+/** `GET …/larder/outcomes?harvestId=N`: the harvest whose records to list. Example: `larderOutcomesQuery.parse({ harvestId: '7' })` → { harvestId: 7 } */
+export const larderOutcomesQuery = z.object({
+  harvestId: z.coerce.number({ error: 'Give harvestId, the id of the harvest whose larder records to list.' }).pipe(recordId),
+});

@@ -30,6 +30,21 @@ const pageSize = z.preprocess(
     .default(L.defaultPageSize),
 );
 
+// Split weighings by their group ids, comma-separated (the harvest log fetches the parts of a
+// weighing that fall on another page). At most one group per row of the largest page.
+const splitGroups = z.preprocess(
+  blankToUndefined,
+  z
+    .string({ error: 'List split groups as ids separated by commas.' })
+    .transform((s) => s.split(',').map((g) => g.trim()).filter((g) => g !== ''))
+    .pipe(
+      z
+        .array(z.string().regex(/^[0-9a-f-]{36}$/i, { error: 'A split group is a 36-character id, as the harvests answer it.' }))
+        .max(L.maxPageSize, { error: `At most ${L.maxPageSize} split groups at once.` }),
+    )
+    .optional(),
+);
+
 function checkDateOrder(value: { from?: string | undefined; to?: string | undefined }, ctx: z.RefinementCtx): void {
   // ISO dates compare correctly as strings.
   if (value.from !== undefined && value.to !== undefined && value.from > value.to) {
@@ -58,6 +73,7 @@ export const harvestQuery = z
     cropId: queryId,
     foodId: queryId,
     use: z.preprocess(blankToUndefined, use.optional()),
+    splitGroup: splitGroups,
     sort: z.preprocess(blankToUndefined, z.enum(HARVEST_SORTS, { error: oneOf('The sort', HARVEST_SORTS) }).optional()),
     page,
     pageSize,

@@ -75,3 +75,23 @@ export function groupWeighings<T extends SplitRowLike>(rows: readonly T[]): Weig
   }
   return lines;
 }
+
+/**
+ * The split groups of a page of the log, each once, in the order they first appear.
+ * Example: rows a(g1), b(–), c(g2), d(g1) → ['g1', 'g2']
+ */
+export function splitGroupsOf(rows: readonly Pick<SplitRowLike, 'splitGroup'>[]): string[] {
+  return [...new Set(rows.flatMap((r) => (r.splitGroup === null ? [] : [r.splitGroup])))];
+}
+
+/**
+ * A page of the log made whole: the parts of its split weighings that fell on another page
+ * (`parts`, every part of the page's groups) are added after the page's rows, each entry once, so
+ * that groupWeighings shows every weighing whole where its first part on the page stands.
+ * Example: page [a(g1), b(–)], parts [a(g1), z(g1)] → [a, b, z]
+ */
+export function withMissingParts<T extends SplitRowLike>(page: readonly T[], parts: readonly T[]): T[] {
+  const onPage = new Set(page.map((r) => r.id));
+  const groups = new Set(splitGroupsOf(page));
+  return [...page, ...parts.filter((p) => !onPage.has(p.id) && p.splitGroup !== null && groups.has(p.splitGroup))];
+}

@@ -2,15 +2,17 @@
  * The household's crop catalogue in the database. Every function takes the household id and reads
  * or writes only that household's rows.
  */
-import { and, asc, count, desc, eq, inArray, max, sql } from 'drizzle-orm';
+import { and, asc, count, desc, eq, inArray, isNotNull, max, sql } from 'drizzle-orm';
 import { getDb } from '@/db/client';
-import { crops, datasets, foods, harvests, plantings, type Crop } from '@/db/schema';
+import { crops, datasets, foods, harvests, households, plantings, type Crop } from '@/db/schema';
 import type { CropJson, FoodSummary } from '@/lib/api-types';
 import { edibleFactor } from '@/lib/edible';
 import { EATEN_USES } from '@/lib/entry-schemas';
 import { mergeCropPatch, type CropInput, type CropPatch } from '@/lib/crop-schemas';
 import type { CropCategory } from '@/lib/crop-categories';
 import { referenceCropForName } from '@/lib/crop-name-match';
+import { mostUsedSince } from '@/lib/crop-chip-order';
+import { todayIn } from '@/lib/months';
 import { loadCropTable } from './crop-table-file';
 import { HttpError } from './http';
 import { fieldError, invalidInput, isDuplicateKey, isRowReferenced, type Executor, type Tx } from './entry-input';
@@ -55,7 +57,7 @@ export async function requireFood(ex: Executor, foodId: number, field = 'foodId'
   return food;
 }
 
-function toJson(c: Crop, food: FoodSummary | null, stats: { n: number; last: string | null } | undefined): CropJson {
+function toJson(c: Crop, food: FoodSummary | null, stats: { n: number; last: string | null; lastYear: number } | undefined): CropJson {
   const variety = c.variety === '' ? null : c.variety;
   return {
     id: c.id,
@@ -72,18 +74,23 @@ function toJson(c: Crop, food: FoodSummary | null, stats: { n: number; last: str
     archived: c.archived,
     harvestCount: stats?.n ?? 0,
     lastHarvestDate: stats?.last ?? null,
+    harvestsLastYear: stats?.lastYear ?? 0,
+    pinRank: c.pinRank,
   };
 }
 
 async function cropsJson(ex: Executor, householdId: number, rows: Crop[]): Promise<CropJson[]> {
   if (rows.length === 0) return [];
   const ids = rows.map((c) => c.id);
+  // "Most used" counts the household's harvests of the last 365 days up to its own today.
+  const [home] = await ex.select({ timezone: households.timezone }).from(households).where(eq(households.id, householdId));
+  const since = mostUsedSince(todayIn(home?.timezone ?? 'UTC'));
   const statRows = await ex
-    .select({ cropId: harvests.cropId, n: count(), last: max(harvests.date) })
+    .select({ cropId: harvests.cropId, n: count(), last: max(harvests.date), lastYear: sql<string | number>`SUM(${harvests.date} >= ${since})` })
     .from(harvests)
     .where(and(eq(harvests.householdId, householdId), inArray(harvests.cropId, ids)))
     .groupBy(harvests.cropId);
-  const stats = new Map(statRows.map((s) => [s.cropId, { n: Number(s.n), last: s.last }]));
+  const stats = new Map(statRows.map((s) => [s.cropId, { n: Number(s.n), last: s.last, lastYear: Number(s.lastYear ?? 0) }]));
   const foodsById = await foodSummaries(ex, rows.flatMap((c) => (c.foodId === null ? [] : [c.foodId])));
   return rows.map((c) => toJson(c, c.foodId === null ? null : (foodsById.get(c.foodId) ?? null), stats.get(c.id)));
 }
@@ -281,4 +288,24 @@ export async function deleteCrop(householdId: number, cropId: number): Promise<v
 /** All crops of a household as rows (for import matching and export), archived included. */
 export async function cropRows(ex: Executor, householdId: number): Promise<Crop[]> {
   return ex.select().from(crops).where(eq(crops.householdId, householdId)).orderBy(asc(crops.name), asc(crops.variety), desc(crops.id));
+}
+
+/**
+ * Sets the household's pinned crops in one transaction: the crops listed get ranks 1, 2, … in the
+ * order given and every other crop is unpinned. 400 naming the first id that is not a crop of the
+ * household. Answers the crop list as GET …/crops does.
+ */
+export async function setCropPins(householdId: number, cropIds: readonly number[]): Promise<CropJson[]> {
+  await getDb().transaction(async (tx) => {
+    // Locks the household's crop rows, so two arrangers one after the other each see a whole list.
+    const own = await tx.select({ id: crops.id }).from(crops).where(eq(crops.householdId, householdId)).for('update');
+    const ids = new Set(own.map((c) => c.id));
+    const stranger = cropIds.find((id) => !ids.has(id));
+    if (stranger !== undefined) throw fieldError('cropIds', `There is no crop #${stranger} in this household.`);
+    await tx.update(crops).set({ pinRank: null }).where(and(eq(crops.householdId, householdId), isNotNull(crops.pinRank)));
+    for (const [i, id] of cropIds.entries()) {
+      await tx.update(crops).set({ pinRank: i + 1 }).where(and(eq(crops.householdId, householdId), eq(crops.id, id)));
+    }
+  });
+  return listCrops(householdId);
 }

@@ -179,14 +179,35 @@ export async function getHarvest(householdId: number, harvestId: number, ex: Exe
   return h;
 }
 
-/** Stores one harvest in a transaction. Example: `await createHarvest(tx, 7, userId, harvestInput.parse(body))` → HarvestJson */
+/**
+ * Stores one harvest in a transaction. With `splitWith` it joins that harvest's weighing as one
+ * more part (undoing the delete of a part). Example: `await createHarvest(tx, 7, userId, harvestInput.parse(body))` → HarvestJson
+ */
 export async function createHarvest(tx: Tx, householdId: number, userId: string | null, input: HarvestInput): Promise<HarvestJson> {
   await checkNotFuture(tx, householdId, input.date);
   const basis = await harvestBasis(tx, householdId, input);
   checkUse(input, basis);
   await checkPlanting(tx, householdId, input, basis);
-  const [res] = await tx.insert(harvests).values({ ...harvestValues(input, basis), householdId, createdBy: userId });
+  const values = harvestValues(input, basis);
+  const splitGroup = input.splitWith === undefined ? null : await weighingToJoin(tx, householdId, input.splitWith, values);
+  const [res] = await tx.insert(harvests).values({ ...values, householdId, createdBy: userId, splitGroup });
   return getHarvest(householdId, res.insertId, tx);
+}
+
+/**
+ * The split group a new part joins: that of harvest `partId`, which must share the new part's crop
+ * (or food), planting and date (split-weighing.ts); a harvest left alone by a delete gets a new
+ * group with it. 400 naming `splitWith` otherwise.
+ */
+async function weighingToJoin(tx: Tx, householdId: number, partId: number, values: HarvestValues): Promise<string> {
+  const [part] = await tx.select().from(harvests).where(and(eq(harvests.householdId, householdId), eq(harvests.id, partId))).for('update');
+  if (!part) throw fieldError('splitWith', `There is no harvest #${partId} in this household to join.`);
+  const same = part.cropId === values.cropId && (values.cropId !== null || part.foodId === values.foodId) && part.plantingId === values.plantingId && part.date === values.date;
+  if (!same) throw fieldError('splitWith', `Harvest #${partId} is of another crop, food, planting or day; the parts of one weighing share them.`);
+  if (part.splitGroup !== null) return part.splitGroup;
+  const group = randomUUID();
+  await tx.update(harvests).set({ splitGroup: group }).where(eq(harvests.id, part.id));
+  return group;
 }
 
 /**
@@ -213,7 +234,11 @@ const harvestList: EntryListSpec<HarvestQuery, JoinedRow, HarvestJson> = {
   table: harvests,
   select: joined,
   toJson,
-  extraFilters: (q) => [...(q.cropId !== undefined ? [eq(harvests.cropId, q.cropId)] : []), ...(q.use !== undefined ? [eq(harvests.use, q.use)] : [])],
+  extraFilters: (q) => [
+    ...(q.cropId !== undefined ? [eq(harvests.cropId, q.cropId)] : []),
+    ...(q.use !== undefined ? [eq(harvests.use, q.use)] : []),
+    ...(q.splitGroup !== undefined && q.splitGroup.length > 0 ? [inArray(harvests.splitGroup, q.splitGroup)] : []),
+  ],
   // Entries without a crop (a reference food chosen directly) sort by the food's name.
   nameSort: { key: 'crop', order: [asc(sql`COALESCE(${crops.name}, ${foods.name})`), asc(crops.variety), desc(harvests.date), desc(harvests.id)] },
 };

@@ -4,7 +4,7 @@
  * outcomes, and the whole list is checked by lotSchedule() (src/lib/larder.ts) before it commits:
  * an outcome that cannot apply is refused with the day the lot ran out.
  */
-import { and, eq, inArray } from 'drizzle-orm';
+import { and, asc, eq, inArray } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { harvests, larderOutcomes, type Household } from '@/db/schema';
 import { LarderOutcomeError, lotSchedule } from '@/lib/larder';
@@ -86,6 +86,23 @@ export async function deleteOutcome(household: Household, outcomeId: number, now
     }
     await tx.delete(larderOutcomes).where(and(eq(larderOutcomes.id, outcomeId), eq(larderOutcomes.householdId, household.id)));
   });
+}
+
+/**
+ * The recorded outcomes of one harvest of the household, in the order they apply (date, then id);
+ * 404 when the household has no such harvest. Undo reads them before a delete or a change of use
+ * removes them, to record them again.
+ */
+export async function harvestOutcomes(householdId: number, harvestId: number): Promise<LarderOutcomeJson[]> {
+  const db = getDb();
+  const [h] = await db.select({ id: harvests.id }).from(harvests).where(and(eq(harvests.id, harvestId), eq(harvests.householdId, householdId)));
+  if (!h) throw new HttpError(404, 'not_found', `No harvest #${harvestId} in this household.`);
+  const rows = await db
+    .select()
+    .from(larderOutcomes)
+    .where(and(eq(larderOutcomes.householdId, householdId), eq(larderOutcomes.harvestId, harvestId)))
+    .orderBy(asc(larderOutcomes.date), asc(larderOutcomes.id));
+  return rows.map(outcomeJson);
 }
 
 function dateOf(list: readonly LarderOutcomeJson[], id: number): string {

@@ -91,6 +91,7 @@ const ROUTES: Row[] = [
   ['GET',    'crops/[cropId]',               read(404)],
   ['PATCH',  'crops/[cropId]',               write(400)],
   ['DELETE', 'crops/[cropId]',               write(404)],
+  ['PUT',    'crops/pins',                   write(400)],
   // people (who eats)
   ['GET',    'people/index',                 read(200)],
   ['POST',   'people/index',                 own(400)],
@@ -115,6 +116,7 @@ const ROUTES: Row[] = [
   ['GET',    'share',                        read(200)],
   ['GET',    'gaps',                         read(200)],
   ['GET',    'larder/index',                 read(200)],
+  ['GET',    'larder/outcomes/index',        read(400)],
   ['POST',   'larder/outcomes/index',        write(400)],
   ['DELETE', 'larder/outcomes/[outcomeId]',  write(404)],
   // the planting plan (reads only)

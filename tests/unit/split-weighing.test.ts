@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { groupAfterDelete, groupWeighings, sharedSplitPatch } from '@/lib/split-weighing';
+import { groupAfterDelete, groupWeighings, sharedSplitPatch, splitGroupsOf, withMissingParts } from '@/lib/split-weighing';
 
 describe('editing a part of a split weighing', () => {
   it('takes crop, food, planting and date to every part', () => {
@@ -37,5 +37,24 @@ describe('the harvest log as weighings', () => {
       '2',
       'g2:4:1000',
     ]);
+  });
+});
+
+describe('a page of the log made whole', () => {
+  const row = (id: number, splitGroup: string | null, grams = 1000) => ({ id, splitGroup, grams });
+
+  it('lists the page’s split groups once each, in order', () => {
+    expect(splitGroupsOf([row(1, 'g1'), row(2, null), row(3, 'g2'), row(4, 'g1')])).toEqual(['g1', 'g2']);
+  });
+
+  it('adds the parts that fell on another page, once, and only of the page’s own weighings', () => {
+    const page = [row(1, 'g1', 20_000), row(2, null, 500)];
+    const parts = [row(1, 'g1', 20_000), row(9, 'g1', 2_000), row(7, 'g3', 100)];
+    const whole = withMissingParts(page, parts);
+    expect(whole.map((r) => r.id)).toEqual([1, 2, 9]);
+    // Shown as one weighing of 22 kg where its first part stands.
+    const lines = groupWeighings(whole);
+    expect(lines[0]).toMatchObject({ kind: 'split', group: 'g1', grams: 22_000 });
+    expect(lines).toHaveLength(2);
   });
 });

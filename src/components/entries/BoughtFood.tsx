@@ -1,11 +1,16 @@
 /**
  * The bought-food page's one island: the entry form, the staples list and the table share one
- * TanStack Query client (so entering food refreshes the table) and one outbox.
+ * TanStack Query client (so entering food refreshes the table), one outbox and one Undo toast:
+ * on a phone the "Just saved" list sits above the form, so what was just saved is offered for
+ * Undo at the thumb as well.
  */
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
-import { ApiError, canWrite, keys, request, urls, type HouseholdInfo, type Purchase } from './api';
+import { canWrite, keys, type HouseholdInfo, type Purchase } from './api';
 import { todayIn } from '@/lib/months';
+import { undoneText, undoSteps, type UndoAction } from '@/lib/undo-plan';
+import { UndoProvider, useUndo } from '@/components/UndoToast';
+import { runUndoSteps } from './use-entry-undo';
 import { useOutbox } from './outbox';
 import { PurchaseForm } from './PurchaseForm';
 import { PurchaseWaiting, savedPurchase, type SavedPurchase } from './PurchaseSaved';
@@ -22,7 +27,9 @@ interface Props {
 export default function BoughtFood(props: Props) {
   return (
     <QueryProvider>
-      <BoughtFoodInner {...props} />
+      <UndoProvider>
+        <BoughtFoodInner {...props} />
+      </UndoProvider>
     </QueryProvider>
   );
 }
@@ -34,24 +41,27 @@ function BoughtFoodInner({ household, today: serverToday }: Props) {
   const [today] = useState(() => (typeof window === 'undefined' ? serverToday : todayIn(household.timezone)));
   const [saved, setSaved] = useState<SavedPurchase[]>([]);
   const [alert, setAlert] = useState<string | null>(null);
-  const add = (s: SavedPurchase) => setSaved((list) => [s, ...list.filter((x) => x.key !== s.key)].slice(0, 5));
+  const toast = useUndo();
+  const actionOf = (s: SavedPurchase): UndoAction => ({ kind: 'purchase-saved', purchase: s.purchase });
+  // Deletes what was saved; already gone (undone in another tab) counts as undone.
+  const undoSaved = async (s: SavedPurchase) => {
+    await runUndoSteps(hid, undoSteps(actionOf(s)));
+    setSaved((list) => list.filter((x) => x.key !== s.key));
+    void qc.invalidateQueries({ queryKey: keys.purchases(hid) });
+    return s;
+  };
+  const add = (s: SavedPurchase) => {
+    setSaved((list) => [s, ...list.filter((x) => x.key !== s.key)].slice(0, 5));
+    // Sent later by the outbox: the list says so; a toast for each would bury the current one.
+    if (!s.later) toast({ message: `Saved ${s.label} · edible ${s.edible}`, undo: () => undoSaved(s).then(() => undoneText(actionOf(s))) });
+  };
   const outbox = useOutbox<{ purchase: Purchase }>('purchases', hid, (item, data) => {
     add(savedPurchase(item.key, item.label, data.purchase, true));
     void qc.invalidateQueries({ queryKey: keys.purchases(hid) });
   });
   const undo = useMutation({
-    mutationFn: async (s: SavedPurchase) => {
-      try {
-        await request<null>('DELETE', urls(hid).purchase(s.purchase.id));
-      } catch (e) {
-        if (!(e instanceof ApiError && e.status === 404)) throw e;
-      }
-      return s;
-    },
-    onSuccess: (s) => {
-      setSaved((list) => list.filter((x) => x.key !== s.key));
-      void qc.invalidateQueries({ queryKey: keys.purchases(hid) });
-    },
+    mutationFn: undoSaved,
+    onSuccess: (s) => toast({ message: undoneText(actionOf(s)) }),
     onError: (e) => setAlert(`Could not undo: ${(e as Error).message}`),
   });
 

@@ -13,15 +13,17 @@ import type { Errors } from './ui';
 
 /**
  * Validates a changed entry with `schema` and sends it as a PATCH to `url`; on success refreshes
- * `invalidate` and calls `onDone`. Example: `const { errors, send, saving } = useEntryPatch(harvestPatch, url, [keys.harvests(7)], close)`
+ * `invalidate`, hands the answer to `onSaved` (to offer Undo) and calls `onDone`.
+ * Example: `const { errors, send, saving } = useEntryPatch(harvestPatch, url, [keys.harvests(7)], close)`
  */
-export function useEntryPatch(schema: z.ZodType, url: string, invalidate: QueryKey[], onDone: () => void) {
+export function useEntryPatch<A = unknown>(schema: z.ZodType, url: string, invalidate: QueryKey[], onDone: () => void, onSaved?: (answer: A) => void) {
   const qc = useQueryClient();
   const [errors, setErrors] = useState<Errors>({});
   const save = useMutation({
-    mutationFn: (body: unknown) => request<unknown>('PATCH', url, body),
-    onSuccess: () => {
+    mutationFn: (body: unknown) => request<A>('PATCH', url, body),
+    onSuccess: (answer) => {
       for (const queryKey of invalidate) void qc.invalidateQueries({ queryKey });
+      onSaved?.(answer);
       onDone();
     },
     onError: (e) => setErrors(e instanceof ApiError && Object.keys(e.fields).length ? e.fields : { _form: (e as Error).message }),
@@ -46,14 +48,17 @@ export function EditRowShell(props: {
   layout: { grid: string; span: string };
   saving: boolean;
   formError: string | undefined;
+  /** Why the changes cannot be saved yet (Save is disabled and this is said beside it), or undefined. */
+  blocked?: string | undefined;
   onSubmit: () => void;
   onCancel: () => void;
   children: ReactNode;
 }) {
   const { span } = props.layout;
+  const blockedId = `${props.label.replace(/[^A-Za-z0-9]+/g, '-')}-blocked`;
   function submit(e: FormEvent) {
     e.preventDefault();
-    props.onSubmit();
+    if (!props.blocked) props.onSubmit();
   }
   return (
     <tr className="border-b border-loam-200 bg-rind-100/50 max-sm:block">
@@ -62,13 +67,18 @@ export function EditRowShell(props: {
           <p className={`font-bold ${span}`}>{props.title}</p>
           {props.children}
           <div className={`flex flex-wrap gap-2 ${span}`}>
-            <button type="submit" className="btn-primary" disabled={props.saving}>
+            <button type="submit" className="btn-primary" disabled={props.saving || props.blocked !== undefined} aria-describedby={props.blocked ? blockedId : undefined}>
               {props.saving ? 'Saving…' : 'Save changes'}
             </button>
             <button type="button" className="btn-quiet" onClick={props.onCancel}>
               Cancel
             </button>
           </div>
+          {props.blocked ? (
+            <p id={blockedId} className={`font-semibold text-berry-700 ${span}`} data-testid="edit-blocked">
+              {props.blocked}
+            </p>
+          ) : null}
           {props.formError ? (
             <p role="alert" className={`font-semibold text-berry-700 ${span}`}>
               {props.formError}

@@ -83,6 +83,8 @@ export interface EntriesTableProps<T extends { id: number } & RowData> {
   /** The phone's order picker: its id and [sort key, label] choices. */
   sortSelect: { id: string; options: [string, string][] };
   deleteUrl: (id: number) => string;
+  /** Deletes an entry instead of a plain DELETE of deleteUrl (a list that offers Undo brings its own). */
+  deleteEntry?: (entry: T, page: readonly T[]) => Promise<unknown>;
   /** Query keys to refresh after a delete (the list's, and whatever else it changes). */
   invalidate: QueryKey[];
   EditRow: ComponentType<{ entry: T; colSpan: number; household: HouseholdInfo; onDone: () => void }>;
@@ -137,7 +139,11 @@ export function EntriesTable<T extends { id: number } & RowData>(props: EntriesT
   const list = useQuery({ queryKey: [...listKey, 'table', params], queryFn: () => props.fetchPage(params), placeholderData: keepPreviousData });
 
   const remove = useMutation({
-    mutationFn: (id: number) => request<null>('DELETE', props.deleteUrl(id)),
+    mutationFn: (id: number) => {
+      const page = list.data?.rows ?? [];
+      const entry = page.find((e) => e.id === id);
+      return props.deleteEntry && entry ? props.deleteEntry(entry, page) : request<null>('DELETE', props.deleteUrl(id));
+    },
     onSuccess: () => {
       setAlert(null);
       for (const queryKey of props.invalidate) void qc.invalidateQueries({ queryKey });

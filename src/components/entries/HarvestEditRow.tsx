@@ -1,7 +1,10 @@
 /**
- * The harvest log's inline edit: crop, amount and unit, use, date, months in store (stored and
- * preserved), preserving method (preserved), trimmed and note. A part of a split weighing says that
- * a new crop or date moves the whole weighing (src/lib/split-weighing.ts).
+ * The harvest log's inline edit: crop (or, for a harvest logged against a reference food, that
+ * food, with a food picker beside the crop select), amount and unit, use, date, months in store
+ * (stored and preserved), preserving method (preserved), trimmed and note. A part of a split
+ * weighing says that a new crop or date moves the whole weighing (src/lib/split-weighing.ts).
+ * A saved change is offered for Undo; a lot's larder records are read first, since taking it out
+ * of store removes them.
  */
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
@@ -10,9 +13,12 @@ import { PRESERVE_METHODS, type PreserveMethod } from '@/lib/retention';
 import { WEIGHT_UNITS, type WeightUnit } from '@/lib/units';
 import { get, keys, urls, type Crop, type Harvest, type HouseholdInfo } from './api';
 import { EditRowShell, useEntryPatch } from './EditEntryRow';
+import { FoodPicker, type FoodChoice } from './FoodPicker';
+import { formatDay } from './local-date';
 import { PRESERVE_METHOD_LABELS } from './PreserveField';
 import { parseDecimal, trimNumber } from './quantity-text';
 import { ErrorText, invalidProps } from './ui';
+import { outcomesOf, useEntryUndo } from './use-entry-undo';
 
 export function HarvestEditRow({ entry: harvest, colSpan, household, onDone }: { entry: Harvest; colSpan: number; household: HouseholdInfo; onDone: () => void }) {
   const hid = household.id;
@@ -26,7 +32,20 @@ export function HarvestEditRow({ entry: harvest, colSpan, household, onDone }: {
   const [method, setMethod] = useState<PreserveMethod | ''>(harvest.preserveMethod ?? '');
   const [trimmed, setTrimmed] = useState(harvest.trimmed);
   const [note, setNote] = useState(harvest.note ?? '');
-  const { errors, send, saving } = useEntryPatch(harvestPatch, urls(hid).harvest(harvest.id), [keys.harvests(hid), keys.allCrops(hid)], onDone);
+  // Only a harvest logged against a reference food has one to change (a crop's food follows the crop).
+  const [food, setFood] = useState<FoodChoice | null>(harvest.cropId === null && harvest.foodId !== null ? { id: harvest.foodId, name: harvest.foodName ?? '', code: harvest.foodCode ?? '' } : null);
+  const onFood = harvest.cropId === null && cropId === '';
+  const outcomes = useQuery({ queryKey: ['larder-outcomes', hid, harvest.id], queryFn: () => outcomesOf(hid, harvest), enabled: isSpreadUse(harvest.use) });
+  const invalidate = [keys.harvests(hid), keys.allCrops(hid)];
+  const offerUndo = useEntryUndo(hid, invalidate);
+  const { errors, send, saving } = useEntryPatch<{ harvest: Harvest }>(harvestPatch, urls(hid).harvest(harvest.id), invalidate, onDone, (r) =>
+    offerUndo(`Changes saved to ${r.harvest.cropName ?? r.harvest.foodName} of ${formatDay(r.harvest.date)}`, {
+      kind: 'harvest-edited',
+      before: harvest,
+      after: r.harvest,
+      outcomes: outcomes.data ?? [],
+    }),
+  );
   const p = `edit-${harvest.id}`;
 
   function submit() {
@@ -39,6 +58,7 @@ export function HarvestEditRow({ entry: harvest, colSpan, household, onDone }: {
       // Crop and date only when changed: on a split part they move every part of the weighing.
       // A new crop leaves the old crop's planting behind (the API refuses a planting of another crop).
       ...(cropId !== '' && Number(cropId) !== harvest.cropId ? { cropId: Number(cropId), plantingId: null } : {}),
+      ...(onFood && food && food.id !== harvest.foodId ? { foodId: food.id } : {}),
       ...(date !== harvest.date ? { date } : {}),
       // Blank months: kept as stored, or after a change of use the new use's default (the crop's usual).
       ...(isSpreadUse(use) && spread !== '' ? { spreadMonths: parseDecimal(spread) } : {}),
@@ -54,6 +74,8 @@ export function HarvestEditRow({ entry: harvest, colSpan, household, onDone }: {
       layout={{ grid: 'sm:grid-cols-4', span: 'sm:col-span-4' }}
       saving={saving}
       formError={errors._form}
+      // A cleared food picker never quietly keeps the old food: choose one, or Cancel keeps it.
+      blocked={onFood && !food ? `Choose the reference food (or a crop) to save, or Cancel to keep ${harvest.foodName ?? 'the food'}.` : undefined}
       onSubmit={submit}
       onCancel={onDone}
     >
@@ -67,7 +89,7 @@ export function HarvestEditRow({ entry: harvest, colSpan, household, onDone }: {
           Crop
         </label>
         <select {...invalidProps(`${p}-crop`, errors.cropId)} className="field mt-1" value={cropId} onChange={(e) => setCropId(e.target.value)}>
-          {harvest.cropId === null ? <option value="">{harvest.foodName ?? '—'} (reference food)</option> : null}
+          {harvest.cropId === null ? <option value="">A reference food, not a crop</option> : null}
           {(crops.data ?? []).filter((c) => !c.archived || c.id === harvest.cropId).map((c) => (
             <option key={c.id} value={c.id}>
               {c.displayName}
@@ -76,6 +98,11 @@ export function HarvestEditRow({ entry: harvest, colSpan, household, onDone }: {
         </select>
         <ErrorText id={`${p}-crop`} error={errors.cropId} />
       </div>
+      {onFood ? (
+        <div className="sm:col-span-2">
+          <FoodPicker id={`${p}-food`} label="Reference food" value={food} onChange={setFood} error={errors.foodId} facts={false} compact />
+        </div>
+      ) : null}
       <div>
         <label htmlFor={`${p}-quantity`} className="block text-sm font-semibold">
           Quantity

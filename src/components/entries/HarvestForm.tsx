@@ -1,6 +1,6 @@
 /**
- * The harvest entry form (island, client:load), built for one thumb in the garden: recent and
- * in-season crops first, a big weight field, a unit toggle remembered per household, use chips,
+ * The harvest entry form (island, client:load), built for one thumb in the garden: pinned and
+ * most used crops first, in an order that holds still, a big weight field, a unit toggle remembered per household, use chips,
  * today's date in the household's zone, a split mode for one weighing shared between uses, the
  * preserving method of preserved food. The form is react-hook-form, checked by the endpoint's own
  * zod schemas (harvest-form-values.ts); a date after today is refused, and a weight that looks like
@@ -19,7 +19,7 @@ import { formatAmount } from '@/lib/format-number';
 import { harvestWarnings } from '@/lib/harvest-warnings';
 import { toGrams } from '@/lib/units';
 import { ApiError, canWrite, get, keys, newIdempotencyKey, urls, type Crop, type HarvestPage, type HouseholdInfo } from './api';
-import { cropDefaultUse, orderCrops } from './crop-order';
+import { cropDefaultUse, useChipOrder } from './crop-order';
 import { ConfirmWarning } from './ConfirmWarning';
 import { CropChips } from './CropChips';
 import { flatErrors } from './form-errors';
@@ -76,7 +76,8 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
     staleTime: 5 * 60_000,
   });
   const inSeasonIds = useMemo(() => new Set((season.data?.harvests ?? []).map((h) => h.cropId).filter((id): id is number => id != null)), [season.data]);
-  const ordered = useMemo(() => orderCrops(crops.data ?? [], today, inSeasonIds), [crops.data, today, inSeasonIds]);
+  // Pinned, then most used; fixed when the crops first load, so no chip moves after a save.
+  const { ordered, rearrange } = useChipOrder(crops.data, today, inSeasonIds);
 
   const [unit, setUnit] = useRememberedUnit(hid, household.units);
   const [alert, setAlert] = useState<string | null>(null);
@@ -187,7 +188,7 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
   return (
     <div>
       <form ref={formRef} onSubmit={submit} noValidate className="card" aria-label="Log a harvest">
-        <CropChips ordered={ordered} value={values.cropId} today={today} error={errors.cropId} onPick={pickCrop} />
+        <CropChips ordered={ordered} value={values.cropId} today={today} error={errors.cropId} onPick={pickCrop} householdId={hid} onArranged={rearrange} />
 
         <WeightField id="quantity" label={splitting ? 'Whole weighing' : 'Weight'} input={register('quantity')} error={errors.quantity} unitName="unit" unit={unit} onUnit={setUnit} enterKeyHint="done" />
 

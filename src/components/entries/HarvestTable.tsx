@@ -1,14 +1,17 @@
 /**
  * The harvest log as a table (island): sortable, filtered by month, crop and use, paginated, with
- * totals in the household's units; inline edit and delete with confirmation. The table itself is
- * EntriesTable; this file brings the harvest log's columns, filters, edit row and words.
+ * totals in the household's units; inline edit and delete with confirmation, each offering Undo in
+ * the page's toast. A split weighing shows whole: the parts of a page's weighings that fall on
+ * another page are fetched with it. The table itself is EntriesTable; this file brings the harvest
+ * log's columns, filters, edit row and words.
  */
 import { useQuery } from '@tanstack/react-query';
 import { useState, type ReactNode } from 'react';
 import { USE_LABELS, USES } from '@/lib/entry-schemas';
-import { groupWeighings } from '@/lib/split-weighing';
+import { groupWeighings, splitGroupsOf, withMissingParts } from '@/lib/split-weighing';
 import { type UnitSystem } from '@/lib/units';
-import { canWrite, get, keys, urls, type Crop, type Harvest, type HarvestPage, type HouseholdInfo } from './api';
+import { UndoProvider } from '@/components/UndoToast';
+import { canWrite, get, keys, request, urls, type Crop, type Harvest, type HarvestPage, type HouseholdInfo } from './api';
 import { HarvestEditRow } from './HarvestEditRow';
 import { PRESERVE_METHOD_LABELS } from './PreserveField';
 import { EntriesTable, entryColumns, type EntryColumn } from './EntriesTable';
@@ -18,11 +21,14 @@ import { QueryProvider } from '@/components/QueryProvider';
 import { formatInUnit, formatQuantity } from './quantity-text';
 import { MonthFilter, stack } from './table-bits';
 import { splitUseLabel } from './ui';
+import { outcomesOf, useEntryUndo } from './use-entry-undo';
 
 export default function HarvestTable(props: { household: HouseholdInfo }) {
   return (
     <QueryProvider>
-      <HarvestTableInner {...props} />
+      <UndoProvider>
+        <HarvestTableInner {...props} />
+      </UndoProvider>
     </QueryProvider>
   );
 }
@@ -91,6 +97,24 @@ function splitLead(h: Harvest, previous: Harvest | undefined, page: Harvest[]): 
   );
 }
 
+/**
+ * A page of the log with every part of its split weighings: the parts that fell on another page
+ * come in one more request under the same filters (so a weighing straddling two pages shows
+ * whole on both).
+ */
+async function pageWithWholeWeighings(hid: number, params: Record<string, string | number | undefined>): Promise<{ rows: Harvest[]; total: number; totals: HarvestPage['totals'] }> {
+  const api = urls(hid);
+  const p = await get<HarvestPage>(api.harvests(params));
+  const groups = splitGroupsOf(p.harvests);
+  let rows = p.harvests;
+  if (groups.length > 0) {
+    const { sort: _sort, page: _page, pageSize: _size, ...filters } = params;
+    const parts = await get<HarvestPage>(api.harvests({ ...filters, splitGroup: groups.join(','), pageSize: 200 }));
+    rows = withMissingParts(p.harvests, parts.harvests);
+  }
+  return { rows: weighingOrder(rows), total: p.total, totals: p.totals };
+}
+
 function sortCaption(sort: string): string {
   return { date: 'oldest first', '-date': 'newest first', grams: 'lightest first', '-grams': 'heaviest first', crop: 'by crop' }[sort] ?? '';
 }
@@ -104,6 +128,16 @@ function HarvestTableInner({ household }: { household: HouseholdInfo }) {
   const crops = useQuery({ queryKey: keys.crops(hid, true), queryFn: () => get<{ crops: Crop[] }>(api.crops(true)).then((r) => r.crops) });
   const [columns] = useState(() => harvestColumns(household.units));
   const range = month ? monthRange(month) : null;
+  const offerUndo = useEntryUndo(hid, [keys.harvests(hid), keys.allCrops(hid)]);
+  const entryText = (h: Harvest) => `${formatQuantity(h.quantity, h.unit)} ${h.cropName ?? h.foodName ?? ''} of ${formatDay(h.date)}`;
+
+  // Undo logs the harvest again: its larder records are read first, and a part rejoins its weighing.
+  async function deleteHarvest(h: Harvest, page: readonly Harvest[]) {
+    const outcomes = await outcomesOf(hid, h);
+    await request<null>('DELETE', api.harvest(h.id));
+    const sibling = h.splitGroup === null ? undefined : page.find((p) => p.splitGroup === h.splitGroup && p.id !== h.id);
+    offerUndo(`Deleted ${entryText(h)}`, { kind: 'harvest-deleted', harvest: h, splitWith: sibling?.id ?? null, outcomes });
+  }
 
   return (
     <EntriesTable
@@ -111,7 +145,7 @@ function HarvestTableInner({ household }: { household: HouseholdInfo }) {
       writer={canWrite(household.role)}
       columns={columns}
       listKey={keys.harvests(hid)}
-      fetchPage={(params) => get<HarvestPage>(api.harvests(params)).then((p) => ({ rows: weighingOrder(p.harvests), total: p.total, totals: p.totals }))}
+      fetchPage={(params) => pageWithWholeWeighings(hid, params)}
       rowLead={splitLead}
       filters={{ from: range?.from, to: range?.to, cropId: cropId || undefined, use: use || undefined }}
       filterFields={
@@ -149,10 +183,11 @@ function HarvestTableInner({ household }: { household: HouseholdInfo }) {
       onClearFilters={() => (setMonth(''), setCropId(''), setUse(''))}
       sortSelect={{ id: 'f-sort', options: [['-date', 'Newest first'], ['date', 'Oldest first'], ['-grams', 'Heaviest first'], ['grams', 'Lightest first'], ['crop', 'By crop']] }}
       deleteUrl={api.harvest}
+      deleteEntry={deleteHarvest}
       invalidate={[keys.harvests(hid), keys.allCrops(hid)]}
       EditRow={HarvestEditRow}
       editLabel={(h) => `Edit ${h.cropName ?? 'entry'} of ${h.date}`}
-      deleteWhat={(h) => `${formatQuantity(h.quantity, h.unit)} ${h.cropName ?? h.foodName ?? ''} of ${formatDay(h.date)}`}
+      deleteWhat={entryText}
       testIds={{ table: 'harvest-table', row: 'harvest-row' }}
       words={{ caption: (sort) => `Harvest log, ${sortCaption(sort)}`, loadError: 'Could not load the harvest log', empty: 'No harvests logged yet.', emptyFiltered: 'No harvests match these filters.' }}
       showFetching

@@ -1,12 +1,14 @@
 /**
  * Bought food as a table: sortable, filtered by month and food, paginated, totals in the
- * household's units, inline edit and delete with confirmation. The table itself is EntriesTable;
- * this file brings the bought-food columns, filters, edit row and words.
+ * household's units, inline edit and delete with confirmation, each offering Undo in the page's
+ * toast (the island wraps it in UndoProvider). The table itself is EntriesTable; this file brings
+ * the bought-food columns, filters, edit row and words.
  */
 import { useState, type ReactNode } from 'react';
 import { purchasePatch } from '@/lib/entry-schemas';
 import { WEIGHT_UNITS, type UnitSystem, type WeightUnit } from '@/lib/units';
-import { get, keys, urls, type HouseholdInfo, type Purchase, type PurchasePage } from './api';
+import { get, keys, request, urls, type HouseholdInfo, type Purchase, type PurchasePage } from './api';
+import { useEntryUndo } from './use-entry-undo';
 import { EditRowShell, useEntryPatch } from './EditEntryRow';
 import { EntriesTable, entryColumns, type EntryColumn } from './EntriesTable';
 import { dateColumn, edibleColumn, weightColumn } from './entry-columns';
@@ -73,6 +75,12 @@ export function PurchaseTable({ household, writer }: { household: HouseholdInfo;
   const [food, setFood] = useState<FoodChoice | null>(null);
   const [columns] = useState(() => purchaseColumns(household.units));
   const range = month ? monthRange(month) : null;
+  const offerUndo = useEntryUndo(hid, [keys.purchases(hid)]);
+  const entryText = (p: Purchase) => `${formatQuantity(p.quantity, p.unit)} ${p.foodName} of ${formatDay(p.date)}`;
+  async function deletePurchase(p: Purchase) {
+    await request<null>('DELETE', api.purchase(p.id));
+    offerUndo(`Deleted ${entryText(p)}`, { kind: 'purchase-deleted', purchase: p });
+  }
 
   return (
     <section aria-labelledby="bought-table-title">
@@ -97,10 +105,11 @@ export function PurchaseTable({ household, writer }: { household: HouseholdInfo;
         onClearFilters={() => (setMonth(''), setFood(null))}
         sortSelect={{ id: 'pf-sort', options: [['-date', 'Newest first'], ['date', 'Oldest first'], ['-grams', 'Heaviest first'], ['grams', 'Lightest first'], ['food', 'By food']] }}
         deleteUrl={api.purchase}
+        deleteEntry={deletePurchase}
         invalidate={[keys.purchases(hid)]}
         EditRow={PurchaseEditRow}
         editLabel={(p) => `Edit ${p.foodName} of ${p.date}`}
-        deleteWhat={(p) => `${formatQuantity(p.quantity, p.unit)} ${p.foodName} of ${formatDay(p.date)}`}
+        deleteWhat={entryText}
         testIds={{ table: 'purchase-table', row: 'purchase-row' }}
         words={{ caption: () => 'Bought food', loadError: 'Could not load the bought food', empty: 'No bought food entered yet.', emptyFiltered: 'No bought food matches these filters.' }}
       />
@@ -118,7 +127,11 @@ function PurchaseEditRow({ entry: purchase, colSpan, household, onDone }: { entr
   const [note, setNote] = useState(purchase.note ?? '');
   const [food, setFood] = useState<FoodChoice | null>({ id: purchase.foodId, name: purchase.foodName, code: purchase.foodCode });
   const [trimmed, setTrimmed] = useState(purchase.trimmed);
-  const { errors, send, saving } = useEntryPatch(purchasePatch, urls(household.id).purchase(purchase.id), [keys.purchases(household.id)], onDone);
+  const invalidate = [keys.purchases(household.id)];
+  const offerUndo = useEntryUndo(household.id, invalidate);
+  const { errors, send, saving } = useEntryPatch<{ purchase: Purchase }>(purchasePatch, urls(household.id).purchase(purchase.id), invalidate, onDone, (r) =>
+    offerUndo(`Changes saved to ${r.purchase.foodName} of ${formatDay(r.purchase.date)}`, { kind: 'purchase-edited', before: purchase, after: r.purchase }),
+  );
   const p = `pedit-${purchase.id}`;
 
   const field = (key: string, label: string, input: ReactNode) => (
@@ -139,6 +152,8 @@ function PurchaseEditRow({ entry: purchase, colSpan, household, onDone }: { entr
       layout={{ grid: 'sm:grid-cols-4', span: 'sm:col-span-4' }}
       saving={saving}
       formError={errors._form}
+      // A cleared picker never quietly keeps the old food: choose another, or Cancel keeps it.
+      blocked={food ? undefined : `Choose the food bought to save, or Cancel to keep ${purchase.foodName}.`}
       onSubmit={() =>
         send({
           quantity: parseDecimal(quantity),
@@ -149,7 +164,7 @@ function PurchaseEditRow({ entry: purchase, colSpan, household, onDone }: { entr
           spreadMonths: parseDecimal(spread),
           trimmed,
           note,
-          // A cleared picker keeps the food; a new one replaces it (its refuse with it).
+          // A new food replaces the old one (its refuse with it); Save is blocked while none is chosen.
           ...(food && food.id !== purchase.foodId ? { foodId: food.id } : {}),
         })
       }

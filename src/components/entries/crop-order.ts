@@ -1,8 +1,11 @@
 /**
- * The order a grower reaches for crops on the harvest form — recently harvested first, then what
- * was in season a year ago, then the rest — and the small line under each crop button.
+ * The crop chips' order on the harvest form (rules in src/lib/crop-chip-order.ts: pinned
+ * favourites, then most used in the last year, then by name), held steady for the session by
+ * `useChipOrder`, and the small line under each crop button.
  */
+import { useState } from 'react';
 import { defaultUse } from '@/lib/crop-categories';
+import { chipOrder, keepOrder } from '@/lib/crop-chip-order';
 import type { Use } from '@/lib/entry-schemas';
 import type { Crop } from './api';
 import { daysBetween } from '@/lib/months';
@@ -15,19 +18,29 @@ export interface OrderedCrop {
   crop: Crop;
   recent: boolean;
   inSeason: boolean;
+  pinned: boolean;
 }
 
-/** Crops in the order a grower reaches for them: recently harvested, then in season a year ago, then the rest. */
-export function orderCrops(crops: Crop[], today: string, inSeasonIds: ReadonlySet<number>): OrderedCrop[] {
-  const rows = crops
-    .filter((c) => !c.archived)
-    .map((crop, i) => {
-      const recent = crop.lastHarvestDate != null && daysBetween(crop.lastHarvestDate, today) <= RECENT_DAYS;
-      return { crop, recent, inSeason: inSeasonIds.has(crop.id), i };
-    });
-  const rank = (r: (typeof rows)[number]) => (r.recent ? 0 : r.inSeason ? 1 : 2);
-  rows.sort((a, b) => rank(a) - rank(b) || (a.recent && b.recent ? (b.crop.lastHarvestDate ?? '').localeCompare(a.crop.lastHarvestDate ?? '') : 0) || a.i - b.i);
-  return rows.map(({ crop, recent, inSeason }) => ({ crop, recent, inSeason }));
+/** The crops as chips, in `order` (crop ids), with what the line under each says. */
+function describe(order: readonly Crop[], today: string, inSeasonIds: ReadonlySet<number>): OrderedCrop[] {
+  return order.map((crop) => ({
+    crop,
+    recent: crop.lastHarvestDate != null && daysBetween(crop.lastHarvestDate, today) <= RECENT_DAYS,
+    inSeason: inSeasonIds.has(crop.id),
+    pinned: crop.pinRank !== null,
+  }));
+}
+
+/**
+ * The chips in the order they had when the crops first loaded: a save raises a crop's count but
+ * moves no chip. `rearrange(crops)` takes a new order at once (after the grower pins or reorders).
+ */
+export function useChipOrder(crops: Crop[] | undefined, today: string, inSeasonIds: ReadonlySet<number>): { ordered: OrderedCrop[]; rearrange: (crops: Crop[]) => void } {
+  const [frozen, setFrozen] = useState<number[] | null>(null);
+  // Fixed once, on the first list (setting state while rendering is React's way to derive it once).
+  if (crops && frozen === null) setFrozen(chipOrder(crops).map((c) => c.id));
+  const order = crops ? (frozen ? keepOrder(frozen, crops) : chipOrder(crops)) : [];
+  return { ordered: describe(order, today, inSeasonIds), rearrange: (next) => setFrozen(chipOrder(next).map((c) => c.id)) };
 }
 
 /** "harvested today", "harvested yesterday" or "last 2 Dec" for the crop buttons. */

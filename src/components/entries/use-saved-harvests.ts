@@ -1,14 +1,18 @@
 /**
  * The harvest form's memory of what was just saved: the last five weighings with their edible
  * portion, entries the outbox sent later ("Sent and saved"), and Undo, which deletes every harvest
- * of a weighing (a split is several) through TanStack Query.
+ * of a weighing (a split is several) through TanStack Query (the steps of src/lib/undo-plan.ts).
+ * The card of the newest weighing is the form's Undo at the thumb: HarvestSaved scrolls it into
+ * view just above the phone's bottom bar, where other pages float their Undo toast.
  */
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
+import { undoSteps } from '@/lib/undo-plan';
 import type { WeightUnit } from '@/lib/units';
-import { ApiError, keys, request, urls, type Harvest } from './api';
+import { keys, type Harvest } from './api';
 import type { SavedEntry } from './HarvestSaved';
 import { formatInUnit } from './quantity-text';
+import { runUndoSteps } from './use-entry-undo';
 
 /** What POST …/harvests answers: one harvest, or the harvests of a split. */
 export type CreateAnswer = { harvest: Harvest } | { harvests: Harvest[] };
@@ -39,15 +43,9 @@ export function useSavedHarvests(hid: number, unit: WeightUnit, onUndoError: (me
   };
 
   const undo = useMutation({
+    // Deletes every harvest of the weighing; one already gone (undone in another tab) counts as undone.
     mutationFn: async (entry: SavedEntry) => {
-      for (const h of entry.harvests) {
-        try {
-          await request<null>('DELETE', urls(hid).harvest(h.id));
-        } catch (e) {
-          // Already gone (undone in another tab): that is what Undo wanted.
-          if (!(e instanceof ApiError && e.status === 404)) throw e;
-        }
-      }
+      await runUndoSteps(hid, undoSteps({ kind: 'harvests-saved', harvests: entry.harvests }));
       return entry;
     },
     onSuccess: (entry) => {

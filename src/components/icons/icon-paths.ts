@@ -1,7 +1,8 @@
 /**
  * Selfsown's own icons, drawn for it on a 24 × 24 grid with round 2 px strokes in the current text
  * colour: the plate whose share is home-grown (the mark), the larder jar full and empty, the
- * kitchen scale, the year's ring of months and a caution mark. Kept as data so the static
+ * kitchen scale, the year's ring of months, a caution mark and the plant label that marks a
+ * pinned crop. Kept as data so the static
  * (Icon.astro) and the island (Icon.tsx) versions draw exactly the same shapes.
  */
 
@@ -40,6 +41,11 @@ export const ICONS = {
   caution: {
     strokes: ['M5 3h14a2 2 0 0 1 2 2v14a2 2 0 0 1-2 2H5a2 2 0 0 1-2-2V5a2 2 0 0 1 2-2z', 'M12 7v6'],
     fills: ['M12 15.5a1.25 1.25 0 1 1 0 2.5a1.25 1.25 0 1 1 0-2.5z'],
+  },
+  /** A plant label on its stake, as pushed into a bed: a crop pinned to the front. */
+  stake: {
+    strokes: ['M6 3h12v7l-6 3l-6-3z', 'M12 13v8'],
+    fills: ['M9 6h6v2H9z'],
   },
 } as const satisfies Record<string, IconShape>;
 

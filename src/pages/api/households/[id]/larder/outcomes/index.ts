@@ -1,8 +1,14 @@
-import { larderOutcomeInput } from '@/lib/larder-schemas';
+import { larderOutcomeInput, larderOutcomesQuery } from '@/lib/larder-schemas';
 import { householdRoute } from '@/server/authz';
 import { parseInput } from '@/server/entry-input';
 import { json, readJson } from '@/server/http';
-import { recordOutcome } from '@/server/larder-outcomes';
+import { harvestOutcomes, recordOutcome } from '@/server/larder-outcomes';
+
+/** GET /api/households/{id}/larder/outcomes?harvestId=N → { outcomes } of that harvest, in the order they apply; 404 for no such harvest. */
+export const GET = householdRoute('read', async (ctx, a) => {
+  const { harvestId } = parseInput(larderOutcomesQuery, Object.fromEntries(ctx.url.searchParams));
+  return json({ outcomes: await harvestOutcomes(a.household.id, harvestId) });
+});
 
 /**
  * POST /api/households/{id}/larder/outcomes (owner, grower) body { harvestId, kind, date,
