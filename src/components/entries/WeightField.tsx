@@ -43,7 +43,7 @@ export function WeightField({ id, label, input, error, unitName, unit, onUnit, e
           placeholder="0"
           className={`field min-h-16 w-40 flex-1 text-right text-4xl font-extrabold tabular-nums placeholder:font-normal placeholder:text-loam-200 ${error ? 'border-berry-700 ring-1 ring-berry-700' : ''}`}
         />
-        <div className="w-full sm:w-auto sm:min-w-64">
+        <div className="w-full sm:w-auto sm:min-w-80">
           <UnitToggle name={unitName} value={unit} onChange={onUnit} label="Weight unit" />
         </div>
       </div>

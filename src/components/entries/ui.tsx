@@ -41,7 +41,7 @@ export function UnitToggle({ name, value, onChange, label = 'Unit' }: { name: st
   const others = UNIT_GROUPS.filter((g) => g.label !== 'Weight');
   return (
     <div className="flex flex-wrap gap-2">
-      <fieldset className="min-w-0 flex-1">
+      <fieldset className="min-w-48 flex-[4_1_12rem]">
         <legend className="sr-only">{label}</legend>
         <div className="flex">
           {WEIGHT_UNITS.map((u) => (
@@ -52,24 +52,26 @@ export function UnitToggle({ name, value, onChange, label = 'Unit' }: { name: st
           ))}
         </div>
       </fieldset>
-      <select
-        aria-label="Count or volume"
-        data-testid={`${name}-other`}
-        className={`field min-h-12 w-auto flex-none font-bold ${isWeightUnit(value) ? '' : 'border-sprout-700 ring-2 ring-sprout-700'}`}
-        value={isWeightUnit(value) ? '' : value}
-        onChange={(e) => isEntryUnit(e.target.value) && onChange(e.target.value)}
-      >
-        <option value="">count, volume…</option>
-        {others.map((g) => (
-          <optgroup key={g.label} label={g.label}>
-            {g.units.map((u) => (
-              <option key={u} value={u}>
-                {ENTRY_UNIT_NAMES[u]}
-              </option>
-            ))}
-          </optgroup>
-        ))}
-      </select>
+      <div className="min-w-0 flex-[1_1_7rem]">
+        <select
+          aria-label="Count or volume"
+          data-testid={`${name}-other`}
+          className={`field px-2 text-base font-bold ${isWeightUnit(value) ? '' : 'border-sprout-700 bg-sprout-100 text-sprout-900 ring-2 ring-sprout-700'}`}
+          value={isWeightUnit(value) ? '' : value}
+          onChange={(e) => isEntryUnit(e.target.value) && onChange(e.target.value)}
+        >
+          <option value="">more units</option>
+          {others.map((g) => (
+            <optgroup key={g.label} label={g.label}>
+              {g.units.map((u) => (
+                <option key={u} value={u}>
+                  {ENTRY_UNIT_NAMES[u]}
+                </option>
+              ))}
+            </optgroup>
+          ))}
+        </select>
+      </div>
     </div>
   );
 }
