@@ -18,6 +18,7 @@ import { Alert, ErrorText, invalidProps, useRememberedCurrency, useRememberedUni
 import { CheckCard, NoteField } from './entry-form-fields';
 import { WeightField } from './WeightField';
 import { foodWeighBasis } from './unit-basis';
+import { currencyChoices } from '@/lib/currency';
 import { parseDecimal } from './quantity-text';
 
 export function PurchaseForm({ household, today, outbox, onSaved }: { household: HouseholdInfo; today: string; outbox: PurchaseOutbox; onSaved: (s: SavedPurchase) => void }) {
@@ -128,9 +129,16 @@ export function PurchaseForm({ household, today, outbox, onSaved }: { household:
             maxLength={3}
             placeholder="EUR"
             autoCapitalize="characters"
+            list="p-currency-codes"
             value={currency}
             onChange={(e) => setCurrency(e.target.value.toUpperCase())}
           />
+          {/* The household's own currency is offered first, never one it does not use ahead of it. */}
+          <datalist id="p-currency-codes">
+            {currencyChoices(household.currency).map((c) => (
+              <option key={c} value={c} />
+            ))}
+          </datalist>
           <ErrorText id="p-currency" error={errors.currency} />
         </div>
       </div>
