@@ -24,7 +24,7 @@ import {
 import { CROP_CATEGORIES } from '@/lib/crop-categories';
 import { ROLE_VALUES } from '@/lib/household-schemas';
 import { ACTIVITY_LEVELS, CONDITIONS, SEXES } from '@/lib/people-schemas';
-import { UNIT_SYSTEMS, type WeightUnit } from '@/lib/units';
+import { UNIT_SYSTEMS } from '@/lib/units';
 import { ENTRY_UNITS } from '@/lib/entry-units';
 import { USES } from '@/lib/uses';
 import { DIETS } from '@/lib/diet';
@@ -274,7 +274,7 @@ export const harvests = mysqlTable(
     foodId: int('food_id').references(() => foods.id, { onDelete: 'restrict' }),
     date: date('date', { mode: 'string' }).notNull(),
     quantity: double('quantity').notNull(),
-    unit: mysqlEnum('unit', ENTRY_UNITS).$type<WeightUnit>().notNull(),
+    unit: mysqlEnum('unit', ENTRY_UNITS).notNull(),
     grams: double('grams').notNull(),
     edibleGrams: double('edible_grams').notNull(),
     /** Where a count or volume got its grams ("USDA SR28 01123: 1 large = 50 g"); null for a weight. */
@@ -312,7 +312,7 @@ export const purchases = mysqlTable(
       .references(() => foods.id, { onDelete: 'restrict' }),
     date: date('date', { mode: 'string' }).notNull(),
     quantity: double('quantity').notNull(),
-    unit: mysqlEnum('unit', ENTRY_UNITS).$type<WeightUnit>().notNull(),
+    unit: mysqlEnum('unit', ENTRY_UNITS).notNull(),
     grams: double('grams').notNull(),
     edibleGrams: double('edible_grams').notNull(),
     /** Where a count or volume got its grams; null for a weight. */
@@ -358,7 +358,7 @@ export const staples = mysqlTable(
       .references(() => foods.id, { onDelete: 'restrict' }),
     label: varchar('label', { length: 120 }).notNull(),
     quantity: double('quantity').notNull(),
-    unit: mysqlEnum('unit', ENTRY_UNITS).$type<WeightUnit>().notNull(),
+    unit: mysqlEnum('unit', ENTRY_UNITS).notNull(),
     spreadMonths: tinyint('spread_months').notNull().default(1),
     createdAt: timestamp('created_at').notNull().defaultNow(),
   },

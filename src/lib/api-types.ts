@@ -9,7 +9,8 @@ import type { Use } from './entry-schemas';
 import type { RoleValue } from './household-schemas';
 import type { PersonFields } from './people-schemas';
 import type { PersonEnergy } from './person-energy';
-import type { WeightUnit } from './units';
+import type { EntryUnit } from './entry-units';
+import type { HouseholdMeasure } from './count-volume';
 
 /** A reference food as a crop shows it: enough to judge the match. */
 export interface FoodSummary {
@@ -20,6 +21,8 @@ export interface FoodSummary {
   refusePct: number | null;
   kcalPer100g: number | null;
   proteinPer100g: number | null;
+  /** The dataset's household measures in its order ("1 large" = 50 g): counts and volumes are weighed with them. */
+  measures: HouseholdMeasure[];
 }
 
 /** A crop of the household's catalogue, with its food match and harvest count. */
@@ -35,6 +38,8 @@ export interface CropJson {
   defaultUse: Use | null;
   defaultSpreadMonths: number | null;
   notFood: boolean;
+  /** Grams of one piece, bunch or head as the grower counts this crop (weighed whole); null = the food's measures. */
+  countGrams: number | null;
   archived: boolean;
   harvestCount: number;
   lastHarvestDate: string | null;
@@ -52,7 +57,7 @@ export interface StapleJson {
   foodCode: string;
   label: string;
   quantity: number;
-  unit: WeightUnit;
+  unit: EntryUnit;
   spreadMonths: number;
 }
 
@@ -85,9 +90,11 @@ export interface PreviewRow {
   foodCode: string | null;
   foodName: string | null;
   quantity: number;
-  unit: WeightUnit;
+  unit: EntryUnit;
   grams: number;
   edibleGrams: number;
+  /** Where a count or volume got its grams; null for a weight. */
+  weightSource: string | null;
   use?: string;
   spreadMonths: number;
   trimmed: boolean;

@@ -1,12 +1,13 @@
 /**
  * The rules for a household's crop (name, variety, reference food, category, edible share, usual
- * use and spread, not-food flag) — the crop form, the crops API and the CSV importer's new crops
- * all check with these.
+ * use and spread, not-food flag, the weight of one piece, bunch or head) — the crop form, the crops
+ * API and the CSV importer's new crops all check with these.
  */
 import { z } from 'zod';
 import { isEatenUse, type Use } from './uses';
 import { mustBeNumber, oneOf, trueOrFalse } from './zod-messages';
-import { checkNotEmpty, cropUseError, mergeFields, nameText, recordId, spreadMonths, use, type Stored } from './entry-schemas';
+import { checkNotEmpty, cropUseError, ENTRY_LIMITS, mergeFields, nameText, recordId, spreadMonths, use, type Stored } from './entry-schemas';
+import { formatCount } from './format-number';
 import { CROP_CATEGORIES } from './crop-categories';
 
 const cropFields = {
@@ -23,6 +24,11 @@ const cropFields = {
   defaultUse: use,
   defaultSpreadMonths: spreadMonths,
   notFood: z.boolean({ error: trueOrFalse('Not food') }),
+  // Grams of one piece, bunch or head as the grower counts this crop, weighed whole as harvested.
+  countGrams: z
+    .number({ error: mustBeNumber('The weight of one') })
+    .gt(0, { error: 'The weight of one must be more than 0 g.' })
+    .max(ENTRY_LIMITS.maxQuantity, { error: `The weight of one can be at most ${formatCount(ENTRY_LIMITS.maxQuantity)} g; check the unit.` }),
 };
 
 // A crop marked not food (ornamental, or toxic parts) is never counted as food: it links to no
@@ -46,7 +52,8 @@ function checkNotFood(
 
 /**
  * A crop the household grows: name, variety, matched reference food (or null), category, optional
- * edible fraction override, default use and spread, and whether it is not food. The category may be
+ * edible fraction override, default use and spread, whether it is not food, and the grams of one
+ * piece, bunch or head (countGrams, null = the food's household measures). The category may be
  * left out when the name says it (see insertCrop in src/server/crops.ts).
  * Example: `cropInput.parse({ name: 'Potato', variety: 'Charlotte', foodId: 12, category: 'root_tuber' })`
  *   → { name: 'Potato', variety: 'Charlotte', foodId: 12, category: 'root_tuber', notFood: false }
@@ -61,13 +68,14 @@ export const cropInput = z
     defaultUse: cropFields.defaultUse.optional(),
     defaultSpreadMonths: cropFields.defaultSpreadMonths.optional(),
     notFood: cropFields.notFood.default(false),
+    countGrams: cropFields.countGrams.nullable().optional(),
   })
   .superRefine(checkNotFood);
 
 export type CropInput = z.output<typeof cropInput>;
 export type CropInputRaw = z.input<typeof cropInput>;
 
-/** A change to a crop: any field (and `archived`), at least one; null clears variety, edible fraction, default use or spread. Example: `cropPatch.parse({ archived: true })` */
+/** A change to a crop: any field (and `archived`), at least one; null clears variety, edible fraction, default use, spread or weight of one. Example: `cropPatch.parse({ countGrams: 120 })` */
 export const cropPatch = z
   .strictObject({
     ...cropFields,
@@ -75,6 +83,7 @@ export const cropPatch = z
     edibleFraction: cropFields.edibleFraction.nullable(),
     defaultUse: cropFields.defaultUse.nullable(),
     defaultSpreadMonths: cropFields.defaultSpreadMonths.nullable(),
+    countGrams: cropFields.countGrams.nullable(),
     // Archived crops are hidden from the entry form but keep their harvests.
     archived: z.boolean({ error: trueOrFalse('Archived') }),
   })

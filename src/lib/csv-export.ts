@@ -8,7 +8,7 @@ import Papa from 'papaparse';
 import type { CropCategory } from './crop-categories';
 import { HARVEST_CSV_COLUMNS, PURCHASE_CSV_COLUMNS, type CsvDelimiter } from './csv-import';
 import type { HarvestInput, PurchaseInput, Use } from './entry-schemas';
-import type { WeightUnit } from './units';
+import type { EntryUnit } from './entry-units';
 
 export interface CsvExportOptions {
   /** ',' (default) writes decimal points; ';' writes decimal commas, for decimal-comma spreadsheets. */
@@ -61,7 +61,7 @@ export interface HarvestCsvRecord {
   variety?: string;
   foodCode?: string;
   quantity: number;
-  unit: WeightUnit;
+  unit: EntryUnit;
   use: Use;
   spreadMonths?: number | null;
   /** How a preserved harvest was kept; empty otherwise. */
@@ -118,7 +118,7 @@ export interface PurchaseCsvRecord {
   date: string;
   foodCode: string;
   quantity: number;
-  unit: WeightUnit;
+  unit: EntryUnit;
   price?: number | null;
   currency?: string | null;
   spreadMonths: number;

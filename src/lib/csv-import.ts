@@ -14,6 +14,9 @@
  *   decimal mark is a point; a comma inside a number ("1,5" in quotes) could be a decimal comma or a
  *   thousands separator and is refused. Thousands separators and spaces inside numbers are refused.
  * - Yes/no cells: true/false, yes/no, 1/0 (any case); blank takes the default.
+ * - Units: the API codes (g kg oz lb piece bunch head ml l cup fl_oz pint_us pint_imp) or common
+ *   spellings (lbs, pcs, each, bunches, litre, cups, fl oz…); a bare "pint" or "pt" is the
+ *   household's own pint (US for a household in US units, else imperial).
  * - Row numbers are as a spreadsheet shows them: the header is row 1, the first data row is row 2,
  *   blank rows count, and a quoted note with line breaks is one row. Row 0 means the whole file.
  */
@@ -30,7 +33,7 @@ import {
   type PurchaseDetails,
   type PurchaseInput,
 } from './entry-schemas';
-import { parseWeightUnit } from './units';
+import { parseEntryUnit, type PintMeaning } from './entry-units';
 
 // ---------------------------------------------------------------------------------------------
 // Format
@@ -69,6 +72,11 @@ export const PURCHASE_CSV_COLUMNS = [
 export type HarvestCsvColumn = (typeof HARVEST_CSV_COLUMNS)[number];
 export type PurchaseCsvColumn = (typeof PURCHASE_CSV_COLUMNS)[number];
 export type CsvDelimiter = ',' | ';';
+
+/** How a file's words are read beyond the file itself: a bare "pint" or "pt" is the household's pint (US or imperial). */
+export interface CsvReadOptions {
+  pint?: PintMeaning;
+}
 
 /** One problem: spreadsheet row (header = 1, 0 = whole file), the column if one, and what to fix. */
 export interface CsvError {
@@ -285,6 +293,7 @@ class RowReader {
   constructor(
     private readonly table: Table,
     private readonly record: { row: number; cells: string[] },
+    private readonly options: CsvReadOptions = {},
   ) {}
 
   /** The raw cell, or undefined when the column is absent or the cell blank. */
@@ -321,14 +330,14 @@ class RowReader {
     return raw === undefined ? undefined : textCell(raw);
   }
 
-  /** Common entry fields, with the unit and use read leniently (case, plurals). */
+  /** Common entry fields, with the unit (weights, counts, volumes: units.ts, entry-units.ts) and use read leniently (case, plurals). */
   entryFields(): Record<string, unknown> {
     const unitText = this.cell('unit');
     const useText = this.cell('use');
     return {
       date: this.cell('date')?.trim(),
       quantity: this.number('quantity'),
-      unit: unitText === undefined ? undefined : (parseWeightUnit(unitText) ?? unitText.trim()),
+      unit: unitText === undefined ? undefined : (parseEntryUnit(unitText, this.options.pint) ?? unitText.trim()),
       use: useText?.trim().toLowerCase(),
       spreadMonths: this.number('spread_months'),
       trimmed: this.boolean('trimmed'),
@@ -398,7 +407,7 @@ export function byRow(errors: CsvError[]): CsvError[] {
  * Example: `parseHarvestCsv('date;crop;quantity;unit\n2026-07-14;Potato;1,5;kg').rows[0]`
  *   → { row: 2, crop: 'Potato', entry: { date: '2026-07-14', quantity: 1.5, unit: 'kg', use: 'fresh', spreadMonths: 1, trimmed: false } }
  */
-export function parseHarvestCsv(source: CsvSource): CsvParseResult<ParsedHarvestRow> {
+export function parseHarvestCsv(source: CsvSource, options: CsvReadOptions = {}): CsvParseResult<ParsedHarvestRow> {
   const table = readTable(source, HARVEST_CSV_COLUMNS, ['date', 'quantity', 'unit']);
   const errors = [...table.errors];
   if (table.records.length === 0 && errors.length === 0) errors.push({ row: 0, message: 'The file has a header but no data rows.' });
@@ -409,7 +418,7 @@ export function parseHarvestCsv(source: CsvSource): CsvParseResult<ParsedHarvest
 
   const rows: ParsedHarvestRow[] = [];
   for (const record of table.records) {
-    const reader = new RowReader(table, record);
+    const reader = new RowReader(table, record, options);
     const crop = reader.text('crop');
     const variety = reader.text('variety');
     const foodCode = reader.cell('food_code')?.trim();
@@ -436,7 +445,7 @@ export function parseHarvestCsv(source: CsvSource): CsvParseResult<ParsedHarvest
  * spread_months (default 1), trimmed, note.
  * Example: `parsePurchaseCsv('date,food_code,quantity,unit\n2026-03-02,20081,25,kg').rows[0]?.foodCode` → '20081'
  */
-export function parsePurchaseCsv(source: CsvSource): CsvParseResult<ParsedPurchaseRow> {
+export function parsePurchaseCsv(source: CsvSource, options: CsvReadOptions = {}): CsvParseResult<ParsedPurchaseRow> {
   const table = readTable(source, PURCHASE_CSV_COLUMNS, ['date', 'food_code', 'quantity', 'unit']);
   const errors = [...table.errors];
   if (table.records.length === 0 && errors.length === 0) errors.push({ row: 0, message: 'The file has a header but no data rows.' });
@@ -444,7 +453,7 @@ export function parsePurchaseCsv(source: CsvSource): CsvParseResult<ParsedPurcha
 
   const rows: ParsedPurchaseRow[] = [];
   for (const record of table.records) {
-    const reader = new RowReader(table, record);
+    const reader = new RowReader(table, record, options);
     const foodCode = reader.cell('food_code')?.trim();
     if (foodCode === undefined) reader.fail('food_code', 'Give the food_code of the reference food.');
     const fields = { ...reader.entryFields(), price: reader.number('price'), currency: reader.cell('currency')?.trim() };

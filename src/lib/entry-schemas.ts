@@ -3,7 +3,8 @@
  * list queries: list-query-schemas.ts). Forms, API endpoints and the CSV importer all validate with these, so a rule is written once.
  *
  * Conventions:
- * - Quantities stay in the unit they were logged in (g, kg, oz, lb); conversion happens when counted.
+ * - Quantities stay in the unit they were logged in (a weight, count or volume); grams are worked out
+ *   when stored (counts and volumes through a named weight, src/lib/count-volume.ts).
  * - Text fields are trimmed; an empty note or variety counts as none.
  * - In a patch, `null` clears an optional field (note, price, currency, variety, …).
  */
@@ -14,6 +15,7 @@ import { formatCount } from './format-number';
 import { isPlainLine, PLAIN_LINE_MESSAGE } from './plain-text';
 import { CROP_CATEGORIES } from './crop-categories';
 import { WEIGHT_UNITS } from './units';
+import { ENTRY_UNITS } from './entry-units';
 import { isEatenUse, isSpreadUse, USES, type Use } from './uses';
 import { PRESERVE_METHODS } from './retention';
 
@@ -73,6 +75,13 @@ export const quantity = z
 
 /** One of g, kg, oz, lb. Example: `weightUnit.parse('lb')` → 'lb' */
 export const weightUnit = z.enum(WEIGHT_UNITS, { error: oneOf('The unit', WEIGHT_UNITS) });
+
+/**
+ * Any unit an entry can be logged in: a weight, a count (piece, bunch, head) or a volume (ml, l,
+ * cup, fl_oz, pint_us, pint_imp); counts and volumes are weighed through src/lib/count-volume.ts.
+ * Example: `entryUnit.parse('piece')` → 'piece'
+ */
+export const entryUnit = z.enum(ENTRY_UNITS, { error: oneOf('The unit', ENTRY_UNITS) });
 
 /** One of the uses. Example: `use.parse('seed')` → 'seed' */
 export const use = z.enum(USES, { error: oneOf('The use', USES) });
@@ -181,7 +190,7 @@ function withSpreadDefault<T extends { use: Use; spreadMonths?: number | undefin
 const harvestFields = {
   date: isoDate,
   quantity,
-  unit: weightUnit,
+  unit: entryUnit,
   use: use.default('fresh'),
   spreadMonths: spreadMonths.optional(),
   preserveMethod: preserveMethod.nullable().optional(),
@@ -240,7 +249,7 @@ export const harvestSplitInput = z
   .strictObject({
     ...cropOrFood,
     date: isoDate,
-    unit: weightUnit,
+    unit: entryUnit,
     trimmed: trimmedFlag.default(false),
     note: note.optional(),
     parts: z
@@ -269,7 +278,7 @@ export const harvestPatch = z
     cropId: recordId,
     foodId: recordId,
     quantity,
-    unit: weightUnit,
+    unit: entryUnit,
     use,
     spreadMonths,
     preserveMethod: preserveMethod.nullable(),
@@ -342,7 +351,7 @@ export function cropUseError(entryUse: Use, crop: CropUseInfo): string | undefin
 const purchaseFields = {
   date: isoDate,
   quantity,
-  unit: weightUnit,
+  unit: entryUnit,
   price: price.optional(),
   currency: currency.optional(),
   spreadMonths: spreadMonths.default(1),
@@ -374,7 +383,7 @@ export const purchasePatch = z
     date: isoDate,
     foodId: recordId,
     quantity,
-    unit: weightUnit,
+    unit: entryUnit,
     price: price.nullable(),
     currency: currency.nullable(),
     spreadMonths,
@@ -408,7 +417,7 @@ export const stapleInput = z.strictObject({
     .transform((s) => (s === '' ? undefined : s))
     .optional(),
   quantity,
-  unit: weightUnit,
+  unit: entryUnit,
   spreadMonths: spreadMonths.default(1),
 });
 

@@ -5,7 +5,7 @@
  */
 import type { Use } from './entry-schemas';
 import type { PreserveMethod } from './retention';
-import type { WeightUnit } from './units';
+import type { EntryUnit } from './entry-units';
 
 /** One harvest as the API sends it; `grams` and `edibleGrams` were worked out when it was stored. */
 export interface HarvestJson {
@@ -17,9 +17,11 @@ export interface HarvestJson {
   foodName: string | null;
   foodCode: string | null;
   quantity: number;
-  unit: WeightUnit;
+  unit: EntryUnit;
   grams: number;
   edibleGrams: number;
+  /** Where a count or volume got its grams ("USDA SR28 01123, 1 large = 50 g"); null for a weight. */
+  weightSource: string | null;
   use: Use;
   spreadMonths: number;
   /** How a preserved harvest was kept (frozen, canned, dried, fermented); null when not said or not preserved. */
@@ -40,9 +42,11 @@ export interface PurchaseJson {
   foodName: string;
   foodCode: string;
   quantity: number;
-  unit: WeightUnit;
+  unit: EntryUnit;
   grams: number;
   edibleGrams: number;
+  /** Where a count or volume got its grams; null for a weight. */
+  weightSource: string | null;
   price: number | null;
   currency: string | null;
   spreadMonths: number;

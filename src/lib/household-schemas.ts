@@ -5,6 +5,7 @@ import { isPlainLine, PLAIN_LINE_MESSAGE } from './plain-text';
 import { isMonth } from './months';
 import { UNIT_SYSTEMS } from './units';
 import { currentZoneList, currentZoneName } from './time-zones';
+import { isCurrencyCode } from './currency';
 
 export const ROLE_VALUES = ['owner', 'grower', 'viewer'] as const;
 export type RoleValue = (typeof ROLE_VALUES)[number];
@@ -53,12 +54,22 @@ const householdFields = {
   timezone: z.string().trim().refine(isTimeZone, 'Not a known IANA time zone (e.g. Europe/Berlin).').transform(currentZoneName),
   units: z.enum(UNIT_SYSTEMS, { error: 'Choose metric or us.' }),
   yearStartMonth: z.number({ error: 'A month number from 1 to 12.' }).int('A month number from 1 to 12.').min(1, 'A month number from 1 to 12.').max(12, 'A month number from 1 to 12.'),
+  // The ISO 4217 code bought food starts with; blank or null = none yet (the first purchase with a currency sets it).
+  currency: z
+    .string({ error: 'Write the currency as a three-letter ISO 4217 code, like EUR, GBP or USD.' })
+    .trim()
+    .toUpperCase()
+    .refine((c) => c === '' || isCurrencyCode(c), 'Not an ISO 4217 currency code; write three letters, like EUR, GBP or USD.')
+    .transform((c) => (c === '' ? null : c))
+    .nullable(),
 };
 
+/** A new household; a currency left out is guessed from the time zone (currencyForZone), null = none. */
 export const householdInput = z.object({
   ...householdFields,
   units: householdFields.units.default('metric'),
   yearStartMonth: householdFields.yearStartMonth.default(1),
+  currency: householdFields.currency.optional(),
 });
 
 /** Bounds of a records start month ('YYYY-MM'), as for the other dates of the app. */

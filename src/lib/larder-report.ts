@@ -8,7 +8,8 @@ import { CROP_CATEGORY_LABELS, type CropCategory } from './crop-categories';
 import { emptyMonths, lostBy, lotSchedule, remainingOn, type LotSchedule } from './larder';
 import type { ExpectedLoss, LarderGroup, LarderLot, LarderOutcomeJson, LarderResponse } from './larder-types';
 import type { PreserveMethod } from './retention';
-import type { UnitSystem, WeightUnit } from './units';
+import type { UnitSystem } from './units';
+import type { EntryUnit } from './entry-units';
 
 /** One lot as the server reads it: the harvest, its food's values and its outcomes. */
 export interface LarderLotInput {
@@ -21,7 +22,7 @@ export interface LarderLotInput {
   date: string;
   spreadMonths: number;
   quantity: number;
-  unit: WeightUnit;
+  unit: EntryUnit;
   grams: number;
   edibleGrams: number;
   /** Per 100 g edible portion; null or missing = the dataset has no value. */

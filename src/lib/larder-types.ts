@@ -6,7 +6,8 @@
 import type { CropCategory } from './crop-categories';
 import type { LarderOutcomeKind } from './larder-outcomes';
 import type { PreserveMethod } from './retention';
-import type { UnitSystem, WeightUnit } from './units';
+import type { UnitSystem } from './units';
+import type { EntryUnit } from './entry-units';
 
 /** One recorded outcome of a lot. */
 export interface LarderOutcomeJson {
@@ -43,7 +44,7 @@ export interface LarderLot {
   spreadMonths: number;
   /** As logged, in the entry's own unit. */
   quantity: number;
-  unit: WeightUnit;
+  unit: EntryUnit;
   /** What is left today, in the entry's unit and in grams (whole and edible). */
   remainingQuantity: number;
   remainingGrams: number;

@@ -16,6 +16,7 @@ const IRREGULAR: Readonly<Record<string, string>> = {
   tomato: 'tomatoes',
   category: 'categories',
   copy: 'copies',
+  bunch: 'bunches',
 };
 
 /** The plural of an English noun the app uses, e.g. pluralOf('entry') → 'entries', pluralOf('lot') → 'lots'. */

@@ -106,6 +106,11 @@ export function formatWeight(grams: number, system: UnitSystem): string {
   throw new Error(`Unknown unit system "${String(system)}": use metric or us.`);
 }
 
+/** The system a weight unit belongs to. Example: `unitSystemOf('oz')` → 'us' */
+export function unitSystemOf(unit: WeightUnit): UnitSystem {
+  return unit === 'oz' || unit === 'lb' ? 'us' : 'metric';
+}
+
 /** The units that belong to each system, smaller first. Example: `SYSTEM_UNITS.us` → ['oz', 'lb'] */
 export const SYSTEM_UNITS: Readonly<Record<UnitSystem, readonly [WeightUnit, WeightUnit]>> = { metric: ['g', 'kg'], us: ['oz', 'lb'] };
 
@@ -123,14 +128,15 @@ export function formatWeightIn(grams: number, unit: WeightUnit): string {
  * the larger figure. Example: `formatWeightPair(450, 396, 'metric', 'kg')` →
  * { weight: '0.45 kg', edible: '0.4 kg', unit: 'kg' }; `formatWeightPair(450, 396, 'metric')` → '450 g' and '396 g'.
  */
-export function formatWeightPair(grams: number, edibleGrams: number, system: UnitSystem, entryUnit?: WeightUnit): { weight: string; edible: string; unit: WeightUnit } {
+export function formatWeightPair(grams: number, edibleGrams: number, system: UnitSystem, entryUnit?: string): { weight: string; edible: string; unit: WeightUnit } {
   const [small, large] = SYSTEM_UNITS[system];
-  const unit = entryUnit && SYSTEM_UNITS[system].includes(entryUnit) ? entryUnit : formatWeight(Math.max(grams, edibleGrams), system).endsWith(` ${large}`) ? large : small;
+  // A count or volume (entry-units.ts) is no unit of the system: the pair takes the one that suits the figure.
+  const unit = isWeightUnit(entryUnit) && SYSTEM_UNITS[system].includes(entryUnit) ? entryUnit : formatWeight(Math.max(grams, edibleGrams), system).endsWith(` ${large}`) ? large : small;
   return { weight: formatWeightIn(grams, unit), edible: formatWeightIn(edibleGrams, unit), unit };
 }
 
 /** The pair as one line, e.g. `weightPairText(450, 396, 'metric', 'kg')` → '0.45 kg · edible 0.4 kg'. */
-export function weightPairText(grams: number, edibleGrams: number, system: UnitSystem, entryUnit?: WeightUnit): string {
+export function weightPairText(grams: number, edibleGrams: number, system: UnitSystem, entryUnit?: string): string {
   const p = formatWeightPair(grams, edibleGrams, system, entryUnit);
   return `${p.weight} · edible ${p.edible}`;
 }

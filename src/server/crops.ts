@@ -2,9 +2,9 @@
  * The household's crop catalogue in the database. Every function takes the household id and reads
  * or writes only that household's rows.
  */
-import { and, asc, count, desc, eq, inArray, isNotNull, max, sql } from 'drizzle-orm';
+import { and, asc, count, desc, eq, inArray, isNotNull, max, notInArray, sql } from 'drizzle-orm';
 import { getDb } from '@/db/client';
-import { crops, datasets, foods, harvests, households, plantings, type Crop } from '@/db/schema';
+import { crops, datasets, foods, foodWeights, harvests, households, plantings, type Crop } from '@/db/schema';
 import type { CropJson, FoodSummary } from '@/lib/api-types';
 import { edibleFactor } from '@/lib/edible';
 import { EATEN_USES } from '@/lib/entry-schemas';
@@ -13,7 +13,11 @@ import type { CropCategory } from '@/lib/crop-categories';
 import { referenceCropForName } from '@/lib/crop-name-match';
 import { mostUsedSince } from '@/lib/crop-chip-order';
 import { todayIn } from '@/lib/months';
+import { WEIGHT_UNITS } from '@/lib/units';
+import { entryWeight } from '@/lib/count-volume';
+import { entryQuantityText } from '@/lib/entry-units';
 import { loadCropTable } from './crop-table-file';
+import { measuredFood, NoUnitWeight } from './unit-weights';
 import { HttpError } from './http';
 import { fieldError, invalidInput, isDuplicateKey, isRowReferenced, type Executor, type Tx } from './entry-input';
 
@@ -23,7 +27,7 @@ export function cropDisplayName(name: string, variety: string | null | undefined
   return variety ? `${name} (${variety})` : name;
 }
 
-/** Reference foods by id, with refuse, kcal and protein per 100 g. */
+/** Reference foods by id, with refuse, kcal and protein per 100 g and their household measures. */
 export async function foodSummaries(ex: Executor, ids: readonly number[]): Promise<Map<number, FoodSummary>> {
   const unique = [...new Set(ids)];
   if (unique.length === 0) return new Map();
@@ -42,10 +46,16 @@ export async function foodSummaries(ex: Executor, ids: readonly number[]): Promi
     .from(foods)
     .innerJoin(datasets, eq(datasets.id, foods.datasetId))
     .where(inArray(foods.id, unique));
+  const weights = await ex
+    .select({ foodId: foodWeights.foodId, description: foodWeights.description, grams: foodWeights.grams })
+    .from(foodWeights)
+    .where(inArray(foodWeights.foodId, unique))
+    .orderBy(asc(foodWeights.foodId), asc(foodWeights.seq));
+  const measures = (id: number) => weights.filter((w) => w.foodId === id).map(({ description, grams }) => ({ description, grams }));
   return new Map(
     rows.map((r) => [
       r.id,
-      { ...r, kcalPer100g: r.kcalPer100g === null ? null : Number(r.kcalPer100g), proteinPer100g: r.proteinPer100g === null ? null : Number(r.proteinPer100g) },
+      { ...r, kcalPer100g: r.kcalPer100g === null ? null : Number(r.kcalPer100g), proteinPer100g: r.proteinPer100g === null ? null : Number(r.proteinPer100g), measures: measures(r.id) },
     ]),
   );
 }
@@ -71,6 +81,7 @@ function toJson(c: Crop, food: FoodSummary | null, stats: { n: number; last: str
     defaultUse: c.defaultUse,
     defaultSpreadMonths: c.defaultSpreadMonths,
     notFood: c.notFood,
+    countGrams: c.countGrams,
     archived: c.archived,
     harvestCount: stats?.n ?? 0,
     lastHarvestDate: stats?.last ?? null,
@@ -155,6 +166,7 @@ export async function insertCrop(tx: Tx, householdId: number, input: CropInput):
       defaultUse: input.defaultUse ?? null,
       defaultSpreadMonths: input.defaultSpreadMonths ?? null,
       notFood: input.notFood,
+      countGrams: input.countGrams ?? null,
     });
     return res.insertId;
   } catch (e) {
@@ -199,6 +211,7 @@ export async function updateCrop(householdId: number, cropId: number, patch: Cro
         defaultUse: current.defaultUse,
         defaultSpreadMonths: current.defaultSpreadMonths,
         notFood: current.notFood,
+        countGrams: current.countGrams,
       },
       patch,
     );
@@ -226,6 +239,7 @@ export async function updateCrop(householdId: number, cropId: number, patch: Cro
           defaultUse: next.defaultUse ?? null,
           defaultSpreadMonths: next.defaultSpreadMonths ?? null,
           notFood: next.notFood,
+          countGrams: next.countGrams ?? null,
           ...(patch.archived !== undefined ? { archived: patch.archived } : {}),
         })
         .where(and(eq(crops.householdId, householdId), eq(crops.id, cropId)));
@@ -235,8 +249,8 @@ export async function updateCrop(householdId: number, cropId: number, patch: Cro
     }
     const edibleChanged =
       (next.foodId ?? null) !== current.foodId || (next.edibleFraction ?? null) !== current.edibleFraction || next.notFood !== current.notFood;
+    const basis = { refusePct: food?.refusePct ?? null, edibleFraction: next.edibleFraction ?? null, notFood: next.notFood };
     if (edibleChanged) {
-      const basis = { refusePct: food?.refusePct ?? null, edibleFraction: next.edibleFraction ?? null, notFood: next.notFood };
       const factor = harvestEdibleGrams(1, false, basis);
       const trimmedFactor = harvestEdibleGrams(1, true, basis);
       await tx
@@ -245,10 +259,44 @@ export async function updateCrop(householdId: number, cropId: number, patch: Cro
           foodId: next.foodId ?? null,
           edibleGrams: sql`${harvests.grams} * CASE WHEN ${harvests.trimmed} THEN ${trimmedFactor} ELSE ${factor} END`,
         })
-        .where(and(eq(harvests.householdId, householdId), eq(harvests.cropId, cropId)));
+        .where(and(eq(harvests.householdId, householdId), eq(harvests.cropId, cropId), inArray(harvests.unit, [...WEIGHT_UNITS])));
+    }
+    if (edibleChanged || (next.countGrams ?? null) !== current.countGrams) {
+      await reweighCounted(tx, householdId, { id: cropId, name: cropDisplayName(next.name, next.variety), foodId: next.foodId ?? null, countGrams: next.countGrams ?? null }, basis);
     }
     return getCrop(householdId, cropId, tx);
   });
+}
+
+/**
+ * Weighs a crop's harvests logged as counts or volumes again after its food, edible share or weight
+ * of one changed, so they follow the crop as its weighed harvests do; 422 when one no longer has a
+ * weight (the change is then not made).
+ */
+async function reweighCounted(
+  tx: Tx,
+  householdId: number,
+  crop: { id: number; name: string; foodId: number | null; countGrams: number | null },
+  edible: { refusePct: number | null; edibleFraction: number | null; notFood: boolean },
+): Promise<void> {
+  const rows = await tx
+    .select({ id: harvests.id, date: harvests.date, quantity: harvests.quantity, unit: harvests.unit, trimmed: harvests.trimmed })
+    .from(harvests)
+    .where(and(eq(harvests.householdId, householdId), eq(harvests.cropId, crop.id), notInArray(harvests.unit, [...WEIGHT_UNITS])))
+    .for('update');
+  if (rows.length === 0) return;
+  const food = await measuredFood(tx, crop.foodId);
+  for (const h of rows) {
+    const w = entryWeight(h.quantity, h.unit, { crop: { name: crop.name, countGrams: crop.countGrams }, food });
+    if (!w.ok) {
+      const logged = `${entryQuantityText(h.quantity, h.unit)} on ${h.date}`;
+      throw new NoUnitWeight(`${crop.name} has a harvest logged as ${logged}, which would then have no weight: keep a weight of one (or a food with one), or change that harvest to a weight first.`, 'countGrams');
+    }
+    await tx
+      .update(harvests)
+      .set({ foodId: crop.foodId, grams: w.grams, weightSource: w.weightSource, edibleGrams: harvestEdibleGrams(w.grams, h.trimmed || w.edibleAsLogged, edible) })
+      .where(eq(harvests.id, h.id));
+  }
 }
 
 /**

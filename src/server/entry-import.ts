@@ -20,12 +20,14 @@ import {
 import { resolveHarvestRows, resolvePurchaseRows } from '@/lib/csv-match';
 import { type HarvestInput, type PurchaseInput } from '@/lib/entry-schemas';
 import { cropInput, type CropInput } from '@/lib/crop-schemas';
-import { toGrams } from '@/lib/units';
+import { isCountOrVolume, type PintMeaning } from '@/lib/entry-units';
+import type { MeasuredFood } from '@/lib/count-volume';
 import { cropDisplayName, cropRows, insertCrop, newCropCategory } from './crops';
 import { HttpError, readBodyBytes } from './http';
 import { parseInput, type Executor, type Tx } from './entry-input';
 import { cropBasis, foodBasis, harvestValues, type HarvestBasis } from './harvests';
-import { purchaseValues } from './purchases';
+import { adoptCurrency, purchaseValues } from './purchases';
+import { measuredFoods, NoUnitWeight } from './unit-weights';
 
 
 /** Rows shown in a preview answer; the counts and totals always cover the whole file. */
@@ -46,6 +48,13 @@ export const importFields = z.object({
 });
 
 export type ImportRequest = z.output<typeof importFields> & { file: Uint8Array; fileName: string };
+
+/** The household an import writes to, as far as reading the file goes. */
+export interface ImportHousehold {
+  id: number;
+  /** A bare "pint" in the file: US for a household in US units, else imperial. */
+  pint: PintMeaning;
+}
 
 async function readLimited(request: Request, maxBytes: number): Promise<Uint8Array> {
   return readBodyBytes(request, maxBytes, () =>
@@ -151,7 +160,7 @@ async function foodsByIds(ex: Executor, ids: readonly number[]): Promise<Map<num
 const cropKey = (name: string, variety?: string | null) => `${cropNameKey(name)}\u0000${cropNameKey(variety ?? '')}`;
 
 /** A crop as the importer sees it; new ones of a preview have stand-in ids above the INT range. */
-type ImportCrop = Pick<Crop, 'id' | 'name' | 'variety' | 'foodId' | 'category' | 'edibleFraction' | 'defaultSpreadMonths' | 'notFood'>;
+type ImportCrop = Pick<Crop, 'id' | 'name' | 'variety' | 'foodId' | 'category' | 'edibleFraction' | 'defaultSpreadMonths' | 'notFood' | 'countGrams'>;
 
 function cropFromInput(id: number, input: CropInput): ImportCrop {
   return {
@@ -163,7 +172,28 @@ function cropFromInput(id: number, input: CropInput): ImportCrop {
     edibleFraction: input.edibleFraction ?? null,
     defaultSpreadMonths: input.defaultSpreadMonths ?? null,
     notFood: input.notFood,
+    countGrams: input.countGrams ?? null,
   };
+}
+
+/** The household measures of the foods the count and volume rows rest on (read only when the file has such rows). */
+async function measuresFor(ex: Executor, rows: readonly { input: { unit: string } }[], foodOf: (row: { input: { unit: string } }) => number | null | undefined): Promise<Map<number, MeasuredFood>> {
+  const ids = rows.flatMap((r) => {
+    const id = isCountOrVolume(r.input.unit) ? foodOf(r) : undefined;
+    return id == null ? [] : [id];
+  });
+  return measuredFoods(ex, ids);
+}
+
+/** The stored values of a row, or the row's problem when a count or volume has no weight. */
+function weighRow<V>(row: number, errors: CsvError[], make: () => V): V | undefined {
+  try {
+    return make();
+  } catch (e) {
+    if (!(e instanceof NoUnitWeight)) throw e;
+    errors.push({ row, column: 'unit', message: e.message });
+    return undefined;
+  }
 }
 
 const byRow = (errors: CsvError[]) => [...errors].sort((a, b) => a.row - b.row);
@@ -196,8 +226,8 @@ interface Prepared<V> {
   preview: PreviewRow[];
 }
 
-async function prepareHarvests(ex: Executor, req: ImportRequest, householdCrops: ImportCrop[], today: string): Promise<Prepared<ReturnType<typeof harvestValues>>> {
-  const parsed = parseHarvestCsv(req.file);
+async function prepareHarvests(ex: Executor, req: ImportRequest, household: ImportHousehold, householdCrops: ImportCrop[], today: string): Promise<Prepared<ReturnType<typeof harvestValues>>> {
+  const parsed = parseHarvestCsv(req.file, { pint: household.pint });
   const codes = await foodsByCodes(ex, parsed.rows.flatMap((r) => (r.foodCode === undefined ? [] : [r.foodCode])));
   const cropsByKey = new Map<string, ImportCrop>();
   for (const c of householdCrops) if (!cropsByKey.has(cropKey(c.name, c.variety))) cropsByKey.set(cropKey(c.name, c.variety), c);
@@ -211,6 +241,11 @@ async function prepareHarvests(ex: Executor, req: ImportRequest, householdCrops:
   });
   const cropFoods = await foodsByIds(ex, householdCrops.flatMap((c) => (c.foodId === null ? [] : [c.foodId])));
   const foodsById = new Map([...codes.values()].map((f) => [f.id, f]));
+  const measured = await measuresFor(ex, resolved.inputs, ({ input }) => {
+    const i = input as HarvestInput;
+    return i.cropId === undefined ? i.foodId : cropsById.get(i.cropId)?.foodId;
+  });
+  const unweighed: CsvError[] = [];
   const values: Prepared<ReturnType<typeof harvestValues>>['values'] = [];
   const preview: PreviewRow[] = [];
   // A harvest is weighed, so it cannot be dated after today in the household's zone (as the harvest API rules).
@@ -220,8 +255,9 @@ async function prepareHarvests(ex: Executor, req: ImportRequest, householdCrops:
   for (const { row, input } of resolved.inputs) {
     const crop = input.cropId === undefined ? undefined : cropsById.get(input.cropId);
     const food = crop ? (crop.foodId === null ? undefined : cropFoods.get(crop.foodId)) : foodsById.get(input.foodId!);
-    const basis: HarvestBasis = crop ? cropBasis(crop, food) : foodBasis(food!);
-    const v = harvestValues(input as HarvestInput, basis);
+    const basis: HarvestBasis = crop ? cropBasis(crop, food, measured.get(crop.foodId ?? 0)) : foodBasis(food!, measured.get(food!.id));
+    const v = weighRow(row, unweighed, () => harvestValues(input as HarvestInput, basis));
+    if (v === undefined) continue;
     values.push({ ...v, row });
     if (preview.length < PREVIEW_ROW_LIMIT) {
       preview.push({
@@ -234,6 +270,7 @@ async function prepareHarvests(ex: Executor, req: ImportRequest, householdCrops:
         unit: v.unit,
         grams: v.grams,
         edibleGrams: v.edibleGrams,
+        weightSource: v.weightSource,
         use: v.use,
         spreadMonths: v.spreadMonths,
         trimmed: v.trimmed,
@@ -244,23 +281,26 @@ async function prepareHarvests(ex: Executor, req: ImportRequest, householdCrops:
   return {
     values,
     preview,
-    errors: byRow([...parsed.errors, ...resolved.errors, ...future]),
+    errors: byRow([...parsed.errors, ...resolved.errors, ...future, ...unweighed]),
     unknownCrops: resolved.unknownCrops.map((c) => ({ ...c, category: newCropCategory({ name: c.name }) })),
     unknownFoodCodes: resolved.unknownFoodCodes,
     ignoredColumns: parsed.ignoredColumns,
   };
 }
 
-async function preparePurchases(ex: Executor, req: ImportRequest): Promise<Prepared<ReturnType<typeof purchaseValues>>> {
-  const parsed = parsePurchaseCsv(req.file);
+async function preparePurchases(ex: Executor, req: ImportRequest, household: ImportHousehold): Promise<Prepared<ReturnType<typeof purchaseValues>>> {
+  const parsed = parsePurchaseCsv(req.file, { pint: household.pint });
   const codes = await foodsByCodes(ex, parsed.rows.map((r) => r.foodCode));
   const resolved = resolvePurchaseRows(parsed.rows, { foodByCode: (code) => codes.get(code)?.id });
   const foodsById = new Map([...codes.values()].map((f) => [f.id, f]));
+  const measured = await measuresFor(ex, resolved.inputs, ({ input }) => (input as PurchaseInput).foodId);
+  const unweighed: CsvError[] = [];
   const values: Prepared<ReturnType<typeof purchaseValues>>['values'] = [];
   const preview: PreviewRow[] = [];
   for (const { row, input } of resolved.inputs) {
     const food = foodsById.get(input.foodId)!;
-    const v = purchaseValues(input as PurchaseInput, food.refusePct);
+    const v = weighRow(row, unweighed, () => purchaseValues(input as PurchaseInput, { refusePct: food.refusePct, measured: measured.get(food.id) ?? null }));
+    if (v === undefined) continue;
     values.push({ ...v, row });
     if (preview.length < PREVIEW_ROW_LIMIT) {
       preview.push({
@@ -273,6 +313,7 @@ async function preparePurchases(ex: Executor, req: ImportRequest): Promise<Prepa
         unit: v.unit,
         grams: v.grams,
         edibleGrams: v.edibleGrams,
+        weightSource: v.weightSource,
         spreadMonths: v.spreadMonths,
         trimmed: v.trimmed,
         note: v.note,
@@ -284,7 +325,7 @@ async function preparePurchases(ex: Executor, req: ImportRequest): Promise<Prepa
   return {
     values,
     preview,
-    errors: byRow([...parsed.errors, ...resolved.errors]),
+    errors: byRow([...parsed.errors, ...resolved.errors, ...unweighed]),
     unknownCrops: [],
     unknownFoodCodes: resolved.unknownFoodCodes,
     ignoredColumns: parsed.ignoredColumns,
@@ -338,10 +379,11 @@ async function insertChunks(tx: Tx, householdId: number, userId: string | null, 
  * problem by row. Commit: creates the requested crops and writes every row in one transaction,
  * 201 `{ ok: true, created }`; any problem rolls it all back and answers 422 with the problems.
  */
-export async function importEntries(householdId: number, userId: string | null, req: ImportRequest, today: string): Promise<ImportAnswer> {
+export async function importEntries(household: ImportHousehold, userId: string | null, req: ImportRequest, today: string): Promise<ImportAnswer> {
   const db = getDb();
+  const householdId = household.id;
   if (req.mode === 'preview') {
-    if (req.kind === 'purchases') return answer(req, await preparePurchases(db, req), 200);
+    if (req.kind === 'purchases') return answer(req, await preparePurchases(db, req, household), 200);
     const existing = await cropRows(db, householdId);
     // Crops the grower chose to create are matched as if they existed. Their stand-in ids are
     // positive (the row rules want ids > 0) but far above any id an INT column can hold: never stored.
@@ -350,7 +392,7 @@ export async function importEntries(householdId: number, userId: string | null, 
     const known = await foodsByIds(db, missingFoods);
     const badFood = missingFoods.find((id) => !known.has(id));
     if (badFood !== undefined) throw new HttpError(400, 'invalid_input', `createCrops: There is no reference food with id ${badFood}.`, { createCrops: `There is no reference food with id ${badFood}.` });
-    return answer(req, await prepareHarvests(db, req, [...existing, ...virtual], today), 200);
+    return answer(req, await prepareHarvests(db, req, household, [...existing, ...virtual], today), 200);
   }
   try {
     return await db.transaction(async (tx) => {
@@ -360,9 +402,13 @@ export async function importEntries(householdId: number, userId: string | null, 
         const existing = await cropRows(tx, householdId);
         const toCreate = newCrops(existing, req.createCrops);
         for (const c of toCreate) await insertCrop(tx, householdId, c);
-        prepared = await prepareHarvests(tx, req, toCreate.length > 0 ? await cropRows(tx, householdId) : existing, today);
+        prepared = await prepareHarvests(tx, req, household, toCreate.length > 0 ? await cropRows(tx, householdId) : existing, today);
       } else {
-        prepared = await preparePurchases(tx, req);
+        const purchasesPrepared = await preparePurchases(tx, req, household);
+        // A household without a currency takes that of the first row that names one, as from the form.
+        const firstCurrency = purchasesPrepared.values.find((v) => v.currency !== null)?.currency;
+        if (purchasesPrepared.errors.length === 0 && firstCurrency) await adoptCurrency(tx, householdId, firstCurrency);
+        prepared = purchasesPrepared;
       }
       if (prepared.errors.length > 0 || prepared.values.length === 0) {
         throw new RowsRefused(answer(req, prepared, 422, { ok: false }));

@@ -11,7 +11,8 @@ import { defaultSpreadMonths, type CropCategory } from '@/lib/crop-categories';
 import { cropUseError, mergeHarvestPatch, splitToHarvests, type HarvestInput, type HarvestPatch, type HarvestSplitInput } from '@/lib/entry-schemas';
 import { type HarvestQuery } from '@/lib/list-query-schemas';
 import type { HarvestJson, HarvestList } from '@/lib/entry-types';
-import { toGrams } from '@/lib/units';
+import { isCountOrVolume } from '@/lib/entry-units';
+import type { CountVolumeBasis, MeasuredFood } from '@/lib/count-volume';
 import { cropDisplayName, cropRow, harvestEdibleGrams, requireFood } from './crops';
 import { HttpError } from './http';
 import { todayIn } from '@/lib/months';
@@ -21,6 +22,7 @@ import { requirePlantingOfCrop } from './plantings';
 import { updateEntry, type EntryUpdateSpec } from './entry-update';
 import { groupAfterDelete, sharedSplitPatch } from '@/lib/split-weighing';
 import { reconcileOutcomes } from './larder-outcomes';
+import { measuredFood, weighEntry } from './unit-weights';
 
 export type { HarvestJson, HarvestList } from '@/lib/entry-types';
 
@@ -36,10 +38,23 @@ export interface HarvestBasis {
   notFood: boolean;
   category: CropCategory;
   cropDefaultSpread: number | null;
+  /** The crop's weight of one piece, bunch or head (g); null = none set. */
+  countGrams: number | null;
+  /** The food's household measures: loaded only for an entry in a count or volume unit. */
+  measured: MeasuredFood | null;
+}
+
+/** What a count or volume of this harvest is weighed from: the crop's weight of one, the food's measures. */
+export function countVolumeBasis(basis: HarvestBasis): CountVolumeBasis {
+  return { crop: basis.cropId === null ? null : { name: basis.cropName ?? 'this crop', countGrams: basis.countGrams }, food: basis.measured };
 }
 
 /** The basis of a harvest of one of the household's crops; `food` is the crop's reference food, if it has one. */
-export function cropBasis(crop: Pick<Crop, 'id' | 'name' | 'variety' | 'foodId' | 'edibleFraction' | 'notFood' | 'category' | 'defaultSpreadMonths'>, food: { refusePct: number | null } | null | undefined): HarvestBasis {
+export function cropBasis(
+  crop: Pick<Crop, 'id' | 'name' | 'variety' | 'foodId' | 'edibleFraction' | 'notFood' | 'category' | 'defaultSpreadMonths'> & { countGrams?: number | null },
+  food: { refusePct: number | null } | null | undefined,
+  measured: MeasuredFood | null = null,
+): HarvestBasis {
   return {
     cropId: crop.id,
     cropName: cropDisplayName(crop.name, crop.variety),
@@ -49,38 +64,48 @@ export function cropBasis(crop: Pick<Crop, 'id' | 'name' | 'variety' | 'foodId' 
     notFood: crop.notFood,
     category: crop.category,
     cropDefaultSpread: crop.defaultSpreadMonths,
+    countGrams: crop.countGrams ?? null,
+    measured,
   };
 }
 
 /** The basis of a harvest logged straight against a reference food (no crop of the household). */
-export function foodBasis(food: { id: number; refusePct: number | null }): HarvestBasis {
-  return { cropId: null, foodId: food.id, refusePct: food.refusePct, edibleFraction: null, notFood: false, category: 'other', cropDefaultSpread: null };
+export function foodBasis(food: { id: number; refusePct: number | null }, measured: MeasuredFood | null = null): HarvestBasis {
+  return { cropId: null, foodId: food.id, refusePct: food.refusePct, edibleFraction: null, notFood: false, category: 'other', cropDefaultSpread: null, countGrams: null, measured };
 }
 
-/** The basis of an entry naming a crop (of this household) or a reference food; 400 when neither exists. */
-export async function harvestBasis(ex: Executor, householdId: number, ref: { cropId?: number | undefined; foodId?: number | undefined }): Promise<HarvestBasis> {
+/**
+ * The basis of an entry naming a crop (of this household) or a reference food; 400 when neither
+ * exists. The food's household measures are read only for an entry in a count or volume unit.
+ */
+export async function harvestBasis(ex: Executor, householdId: number, ref: { cropId?: number | undefined; foodId?: number | undefined; unit?: string }): Promise<HarvestBasis> {
+  const measured = (foodId: number | null) => (isCountOrVolume(ref.unit) ? measuredFood(ex, foodId) : Promise.resolve(null));
   if (ref.cropId !== undefined) {
     const crop = await cropRow(ex, householdId, ref.cropId).catch((e: unknown) => {
       if (e instanceof HttpError && e.status === 404) throw fieldError('cropId', 'There is no such crop in this household.');
       throw e;
     });
     const food = crop.foodId === null ? null : await requireFood(ex, crop.foodId);
-    return cropBasis(crop, food);
+    return cropBasis(crop, food, await measured(crop.foodId));
   }
   if (ref.foodId !== undefined) {
-    return foodBasis(await requireFood(ex, ref.foodId));
+    return foodBasis(await requireFood(ex, ref.foodId), await measured(ref.foodId));
   }
   throw fieldError('cropId', 'Choose the crop (or a reference food) this harvest is of.');
 }
 
 /** The stored columns of a harvest: the fields the API answers with (HarvestJson) that come from the input, and its planting. */
-export type HarvestValues = Pick<HarvestJson, 'cropId' | 'foodId' | 'date' | 'quantity' | 'unit' | 'grams' | 'edibleGrams' | 'use' | 'spreadMonths' | 'preserveMethod' | 'trimmed' | 'note'> & {
+export type HarvestValues = Pick<HarvestJson, 'cropId' | 'foodId' | 'date' | 'quantity' | 'unit' | 'grams' | 'edibleGrams' | 'weightSource' | 'use' | 'spreadMonths' | 'preserveMethod' | 'trimmed' | 'note'> & {
   plantingId: number | null;
 };
 
-/** The stored columns of a harvest from its input and basis (grams, edible grams, spread filled in). */
+/**
+ * The stored columns of a harvest from its input and basis (grams, edible grams, spread filled in).
+ * A count or volume is weighed through its named weight (422 when there is none); one weighed by a
+ * reference food's household measure is edible as logged (SR28 gives those weights edible).
+ */
 export function harvestValues(input: HarvestInput, basis: HarvestBasis): HarvestValues {
-  const grams = toGrams(input.quantity, input.unit);
+  const { grams, weightSource, edibleAsLogged } = weighEntry(input.quantity, input.unit, countVolumeBasis(basis));
   return {
     cropId: basis.cropId,
     foodId: basis.foodId,
@@ -88,7 +113,8 @@ export function harvestValues(input: HarvestInput, basis: HarvestBasis): Harvest
     quantity: input.quantity,
     unit: input.unit,
     grams,
-    edibleGrams: harvestEdibleGrams(grams, input.trimmed, basis),
+    edibleGrams: harvestEdibleGrams(grams, input.trimmed || edibleAsLogged, basis),
+    weightSource,
     use: input.use,
     // Stored or preserved without a spread: the crop's own default, else its category's.
     spreadMonths: input.spreadMonths ?? defaultSpreadMonths({ use: input.use, category: basis.category, cropDefault: basis.cropDefaultSpread }),
@@ -143,6 +169,7 @@ function toJson(r: JoinedRow): HarvestJson {
     unit: h.unit,
     grams: h.grams,
     edibleGrams: h.edibleGrams,
+    weightSource: h.weightSource,
     use: h.use,
     spreadMonths: h.spreadMonths,
     preserveMethod: h.preserveMethod,

@@ -4,6 +4,7 @@ import { getDb } from '@/db/client';
 import { crops, harvests, households, memberships, plantings, purchases, staples, user, type Household, type Role } from '@/db/schema';
 import { compareMonths, monthOf, todayIn } from '@/lib/months';
 import { currentZoneName } from '@/lib/time-zones';
+import { currencyForZone } from '@/lib/currency';
 import { fieldError, type Tx } from './entry-input';
 import { HttpError } from './http';
 
@@ -12,6 +13,8 @@ export interface HouseholdInput {
   timezone: string;
   units: 'metric' | 'us';
   yearStartMonth: number;
+  /** ISO 4217 code new purchases start with; left out, it is guessed from the time zone; null = none. */
+  currency?: string | null;
 }
 
 /** A change to a household (owner): the fields above and the month its records start (null = the default rule). */
@@ -29,6 +32,7 @@ export function householdJson(h: Household, role?: Role) {
     units: h.units,
     yearStartMonth: h.yearStartMonth,
     recordsSince: h.recordsSince,
+    currency: h.currency,
     ...(role ? { role } : {}),
   };
 }
@@ -36,7 +40,8 @@ export function householdJson(h: Household, role?: Role) {
 /** Creates a household with its creator as owner, in one transaction. */
 export async function createHousehold(userId: string, input: HouseholdInput): Promise<Household> {
   return getDb().transaction(async (tx) => {
-    const [res] = await tx.insert(households).values(input);
+    const currency = input.currency === undefined ? currencyForZone(input.timezone) : input.currency;
+    const [res] = await tx.insert(households).values({ ...input, currency });
     const id = res.insertId;
     await tx.insert(memberships).values({ householdId: id, userId, role: 'owner', monthlyLetter: true });
     const [h] = await tx.select().from(households).where(eq(households.id, id));

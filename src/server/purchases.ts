@@ -1,28 +1,47 @@
 /**
  * Bought food in the database. Every function takes the household id and touches only that
  * household's rows. Grams and edible grams (the food's refuse taken off unless weighed trimmed) are
- * worked out at write time and again on every change.
+ * worked out at write time and again on every change; a count or volume is weighed by the food's
+ * household measures (src/lib/count-volume.ts). The first purchase with a currency gives a household
+ * without one its currency.
  */
-import { and, asc, desc, eq } from 'drizzle-orm';
+import { and, asc, desc, eq, isNull } from 'drizzle-orm';
 import { getDb } from '@/db/client';
-import { foods, purchases, type Purchase } from '@/db/schema';
+import { foods, households, purchases, type Purchase } from '@/db/schema';
 import { edibleGrams } from '@/lib/edible';
 import { mergePurchasePatch, type PurchaseInput, type PurchasePatch } from '@/lib/entry-schemas';
 import { type PurchaseQuery } from '@/lib/list-query-schemas';
 import type { PurchaseJson, PurchaseList } from '@/lib/entry-types';
-import { toGrams, type WeightUnit } from '@/lib/units';
+import { isCountOrVolume } from '@/lib/entry-units';
+import type { MeasuredFood } from '@/lib/count-volume';
 import { requireFood } from './crops';
 import { HttpError } from './http';
 import { invalidInput, type Executor, type Tx } from './entry-input';
 import { listEntries, type EntryListSpec } from './entry-list';
 import { deleteEntry, updateEntry, type EntryUpdateSpec } from './entry-update';
+import { measuredFood, weighEntry } from './unit-weights';
 
 
 const NOT_FOUND = 'No such bought food in this household.';
 
-/** The stored columns of a purchase from its input and its food's refuse. */
-export function purchaseValues(input: PurchaseInput, refusePct: number | null) {
-  const grams = toGrams(input.quantity, input.unit);
+/** What bought food's numbers rest on: its food's refuse and, for a count or volume, its household measures. */
+export interface PurchaseBasis {
+  refusePct: number | null;
+  measured?: MeasuredFood | null;
+}
+
+/** The food of an entry with its measures read when the unit is a count or volume; 400 when there is no such food. */
+export async function purchaseBasis(ex: Executor, foodId: number, unit: string): Promise<PurchaseBasis> {
+  const food = await requireFood(ex, foodId);
+  return { refusePct: food.refusePct, measured: isCountOrVolume(unit) ? await measuredFood(ex, foodId) : null };
+}
+
+/**
+ * The stored columns of a purchase from its input and its food: a count or volume weighed by the
+ * food's household measure is edible as logged (SR28 gives those weights edible); 422 without one.
+ */
+export function purchaseValues(input: PurchaseInput, basis: PurchaseBasis) {
+  const { grams, weightSource, edibleAsLogged } = weighEntry(input.quantity, input.unit, { food: basis.measured ?? null });
   return {
     foodId: input.foodId,
     date: input.date,
@@ -30,7 +49,8 @@ export function purchaseValues(input: PurchaseInput, refusePct: number | null) {
     unit: input.unit,
     grams,
     // Bought food has refuse too (bought bananas have peels).
-    edibleGrams: edibleGrams(grams, { refusePercent: refusePct, trimmed: input.trimmed }),
+    edibleGrams: edibleGrams(grams, { refusePercent: basis.refusePct, trimmed: input.trimmed || edibleAsLogged }),
+    weightSource,
     // DECIMAL(12,2): written as text so that 3.49 is stored as 3.49.
     price: input.price === undefined ? null : input.price.toFixed(2),
     currency: input.currency ?? null,
@@ -54,6 +74,7 @@ function toJson(r: JoinedRow): PurchaseJson {
     unit: p.unit,
     grams: p.grams,
     edibleGrams: p.edibleGrams,
+    weightSource: p.weightSource,
     price: p.price === null ? null : Number(p.price),
     currency: p.currency,
     spreadMonths: p.spreadMonths,
@@ -76,9 +97,15 @@ export async function getPurchase(householdId: number, purchaseId: number, ex: E
 
 /** Stores bought food in a transaction. Example: `await createPurchase(tx, 7, userId, purchaseInput.parse(body))` → PurchaseJson */
 export async function createPurchase(tx: Tx, householdId: number, userId: string | null, input: PurchaseInput): Promise<PurchaseJson> {
-  const food = await requireFood(tx, input.foodId);
-  const [res] = await tx.insert(purchases).values({ ...purchaseValues(input, food.refusePct), householdId, createdBy: userId });
+  const basis = await purchaseBasis(tx, input.foodId, input.unit);
+  const [res] = await tx.insert(purchases).values({ ...purchaseValues(input, basis), householdId, createdBy: userId });
+  if (input.currency !== undefined) await adoptCurrency(tx, householdId, input.currency);
   return getPurchase(householdId, res.insertId, tx);
+}
+
+/** A household without a currency takes the one its purchase was paid in (the purchase form then starts with it). */
+export async function adoptCurrency(ex: Executor, householdId: number, currency: string): Promise<void> {
+  await ex.update(households).set({ currency }).where(and(eq(households.id, householdId), isNull(households.currency)));
 }
 
 /** The bought-food list's part of the shared list: food names joined, sort by food. */
@@ -115,8 +142,7 @@ const purchaseUpdate: EntryUpdateSpec<typeof purchases, PurchasePatch, PurchaseJ
       patch,
     );
     if (!merged.success) throw invalidInput(merged.error);
-    const food = await requireFood(tx, merged.data.foodId);
-    return purchaseValues(merged.data, food.refusePct);
+    return purchaseValues(merged.data, await purchaseBasis(tx, merged.data.foodId, merged.data.unit));
   },
   get: getPurchase,
 };

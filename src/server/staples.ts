@@ -13,6 +13,8 @@ import { todayIn } from '@/lib/months';
 import { isDuplicateKey, type Executor, type Tx } from './entry-input';
 import type { PurchaseJson } from '@/lib/entry-types';
 import { createPurchase } from './purchases';
+import { isCountOrVolume } from '@/lib/entry-units';
+import { measuredFood, weighEntry } from './unit-weights';
 
 
 function joined(ex: Executor) {
@@ -47,6 +49,8 @@ export async function getStaple(householdId: number, stapleId: number, ex: Execu
 export async function createStaple(householdId: number, input: StapleInput): Promise<StapleJson> {
   return getDb().transaction(async (tx) => {
     const food = await requireFood(tx, input.foodId);
+    // A staple by the piece or the litre must be one its food can weigh (422 otherwise), as its purchases will be.
+    if (isCountOrVolume(input.unit)) weighEntry(input.quantity, input.unit, { food: await measuredFood(tx, input.foodId) });
     try {
       const [res] = await tx.insert(staples).values({
         householdId,

@@ -21,7 +21,20 @@ describe('the crop catalogue', () => {
     expect(r.status).toBe(201);
     expect(r.body.crop).toMatchObject({ name: 'Potato', variety: 'Charlotte', displayName: 'Potato (Charlotte)', category: 'root_tuber', defaultUse: 'stored', defaultSpreadMonths: 6, notFood: false, archived: false, harvestCount: 0, lastHarvestDate: null, edibleFraction: null });
     // USDA SR28, NDB 11352 "Potatoes, flesh and skin, raw": 25 % refuse, 77 kcal and 2.05 g protein per 100 g
-    expect(r.body.crop.food).toEqual({ id: potatoFood, dataset: 'usda-sr28', code: '11352', name: 'Potatoes, flesh and skin, raw', refusePct: 25, kcalPer100g: 77, proteinPer100g: 2.05 });
+    expect(r.body.crop.food).toEqual({
+      id: potatoFood,
+      dataset: 'usda-sr28',
+      code: '11352',
+      name: 'Potatoes, flesh and skin, raw',
+      refusePct: 25,
+      kcalPer100g: 77,
+      proteinPer100g: 2.05,
+      // USDA SR28 11352, Weight file (household measures, in its order)
+      measures: [
+        { description: '0.5 cup, diced', grams: 75 },
+        { description: '1 Potato, large (3" to 4-1/4" dia)', grams: 369 },
+      ],
+    });
   });
 
   it('refuses a second crop of the same name and variety (409) and bad input (400)', async () => {

@@ -40,7 +40,7 @@ describe('bought food', () => {
   it('answers 400 naming the field for bad input', async () => {
     for (const [change, field] of [
       [{ quantity: 0 }, 'quantity'],
-      [{ unit: 'cup' }, 'unit'],
+      [{ unit: 'sack' }, 'unit'],
       [{ date: '2026-02-30' }, 'date'],
       [{ spreadMonths: 25 }, 'spreadMonths'],
       [{ price: -1 }, 'price'],

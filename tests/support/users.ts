@@ -34,6 +34,8 @@ export interface TestHousehold {
   timezone: string;
   units: 'metric' | 'us';
   yearStartMonth: number;
+  /** ISO 4217 code; guessed from the zone when the test does not give one. */
+  currency?: string | null;
 }
 
 /** A password that passes the rules (10+ characters). */

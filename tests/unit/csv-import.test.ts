@@ -117,6 +117,14 @@ describe('reading a harvest log', () => {
       [6, 'unit'],
     ]);
   });
+  it('reads counts and volumes in their common spellings, a bare pint as the household says', () => {
+    const text = 'date,food_code,quantity,unit\n2026-07-01,01123,12,pcs\n2026-07-01,01123,6,each\n2026-07-02,01077,2,litre\n2026-07-02,01077,2,cups\n2026-07-03,01077,1,pt\n2026-07-03,11457,2,bunches';
+    const units = (pint?: 'pint_us' | 'pint_imp') => parseHarvestCsv(text, pint ? { pint } : {}).rows.map((r) => r.entry.unit);
+    expect(units('pint_imp')).toEqual(['piece', 'piece', 'l', 'cup', 'pint_imp', 'bunch']);
+    expect(units('pint_us')[4]).toBe('pint_us');
+    // Without a household's meaning a bare pint is not guessed: the row is refused on its unit.
+    expect(parseHarvestCsv(text).errors).toEqual([{ row: 6, column: 'unit', message: expect.stringContaining('pint_us, pint_imp') }]);
+  });
   it('counts a quoted note with line breaks as one row', () => {
     const text = 'date,crop,quantity,unit,note\n2026-07-01,Potato,1,kg,"line one\nline two"\n2026-07-02,Potato,0,kg,';
     const { errors, rows } = parseHarvestCsv(text);

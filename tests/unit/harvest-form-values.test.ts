@@ -47,6 +47,7 @@ describe('harvestResolver', () => {
     expect(r.errors).toEqual({});
     expect(r.values).toMatchObject({ cropId: 3, unit: 'kg', parts: [{ quantity: 3, use: 'fresh', spreadMonths: 1 }, { quantity: 9, use: 'stored', spreadMonths: 5 }] });
     expect(harvestLabel(values, 'kg', 'Potato')).toBe('12 kg Potato — 3 kg fresh, 9 kg stored');
+    expect(harvestLabel(values, 'piece', 'Eggs')).toBe('12 pieces Eggs — 3 pieces fresh, 9 pieces stored');
   });
 
   it('sends the preserving method with preserved food only, in one weighing or in each preserved part', async () => {

@@ -53,4 +53,19 @@ describe('cropResolver', () => {
     expect(cropBody(values, true)).toMatchObject({ variety: null, edibleFraction: null, defaultUse: null, defaultSpreadMonths: null });
     expect(cropBody(values, false)).toMatchObject({ variety: '', edibleFraction: undefined, defaultUse: undefined, defaultSpreadMonths: undefined });
   });
+
+  it('sends the weight of one in grams, typed in ounces in a US household', () => {
+    const values = { ...cropFormValues(), name: 'Radish', countWeight: '4' };
+    // 1 oz = 28.349523125 g exactly (International Yard and Pound Agreement, 1959): 4 oz = 113.3980925 g
+    expect(cropBody(values, false, 'us').countGrams).toBeCloseTo(113.3980925, 9);
+    expect(cropBody(values, false, 'metric').countGrams).toBe(4);
+    expect(cropBody({ ...values, countWeight: '' }, true).countGrams).toBeNull();
+    const stored = { name: 'Radish', countGrams: 113.3980925 } as unknown as Parameters<typeof cropFormValues>[0];
+    expect(cropFormValues(stored, 'us').countWeight).toBe('4');
+  });
+
+  it('refuses a weight of one of 0', async () => {
+    const r = await cropResolver({ ...cropFormValues(), name: 'Radish', countWeight: '0' }, { editing: false }, options);
+    expect(flatErrors(r.errors).countGrams).toBe('The weight of one must be more than 0 g.');
+  });
 });

@@ -1,7 +1,8 @@
 /**
  * Adding or changing one crop: its name and variety, its kind, the reference food it is matched to
  * (with that food's refuse and figures, so the match can be judged), the share eaten, its usual use
- * and how long stored food lasts, or "not food". The form is react-hook-form, checked by the
+ * and how long stored food lasts, the weight of one piece, bunch or head (for counts), or "not
+ * food". The form is react-hook-form, checked by the
  * endpoint's own zod schemas (crop-form-values.ts).
  */
 import { useMutation, useQueryClient } from '@tanstack/react-query';
@@ -11,7 +12,7 @@ import { CROP_CATEGORIES, CROP_CATEGORY_LABELS, defaultSpreadMonths, defaultUse 
 import { isEatenUse, USE_LABELS, USES } from '@/lib/entry-schemas';
 import { type CropInput, type CropPatch } from '@/lib/crop-schemas';
 import { ApiError, keys, request, urls, type Crop, type HouseholdInfo } from './api';
-import { cropFormValues, cropResolver, type CropFormContext, type CropFormValues } from './crop-form-values';
+import { countWeightUnit, cropFormValues, cropResolver, type CropFormContext, type CropFormValues } from './crop-form-values';
 import { FoodPicker } from './FoodPicker';
 import { flatErrors } from './form-errors';
 import { Alert, ErrorText, FieldShell, invalidProps, pct, type Errors } from './ui';
@@ -23,13 +24,13 @@ export function CropForm({ household, crop, onDone }: { household: HouseholdInfo
   const formRef = useRef<HTMLFormElement>(null);
   const [alert, setAlert] = useState<string | null>(null);
   const { control, register, watch, setError, handleSubmit, formState } = useForm<CropFormValues, CropFormContext, CropInput | CropPatch>({
-    defaultValues: cropFormValues(crop),
+    defaultValues: cropFormValues(crop, household.units),
     resolver: cropResolver,
     // Errors show after Save and stay until the next Save.
     mode: 'onSubmit',
     reValidateMode: 'onSubmit',
     shouldFocusError: false,
-    context: { editing: crop !== undefined },
+    context: { editing: crop !== undefined, units: household.units },
   });
   const errors: Errors = flatErrors(formState.errors);
   const [name, category, food, notFood] = watch(['name', 'category', 'food', 'notFood']);
@@ -51,7 +52,7 @@ export function CropForm({ household, crop, onDone }: { household: HouseholdInfo
 
   function focusFirst(errs: Errors) {
     const first = Object.keys(errs)[0];
-    const map: Record<string, string> = { edibleFraction: `${p}-eaten`, defaultSpreadMonths: `${p}-spread`, defaultUse: `${p}-use`, foodId: `${p}-food`, name: `${p}-name`, variety: `${p}-variety` };
+    const map: Record<string, string> = { countGrams: `${p}-count`, edibleFraction: `${p}-eaten`, defaultSpreadMonths: `${p}-spread`, defaultUse: `${p}-use`, foodId: `${p}-food`, name: `${p}-name`, variety: `${p}-variety` };
     if (first) formRef.current?.querySelector<HTMLElement>(`#${CSS.escape(map[first] ?? first)}`)?.focus();
   }
 
@@ -152,6 +153,14 @@ export function CropForm({ household, crop, onDone }: { household: HouseholdInfo
           </FieldShell>
         ) : null}
       </div>
+      <FieldShell
+        id={`${p}-count`}
+        label={<>Weight of one (piece, bunch or head), in {countWeightUnit(household.units)} <span className="font-normal text-loam-700">(optional)</span></>}
+        error={errors.countGrams}
+        hint="Weigh one whole, as you harvest it, to log this crop by count (“3 bunches”); its refuse still comes off. Empty: the reference food’s household measures, when it has one."
+      >
+        <input {...invalidProps(`${p}-count`, errors.countGrams, true)} {...register('countWeight')} type="text" inputMode="decimal" className="field w-32" autoComplete="off" />
+      </FieldShell>
       <ErrorText id={`${p}-form`} error={errors._form} />
       <div className="mt-6 flex flex-wrap gap-2">
         <button type="submit" className="btn-primary" disabled={save.isPending}>

@@ -13,6 +13,7 @@ import { CropForm } from './CropForm';
 import { FactsGrid } from './FoodPicker';
 import { formatDate } from '@/lib/format-date';
 import { countText } from '@/lib/plural';
+import { formatWeight } from '@/lib/units';
 import { QueryProvider } from '@/components/QueryProvider';
 import { Alert, ConfirmDelete, pct } from './ui';
 
@@ -150,6 +151,12 @@ function CropManagerInner({ household }: { household: HouseholdInfo }) {
                   <>
                     <dt className="text-loam-700">If stored, eaten over</dt>
                     <dd className="font-semibold">{countText(defaultSpreadMonths({ use: 'stored', category: c.category, cropDefault: c.defaultSpreadMonths }), 'month')}</dd>
+                  </>
+                ) : null}
+                {c.countGrams != null ? (
+                  <>
+                    <dt className="text-loam-700">Weight of one</dt>
+                    <dd className="font-semibold">{formatWeight(c.countGrams, household.units)}</dd>
                   </>
                 ) : null}
                 <dt className="text-loam-700">Harvests</dt>

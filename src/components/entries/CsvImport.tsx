@@ -8,7 +8,8 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useRef, useState, type FormEvent } from 'react';
 import { CROP_CATEGORIES, CROP_CATEGORY_LABELS, type CropCategory } from '@/lib/crop-categories';
 import { CSV_LIMITS, HARVEST_CSV_COLUMNS, PURCHASE_CSV_COLUMNS } from '@/lib/csv-import';
-import { formatWeightPair, toGrams } from '@/lib/units';
+import { formatWeightPair } from '@/lib/units';
+import { countedAmountText, isCountOrVolume } from '@/lib/entry-units';
 import { ApiError, canWrite, keys, request, urls, type CsvError, type HouseholdInfo } from './api';
 import { FoodPicker, type FoodChoice } from './FoodPicker';
 import { formatDay } from './local-date';
@@ -250,8 +251,15 @@ function CsvImportInner({ household }: { household: HouseholdInfo }) {
                       <td className="px-3 py-2 tabular-nums">{r.row}</td>
                       <td className="whitespace-nowrap px-3 py-2">{formatDay(r.date)}</td>
                       <td className="px-3 py-2">{r.crop ?? r.foodName ?? r.foodCode}</td>
-                      <td className="whitespace-nowrap px-3 py-2 text-right tabular-nums">{formatQuantity(r.quantity, r.unit)}</td>
-                      <td className="whitespace-nowrap px-3 py-2 text-right tabular-nums">{formatWeightPair(toGrams(r.quantity, r.unit), r.edibleGrams, household.units, r.unit).edible}</td>
+                      <td className="px-3 py-2 text-right tabular-nums">
+                        <span className="whitespace-nowrap">{isCountOrVolume(r.unit) ? countedAmountText({ quantity: r.quantity, unit: r.unit, grams: r.grams }, household.units) : formatQuantity(r.quantity, r.unit)}</span>
+                        {r.weightSource ? (
+                          <span className="block text-xs text-loam-700" data-testid="preview-weight-source">
+                            {r.weightSource}
+                          </span>
+                        ) : null}
+                      </td>
+                      <td className="whitespace-nowrap px-3 py-2 text-right tabular-nums">{formatWeightPair(r.grams, r.edibleGrams, household.units, r.unit).edible}</td>
                       <td className="px-3 py-2">{kind === 'harvests' ? r.use : r.price != null ? `${r.price} ${r.currency ?? ''}` : ''}</td>
                     </tr>
                   ))}

@@ -10,22 +10,24 @@ import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { harvestPatch, isSpreadUse, USE_LABELS, USES, type Use } from '@/lib/entry-schemas';
 import { PRESERVE_METHODS, type PreserveMethod } from '@/lib/retention';
-import { WEIGHT_UNITS, type WeightUnit } from '@/lib/units';
-import { get, keys, urls, type Crop, type Harvest, type HouseholdInfo } from './api';
+import type { EntryUnit } from '@/lib/entry-units';
+import { foodDetail, get, keys, urls, type Crop, type Harvest, type HouseholdInfo } from './api';
 import { EditRowShell, useEntryPatch } from './EditEntryRow';
 import { FoodPicker, type FoodChoice } from './FoodPicker';
 import { formatDay } from './local-date';
 import { PRESERVE_METHOD_LABELS } from './PreserveField';
 import { parseDecimal, trimNumber } from './quantity-text';
-import { ErrorText, invalidProps } from './ui';
+import { ErrorText, invalidProps, UnitSelect } from './ui';
 import { outcomesOf, useEntryUndo } from './use-entry-undo';
+import { cropWeighBasis, foodWeighBasis } from './unit-basis';
+import { UnitWeightNote } from './WeightField';
 
 export function HarvestEditRow({ entry: harvest, colSpan, household, onDone }: { entry: Harvest; colSpan: number; household: HouseholdInfo; onDone: () => void }) {
   const hid = household.id;
   const crops = useQuery({ queryKey: keys.crops(hid, true), queryFn: () => get<{ crops: Crop[] }>(urls(hid).crops(true)).then((r) => r.crops) });
   const [cropId, setCropId] = useState(harvest.cropId === null ? '' : String(harvest.cropId));
   const [quantity, setQuantity] = useState(trimNumber(harvest.quantity, 3));
-  const [unit, setUnit] = useState<WeightUnit>(harvest.unit);
+  const [unit, setUnit] = useState<EntryUnit>(harvest.unit);
   const [use, setUse] = useState<Use>(harvest.use);
   const [date, setDate] = useState(harvest.date);
   const [spread, setSpread] = useState(isSpreadUse(harvest.use) ? String(harvest.spreadMonths) : '');
@@ -47,6 +49,10 @@ export function HarvestEditRow({ entry: harvest, colSpan, household, onDone }: {
     }),
   );
   const p = `edit-${harvest.id}`;
+  // What a count or volume would be weighed from: the chosen crop, or the entry's own food.
+  const basisFoodId = food?.id ?? harvest.foodId;
+  const foodInfo = useQuery({ queryKey: keys.food(basisFoodId ?? 0), queryFn: () => foodDetail(basisFoodId!), enabled: cropId === '' && basisFoodId !== null, staleTime: 10 * 60_000 });
+  const basis = cropId !== '' ? cropWeighBasis(crops.data?.find((c) => c.id === Number(cropId))) : foodWeighBasis(foodInfo.data);
 
   function submit() {
     send({
@@ -114,13 +120,11 @@ export function HarvestEditRow({ entry: harvest, colSpan, household, onDone }: {
         <label htmlFor={`${p}-unit`} className="block text-sm font-semibold">
           Unit
         </label>
-        <select id={`${p}-unit`} className="field mt-1" value={unit} onChange={(e) => setUnit(e.target.value as WeightUnit)}>
-          {WEIGHT_UNITS.map((u) => (
-            <option key={u} value={u}>
-              {u}
-            </option>
-          ))}
-        </select>
+        <UnitSelect id={`${p}-unit`} value={unit} onChange={setUnit} error={errors.unit} />
+        <ErrorText id={`${p}-unit`} error={errors.unit} />
+      </div>
+      <div className="sm:col-span-4 empty:hidden">
+        <UnitWeightNote unit={unit} basis={basis} quantity={parseDecimal(quantity)} units={household.units} />
       </div>
       <div>
         <label htmlFor={`${p}-use`} className="block text-sm font-semibold">

@@ -17,7 +17,7 @@ import { isEatenUse, USES, type Use } from '@/lib/entry-schemas';
 import type { PlantingJson } from '@/lib/bed-types';
 import { formatAmount } from '@/lib/format-number';
 import { harvestWarnings } from '@/lib/harvest-warnings';
-import { toGrams } from '@/lib/units';
+import { isWeightUnit, toGrams } from '@/lib/units';
 import { ApiError, canWrite, get, keys, newIdempotencyKey, urls, type Crop, type HarvestPage, type HouseholdInfo } from './api';
 import { cropDefaultUse, useChipOrder } from './crop-order';
 import { ConfirmWarning } from './ConfirmWarning';
@@ -37,6 +37,8 @@ import { CheckCard, NoteField } from './entry-form-fields';
 import { UseCautions } from './UseCautions';
 import { useSavedHarvests, type CreateAnswer } from './use-saved-harvests';
 import { WeightField } from './WeightField';
+import { cropWeighBasis } from './unit-basis';
+import { parseDecimal } from './quantity-text';
 
 interface Props {
   household: HouseholdInfo;
@@ -79,7 +81,7 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
   // Pinned, then most used; fixed when the crops first load, so no chip moves after a save.
   const { ordered, rearrange } = useChipOrder(crops.data, today, inSeasonIds);
 
-  const [unit, setUnit] = useRememberedUnit(hid, household.units);
+  const [unit, setUnit, weightUnit] = useRememberedUnit(hid, household.units);
   const [alert, setAlert] = useState<string | null>(null);
   // A weight questioned (over 100 kg, a few grams of a storage crop) waits here until confirmed.
   const [question, setQuestion] = useState<{ messages: string[] } | null>(null);
@@ -102,7 +104,7 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
   const errors: Errors = flatErrors(form.formState.errors);
   const busy = form.formState.isSubmitting;
 
-  const { saved, add, undo, undoing } = useSavedHarvests(hid, unit, setAlert);
+  const { saved, add, undo, undoing } = useSavedHarvests(hid, weightUnit, setAlert);
   const outbox = useOutbox<CreateAnswer>('harvests', hid, (item, data) => add(item.key, item.label, data, true));
 
   if (!canWrite(household.role)) {
@@ -138,7 +140,8 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
 
   // Questions an odd weight first; the warning's button saves what the form then holds, unquestioned.
   async function check(body: HarvestBody) {
-    const messages = harvestWarnings({ grams: toGrams(weighingQuantity(body), unit), unit, category: crop?.category, cropName: crop?.displayName }).map((w) => w.message);
+    // The unit-slip questions are about weights; a count or volume is weighed by its named weight.
+    const messages = isWeightUnit(unit) ? harvestWarnings({ grams: toGrams(weighingQuantity(body), unit), unit, category: crop?.category, cropName: crop?.displayName }).map((w) => w.message) : [];
     if (messages.length > 0) {
       setQuestion({ messages });
       return;
@@ -190,7 +193,17 @@ function HarvestFormInner({ household, today: serverToday }: Props) {
       <form ref={formRef} onSubmit={submit} noValidate className="card" aria-label="Log a harvest">
         <CropChips ordered={ordered} value={values.cropId} today={today} error={errors.cropId} onPick={pickCrop} householdId={hid} onArranged={rearrange} />
 
-        <WeightField id="quantity" label={splitting ? 'Whole weighing' : 'Weight'} input={register('quantity')} error={errors.quantity} unitName="unit" unit={unit} onUnit={setUnit} enterKeyHint="done" />
+        <WeightField
+          id="quantity"
+          label={splitting ? 'Whole weighing' : 'Weight'}
+          input={register('quantity')}
+          error={errors.quantity}
+          unitName="unit"
+          unit={unit}
+          onUnit={setUnit}
+          enterKeyHint="done"
+          weigh={{ basis: cropWeighBasis(crop), quantity: parseDecimal(values.quantity), units: household.units }}
+        />
 
         {!splitting ? (
           <Controller control={control} name="use" render={({ field }) => <UseChips name="use" value={field.value} onChange={field.onChange} disabled={notFoodUses} error={errors.use} />} />

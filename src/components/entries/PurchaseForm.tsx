@@ -5,11 +5,11 @@
  * own zod schema (purchase-form-values.ts). Sent through the outbox with an Idempotency-Key, like the
  * harvest form, so a dropped connection keeps the entry and never stores it twice.
  */
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useRef, useState, type FormEvent } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { stapleInput, type PurchaseInput } from '@/lib/entry-schemas';
-import { ApiError, keys, newIdempotencyKey, request, urls, type HouseholdInfo, type Staple } from './api';
+import { ApiError, foodDetail, keys, newIdempotencyKey, request, urls, type HouseholdInfo, type Staple } from './api';
 import { FoodPicker } from './FoodPicker';
 import { flatErrors } from './form-errors';
 import { purchaseLabel, savedPurchase, type PurchaseOutbox, type SavedPurchase } from './PurchaseSaved';
@@ -17,6 +17,9 @@ import { emptyPurchaseValues, purchaseResolver, type PurchaseFormContext, type P
 import { Alert, ErrorText, invalidProps, useRememberedCurrency, useRememberedUnit, type Errors } from './ui';
 import { CheckCard, NoteField } from './entry-form-fields';
 import { WeightField } from './WeightField';
+import { foodWeighBasis } from './unit-basis';
+import { currencyChoices } from '@/lib/currency';
+import { parseDecimal } from './quantity-text';
 
 export function PurchaseForm({ household, today, outbox, onSaved }: { household: HouseholdInfo; today: string; outbox: PurchaseOutbox; onSaved: (s: SavedPurchase) => void }) {
   const hid = household.id;
@@ -24,7 +27,7 @@ export function PurchaseForm({ household, today, outbox, onSaved }: { household:
   const qc = useQueryClient();
   const formRef = useRef<HTMLFormElement>(null);
   const [unit, setUnit] = useRememberedUnit(hid, household.units, 'purchase-unit');
-  const [currency, setCurrency] = useRememberedCurrency(hid, household.units === 'us' ? 'USD' : '');
+  const [currency, setCurrency] = useRememberedCurrency(hid, household.currency);
   const [alert, setAlert] = useState<{ tone: 'error' | 'ok'; text: string } | null>(null);
   const { control, register, watch, getValues, reset, setError, handleSubmit, formState } = useForm<PurchaseFormValues, PurchaseFormContext, PurchaseInput>({
     defaultValues: emptyPurchaseValues(today),
@@ -36,7 +39,9 @@ export function PurchaseForm({ household, today, outbox, onSaved }: { household:
     context: { unit, currency },
   });
   const errors: Errors = flatErrors(formState.errors);
-  const [date, asStaple] = watch(['date', 'asStaple']);
+  const [date, asStaple, chosenFood, typed] = watch(['date', 'asStaple', 'food', 'quantity']);
+  // The chosen food's household measures (the picker reads the same query), for a count or volume.
+  const detail = useQuery({ queryKey: keys.food(chosenFood?.id ?? 0), queryFn: () => foodDetail(chosenFood!.id), enabled: chosenFood != null, staleTime: 10 * 60_000 });
 
   const addStaple = useMutation({
     mutationFn: (body: unknown) => request<{ staple: Staple }>('POST', api.staples(), body),
@@ -94,7 +99,16 @@ export function PurchaseForm({ household, today, outbox, onSaved }: { household:
         render={({ field }) => <FoodPicker id="p-food" label="Food bought" value={field.value} onChange={field.onChange} error={errors.foodId} hint="Search the reference foods, e.g. “wheat flour whole”, “rice brown”, “milk”." />}
       />
 
-      <WeightField id="p-quantity" label="Weight" input={register('quantity')} error={errors.quantity} unitName="p-unit" unit={unit} onUnit={setUnit} />
+      <WeightField
+        id="p-quantity"
+        label="Weight"
+        input={register('quantity')}
+        error={errors.quantity}
+        unitName="p-unit"
+        unit={unit}
+        onUnit={setUnit}
+        weigh={{ basis: chosenFood ? foodWeighBasis(detail.data) : null, quantity: parseDecimal(typed), units: household.units }}
+      />
 
       <div className="mt-4 grid grid-cols-2 gap-3">
         <div>
@@ -115,9 +129,16 @@ export function PurchaseForm({ household, today, outbox, onSaved }: { household:
             maxLength={3}
             placeholder="EUR"
             autoCapitalize="characters"
+            list="p-currency-codes"
             value={currency}
             onChange={(e) => setCurrency(e.target.value.toUpperCase())}
           />
+          {/* The household's own currency is offered first, never one it does not use ahead of it. */}
+          <datalist id="p-currency-codes">
+            {currencyChoices(household.currency).map((c) => (
+              <option key={c} value={c} />
+            ))}
+          </datalist>
           <ErrorText id="p-currency" error={errors.currency} />
         </div>
       </div>

@@ -6,8 +6,10 @@
  */
 import { useState, type ReactNode } from 'react';
 import { purchasePatch } from '@/lib/entry-schemas';
-import { WEIGHT_UNITS, type UnitSystem, type WeightUnit } from '@/lib/units';
-import { get, keys, request, urls, type HouseholdInfo, type Purchase, type PurchasePage } from './api';
+import type { UnitSystem } from '@/lib/units';
+import type { EntryUnit } from '@/lib/entry-units';
+import { useQuery } from '@tanstack/react-query';
+import { foodDetail, get, keys, request, urls, type HouseholdInfo, type Purchase, type PurchasePage } from './api';
 import { useEntryUndo } from './use-entry-undo';
 import { EditRowShell, useEntryPatch } from './EditEntryRow';
 import { EntriesTable, entryColumns, type EntryColumn } from './EntriesTable';
@@ -16,7 +18,9 @@ import { FoodPicker, type FoodChoice } from './FoodPicker';
 import { formatDay, monthRange } from './local-date';
 import { formatQuantity, parseDecimal, trimNumber } from './quantity-text';
 import { MonthFilter, stack } from './table-bits';
-import { ErrorText, invalidProps } from './ui';
+import { ErrorText, invalidProps, UnitSelect } from './ui';
+import { foodWeighBasis } from './unit-basis';
+import { UnitWeightNote } from './WeightField';
 import { countText } from '@/lib/plural';
 
 /** "3.49 EUR", or empty. */
@@ -119,7 +123,7 @@ export function PurchaseTable({ household, writer }: { household: HouseholdInfo;
 
 function PurchaseEditRow({ entry: purchase, colSpan, household, onDone }: { entry: Purchase; colSpan: number; household: HouseholdInfo; onDone: () => void }) {
   const [quantity, setQuantity] = useState(trimNumber(purchase.quantity, 3));
-  const [unit, setUnit] = useState<WeightUnit>(purchase.unit);
+  const [unit, setUnit] = useState<EntryUnit>(purchase.unit);
   const [price, setPrice] = useState(purchase.price == null ? '' : String(Number(purchase.price)));
   const [currency, setCurrency] = useState(purchase.currency ?? '');
   const [date, setDate] = useState(purchase.date);
@@ -133,6 +137,8 @@ function PurchaseEditRow({ entry: purchase, colSpan, household, onDone }: { entr
     offerUndo(`Changes saved to ${r.purchase.foodName} of ${formatDay(r.purchase.date)}`, { kind: 'purchase-edited', before: purchase, after: r.purchase }),
   );
   const p = `pedit-${purchase.id}`;
+  const chosenFood = food?.id ?? purchase.foodId;
+  const detail = useQuery({ queryKey: keys.food(chosenFood), queryFn: () => foodDetail(chosenFood), staleTime: 10 * 60_000 });
 
   const field = (key: string, label: string, input: ReactNode) => (
     <div>
@@ -177,12 +183,11 @@ function PurchaseEditRow({ entry: purchase, colSpan, household, onDone }: { entr
       {field(
         'unit',
         'Unit',
-        <select id={`${p}-unit`} className="field mt-1" value={unit} onChange={(e) => setUnit(e.target.value as WeightUnit)}>
-          {WEIGHT_UNITS.map((u) => (
-            <option key={u}>{u}</option>
-          ))}
-        </select>,
+        <UnitSelect id={`${p}-unit`} value={unit} onChange={setUnit} error={errors.unit} />,
       )}
+      <div className="sm:col-span-4 empty:hidden">
+        <UnitWeightNote unit={unit} basis={foodWeighBasis(detail.data)} quantity={parseDecimal(quantity)} units={household.units} />
+      </div>
       {field('price', 'Price', <input {...invalidProps(`${p}-price`, errors.price)} type="text" inputMode="decimal" className="field mt-1 text-right" value={price} onChange={(e) => setPrice(e.target.value)} />)}
       {field('currency', 'Currency', <input {...invalidProps(`${p}-currency`, errors.currency)} type="text" maxLength={3} className="field mt-1 uppercase" value={currency} onChange={(e) => setCurrency(e.target.value.toUpperCase())} />)}
       {field('date', 'Date', <input {...invalidProps(`${p}-date`, errors.date)} type="date" className="field mt-1" value={date} onChange={(e) => setDate(e.target.value)} />)}

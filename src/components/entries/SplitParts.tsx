@@ -5,7 +5,7 @@
  */
 import { Controller, useFieldArray, type Control } from 'react-hook-form';
 import type { Use } from '@/lib/entry-schemas';
-import type { WeightUnit } from '@/lib/units';
+import { ENTRY_UNIT_NAMES, type EntryUnit } from '@/lib/entry-units';
 import type { HarvestBody, HarvestFormContext, HarvestFormValues, PartValues } from './harvest-form-values';
 import { trimNumber } from './quantity-text';
 import { ErrorText, invalidProps, UseChips, type Errors } from './ui';
@@ -15,7 +15,7 @@ const MAX_PARTS = 7;
 
 interface SplitPartsProps {
   control: Control<HarvestFormValues, HarvestFormContext, HarvestBody>;
-  unit: WeightUnit;
+  unit: EntryUnit;
   /** The weight left for the last part, undefined until the whole weighing is a number. */
   rest: number | undefined;
   errors: Errors;
@@ -67,7 +67,7 @@ export function SplitParts({ control, unit, rest, errors, disabledUses, newPart 
                     />
                   )}
                 </div>
-                <span className="pb-3 text-lg font-bold">{unit}</span>
+                <span className="pb-3 text-lg font-bold">{ENTRY_UNIT_NAMES[unit]}</span>
                 {fields.length > 2 && !last ? (
                   <button type="button" className="btn-quiet ml-auto min-h-12 px-3" onClick={() => remove(i)} aria-label={`Remove part ${i + 1}`}>
                     Remove

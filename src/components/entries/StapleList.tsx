@@ -7,6 +7,7 @@ import { useState } from 'react';
 import { get, keys, newIdempotencyKey, request, urls, type HouseholdInfo, type Staple } from './api';
 import { purchaseLabel, savedPurchase, type PurchaseOutbox, type SavedPurchase } from './PurchaseSaved';
 import { Alert, ConfirmDelete } from './ui';
+import { formatQuantity } from './quantity-text';
 
 export function StapleList({ household, today, outbox, onSaved, writer }: { household: HouseholdInfo; today: string; outbox: PurchaseOutbox; onSaved: (s: SavedPurchase) => void; writer: boolean }) {
   const hid = household.id;
@@ -60,7 +61,7 @@ export function StapleList({ household, today, outbox, onSaved, writer }: { hous
                 </span>
                 <span>
                   <span className="block font-bold">
-                    {s.label} · {s.quantity} {s.unit}
+                    {s.label} · {formatQuantity(s.quantity, s.unit)}
                   </span>
                   <span className="block text-xs font-normal text-loam-700">
                     {logging === s.id ? 'Logging…' : `Log as bought today${s.spreadMonths > 1 ? `, eaten over ${s.spreadMonths} months` : ''}`}
@@ -69,7 +70,7 @@ export function StapleList({ household, today, outbox, onSaved, writer }: { hous
               </button>
             ) : (
               <span className="flex-1">
-                <span className="font-bold">{s.label}</span> · {s.quantity} {s.unit}
+                <span className="font-bold">{s.label}</span> · {formatQuantity(s.quantity, s.unit)}
               </span>
             )}
             {writer ? <ConfirmDelete label="Remove" what={s.label} busy={remove.isPending} onConfirm={() => remove.mutate(s.id)} /> : null}

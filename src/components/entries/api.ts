@@ -18,6 +18,8 @@ export interface HouseholdInfo {
   name: string;
   units: UnitSystem;
   timezone: string;
+  /** ISO 4217 code bought food starts with; null or absent = none chosen yet. */
+  currency?: string | null;
   role: 'owner' | 'grower' | 'viewer';
 }
 

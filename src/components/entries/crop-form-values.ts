@@ -8,6 +8,7 @@ import type { Resolver } from 'react-hook-form';
 import type { CropCategory } from '@/lib/crop-categories';
 import { type Use } from '@/lib/entry-schemas';
 import { cropInput, cropPatch, type CropInput, type CropPatch } from '@/lib/crop-schemas';
+import { fromGrams, toGrams, type UnitSystem } from '@/lib/units';
 import type { Crop } from './api';
 import type { FoodChoice } from './FoodPicker';
 import { flatErrors, nestErrors } from './form-errors';
@@ -26,15 +27,24 @@ export interface CropFormValues {
   /** Months stored food lasts, blank for the kind's usual. */
   spread: string;
   notFood: boolean;
+  /** The weight of one piece, bunch or head, in g (metric) or oz (US); blank = the food's household measures. */
+  countWeight: string;
 }
 
-/** Whether the form adds a crop (POST, cropInput) or changes one (PATCH, cropPatch). */
+/** Whether the form adds a crop (POST, cropInput) or changes one (PATCH, cropPatch), and the household's units. */
 export interface CropFormContext {
   editing: boolean;
+  units?: UnitSystem;
+}
+
+/** The unit the weight of one is typed in: grams, or ounces in a US household. Example: `countWeightUnit('us')` → 'oz' */
+export function countWeightUnit(units: UnitSystem = 'metric'): 'g' | 'oz' {
+  return units === 'us' ? 'oz' : 'g';
 }
 
 /** The form's values for a new crop, or for changing `crop`. */
-export function cropFormValues(crop?: Crop): CropFormValues {
+export function cropFormValues(crop?: Crop, units: UnitSystem = 'metric'): CropFormValues {
+  const unit = countWeightUnit(units);
   return {
     name: crop?.name ?? '',
     variety: crop?.variety ?? '',
@@ -44,13 +54,15 @@ export function cropFormValues(crop?: Crop): CropFormValues {
     use: crop?.defaultUse ?? '',
     spread: crop?.defaultSpreadMonths != null ? String(crop.defaultSpreadMonths) : '',
     notFood: crop?.notFood ?? false,
+    countWeight: crop?.countGrams != null ? String(Math.round(fromGrams(crop.countGrams, unit) * 100) / 100) : '',
   };
 }
 
 /** The request body the form's values stand for: in a change, a blank field is null (cleared); in a new crop it is left out. */
-export function cropBody(values: CropFormValues, editing: boolean): Record<string, unknown> {
+export function cropBody(values: CropFormValues, editing: boolean, units: UnitSystem = 'metric'): Record<string, unknown> {
   const fraction = parseDecimal(values.eatenPct);
   const spread = parseDecimal(values.spread);
+  const one = parseDecimal(values.countWeight);
   const blank = editing ? null : undefined;
   return {
     name: values.name,
@@ -61,6 +73,8 @@ export function cropBody(values: CropFormValues, editing: boolean): Record<strin
     defaultUse: values.use === '' ? blank : values.use,
     defaultSpreadMonths: spread === undefined ? blank : spread,
     notFood: values.notFood,
+    // Stored in grams; an ounce is 28.349523125 g exactly (International Yard and Pound Agreement, 1959).
+    countGrams: one === undefined ? blank : Number.isFinite(one) ? toGrams(one, countWeightUnit(units)) : one,
   };
 }
 
@@ -70,7 +84,7 @@ const patchResolver = zodResolver(cropPatch);
 /** The crop form's resolver: the endpoint's own schema, its messages as they are. */
 export const cropResolver: Resolver<CropFormValues, CropFormContext, CropInput | CropPatch> = async (values, context, options) => {
   const editing = context?.editing ?? false;
-  const body = cropBody(values, editing);
+  const body = cropBody(values, editing, context?.units);
   // The casts: the schema is typed by the body it reads, the options by the form they serve.
   const r = editing ? await patchResolver(body as never, undefined, options as never) : await inputResolver(body as never, undefined, options as never);
   const errs = flatErrors(r.errors);

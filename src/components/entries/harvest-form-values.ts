@@ -9,9 +9,9 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import type { Resolver } from 'react-hook-form';
 import { cropUseError, harvestInput, harvestSplitInput, isSpreadUse, type HarvestInput, type HarvestSplitInput, type Use } from '@/lib/entry-schemas';
 import type { PreserveMethod } from '@/lib/retention';
-import type { WeightUnit } from '@/lib/units';
+import type { EntryUnit } from '@/lib/entry-units';
 import { firstWins, flatErrors, nestErrors, type FlatErrors } from './form-errors';
-import { formatQuantity, parseDecimal, trimNumber } from './quantity-text';
+import { formatQuantity, parseDecimal } from './quantity-text';
 
 /** One part of a split weighing; `pid` names its inputs (`part-{pid}-qty`). */
 export interface PartValues {
@@ -40,7 +40,7 @@ export interface HarvestFormValues {
 
 /** What the form knows besides what is typed into it: the remembered unit and the household's crops. */
 export interface HarvestFormContext {
-  unit: WeightUnit;
+  unit: EntryUnit;
   crops: readonly { id: number; displayName: string; notFood: boolean }[];
   /** Today in the household's zone: a later date is refused, as the server refuses it. */
   today?: string;
@@ -76,17 +76,17 @@ export function spreadUsesOf(values: Pick<HarvestFormValues, 'splitting' | 'part
 }
 
 /** What the person sees for an entry: "1.2 kg Potato (Charlotte) — fresh" or "12 kg Potato — 3 kg fresh, 9 kg stored". */
-export function harvestLabel(values: HarvestFormValues, unit: WeightUnit, cropName: string | undefined): string {
+export function harvestLabel(values: HarvestFormValues, unit: EntryUnit, cropName: string | undefined): string {
   const name = cropName ?? 'harvest';
   const total = parseDecimal(values.quantity) ?? 0;
   if (!values.splitting) return `${formatQuantity(total, unit)} ${name} — ${values.use}`;
   const rest = restOf(values);
-  const bits = values.parts.map((p, i) => `${trimNumber(i === values.parts.length - 1 ? rest ?? 0 : parseDecimal(p.quantity) ?? 0)} ${unit} ${p.use}`);
+  const bits = values.parts.map((p, i) => `${formatQuantity(i === values.parts.length - 1 ? rest ?? 0 : parseDecimal(p.quantity) ?? 0, unit)} ${p.use}`);
   return `${formatQuantity(total, unit)} ${name} — ${bits.join(', ')}`;
 }
 
 /** The request body the form's values stand for, before the schema checks it. */
-export function harvestBody(values: HarvestFormValues, unit: WeightUnit): Record<string, unknown> {
+export function harvestBody(values: HarvestFormValues, unit: EntryUnit): Record<string, unknown> {
   const spread = values.spreadMonths.trim() === '' ? undefined : Number(values.spreadMonths);
   const shared = { date: values.date, cropId: values.cropId ?? undefined, unit, trimmed: values.trimmed, note: values.note.trim() === '' ? undefined : values.note };
   // The method goes with preserved food only (the schema refuses it on any other use).
@@ -110,7 +110,7 @@ const singleResolver = zodResolver(harvestInput);
 const splitResolver = zodResolver(harvestSplitInput);
 
 /** The problems the schemas cannot see: no crop tapped, a date after today, the whole weighing and the rest of a split. */
-function formChecks(values: HarvestFormValues, unit: WeightUnit, today: string | undefined): FlatErrors {
+function formChecks(values: HarvestFormValues, unit: EntryUnit, today: string | undefined): FlatErrors {
   const errs: FlatErrors = {};
   if (values.cropId === null) errs.cropId = 'Choose the crop you harvested.';
   // The same sentence as the server's (src/server/harvests.ts), which refuses it too.
@@ -123,7 +123,7 @@ function formChecks(values: HarvestFormValues, unit: WeightUnit, today: string |
   else if (!(total > 0)) errs.quantity = 'The weight must be a number more than 0.';
   const rest = restOf(values);
   if (!errs.quantity && rest !== undefined && !(rest > 0)) {
-    errs[`parts.${values.parts.length - 1}.quantity`] = `The other parts add up to ${trimNumber(othersSum(values.parts))} ${unit}, which leaves nothing for the last part. Check the weights.`;
+    errs[`parts.${values.parts.length - 1}.quantity`] = `The other parts add up to ${formatQuantity(othersSum(values.parts), unit)}, which leaves nothing for the last part. Check the weights.`;
   }
   return errs;
 }

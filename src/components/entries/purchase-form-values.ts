@@ -7,7 +7,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { Resolver } from 'react-hook-form';
 import { purchaseInput, type PurchaseInput } from '@/lib/entry-schemas';
-import type { WeightUnit } from '@/lib/units';
+import type { EntryUnit } from '@/lib/entry-units';
 import type { FoodChoice } from './FoodPicker';
 import { flatErrors, nestErrors } from './form-errors';
 import { parseDecimal } from './quantity-text';
@@ -28,7 +28,7 @@ export interface PurchaseFormValues {
 
 /** What the form knows besides what is typed into it: the remembered unit and currency. */
 export interface PurchaseFormContext {
-  unit: WeightUnit;
+  unit: EntryUnit;
   currency: string;
 }
 

@@ -1,5 +1,6 @@
 /** Reading what people type into a weight field, and writing weights back in the unit they used. */
-import { fromGrams, type WeightUnit } from '@/lib/units';
+import { entryQuantityText, type EntryUnit } from '@/lib/entry-units';
+import { formatWeight, fromGrams, isWeightUnit, type UnitSystem } from '@/lib/units';
 
 /**
  * Reads a typed number; a lone decimal comma counts as a point ("1,5" → 1.5), spaces are ignored.
@@ -20,12 +21,17 @@ export function trimNumber(value: number, decimals = 2): string {
   return s.includes('.') ? s.replace(/\.?0+$/, '') : s;
 }
 
-/** A quantity with its unit. Example: `formatQuantity(1.2, 'kg')` → '1.2 kg' */
-export function formatQuantity(quantity: number, unit: WeightUnit): string {
+/** A quantity with its unit. Example: `formatQuantity(1.2, 'kg')` → '1.2 kg'; `formatQuantity(12, 'piece')` → '12 pieces' */
+export function formatQuantity(quantity: number, unit: EntryUnit): string {
+  if (!isWeightUnit(unit)) return entryQuantityText(quantity, unit);
   return `${trimNumber(quantity, unit === 'g' ? 0 : 2)} ${unit}`;
 }
 
-/** Grams written in a given unit. Example: `formatInUnit(900, 'kg')` → '0.9 kg' */
-export function formatInUnit(grams: number, unit: WeightUnit): string {
+/**
+ * Grams written in the entry's unit when it is a weight, else as a weight of the household's system
+ * (a count or volume has no grams of its own unit). Example: `formatInUnit(900, 'kg')` → '0.9 kg'; `formatInUnit(600, 'piece')` → '600 g'
+ */
+export function formatInUnit(grams: number, unit: EntryUnit, system: UnitSystem = 'metric'): string {
+  if (!isWeightUnit(unit)) return formatWeight(grams, system);
   return formatQuantity(fromGrams(grams, unit), unit);
 }

@@ -1,14 +1,15 @@
 /**
- * Small pieces the entry islands share: a labelled field shell with its error, the unit toggle,
- * the use chips, a two-step delete button and the hooks that remember a unit and a currency per
+ * Small pieces the entry islands share: a labelled field shell with its error, the unit toggle and
+ * the unit select (weights, then counts, then volumes), the use chips, a two-step delete button and the hooks that remember a unit and a currency per
  * household.
  * Touch targets are at least 48 px (min-h-12) so they work with one thumb outdoors.
  */
 import { useEffect, useState, type ReactNode } from 'react';
 import { USE_LABELS, USES, type Use } from '@/lib/entry-schemas';
-import { FieldError as ErrorText } from '@/components/forms';
+import { FieldError as ErrorText, invalidProps } from '@/components/forms';
 import { useThumbFloat } from '@/components/thumb-float';
 import { DEFAULT_ENTRY_UNIT, WEIGHT_UNITS, isWeightUnit, type UnitSystem, type WeightUnit } from '@/lib/units';
+import { ENTRY_UNIT_NAMES, UNIT_GROUPS, isEntryUnit, type EntryUnit } from '@/lib/entry-units';
 
 // The field pieces live in ../forms (shared with the account and household forms); re-exported
 // here so the entry islands keep one import.
@@ -31,20 +32,64 @@ export function Alert({ message, tone = 'error' }: { message: ReactNode | null; 
 
 const segment = 'min-h-12 min-w-12 flex-1 px-3 text-lg font-bold transition-colors first:rounded-l-xl last:rounded-r-xl border border-loam-200 -ml-px first:ml-0';
 
-/** The g / kg / oz / lb toggle (a radio group, so arrow keys move between units). */
-export function UnitToggle({ name, value, onChange, label = 'Unit' }: { name: string; value: WeightUnit; onChange: (u: WeightUnit) => void; label?: string }) {
+/**
+ * The unit of the big amount field: the g / kg / oz / lb toggle (a radio group, so arrow keys move
+ * between units, one tap in the garden) and beside it a select of counts and volumes, grouped. A
+ * count or volume chosen leaves no weight checked.
+ */
+export function UnitToggle({ name, value, onChange, label = 'Unit' }: { name: string; value: EntryUnit; onChange: (u: EntryUnit) => void; label?: string }) {
+  const others = UNIT_GROUPS.filter((g) => g.label !== 'Weight');
   return (
-    <fieldset className="min-w-0">
-      <legend className="sr-only">{label}</legend>
-      <div className="flex">
-        {WEIGHT_UNITS.map((u) => (
-          <label key={u} className={`${segment} flex cursor-pointer items-center justify-center ${value === u ? 'border-sprout-700 bg-sprout-700 text-white' : 'bg-white text-loam-900 hover:bg-loam-100'}`}>
-            <input type="radio" className="sr-only" name={name} value={u} checked={value === u} onChange={() => onChange(u)} />
-            {u}
-          </label>
-        ))}
+    <div className="flex flex-wrap gap-2">
+      <fieldset className="min-w-48 flex-[4_1_12rem]">
+        <legend className="sr-only">{label}</legend>
+        <div className="flex">
+          {WEIGHT_UNITS.map((u) => (
+            <label key={u} className={`${segment} flex cursor-pointer items-center justify-center ${value === u ? 'border-sprout-700 bg-sprout-700 text-white' : 'bg-white text-loam-900 hover:bg-loam-100'}`}>
+              <input type="radio" className="sr-only" name={name} value={u} checked={value === u} onChange={() => onChange(u)} />
+              {u}
+            </label>
+          ))}
+        </div>
+      </fieldset>
+      <div className="min-w-0 flex-[1_1_7rem]">
+        <select
+          aria-label="Count or volume"
+          data-testid={`${name}-other`}
+          className={`field px-2 text-base font-bold ${isWeightUnit(value) ? '' : 'border-sprout-700 bg-sprout-100 text-sprout-900 ring-2 ring-sprout-700'}`}
+          value={isWeightUnit(value) ? '' : value}
+          onChange={(e) => isEntryUnit(e.target.value) && onChange(e.target.value)}
+        >
+          <option value="">more units</option>
+          {others.map((g) => (
+            <optgroup key={g.label} label={g.label}>
+              {g.units.map((u) => (
+                <option key={u} value={u}>
+                  {ENTRY_UNIT_NAMES[u]}
+                </option>
+              ))}
+            </optgroup>
+          ))}
+        </select>
       </div>
-    </fieldset>
+    </div>
+  );
+}
+
+/** A compact unit select for edit rows and lists: weights, then counts, then volumes, each group labelled. */
+export function UnitSelect({ id, value, onChange, error }: { id: string; value: EntryUnit; onChange: (u: EntryUnit) => void; error?: string | undefined }) {
+  return (
+    <select {...invalidProps(id, error)} className="field mt-1" value={value} onChange={(e) => isEntryUnit(e.target.value) && onChange(e.target.value)}>
+      {UNIT_GROUPS.map((g) => (
+        <optgroup key={g.label} label={g.label}>
+          {g.units.map((u) => (
+            <option key={u} value={u}>
+              {ENTRY_UNIT_NAMES[u]}
+            </option>
+          ))}
+        </optgroup>
+      ))}
+    </select>
   );
 }
 
@@ -108,43 +153,56 @@ export function ConfirmDelete({ onConfirm, label = 'Delete', what, busy = false 
 }
 
 /**
- * The unit last used in this household on this device (localStorage), else the unit-system default
- * (metric → kg, us → lb). Reading storage waits for hydration, so the server HTML matches.
+ * The unit of the form and the weight unit last used in this household on this device
+ * (localStorage), else the unit-system default (metric → kg, us → lb). Only weights are remembered:
+ * a count or volume fits one food, not the next. Reading storage waits for hydration, so the server
+ * HTML matches.
  */
-export function useRememberedUnit(householdId: number, system: UnitSystem, what = 'unit'): [WeightUnit, (u: WeightUnit) => void] {
+export function useRememberedUnit(householdId: number, system: UnitSystem, what = 'unit'): [EntryUnit, (u: EntryUnit) => void, WeightUnit] {
   const key = `selfsown:${what}:${householdId}`;
-  const [unit, setUnit] = useState<WeightUnit>(DEFAULT_ENTRY_UNIT[system]);
+  const [weight, setWeight] = useState<WeightUnit>(DEFAULT_ENTRY_UNIT[system]);
+  const [unit, setUnit] = useState<EntryUnit>(DEFAULT_ENTRY_UNIT[system]);
   useEffect(() => {
     try {
       const saved = localStorage.getItem(key);
-      if (isWeightUnit(saved)) setUnit(saved);
+      if (isWeightUnit(saved)) {
+        setWeight(saved);
+        setUnit(saved);
+      }
     } catch {
       /* storage unavailable */
     }
   }, [key]);
-  const choose = (u: WeightUnit) => {
+  const choose = (u: EntryUnit) => {
     setUnit(u);
+    if (!isWeightUnit(u)) return;
+    setWeight(u);
     try {
       localStorage.setItem(key, u);
     } catch {
       /* storage unavailable */
     }
   };
-  return [unit, choose];
+  return [unit, choose, weight];
 }
 
-/** The currency last used in this household on this device (localStorage), else `fallback`; kept only when it is a three-letter code. */
-export function useRememberedCurrency(householdId: number, fallback: string): [string, (c: string) => void] {
+/**
+ * The currency a new purchase starts with: the household's own when it has one (so a currency it
+ * never used is not offered ahead of it), else the one last used on this device (localStorage),
+ * else none. Kept only when it is a three-letter code.
+ */
+export function useRememberedCurrency(householdId: number, householdCurrency: string | null | undefined): [string, (c: string) => void] {
   const key = `selfsown:currency:${householdId}`;
-  const [c, setC] = useState(fallback);
+  const [c, setC] = useState(householdCurrency ?? '');
   useEffect(() => {
+    if (householdCurrency) return;
     try {
       const saved = localStorage.getItem(key);
       if (saved && /^[A-Z]{3}$/.test(saved)) setC(saved);
     } catch {
       /* storage unavailable */
     }
-  }, [key]);
+  }, [key, householdCurrency]);
   const remember = (v: string) => {
     try {
       if (/^[A-Z]{3}$/.test(v)) localStorage.setItem(key, v);

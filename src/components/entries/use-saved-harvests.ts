@@ -8,7 +8,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { undoSteps } from '@/lib/undo-plan';
-import type { WeightUnit } from '@/lib/units';
+import { unitSystemOf, type WeightUnit } from '@/lib/units';
 import { keys, type Harvest } from './api';
 import type { SavedEntry } from './HarvestSaved';
 import { formatInUnit } from './quantity-text';
@@ -36,7 +36,8 @@ export function useSavedHarvests(hid: number, unit: WeightUnit, onUndoError: (me
     const hs = answerHarvests(data);
     const edible = formatInUnit(
       hs.reduce((a, h) => a + h.edibleGrams, 0),
-      (hs[0]?.unit ?? unit) as WeightUnit,
+      hs[0]?.unit ?? unit,
+      unitSystemOf(unit),
     );
     setSaved((s) => [{ key, label, edible, harvests: hs, ...(later ? { later: true } : {}) }, ...s].slice(0, SHOWN));
     refresh();

@@ -1,20 +1,28 @@
 /**
  * The "start a household" form (React island): name, time zone (the browser's by default), units,
- * year start. A react-hook-form form checked with `householdInput`, the schema POST /api/households
+ * year start and currency (guessed from the time zone until the person types one). A react-hook-form form checked with `householdInput`, the schema POST /api/households
  * parses with; the server's own field errors show beside the fields.
  */
 import { useEffect, useState } from 'react';
-import { useController } from 'react-hook-form';
+import { useController, useWatch } from 'react-hook-form';
+import { currencyForZone } from '@/lib/currency';
 import { currentZoneName, householdInput, isTimeZone, MONTH_NAMES } from '@/lib/household-schemas';
 import { Field, FieldError, FormAlert, formMessage, showFailure, useSchemaForm } from '@/components/forms';
 import { request } from '@/components/request';
+import { CurrencyField } from './CurrencyField';
 
 export function HouseholdCreateForm({ zones }: { zones: string[] }) {
   const [options, setOptions] = useState(zones);
-  const form = useSchemaForm(householdInput, { name: '', timezone: 'UTC', units: 'metric', yearStartMonth: 1 });
+  const form = useSchemaForm(householdInput, { name: '', timezone: 'UTC', units: 'metric', yearStartMonth: 1, currency: '' });
   const { errors, isSubmitting, isSubmitSuccessful } = form.formState;
   const timezone = useController({ control: form.control, name: 'timezone' });
-  const { setValue } = form;
+  const { setValue, getFieldState } = form;
+  const zoneNow = useWatch({ control: form.control, name: 'timezone' });
+
+  // The currency follows the zone (from memory: src/lib/currency.ts) until the person types one.
+  useEffect(() => {
+    if (!getFieldState('currency').isDirty) setValue('currency', currencyForZone(zoneNow ?? '') ?? '');
+  }, [zoneNow, setValue, getFieldState]);
 
   // The browser knows where it is: preselect its zone (adding it when the list spells it differently).
   useEffect(() => {
@@ -90,6 +98,11 @@ export function HouseholdCreateForm({ zones }: { zones: string[] }) {
         </select>
         <FieldError id="yearStartMonth" error={errors.yearStartMonth?.message} />
       </div>
+      <CurrencyField
+        registration={form.register('currency')}
+        error={errors.currency?.message}
+        hint="Guessed from the time zone; change it to the currency you shop in, or leave it blank."
+      />
       <FormAlert message={formMessage(form)} />
       <button className="btn-primary mt-6" type="submit" disabled={busy}>
         {busy ? 'Creating…' : 'Create the household'}

@@ -1,7 +1,7 @@
 /**
  * The "Household" section of the settings page (owner only): name, time zone (a list of the
- * runtime's IANA names with a search box above it, since there are some four hundred), units and
- * the month the growing year starts. Checked with `householdInput`, whose fields are the ones
+ * runtime's IANA names with a search box above it, since there are some four hundred), units, the
+ * month the growing year starts and the currency bought food starts with. Checked with `householdInput`, whose fields are the ones
  * PATCH /api/households/{id} parses; the server's own field errors land beside the fields.
  */
 import { useMemo, useState } from 'react';
@@ -10,6 +10,7 @@ import { householdInput, MONTH_NAMES } from '@/lib/household-schemas';
 import { settingsChangeNotes } from '@/lib/household-settings';
 import { Field, FieldError, FormAlert, formMessage, showFailure, useSchemaForm } from '@/components/forms';
 import { request } from '@/components/request';
+import { CurrencyField } from './CurrencyField';
 
 export interface HouseholdSettingsJson {
   id: number;
@@ -18,6 +19,7 @@ export interface HouseholdSettingsJson {
   units: 'metric' | 'us';
   yearStartMonth: number;
   recordsSince: string | null;
+  currency: string | null;
 }
 
 /** The zones to offer: those matching the search (spaces or underscores alike), always with the chosen one. */
@@ -34,7 +36,7 @@ export function HouseholdDetailsForm({ household, zones, onSaved }: { household:
   const [saved, setSaved] = useState<HouseholdSettingsJson>(household);
   const [savedNote, setSavedNote] = useState<string | null>(null);
   const [search, setSearch] = useState('');
-  const form = useSchemaForm(householdInput, { name: household.name, timezone: household.timezone, units: household.units, yearStartMonth: household.yearStartMonth });
+  const form = useSchemaForm(householdInput, { name: household.name, timezone: household.timezone, units: household.units, yearStartMonth: household.yearStartMonth, currency: household.currency ?? '' });
   const { errors, isSubmitting } = form.formState;
   const timezone = useController({ control: form.control, name: 'timezone' });
   const [zoneNow, yearNow] = useWatch({ control: form.control, name: ['timezone', 'yearStartMonth'] });
@@ -48,7 +50,7 @@ export function HouseholdDetailsForm({ household, zones, onSaved }: { household:
       const a = await request<{ household: HouseholdSettingsJson }>('PATCH', `/api/households/${household.id}`, data);
       setSaved(a.household);
       onSaved(a.household);
-      form.reset({ name: a.household.name, timezone: a.household.timezone, units: a.household.units, yearStartMonth: a.household.yearStartMonth });
+      form.reset({ name: a.household.name, timezone: a.household.timezone, units: a.household.units, yearStartMonth: a.household.yearStartMonth, currency: a.household.currency ?? '' });
       setSavedNote('Saved.');
     } catch (err) {
       showFailure(form, err);
@@ -116,6 +118,11 @@ export function HouseholdDetailsForm({ household, zones, onSaved }: { household:
         </select>
         <FieldError id="yearStartMonth" error={errors.yearStartMonth?.message} />
       </div>
+      <CurrencyField
+        registration={form.register('currency')}
+        error={errors.currency?.message}
+        hint="New bought food starts in this currency. Leave it blank and the first purchase with a price sets it."
+      />
       {notes.length > 0 && (
         <ul className="mt-4 space-y-1 rounded-xl bg-loam-100 p-3 text-sm" data-testid="settings-change-notes">
           {notes.map((n) => <li key={n}>{n}</li>)}

@@ -97,7 +97,7 @@ export async function writeDemo(tx: Tx, data: DemoData, foods: ReadonlyMap<strin
 
   const purchaseRows = data.purchases.map((p, i) => {
     const f = food(p.food);
-    return { ...purchaseValues(purchaseInput.parse({ ...p.entry, foodId: f.id }), f.refusePct), householdId, createdBy: by(i) };
+    return { ...purchaseValues(purchaseInput.parse({ ...p.entry, foodId: f.id }), { refusePct: f.refusePct }), householdId, createdBy: by(i) };
   });
   await inBatches(purchaseRows, (b) => tx.insert(schema.purchases).values(b));
   if (data.outcomes.length > 0) {

@@ -10,6 +10,7 @@ import { json } from '@/server/http';
  */
 export const POST = householdRoute('write', async (ctx, a) => {
   const req = await readImportRequest(ctx.request);
-  const { status, body } = await importEntries(a.household.id, a.userId, req, todayIn(a.household.timezone));
+  const household = { id: a.household.id, pint: a.household.units === 'us' ? 'pint_us' : 'pint_imp' } as const;
+  const { status, body } = await importEntries(household, a.userId, req, todayIn(a.household.timezone));
   return json(body, status);
 });
