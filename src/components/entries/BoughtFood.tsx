@@ -1,12 +1,13 @@
 /**
  * The bought-food page's one island: the entry form, the staples list and the table share one
- * TanStack Query client (so entering food refreshes the table) and one outbox.
+ * TanStack Query client (so entering food refreshes the table) and one entry queue (outbox.ts).
  */
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { ApiError, canWrite, keys, request, urls, type HouseholdInfo, type Purchase } from './api';
 import { todayIn } from '@/lib/months';
 import { useOutbox } from './outbox';
+import { queueScopeOf } from './entry-queue';
 import { PurchaseForm } from './PurchaseForm';
 import { PurchaseWaiting, savedPurchase, type SavedPurchase } from './PurchaseSaved';
 import { PurchaseTable } from './PurchaseTable';
@@ -21,7 +22,7 @@ interface Props {
 
 export default function BoughtFood(props: Props) {
   return (
-    <QueryProvider>
+    <QueryProvider queue={queueScopeOf(props.household, 'purchases')}>
       <BoughtFoodInner {...props} />
     </QueryProvider>
   );

@@ -19,6 +19,8 @@ export interface HouseholdInfo {
   units: UnitSystem;
   timezone: string;
   role: 'owner' | 'grower' | 'viewer';
+  /** The signed-in person: the entry queue on this device is kept per person (entry-queue.ts). */
+  userId?: string;
 }
 
 /** True when the role may add, change and delete entries. Example: `canWrite('viewer')` → false */
