@@ -1,7 +1,7 @@
 /**
  * The rules of the entry queue, the entries a phone keeps until Selfsown can be reached: where a
- * queue is stored (one per person, household and kind, so another account on the same phone never
- * sends or sees them), what a failed send means (try again, sign in again, or refused), how long to
+ * queue is stored (one per person and household, so another account on the same phone never sends
+ * or sees them; harvests and bought food together, so whichever entry page is open sends both), what a failed send means (try again, sign in again, or refused), how long to
  * wait before the next try, which entries the waiting list shows and in what order, and what is
  * written to the device. The queue itself is TanStack Query's persisted mutations
  * (src/components/entries/outbox.ts); this module is the part that needs no browser to be checked.
@@ -10,11 +10,10 @@
 /** Each entry form keeps its own queue: harvests, or bought food (the form and the staples' one tap). */
 export type QueueKind = 'harvests' | 'purchases';
 
-/** Whose queue: the signed-in person, the household and the kind of entry. */
+/** Whose queue: the signed-in person and the household. */
 export interface QueueScope {
   userId: string;
   householdId: number;
-  kind: QueueKind;
 }
 
 /** What one queued entry holds: enough to send it again after a reload, and to name it. */
@@ -31,18 +30,37 @@ const STORAGE_PREFIX = 'selfsown:queue:v1';
 
 /**
  * The device storage key of one queue. The user id is URI-encoded so that no id can reach into
- * another person's key. Example: `queueStorageKey({ userId: 'u1', householdId: 7, kind: 'harvests' })`
- * → 'selfsown:queue:v1:u1:7:harvests'
+ * another person's key. Example: `queueStorageKey({ userId: 'u1', householdId: 7 })` → 'selfsown:queue:v1:u1:7'
  */
 export function queueStorageKey(scope: QueueScope): string {
   if (!scope.userId) throw new Error('A queue needs the signed-in person’s id: none was given.');
   if (!Number.isInteger(scope.householdId) || scope.householdId <= 0) throw new Error(`A queue needs a household id, a whole number above 0: got ${scope.householdId}.`);
-  return `${STORAGE_PREFIX}:${encodeURIComponent(scope.userId)}:${scope.householdId}:${scope.kind}`;
+  return `${STORAGE_PREFIX}:${encodeURIComponent(scope.userId)}:${scope.householdId}`;
 }
 
-/** True for a key written by queueStorageKey (any person's). Example: 'selfsown:queue:v1:u1:7:harvests' → true */
-export function isQueueStorageKey(key: string): boolean {
-  return key.startsWith(`${STORAGE_PREFIX}:`);
+/** Where the hand-written outbox before this queue kept a household's waiting entries. Example: 'selfsown:outbox:harvests:7' */
+export function legacyOutboxKey(kind: QueueKind, householdId: number): string {
+  return `selfsown:outbox:${kind}:${householdId}`;
+}
+
+/**
+ * The entries still to send in what the old outbox stored (its JSON list), oldest first, so the
+ * queue can take them over; refused, malformed and unreadable ones are left out.
+ * Example: `legacyOutboxSends('[{"key":"k1","url":"/api/households/7/harvests","body":{},"label":"3 kg Potato","createdAt":"…"}]')`
+ */
+export function legacyOutboxSends(text: string | null): QueuedSend[] {
+  if (!text) return [];
+  let list: unknown;
+  try {
+    list = JSON.parse(text);
+  } catch {
+    return [];
+  }
+  if (!Array.isArray(list)) return [];
+  return list
+    .filter((i): i is QueuedSend & { createdAt?: string; refused?: boolean } => isQueuedSend(i) && !(i as { refused?: unknown }).refused)
+    .sort((a, b) => String(a.createdAt ?? '').localeCompare(String(b.createdAt ?? '')))
+    .map(({ key, url, body, label }) => ({ key, url, body, label }));
 }
 
 /**

@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import {
   failureFacts,
   failureKind,
-  isQueueStorageKey,
+  legacyOutboxKey,
+  legacyOutboxSends,
   MAX_RETRY_DELAY_MS,
   queueItems,
   queueOrderScope,
@@ -20,34 +21,53 @@ function state(over: Partial<QueueMutationState>): QueueMutationState {
 }
 
 describe('queueStorageKey', () => {
-  it('gives each person, household and kind a key of their own', () => {
-    const a = queueStorageKey({ userId: 'u1', householdId: 7, kind: 'harvests' });
-    expect(a).toBe('selfsown:queue:v1:u1:7:harvests');
-    expect(queueStorageKey({ userId: 'u2', householdId: 7, kind: 'harvests' })).not.toBe(a);
-    expect(queueStorageKey({ userId: 'u1', householdId: 8, kind: 'harvests' })).not.toBe(a);
-    expect(queueStorageKey({ userId: 'u1', householdId: 7, kind: 'purchases' })).not.toBe(a);
+  it('gives each person and household a key of their own', () => {
+    const a = queueStorageKey({ userId: 'u1', householdId: 7 });
+    expect(a).toBe('selfsown:queue:v1:u1:7');
+    expect(queueStorageKey({ userId: 'u2', householdId: 7 })).not.toBe(a);
+    expect(queueStorageKey({ userId: 'u1', householdId: 8 })).not.toBe(a);
   });
 
   it('encodes the user id, so no id can spell out another person’s key', () => {
     // An id holding ':' could otherwise be read as another person's id followed by a household.
-    expect(queueStorageKey({ userId: 'u1:7', householdId: 7, kind: 'harvests' })).toBe('selfsown:queue:v1:u1%3A7:7:harvests');
-    expect(queueStorageKey({ userId: 'u1:7', householdId: 7, kind: 'harvests' })).not.toBe(queueStorageKey({ userId: 'u1', householdId: 7, kind: 'harvests' }));
+    expect(queueStorageKey({ userId: 'u1:7', householdId: 7 })).toBe('selfsown:queue:v1:u1%3A7:7');
+    // Person "u1:7" in household 7 is not person "u1" in household 7 … nor anyone's "u1" + "7:7".
+    expect(queueStorageKey({ userId: 'u1:7', householdId: 7 })).not.toBe(queueStorageKey({ userId: 'u1', householdId: 77 }));
   });
 
   it('refuses a queue without a person or with a household id that is not a positive whole number', () => {
-    expect(() => queueStorageKey({ userId: '', householdId: 7, kind: 'harvests' })).toThrow(/person/);
-    expect(() => queueStorageKey({ userId: 'u1', householdId: 0, kind: 'harvests' })).toThrow(/household id/);
-    expect(() => queueStorageKey({ userId: 'u1', householdId: 1.5, kind: 'harvests' })).toThrow(/household id/);
+    expect(() => queueStorageKey({ userId: '', householdId: 7 })).toThrow(/person/);
+    expect(() => queueStorageKey({ userId: 'u1', householdId: 0 })).toThrow(/household id/);
+    expect(() => queueStorageKey({ userId: 'u1', householdId: 1.5 })).toThrow(/household id/);
   });
 
-  it('recognises its own keys and not the old outbox’s', () => {
-    expect(isQueueStorageKey(queueStorageKey({ userId: 'u1', householdId: 7, kind: 'purchases' }))).toBe(true);
-    expect(isQueueStorageKey('selfsown:outbox:harvests:7')).toBe(false);
-  });
 
   it('orders the sends of one kind and household together, apart from the others', () => {
     expect(queueOrderScope('harvests', 7)).toBe('entries:harvests:7');
     expect(queueOrderScope('purchases', 7)).not.toBe(queueOrderScope('harvests', 7));
+  });
+});
+
+describe('the old outbox', () => {
+  it('is found where it kept each kind per household', () => {
+    expect(legacyOutboxKey('harvests', 7)).toBe('selfsown:outbox:harvests:7');
+    expect(legacyOutboxKey('purchases', 7)).toBe('selfsown:outbox:purchases:7');
+  });
+
+  it('hands over what it still had to send, oldest first, without refused or broken items', () => {
+    const text = JSON.stringify([
+      { ...send('late'), createdAt: '2026-11-02T10:00:00.000Z', attempts: 2 },
+      { ...send('refused'), createdAt: '2026-11-01T09:00:00.000Z', attempts: 1, refused: true, lastError: 'No such crop.' },
+      { key: 'broken', createdAt: '2026-11-01T08:00:00.000Z' },
+      { ...send('early'), createdAt: '2026-11-01T10:00:00.000Z', attempts: 0 },
+    ]);
+    expect(legacyOutboxSends(text)).toEqual([send('early'), send('late')]);
+  });
+
+  it('reads nothing from an empty, unreadable or odd store', () => {
+    expect(legacyOutboxSends(null)).toEqual([]);
+    expect(legacyOutboxSends('{not json')).toEqual([]);
+    expect(legacyOutboxSends('{"key":"k"}')).toEqual([]);
   });
 });
 

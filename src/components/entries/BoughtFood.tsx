@@ -22,7 +22,7 @@ interface Props {
 
 export default function BoughtFood(props: Props) {
   return (
-    <QueryProvider queue={queueScopeOf(props.household, 'purchases')}>
+    <QueryProvider queue={queueScopeOf(props.household)}>
       <BoughtFoodInner {...props} />
     </QueryProvider>
   );

@@ -47,7 +47,7 @@ interface Props {
 
 export default function HarvestForm(props: Props) {
   return (
-    <QueryProvider queue={queueScopeOf(props.household, 'harvests')}>
+    <QueryProvider queue={queueScopeOf(props.household)}>
       <HarvestFormInner {...props} />
     </QueryProvider>
   );

@@ -1,13 +1,13 @@
 /**
  * The entry queue's TanStack Query parts: the one mutation that sends an entry (registered as a
  * mutation default, so a mutation read back from the device after a reload knows how to send
- * itself) and the persister that keeps a queue in localStorage under its person, household and kind.
+ * itself) and the persister that keeps a queue in localStorage under its person and household.
  * The rules (retry, storage key, what is stored) are pure code in src/lib/entry-queue.ts; the hook
  * the forms use is outbox.ts.
  */
 import type { PersistedClient, Persister } from '@tanstack/react-query-persist-client';
 import type { QueryClient } from '@tanstack/react-query';
-import { failureFacts, failureKind, queueStorageKey, retryDelayMs, storedMutations, type QueuedSend, type QueueKind, type QueueScope, type StoredMutation } from '@/lib/entry-queue';
+import { failureFacts, failureKind, queueStorageKey, retryDelayMs, storedMutations, type QueuedSend, type QueueScope, type StoredMutation } from '@/lib/entry-queue';
 import { request } from '@/components/request';
 import type { HouseholdInfo } from './api';
 
@@ -38,9 +38,9 @@ export function setEntryQueueDefaults(client: QueryClient): void {
   });
 }
 
-/** The queue of one household's form for the person signed in; none when the page gave no person. */
-export function queueScopeOf(household: HouseholdInfo, kind: QueueKind): QueueScope | undefined {
-  return household.userId ? { userId: household.userId, householdId: household.id, kind } : undefined;
+/** The queue of one household for the person signed in; none when the page gave no person. */
+export function queueScopeOf(household: HouseholdInfo): QueueScope | undefined {
+  return household.userId ? { userId: household.userId, householdId: household.id } : undefined;
 }
 
 function readStorage(key: string): string | null {

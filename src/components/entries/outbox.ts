@@ -12,7 +12,7 @@
  */
 import { onlineManager, useQueryClient, type Mutation } from '@tanstack/react-query';
 import { useCallback, useEffect, useRef, useState } from 'react';
-import { queueItems, queueOrderScope, type QueuedSend, type QueueKind, type QueueMutationState } from '@/lib/entry-queue';
+import { legacyOutboxKey, legacyOutboxSends, queueItems, queueOrderScope, type QueuedSend, type QueueKind, type QueueMutationState } from '@/lib/entry-queue';
 import { ENTRY_SEND_KEY } from './entry-queue';
 
 /** One line of the waiting list, as the entry forms show it. */
@@ -39,17 +39,26 @@ type EntryMutation = Mutation<unknown, Error, unknown, unknown>;
 
 const sendOf = (m: EntryMutation) => m.state.variables as QueuedSend | undefined;
 
-/** Resolves once the mutation stops being a quick first try: paused, failed once, or too slow. */
-function whenQueued(cache: ReturnType<ReturnType<typeof useQueryClient>['getMutationCache']>, m: EntryMutation): { promise: Promise<void>; stop: () => void } {
+/**
+ * Resolves once the mutation stops being a quick first try — paused, failed once, or too slow —
+ * calling `release` first, at that very moment, so that a success heard later is known to be the
+ * queue's to report and not the form's.
+ */
+function whenQueued(cache: ReturnType<ReturnType<typeof useQueryClient>['getMutationCache']>, m: EntryMutation, release: () => void): { promise: Promise<void>; stop: () => void } {
   let stop = () => {};
   const promise = new Promise<void>((resolve) => {
+    const letGo = () => {
+      if (m.state.status !== 'pending') return;
+      release();
+      resolve();
+    };
     const check = () => {
-      if (m.state.isPaused || m.state.failureCount > 0) resolve();
+      if (m.state.isPaused || m.state.failureCount > 0) letGo();
     };
     const unsubscribe = cache.subscribe((e) => {
       if (e.mutation === m) check();
     });
-    const timer = window.setTimeout(resolve, FIRST_TRY_MS);
+    const timer = window.setTimeout(letGo, FIRST_TRY_MS);
     stop = () => {
       unsubscribe();
       window.clearTimeout(timer);
@@ -71,9 +80,10 @@ export function useOutbox<T>(kind: OutboxKind, household: number, onSent: (item:
   const [items, setItems] = useState<OutboxItem[]>([]);
   const onSentRef = useRef(onSent);
   onSentRef.current = onSent;
-  // Entries whose first try the form is waiting for ("Saving…", not yet "waiting"), and those whose
-  // answer the form already showed.
+  // Entries whose first try the form is waiting for ("Saving…", not yet "waiting"), those it let go
+  // to wait in the queue, and those whose answer the form itself showed.
   const firstTry = useRef(new Set<string>());
+  const released = useRef(new Set<string>());
   const answered = useRef(new Set<string>());
 
   const mine = useCallback(() => cache.findAll({ mutationKey: ENTRY_SEND_KEY }).filter((m) => m.options.scope?.id === scope), [cache, scope]);
@@ -86,6 +96,19 @@ export function useOutbox<T>(kind: OutboxKind, household: number, onSent: (item:
     setItems(list.map((i) => ({ key: i.key, label: i.label, ...(i.message ? { lastError: i.message } : {}), ...(i.state === 'refused' ? { refused: true } : {}), ...(i.state === 'sign-in' ? { signIn: true } : {}) })));
   }, [mine]);
 
+  // Entries the hand-written outbox before this queue still held join the queue (same keys: never twice).
+  useEffect(() => {
+    const old = legacyOutboxKey(kind, household);
+    let sends: QueuedSend[] = [];
+    try {
+      sends = legacyOutboxSends(localStorage.getItem(old));
+      localStorage.removeItem(old);
+    } catch {
+      return;
+    }
+    for (const send of sends) void cache.build(client, { mutationKey: ENTRY_SEND_KEY, scope: { id: scope } }).execute(send).catch(() => undefined);
+  }, [cache, client, kind, household, scope]);
+
   useEffect(() => {
     refresh();
     return cache.subscribe((e) => {
@@ -93,7 +116,9 @@ export function useOutbox<T>(kind: OutboxKind, household: number, onSent: (item:
       if (!m || m.options.scope?.id !== scope) return;
       if (e.type === 'updated' && e.action.type === 'success') {
         const v = sendOf(m);
-        if (v && !answered.current.delete(v.key)) onSentRef.current({ key: v.key, label: v.label }, m.state.data as T);
+        // The form reports its own first try's success (whether it hears of it before or after this).
+        const formsOwn = v ? answered.current.delete(v.key) || (firstTry.current.has(v.key) && !released.current.has(v.key)) : true;
+        if (v && !formsOwn) onSentRef.current({ key: v.key, label: v.label }, m.state.data as T);
         // Sent: it leaves the queue (and the device).
         cache.remove(m);
       }
@@ -108,7 +133,7 @@ export function useOutbox<T>(kind: OutboxKind, household: number, onSent: (item:
       firstTry.current.add(key);
       const m = cache.build(client, { mutationKey: ENTRY_SEND_KEY, scope: { id: scope } }) as EntryMutation;
       const done = m.execute(send);
-      const queued = whenQueued(cache, m);
+      const queued = whenQueued(cache, m, () => released.current.add(key));
       try {
         const outcome = await Promise.race([done.then((data) => ({ saved: true as const, data: data as T })), queued.promise.then(() => ({ saved: false as const }))]);
         if (outcome.saved) {
@@ -123,6 +148,7 @@ export function useOutbox<T>(kind: OutboxKind, household: number, onSent: (item:
       } finally {
         queued.stop();
         firstTry.current.delete(key);
+        released.current.delete(key);
         refresh();
       }
     },
