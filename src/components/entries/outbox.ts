@@ -137,7 +137,8 @@ export function useOutbox<T>(kind: OutboxKind, household: number, onSent: (item:
       try {
         const outcome = await Promise.race([done.then((data) => ({ saved: true as const, data: data as T })), queued.promise.then(() => ({ saved: false as const }))]);
         if (outcome.saved) {
-          answered.current.add(key);
+          // Not yet heard by the cache listener (it removes what it heard): tell it this one is the form's.
+          if (cache.has(m)) answered.current.add(key);
           return { status: 'saved', data: outcome.data };
         }
         return { status: 'queued', item: { key, label } };
