@@ -3,7 +3,10 @@ import { defineConfig } from 'astro/config';
 import node from '@astrojs/node';
 import react from '@astrojs/react';
 import tailwindcss from '@tailwindcss/vite';
+import AstroPWA from '@vite-pwa/astro';
 import { fileURLToPath } from 'node:url';
+import { OFFLINE_FALLBACK, offlineRoutes, RUNTIME_CACHES } from './src/lib/app-cache.ts';
+import { PALETTE } from './src/lib/palette.ts';
 
 /**
  * Adds `import 'src/server/boot.ts'` to the built server's entry (dist/server/entry.mjs), so that
@@ -23,6 +26,96 @@ function bootOnServerStart() {
   };
 }
 
+const THIRTY_DAYS = 30 * 24 * 60 * 60;
+const routes = offlineRoutes();
+
+/**
+ * A Workbox plugin: keep no redirect (a signed-out visit lands on sign-in) and nothing the server
+ * marked `no-store`. Signed-in answers are `private, no-cache` (src/server/middleware/security-headers.ts):
+ * no shared cache, and the browser asks the server each time; this worker keeps its own copy of
+ * the listed pages anyway — that copy is the offline feature, used only when the network fails,
+ * and emptied at sign-in and sign-out. Written into the worker as text: self-contained.
+ */
+/** @type {import('workbox-core').WorkboxPlugin} */
+const keepNoRedirectOrNoStore = {
+  cacheWillUpdate: async ({ response }) =>
+    response && !response.redirected && !/no-store/i.test(response.headers.get('cache-control') || '') ? response : null,
+};
+
+/**
+ * The installable app (@vite-pwa/astro, Workbox generateSW): a web app manifest with our own icons
+ * (public/icons, `npm run gen:app-files`) and a service worker that precaches the built client
+ * files (scripts, styles, fonts, icons, the offline page — no household data) and keeps, after
+ * one visit, the household pages and API lists a grower needs offline (src/lib/app-cache.ts):
+ * network first, the last copy when there is no network. Any other page with no network gets the
+ * offline page. Entries made offline are not the worker's business: the page's own queue keeps
+ * and sends them (src/components/entries/outbox.ts).
+ */
+const pwa = AstroPWA({
+  registerType: 'autoUpdate',
+  // Registered by Base.astro (virtual:pwa-register): Astro's server-rendered pages get no injected tag.
+  injectRegister: false,
+  includeAssets: [],
+  manifest: {
+    name: 'Selfsown',
+    short_name: 'Selfsown',
+    description: 'Log harvests and bought food; see how much of what you eat comes from your own ground.',
+    lang: 'en',
+    start_url: '/',
+    scope: '/',
+    display: 'standalone',
+    background_color: PALETTE['loam-50'],
+    theme_color: PALETTE['sprout-700'],
+    icons: [
+      { src: '/icons/icon-192.png', sizes: '192x192', type: 'image/png', purpose: 'any' },
+      { src: '/icons/icon-512.png', sizes: '512x512', type: 'image/png', purpose: 'any' },
+      { src: '/icons/maskable-512.png', sizes: '512x512', type: 'image/png', purpose: 'maskable' },
+      { src: '/icons/icon.svg', sizes: 'any', type: 'image/svg+xml', purpose: 'any' },
+    ],
+  },
+  workbox: {
+    globPatterns: ['**/*.{js,css,woff2,svg,png,html}'],
+    // A server-rendered app has no index.html to fall back to: unlisted pages go to the network.
+    navigateFallback: null,
+    // Keep public/offline.html under its own name (the integration would rename *.html to pretty URLs).
+    manifestTransforms: [async (entries) => ({ manifest: entries, warnings: [] })],
+    cleanupOutdatedCaches: true,
+    // A new worker takes over at once, and takes the open pages too: the first visit is kept offline.
+    skipWaiting: true,
+    clientsClaim: true,
+    runtimeCaching: [
+      {
+        urlPattern: routes.lists,
+        handler: 'NetworkFirst',
+        options: {
+          cacheName: RUNTIME_CACHES.api,
+          networkTimeoutSeconds: 5,
+          expiration: { maxEntries: 100, maxAgeSeconds: THIRTY_DAYS },
+          cacheableResponse: { statuses: [200] },
+          plugins: [keepNoRedirectOrNoStore],
+        },
+      },
+      {
+        urlPattern: routes.pages,
+        handler: 'NetworkFirst',
+        options: {
+          cacheName: RUNTIME_CACHES.pages,
+          networkTimeoutSeconds: 5,
+          expiration: { maxEntries: 30, maxAgeSeconds: THIRTY_DAYS },
+          cacheableResponse: { statuses: [200] },
+          plugins: [keepNoRedirectOrNoStore],
+          precacheFallback: { fallbackURL: OFFLINE_FALLBACK },
+        },
+      },
+      {
+        urlPattern: ({ request }) => request.mode === 'navigate',
+        handler: 'NetworkOnly',
+        options: { precacheFallback: { fallbackURL: OFFLINE_FALLBACK } },
+      },
+    ],
+  },
+});
+
 // Server-rendered app on the Node standalone adapter; React only for interactive islands.
 export default defineConfig({
   output: 'server',
@@ -31,7 +124,7 @@ export default defineConfig({
   // loaded by Astro itself; keep the default in step with SELFSOWN_OUT_DIR in config.ts.
   outDir: process.env.SELFSOWN_OUT_DIR || './dist',
   adapter: node({ mode: 'standalone' }),
-  integrations: [react()],
+  integrations: [react(), pwa],
   // Origin checks are done in src/middleware.ts against PUBLIC_ORIGIN (read at run time). Astro's own
   // check compares with Astro.url, whose host is "localhost" unless security.allowedDomains is baked
   // into the build, and so refused every same-site DELETE without a body.

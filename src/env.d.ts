@@ -1,4 +1,5 @@
 /// <reference types="astro/client" />
+/// <reference types="vite-plugin-pwa/client" />
 
 /**
  * What src/middleware.ts puts on Astro.locals. Every page and API route sees all four set (the

@@ -13,6 +13,10 @@ export default defineConfig({
   use: {
     baseURL: process.env.TEST_BASE_URL ?? `http://127.0.0.1:${process.env.TEST_PORT ?? '4399'}`,
     trace: 'retain-on-failure',
+    // The built app registers a service worker. Most specs test the page and its server, and route
+    // requests with page.route (which a worker would bypass), so workers are off; the offline spec
+    // (tests/e2e/offline.spec.ts) turns them on.
+    serviceWorkers: 'block',
     launchOptions: {
       executablePath: '/usr/bin/chromium',
       args: [

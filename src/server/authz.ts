@@ -66,7 +66,7 @@ export async function householdPage(
 /** What an island needs to know about the household it shows. */
 export function islandHousehold(a: HouseholdAccess) {
   const h = a.household;
-  return { id: h.id, name: h.name, units: h.units, timezone: h.timezone, currency: h.currency, role: a.role };
+  return { id: h.id, name: h.name, units: h.units, timezone: h.timezone, currency: h.currency, role: a.role, userId: a.userId };
 }
 
 /**

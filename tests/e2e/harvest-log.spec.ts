@@ -109,8 +109,7 @@ test('a harvest whose request fails waits on the phone and is stored exactly onc
   await expect(waiting).toContainText('3 kg Potato (Charlotte) — fresh');
   expect((await allHarvests(owner.cookie, h.id)).total).toBe(1);
 
-  // The connection comes back: the outbox sends it again with the same Idempotency-Key.
-  await page.evaluate(() => window.dispatchEvent(new Event('online')));
+  // The queue tries again by itself (2 s later) with the same Idempotency-Key.
   await expect(waiting).toHaveCount(0);
   await expect(page.getByTestId('just-saved')).toContainText('Sent and saved');
   expect(posts).toBe(2);
@@ -132,7 +131,7 @@ test('a harvest whose request fails waits on the phone and is stored exactly onc
   const final = await allHarvests(owner.cookie, h.id);
   expect(final.total).toBe(2);
   expect(final.harvests.map((x: { quantity: number }) => x.quantity).sort()).toEqual([0.5, 3]);
-  expect(await page.evaluate(() => Object.keys(localStorage).filter((k) => k.startsWith('selfsown:outbox:')))).toEqual([]);
+  expect(await page.evaluate(() => Object.keys(localStorage).filter((k) => k.startsWith('selfsown:queue:')))).toEqual([]);
 });
 
 test('a grower keeps crops, bought food and old logs from a phone; a viewer only reads', async ({ page, context }) => {

@@ -8,6 +8,7 @@ import { forgotPasswordInput, PASSWORD_MIN, resetPasswordInput, signInInput, sig
 import { safeNext, withNext } from '@/lib/safe-next';
 import { Field, FormAlert, formMessage, showFieldProblem, showFormMessage, useSchemaForm } from '@/components/forms';
 import { authCall, authClient, tooMany } from './auth-client';
+import { clearRuntimeCaches } from '@/components/app-caches';
 
 function OutboxHint({ outbox }: { outbox: boolean }) {
   return outbox ? (
@@ -79,6 +80,8 @@ export function SignInForm({ next, outbox }: { next: string | null; outbox: bool
     const target = safeNext(next);
     const failure = await authCall((o) => authClient.signIn.email({ ...data, callbackURL: target }, o));
     if (!failure) {
+      // Household pages kept offline for whoever was signed in before are not this person's.
+      await clearRuntimeCaches();
       window.location.assign(target);
       return;
     }

@@ -12,6 +12,7 @@ import { undoneText, undoSteps, type UndoAction } from '@/lib/undo-plan';
 import { UndoProvider, useUndo } from '@/components/UndoToast';
 import { runUndoSteps } from './use-entry-undo';
 import { useOutbox } from './outbox';
+import { queueScopeOf } from './entry-queue';
 import { PurchaseForm } from './PurchaseForm';
 import { PurchaseWaiting, savedPurchase, type SavedPurchase } from './PurchaseSaved';
 import { PurchaseTable } from './PurchaseTable';
@@ -26,7 +27,7 @@ interface Props {
 
 export default function BoughtFood(props: Props) {
   return (
-    <QueryProvider>
+    <QueryProvider queue={queueScopeOf(props.household)}>
       <UndoProvider>
         <BoughtFoodInner {...props} />
       </UndoProvider>

@@ -5,8 +5,8 @@
  * preserving method of preserved food. The form is react-hook-form, checked by the endpoint's own
  * zod schemas (harvest-form-values.ts); a date after today is refused, and a weight that looks like
  * a slip of the unit (src/lib/harvest-warnings.ts) is questioned before it is saved.
- * Every submission carries an Idempotency-Key and goes through the outbox, so a failed request
- * is kept, shown as waiting and sent again later without ever being stored twice. What was just
+ * Every submission carries an Idempotency-Key and goes through the entry queue (outbox.ts): offline
+ * or failed, it is kept on the device, shown as waiting and sent later, never stored twice. What was just
  * saved is shown with an Undo.
  */
 import { useQuery } from '@tanstack/react-query';
@@ -28,6 +28,7 @@ import { SavedList, WaitingList } from './HarvestSaved';
 import { todayIn } from '@/lib/months';
 import { monthRange, shiftYear } from './local-date';
 import { useOutbox } from './outbox';
+import { queueScopeOf } from './entry-queue';
 import { PreserveField } from './PreserveField';
 import { QueryProvider } from '@/components/QueryProvider';
 import { SplitParts } from './SplitParts';
@@ -48,7 +49,7 @@ interface Props {
 
 export default function HarvestForm(props: Props) {
   return (
-    <QueryProvider>
+    <QueryProvider queue={queueScopeOf(props.household)}>
       <HarvestFormInner {...props} />
     </QueryProvider>
   );

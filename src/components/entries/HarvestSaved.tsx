@@ -43,6 +43,21 @@ export function SavedList({ saved, onUndo, undoing }: { saved: SavedEntry[]; onU
   );
 }
 
+/** The queue waits for a new sign-in (the session ended): where to sign in, and back to this page. */
+export function SignInToSend({ items }: { items: OutboxItem[] }) {
+  if (!items.some((i) => i.signIn)) return null;
+  const next = typeof window === 'undefined' ? '/' : window.location.pathname + window.location.search;
+  return (
+    <div className="mt-2 rounded-xl border border-rind-500 bg-white p-3" data-testid="queue-sign-in">
+      <p className="font-semibold">You are signed out, so these cannot be sent yet.</p>
+      <p className="text-sm">They stay on this device. Sign in again and they are sent, each once.</p>
+      <a className="btn-primary mt-2" href={`/sign-in?next=${encodeURIComponent(next)}`}>
+        Sign in to send them
+      </a>
+    </div>
+  );
+}
+
 export function WaitingList({ items, onRetry, onDiscard }: { items: OutboxItem[]; onRetry: () => void; onDiscard: (key: string) => void }) {
   if (items.length === 0) return null;
   const waiting = items.filter((i) => !i.refused);
@@ -62,6 +77,7 @@ export function WaitingList({ items, onRetry, onDiscard }: { items: OutboxItem[]
               </li>
             ))}
           </ul>
+          <SignInToSend items={waiting} />
           <button type="button" className="btn-quiet mt-3" onClick={onRetry}>
             Send now
           </button>

@@ -5,6 +5,7 @@
  */
 import type { Purchase } from './api';
 import type { Outbox } from './outbox';
+import { SignInToSend } from './HarvestSaved';
 import { formatInUnit, formatQuantity } from './quantity-text';
 
 export interface SavedPurchase {
@@ -48,6 +49,7 @@ export function PurchaseWaiting({ outbox }: { outbox: PurchaseOutbox }) {
           </li>
         ))}
       </ul>
+      <SignInToSend items={outbox.items} />
       <button type="button" className="btn-quiet mt-3" onClick={() => void outbox.flush()}>
         Send now
       </button>

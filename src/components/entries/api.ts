@@ -21,6 +21,8 @@ export interface HouseholdInfo {
   /** ISO 4217 code bought food starts with; null or absent = none chosen yet. */
   currency?: string | null;
   role: 'owner' | 'grower' | 'viewer';
+  /** The signed-in person: the entry queue on this device is kept per person (entry-queue.ts). */
+  userId?: string;
 }
 
 /** True when the role may add, change and delete entries. Example: `canWrite('viewer')` → false */

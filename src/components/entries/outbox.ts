@@ -1,173 +1,178 @@
 /**
- * The entry outbox: entries the phone could not send yet, kept in localStorage per household and
- * sent again later with the same Idempotency-Key, so a retry never stores an entry twice.
+ * The entry queue as the forms use it: `submit` an entry, and it is kept on this device at once
+ * (TanStack Query mutation, persisted by the island's QueryProvider) and sent with its
+ * Idempotency-Key, so a repeat never stores it twice. The form waits only for the first try:
+ * saved, refused (the form shows why), or — offline, no answer, session ended, or no answer within
+ * FIRST_TRY_MS — queued, and the form is free for the next entry while the queue goes on sending,
+ * in the order logged, when the connection returns.
  *
- * An entry is written to the outbox *before* it is sent, so closing the tab mid-request loses
- * nothing; it leaves the outbox when the server has answered (saved, or refused with a reason).
+ * Built on TanStack Query's paused mutations rather than a service-worker background sync
+ * because the page must know what waits (to list it), hear a refusal (a 4xx a worker would have
+ * to swallow) and hold the queue behind a 401 until the person signs in again.
  */
-import { useMutation } from '@tanstack/react-query';
+import { onlineManager, useQueryClient, type Mutation } from '@tanstack/react-query';
 import { useCallback, useEffect, useRef, useState } from 'react';
-import { ApiError, request } from './api';
+import { legacyOutboxKey, legacyOutboxSends, queueItems, queueOrderScope, type QueuedSend, type QueueKind, type QueueMutationState } from '@/lib/entry-queue';
+import { ENTRY_SEND_KEY } from './entry-queue';
 
+/** One line of the waiting list, as the entry forms show it. */
 export interface OutboxItem {
   /** The Idempotency-Key; also the item's id. */
   key: string;
-  url: string;
-  body: unknown;
-  /** What the person sees: "12 lb Potatoes — 3 fresh, 9 stored". */
   label: string;
-  createdAt: string;
-  attempts: number;
   lastError?: string;
   /** The server refused it (4xx): it will not be sent again; the person can discard it. */
   refused?: boolean;
+  /** Waits for the person to sign in again (the session ended). */
+  signIn?: boolean;
 }
 
-/** How often waiting entries are tried again while the page is open. */
-export const RETRY_EVERY_MS = 20_000;
+/** Which form's queue: each form sends and shows only its own entries. */
+export type OutboxKind = QueueKind;
 
-/** Which form's outbox: each form sends and shows only its own entries. */
-export type OutboxKind = 'harvests' | 'purchases';
-
-// The household id and kind are folded into one "scope" string: 'harvests:7'.
-const storageKey = (scope: string) => `selfsown:outbox:${scope}`;
-const scopeOf = (kind: OutboxKind, householdId: number) => `${kind}:${householdId}`;
-
-/** The waiting entries of one scope ('harvests:7') (empty when storage is unavailable or unreadable). */
-export function loadOutbox(scope: string): OutboxItem[] {
-  try {
-    const raw = localStorage.getItem(storageKey(scope));
-    const list = raw ? (JSON.parse(raw) as unknown) : [];
-    return Array.isArray(list) ? (list as OutboxItem[]) : [];
-  } catch {
-    return [];
-  }
-}
-
-function saveOutbox(scope: string, items: OutboxItem[]): void {
-  try {
-    if (items.length === 0) localStorage.removeItem(storageKey(scope));
-    else localStorage.setItem(storageKey(scope), JSON.stringify(items));
-  } catch {
-    /* private mode or full storage: the entry is still sent, just not kept */
-  }
-}
-
-function upsert(scope: string, item: OutboxItem): void {
-  const items = loadOutbox(scope).filter((i) => i.key !== item.key);
-  saveOutbox(scope, [...items, item]);
-}
-
-function removeItem(scope: string, key: string): void {
-  saveOutbox(
-    scope,
-    loadOutbox(scope).filter((i) => i.key !== key),
-  );
-}
-
-// Keys being sent right now, in this tab: the interval and the 'online' event never send one twice at once.
-const inFlight = new Set<string>();
-
-async function send<T>(item: OutboxItem): Promise<T> {
-  return request<T>('POST', item.url, item.body, { 'Idempotency-Key': item.key });
-}
+/** How long the form waits for a first answer before it lets the entry wait in the queue. */
+export const FIRST_TRY_MS = 8_000;
 
 export type SubmitResult<T> = { status: 'saved'; data: T } | { status: 'queued'; item: OutboxItem };
 
+type EntryMutation = Mutation<unknown, Error, unknown, unknown>;
+
+const sendOf = (m: EntryMutation) => m.state.variables as QueuedSend | undefined;
+
 /**
- * The outbox of one household as React state, with `submit` (send now, keep if it fails),
- * `flush` (send what waits) and `discard`. Waiting entries are sent on page load, when the
- * browser comes back online, and every RETRY_EVERY_MS. `onSent` hears of entries sent later.
+ * Resolves once the mutation stops being a quick first try — paused, failed once, or too slow —
+ * calling `release` first, at that very moment, so that a success heard later is known to be the
+ * queue's to report and not the form's.
+ */
+function whenQueued(cache: ReturnType<ReturnType<typeof useQueryClient>['getMutationCache']>, m: EntryMutation, release: () => void): { promise: Promise<void>; stop: () => void } {
+  let stop = () => {};
+  const promise = new Promise<void>((resolve) => {
+    const letGo = () => {
+      if (m.state.status !== 'pending') return;
+      release();
+      resolve();
+    };
+    const check = () => {
+      if (m.state.isPaused || m.state.failureCount > 0) letGo();
+    };
+    const unsubscribe = cache.subscribe((e) => {
+      if (e.mutation === m) check();
+    });
+    const timer = window.setTimeout(letGo, FIRST_TRY_MS);
+    stop = () => {
+      unsubscribe();
+      window.clearTimeout(timer);
+    };
+    check();
+  });
+  return { promise, stop };
+}
+
+/**
+ * The queue of one household and kind as React state, with `submit`, `flush` (send what waits
+ * now) and `discard` (drop a refused entry). `onSent` hears of entries sent after the form had
+ * let them wait (or left from an earlier visit).
  */
 export function useOutbox<T>(kind: OutboxKind, household: number, onSent: (item: OutboxItem, data: T) => void) {
-  const scope = scopeOf(kind, household);
+  const client = useQueryClient();
+  const cache = client.getMutationCache();
+  const scope = queueOrderScope(kind, household);
   const [items, setItems] = useState<OutboxItem[]>([]);
   const onSentRef = useRef(onSent);
   onSentRef.current = onSent;
-  // An entry on its first try is "saving", not "waiting": it shows once a try has failed (or when
-  // it was left from an earlier visit).
-  const refresh = useCallback(() => setItems(loadOutbox(scope).filter((i) => !(i.attempts === 0 && inFlight.has(i.key)))), [scope]);
+  // Entries whose first try the form is waiting for ("Saving…", not yet "waiting"), those it let go
+  // to wait in the queue, and those whose answer the form itself showed.
+  const firstTry = useRef(new Set<string>());
+  const released = useRef(new Set<string>());
+  const answered = useRef(new Set<string>());
 
-  const mutation = useMutation({ mutationFn: (item: OutboxItem) => send<T>(item) });
-  const { mutateAsync } = mutation;
+  const mine = useCallback(() => cache.findAll({ mutationKey: ENTRY_SEND_KEY }).filter((m) => m.options.scope?.id === scope), [cache, scope]);
 
-  const attempt = useCallback(
-    async (item: OutboxItem): Promise<{ ok: true; data: T } | { ok: false; error: ApiError }> => {
-      inFlight.add(item.key);
-      refresh();
-      try {
-        const data = await mutateAsync(item);
-        removeItem(scope, item.key);
-        return { ok: true, data };
-      } catch (e) {
-        const error = e instanceof ApiError ? e : new ApiError(0, { code: 'network', message: String(e) }, null);
-        if (error.retryable) upsert(scope, { ...item, attempts: item.attempts + 1, lastError: error.message });
-        else upsert(scope, { ...item, attempts: item.attempts + 1, lastError: error.message, refused: true });
-        return { ok: false, error };
-      } finally {
-        inFlight.delete(item.key);
-        refresh();
-      }
-    },
-    [scope, mutateAsync, refresh],
-  );
+  const refresh = useCallback(() => {
+    const list = queueItems(
+      mine().map((m) => m.state as QueueMutationState),
+      firstTry.current,
+    );
+    setItems(list.map((i) => ({ key: i.key, label: i.label, ...(i.message ? { lastError: i.message } : {}), ...(i.state === 'refused' ? { refused: true } : {}), ...(i.state === 'sign-in' ? { signIn: true } : {}) })));
+  }, [mine]);
 
-  /** Sends a new entry now; when it cannot reach the server it stays in the outbox. A refusal is thrown. */
-  const submit = useCallback(
-    async (url: string, body: unknown, label: string, key: string): Promise<SubmitResult<T>> => {
-      const item: OutboxItem = { key, url, body, label, createdAt: new Date().toISOString(), attempts: 0 };
-      upsert(scope, item);
-      const r = await attempt(item);
-      if (r.ok) return { status: 'saved', data: r.data };
-      if (r.error.retryable) return { status: 'queued', item: loadOutbox(scope).find((i) => i.key === key) ?? item };
-      // Refused on the first try: the form still holds the values, so the person fixes them there.
-      removeItem(scope, key);
-      refresh();
-      throw r.error;
-    },
-    [attempt, scope, refresh],
-  );
-
-  /** Sends every waiting entry once more (not the refused ones). */
-  const flush = useCallback(async () => {
-    for (const listed of loadOutbox(scope)) {
-      // Read it again: another hook or tab may have sent it while this loop waited.
-      const item = loadOutbox(scope).find((i) => i.key === listed.key);
-      if (!item || item.refused || inFlight.has(item.key)) continue;
-      const r = await attempt(item);
-      if (r.ok) onSentRef.current(item, r.data);
+  // Entries the hand-written outbox before this queue still held join the queue (same keys: never twice).
+  useEffect(() => {
+    const old = legacyOutboxKey(kind, household);
+    let sends: QueuedSend[] = [];
+    try {
+      sends = legacyOutboxSends(localStorage.getItem(old));
+      localStorage.removeItem(old);
+    } catch {
+      return;
     }
-  }, [attempt, scope]);
-
-  const discard = useCallback(
-    (key: string) => {
-      removeItem(scope, key);
-      refresh();
-    },
-    [scope, refresh],
-  );
+    for (const send of sends) void cache.build(client, { mutationKey: ENTRY_SEND_KEY, scope: { id: scope } }).execute(send).catch(() => undefined);
+  }, [cache, client, kind, household, scope]);
 
   useEffect(() => {
     refresh();
-    void flush();
-    const online = () => void flush();
-    const storage = (e: StorageEvent) => {
-      if (e.key === storageKey(scope)) refresh();
-    };
-    window.addEventListener('online', online);
-    window.addEventListener('storage', storage);
-    const timer = window.setInterval(() => {
-      if (loadOutbox(scope).some((i) => !i.refused)) void flush();
-    }, RETRY_EVERY_MS);
-    return () => {
-      window.removeEventListener('online', online);
-      window.removeEventListener('storage', storage);
-      window.clearInterval(timer);
-    };
-  }, [flush, scope, refresh]);
+    return cache.subscribe((e) => {
+      const m = e.mutation as EntryMutation | undefined;
+      if (!m || m.options.scope?.id !== scope) return;
+      if (e.type === 'updated' && e.action.type === 'success') {
+        const v = sendOf(m);
+        // The form reports its own first try's success (whether it hears of it before or after this).
+        const formsOwn = v ? answered.current.delete(v.key) || (firstTry.current.has(v.key) && !released.current.has(v.key)) : true;
+        if (v && !formsOwn) onSentRef.current({ key: v.key, label: v.label }, m.state.data as T);
+        // Sent: it leaves the queue (and the device).
+        cache.remove(m);
+      }
+      refresh();
+    });
+  }, [cache, scope, refresh]);
 
-  return { items, submit, flush, discard, sending: mutation.isPending };
+  /** Keeps an entry on the device and sends it; resolves on the first answer, or as soon as it has to wait. A refusal is thrown. */
+  const submit = useCallback(
+    async (url: string, body: unknown, label: string, key: string): Promise<SubmitResult<T>> => {
+      const send: QueuedSend = { key, url, body, label };
+      firstTry.current.add(key);
+      const m = cache.build(client, { mutationKey: ENTRY_SEND_KEY, scope: { id: scope } }) as EntryMutation;
+      const done = m.execute(send);
+      const queued = whenQueued(cache, m, () => released.current.add(key));
+      try {
+        const outcome = await Promise.race([done.then((data) => ({ saved: true as const, data: data as T })), queued.promise.then(() => ({ saved: false as const }))]);
+        if (outcome.saved) {
+          // Not yet heard by the cache listener (it removes what it heard): tell it this one is the form's.
+          if (cache.has(m)) answered.current.add(key);
+          return { status: 'saved', data: outcome.data };
+        }
+        return { status: 'queued', item: { key, label } };
+      } catch (err) {
+        // Refused on the first try: the form still holds the values, so the person fixes them there.
+        cache.remove(m);
+        throw err;
+      } finally {
+        queued.stop();
+        firstTry.current.delete(key);
+        released.current.delete(key);
+        refresh();
+      }
+    },
+    [cache, client, scope, refresh],
+  );
+
+  /** Sends what waits now (a paused queue; a try already scheduled keeps its time). */
+  const flush = useCallback(async () => {
+    if (typeof navigator !== 'undefined' && navigator.onLine) onlineManager.setOnline(true);
+    await client.resumePausedMutations();
+  }, [client]);
+
+  const discard = useCallback(
+    (key: string) => {
+      const m = mine().find((x) => sendOf(x)?.key === key);
+      if (m) cache.remove(m);
+      refresh();
+    },
+    [cache, mine, refresh],
+  );
+
+  return { items, submit, flush, discard };
 }
 
-/** What useOutbox returns, for components that are handed the outbox of their island. */
+/** What useOutbox returns, for components that are handed the queue of their island. */
 export type Outbox<T> = ReturnType<typeof useOutbox<T>>;
