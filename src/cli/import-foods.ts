@@ -8,6 +8,7 @@ import { createPool } from '@/db/client';
 import { migrateDatabase } from '@/db/migrate';
 import { importDataset } from '@/server/food-import';
 import { BUILTIN_DATASETS } from '@/server/builtin-datasets';
+import { latestReleaseUploaded } from '@/server/datasets';
 import { dbUp } from './db';
 import { isMain } from './is-main';
 
@@ -19,6 +20,11 @@ export async function importFoods(url: string, force = false, only?: string): Pr
   const pool = createPool(url);
   try {
     for (const { info, load } of chosen) {
+      // An administrator's upload replaced the packaged release: keep it unless --force.
+      if (!force && (await latestReleaseUploaded(pool, info.slug))) {
+        console.log(`• ${info.slug} holds an administrator's upload; left as it is (--force loads the packaged release again)`);
+        continue;
+      }
       const started = Date.now();
       console.log(`• reading ${info.name}, ${info.release}`);
       const { foods, amounts } = load();

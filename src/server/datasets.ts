@@ -78,3 +78,15 @@ export async function datasetUsage(pool: Pool): Promise<DatasetUse[]> {
   }));
 }
 
+
+/** True when the dataset's latest release came from an administrator's upload (not the built-in package). */
+export async function latestReleaseUploaded(pool: Pool, slug: string): Promise<boolean> {
+  const [r] = await dbOn(pool)
+    .select({ importedBy: datasetReleases.importedBy })
+    .from(datasetReleases)
+    .innerJoin(datasets, eq(datasets.id, datasetReleases.datasetId))
+    .where(eq(datasets.slug, slug))
+    .orderBy(sql`${datasetReleases.id} DESC`)
+    .limit(1);
+  return !!r?.importedBy;
+}
