@@ -4,7 +4,7 @@
  * src/db/schema.ts re-exports it, and code imports it from there.
  */
 import { bigint, customType, double, index, int, mysqlEnum, mysqlTable, primaryKey, smallint, text, timestamp, tinyint, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
-import { DATASET_JOB_STATUSES, FDC_FORMATS } from '@/lib/fdc-csv';
+import { DATASET_JOB_STATUSES, FDC_FORMATS } from '@/lib/dataset-jobs';
 // ── Reference data: food composition datasets ────────────────────────────────────────────────
 
 /** A public food composition dataset (e.g. USDA SR28), with its release and licence. */

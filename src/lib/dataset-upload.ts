@@ -4,7 +4,8 @@
  */
 import { z } from 'zod';
 import { datasetSlug } from './dataset-order';
-import type { DatasetJobStatus, FdcFormat, FdcRowError } from './fdc-csv';
+import type { DatasetJobStatus, FdcFormat } from './dataset-jobs';
+import type { FdcRowError } from './fdc-csv';
 import type { HouseholdChange } from './release-changes';
 
 /** The whole upload (every CSV file together) may be this large. */

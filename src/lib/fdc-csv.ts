@@ -19,12 +19,9 @@
 import type { NutrientKey } from './nutrients';
 import { rawnessRank } from './food-rows';
 
-export const FDC_FORMATS = ['sr_legacy', 'foundation'] as const;
-export type FdcFormat = (typeof FDC_FORMATS)[number];
+import type { FdcFormat } from './dataset-jobs';
 
-/** The life of an upload job: reading → ready (or failed) → applying → applied. */
-export const DATASET_JOB_STATUSES = ['reading', 'ready', 'failed', 'applying', 'applied', 'cancelled'] as const;
-export type DatasetJobStatus = (typeof DATASET_JOB_STATUSES)[number];
+export type { FdcFormat };
 
 export const FDC_REQUIRED_FILES = ['nutrient.csv', 'food.csv', 'food_nutrient.csv'] as const;
 export const FDC_OPTIONAL_FILES = ['food_category.csv', 'sr_legacy_food.csv', 'measure_unit.csv', 'food_portion.csv'] as const;
