@@ -51,12 +51,14 @@ export async function searchFoods(pool: Pool, q: string, limit = 20, options: Se
   // The word as typed wins over its singular ("potatoes" → "Potatoes, …" before "Potato pancakes").
   const opensAsTyped = sql`LOWER(${foods.name}) REGEXP ${`^${words[0]!}\\b`}`;
   const opens = sql`LOWER(${foods.name}) REGEXP ${`^(${[words[0]!, ...(one ? [one] : [])].join('|')})\\b`}`;
+  // Datasets in the household's order, else in the order they were loaded (USDA SR28 first).
   const order: SQL[] = [];
   if (options.datasetOrder?.length) {
     // FIELD() is 0 for a slug not in the list: those go after the listed ones.
     const at = sql`FIELD(${datasets.slug}, ${sql.join(options.datasetOrder.map((d) => sql`${d}`), sql`, `)})`;
     order.push(sql`(${at} = 0)`, asc(at));
   }
+  order.push(asc(datasets.id));
   order.push(
     sql`(${opensAsTyped} AND ${foods.rawness} <= ${RAWNESS.otherRaw}) DESC`,
     sql`(${opens} AND ${foods.rawness} <= ${RAWNESS.otherRaw}) DESC`,

@@ -74,9 +74,10 @@ describe('search and look-up by dataset', () => {
     const bad = await apiAs(t.owner.cookie, 'PUT', `/api/households/${hid}/datasets`, { order: ['ifct2017', 'nope'] });
     expect(bad.status).toBe(422);
     const ok = await apiAs(t.owner.cookie, 'PUT', `/api/households/${hid}/datasets`, { order: ['ifct2017'] });
-    expect(ok.body.order).toEqual(['ifct2017', 'usda-sr28']);
+    // The datasets not named follow in the order they were loaded (other tests may upload more).
+    expect(ok.body.order.slice(0, 2)).toEqual(['ifct2017', 'usda-sr28']);
     const listed = await apiAs(t.viewer.cookie, 'GET', `/api/households/${hid}/datasets`);
-    expect(listed.body.datasets.map((d: { slug: string }) => d.slug)).toEqual(['ifct2017', 'usda-sr28']);
+    expect(listed.body.datasets.map((d: { slug: string }) => d.slug).slice(0, 2)).toEqual(['ifct2017', 'usda-sr28']);
     const ranked = await apiAs(t.viewer.cookie, 'GET', `/api/foods?q=potato&household=${hid}`);
     expect(ranked.body.foods[0].dataset).toBe('ifct2017');
     // Someone outside the household cannot borrow its order.
