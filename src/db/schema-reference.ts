@@ -3,7 +3,7 @@
  * shared by every household and loaded by `npm run db:import-foods`. Part of the one schema:
  * src/db/schema.ts re-exports it, and code imports it from there.
  */
-import { bigint, customType, double, index, int, mysqlEnum, mysqlTable, primaryKey, smallint, text, timestamp, tinyint, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
+import { bigint, customType, double, index, int, mediumtext, mysqlEnum, mysqlTable, primaryKey, smallint, text, timestamp, tinyint, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
 import { DATASET_JOB_STATUSES, FDC_FORMATS } from '@/lib/dataset-jobs';
 // ── Reference data: food composition datasets ────────────────────────────────────────────────
 
@@ -130,9 +130,9 @@ export const datasetJobs = mysqlTable('dataset_jobs', {
   foodCount: int('food_count').notNull().default(0),
   amountCount: int('amount_count').notNull().default(0),
   /** JSON: the rejected rows [{ file, line, column, message }] (first 100). */
-  errors: text('errors'),
+  errors: mediumtext('errors'),
   /** JSON: what a new release would change, per household (src/lib/release-changes.ts). */
-  preview: text('preview'),
+  preview: mediumtext('preview'),
   payload: longBlob('payload'),
   createdBy: varchar('created_by', { length: 36 }).notNull(),
   createdAt: timestamp('created_at').notNull().defaultNow(),

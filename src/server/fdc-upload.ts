@@ -13,6 +13,7 @@ import { getDb, getPool } from '@/db/client';
 import { datasetJobs, datasets, foodNutrients, foods, type DatasetJob } from '@/db/schema';
 import { FDC_FILE_ORDER, FDC_REQUIRED_FILES, FdcReader, type FdcFile, type FdcResult } from '@/lib/fdc-csv';
 import type { UploadJobJson, UploadMeta } from '@/lib/dataset-upload';
+import { countText } from '@/lib/plural';
 import { releaseChanges, type EnergyProtein, type HouseholdFoodGrams } from '@/lib/release-changes';
 import { recordAction, type Admin } from './admin';
 import { importDataset } from './food-import';
@@ -100,7 +101,7 @@ export async function readUpload(jobId: number, files: ReadonlyMap<FdcFile, Blob
     const done = { rowsRead: progress.rows, bytesRead: progress.bytes, format: result.format, foodCount: result.foods.length, amountCount: result.amounts.length };
     if (result.errors.length) {
       const more = result.moreErrors ? `, and ${result.moreErrors} more rows` : '';
-      await update(jobId, { ...done, status: 'failed', phase: `refused: ${result.errors.length} bad rows${more}; nothing was loaded`, errors: JSON.stringify(result.errors) });
+      await update(jobId, { ...done, status: 'failed', phase: `refused: ${countText(result.errors.length, 'bad row')}${more}; nothing was loaded`, errors: JSON.stringify(result.errors) });
       return;
     }
     const payload: Payload = { foods: result.foods, amounts: result.amounts };
@@ -192,7 +193,7 @@ export async function applyUpload(admin: Admin, id: number): Promise<UploadJobJs
     await update(id, { status: 'failed', phase: `not applied, nothing changed: ${e instanceof Error ? e.message : String(e)}`.slice(0, 200), payload: null });
     throw new HttpError(422, 'apply_failed', `The upload could not be loaded; nothing changed. ${e instanceof Error ? e.message : ''}`);
   }
-  await update(id, { status: 'applied', phase: `loaded ${payload.foods.length} foods`, payload: null });
+  await update(id, { status: 'applied', phase: `loaded ${countText(payload.foods.length, 'food')}`, payload: null });
   await recordAction(admin, 'dataset.apply', j!.slug, `${j!.release}: ${payload.foods.length} foods, ${payload.amounts.length} amounts`);
   return uploadJob(id);
 }

@@ -44,7 +44,7 @@ test('an administrator uploads an FDC CSV, applies it and finds its food in sear
 
   const job = page.getByTestId('upload-job');
   await expect(job).toHaveAttribute('data-status', 'ready', { timeout: 15_000 });
-  await expect(job).toContainText('1 foods, 1 nutrient amounts');
+  await expect(job).toContainText('1 food, 1 nutrient amount');
   await expect(page.getByTestId('upload-changes')).toContainText('A new dataset');
   await job.getByRole('button', { name: 'Apply this release' }).click();
   await expect(job).toHaveAttribute('data-status', 'applied', { timeout: 15_000 });

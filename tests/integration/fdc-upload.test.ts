@@ -72,6 +72,13 @@ describe('FoodData Central upload', () => {
     expect(badMeta.body.error.fields.slug).toBeTruthy();
   });
 
+  it('refuses a file without a needed column on its line 1', async () => {
+    const r = await upload({ 'food.csv': FOOD.replace('"description"', '"title"'), 'nutrient.csv': NUTRIENT, 'food_nutrient.csv': amounts(70) });
+    const job = await settled(r.body.upload.id);
+    expect(job.status).toBe('failed');
+    expect(job.errors[0]).toMatchObject({ file: 'food.csv', line: 1, column: 'description' });
+  });
+
   it('names the file, line and column of a bad row, and changes nothing', async () => {
     const before = await counts();
     const r = await upload({ 'food.csv': FOOD, 'nutrient.csv': NUTRIENT, 'food_nutrient.csv': amounts('lots') });

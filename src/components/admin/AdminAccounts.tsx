@@ -7,6 +7,7 @@ import { useEffect, useState } from 'react';
 import { FormAlert } from '@/components/forms';
 import { QueryProvider } from '@/components/QueryProvider';
 import { get, qs, request } from '@/components/request';
+import { countText } from '@/lib/plural';
 
 interface Account {
   id: string;
@@ -54,19 +55,25 @@ function Accounts({ selfId }: { selfId: string }) {
             <span>
               <span className="font-semibold">{a.name}</span> <span className="text-loam-700">{a.email}</span>
               <span className="block text-sm text-loam-700">
-                {a.emailVerified ? 'confirmed' : 'not confirmed'} · {a.households} households{a.admin ? ' · site administrator' : ''}
+                {a.emailVerified ? 'confirmed' : 'not confirmed'} · {countText(a.households, 'household')}{a.admin ? ' · site administrator' : ''}
                 {a.disabled ? ' · DISABLED' : ''}
               </span>
             </span>
             <span className="flex flex-wrap gap-2">
               {!a.emailVerified ? (
-                <button type="button" className="btn-quiet" disabled={resend.isPending} onClick={() => resend.mutate(a.id)}>
+                <button type="button" className="btn-quiet" disabled={resend.isPending} aria-label={`Resend confirmation to ${a.email}`} onClick={() => resend.mutate(a.id)}>
                   Resend confirmation
                 </button>
               ) : null}
               {a.id !== selfId ? (
-                <button type="button" className={a.disabled ? 'btn-quiet' : 'btn-danger'} disabled={disable.isPending} onClick={() => disable.mutate({ id: a.id, disabled: !a.disabled })}>
-                  {a.disabled ? `Enable ${a.email}` : `Disable ${a.email}`}
+                <button
+                  type="button"
+                  className={a.disabled ? 'btn-quiet' : 'btn-danger'}
+                  disabled={disable.isPending}
+                  aria-label={`${a.disabled ? 'Enable' : 'Disable'} ${a.email}`}
+                  onClick={() => disable.mutate({ id: a.id, disabled: !a.disabled })}
+                >
+                  {a.disabled ? 'Enable' : 'Disable'}
                 </button>
               ) : null}
             </span>

@@ -10,6 +10,7 @@ import { QueryProvider } from '@/components/QueryProvider';
 import { ApiError, get, request } from '@/components/request';
 import type { UploadJobJson } from '@/lib/dataset-upload';
 import { formatAmount } from '@/lib/format-number';
+import { countText } from '@/lib/plural';
 
 interface DatasetChoice {
   slug: string;
@@ -55,8 +56,8 @@ function JobView({ id }: { id: number }) {
         <div className="h-3 bg-sprout-500" style={{ width: `${pct}%` }} />
       </div>
       <p className="mt-1 text-sm text-loam-700">
-        {formatAmount(j.bytesRead)} of {formatAmount(j.bytesTotal)} bytes, {formatAmount(j.rowsRead)} rows read · {formatAmount(j.foodCount)} foods,{' '}
-        {formatAmount(j.amountCount)} nutrient amounts{j.format ? ` · ${j.format === 'foundation' ? 'Foundation Foods' : 'SR Legacy'}` : ''}
+        {formatAmount(j.bytesRead)} of {countText(j.bytesTotal, 'byte')}, {countText(j.rowsRead, 'row')} read · {countText(j.foodCount, 'food')},{' '}
+        {countText(j.amountCount, 'nutrient amount')}{j.format ? ` · ${j.format === 'foundation' ? 'Foundation Foods' : 'SR Legacy'}` : ''}
       </p>
       {j.errors.length > 0 ? (
         <div className="mt-4 overflow-x-auto">
@@ -85,7 +86,7 @@ function JobView({ id }: { id: number }) {
               <ul className="mt-2 grid gap-1 text-sm">
                 {j.changes.map((c) => (
                   <li key={c.householdId}>
-                    {c.householdName} (#{c.householdId}), {c.entries} entries: energy {formatAmount(c.kcalBefore)} → {formatAmount(c.kcalAfter)} kcal, protein{' '}
+                    {c.householdName} (#{c.householdId}), {countText(c.entries, 'entry')}: energy {formatAmount(c.kcalBefore)} → {formatAmount(c.kcalAfter)} kcal, protein{' '}
                     {formatAmount(c.proteinBefore)} → {formatAmount(c.proteinAfter)} g
                     {c.foodsDropped.length ? ` · foods no longer in the release: ${c.foodsDropped.join(', ')}` : ''}
                   </li>

@@ -8,7 +8,7 @@ import { useEffect, useState } from 'react';
 import { FormAlert } from '@/components/forms';
 import { get, request } from '@/components/request';
 import type { DatasetSummary } from '@/lib/dataset-order';
-import { formatAmount } from '@/lib/format-number';
+import { countText } from '@/lib/plural';
 
 export function DatasetOrderForm({ householdId }: { householdId: number }) {
   const url = `/api/households/${householdId}/datasets`;
@@ -45,7 +45,7 @@ export function DatasetOrderForm({ householdId }: { householdId: number }) {
             <span>
               <span className="font-semibold">{i + 1}. {d.name}</span>
               <span className="block text-sm text-loam-700">
-                {d.release} · {formatAmount(d.foodCount)} foods
+                {d.release} · {countText(d.foodCount, 'food')}
               </span>
             </span>
             <span className="flex gap-1">
