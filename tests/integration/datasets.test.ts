@@ -4,7 +4,11 @@
  */
 import type { Pool } from 'mysql2/promise';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { eq } from 'drizzle-orm';
+import { households } from '@/db/schema';
+import { dbOn } from '@/server/db-on';
 import { loadIfct } from '@/server/ifct-source';
+import { householdLetterFigures, memberLetterData } from '@/server/letter-data';
 import { api, testPool } from '../support/env';
 import { foodId, logHarvest, makeCrop } from '../support/entries';
 import { apiAs, householdWithRoles, type RoleFixture } from '../support/users';
@@ -106,5 +110,10 @@ describe('an IFCT food through the reports, beside SR28 food', () => {
     // The other reports take mixed datasets too.
     expect((await apiAs(t.viewer.cookie, 'GET', `/api/households/${hid}/gaps?year=2026`)).status).toBe(200);
     expect((await apiAs(t.viewer.cookie, 'GET', `/api/households/${hid}/larder`)).status).toBe(200);
+    // The monthly letter reads the same share report: March's letter counts the IFCT potatoes.
+    const [household] = await dbOn(pool).select().from(households).where(eq(households.id, hid));
+    const figures = await householdLetterFigures(household!, '2026-03', new Date('2026-04-02T06:00:00Z'));
+    expect(figures!.share.datasets.map((d) => d.slug).sort()).toEqual(['ifct2017', 'usda-sr28']);
+    expect(memberLetterData(household!, '2026-03', figures!, t.owner.id)).toBeTruthy();
   });
 });
