@@ -3,7 +3,8 @@
  * shared by every household and loaded by `npm run db:import-foods`. Part of the one schema:
  * src/db/schema.ts re-exports it, and code imports it from there.
  */
-import { bigint, double, index, int, mysqlTable, primaryKey, smallint, text, timestamp, tinyint, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
+import { bigint, customType, double, index, int, mediumtext, mysqlEnum, mysqlTable, primaryKey, smallint, text, timestamp, tinyint, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
+import { DATASET_JOB_STATUSES, FDC_FORMATS } from '@/lib/dataset-jobs';
 // ── Reference data: food composition datasets ────────────────────────────────────────────────
 
 /** A public food composition dataset (e.g. USDA SR28), with its release and licence. */
@@ -88,6 +89,57 @@ export const foodWeights = mysqlTable(
   (t) => [uniqueIndex('food_weights_food_seq_uq').on(t.foodId, t.seq)],
 );
 
+/** Each load of a dataset (built in or uploaded), newest last: the dataset's release history. */
+export const datasetReleases = mysqlTable(
+  'dataset_releases',
+  {
+    id: int('id').autoincrement().primaryKey(),
+    datasetId: int('dataset_id')
+      .notNull()
+      .references(() => datasets.id, { onDelete: 'cascade' }),
+    release: varchar('release', { length: 80 }).notNull(),
+    foodCount: int('food_count').notNull(),
+    amountCount: int('amount_count').notNull(),
+    /** The administrator's user id for an upload; null for `npm run db:import-foods`. */
+    importedBy: varchar('imported_by', { length: 36 }),
+    importedAt: timestamp('imported_at').notNull().defaultNow(),
+  },
+  (t) => [index('dataset_releases_dataset_idx').on(t.datasetId)],
+);
+
+const longBlob = customType<{ data: Buffer }>({ dataType: () => 'longblob' });
+
+/**
+ * An administrator's FoodData Central upload: read and checked into `payload` (gzipped JSON of the
+ * foods and amounts) with progress the page polls, then applied in one transaction on confirmation.
+ */
+export const datasetJobs = mysqlTable('dataset_jobs', {
+  id: int('id').autoincrement().primaryKey(),
+  slug: varchar('slug', { length: 40 }).notNull(),
+  name: varchar('name', { length: 200 }).notNull(),
+  release: varchar('release', { length: 80 }).notNull(),
+  publisher: varchar('publisher', { length: 200 }).notNull(),
+  licence: varchar('licence', { length: 200 }).notNull(),
+  format: mysqlEnum('format', FDC_FORMATS),
+  status: mysqlEnum('status', DATASET_JOB_STATUSES).notNull(),
+  /** What the job is doing now, in words ("reading food_nutrient.csv"). */
+  phase: varchar('phase', { length: 200 }).notNull().default(''),
+  rowsRead: int('rows_read').notNull().default(0),
+  bytesRead: bigint('bytes_read', { mode: 'number' }).notNull().default(0),
+  bytesTotal: bigint('bytes_total', { mode: 'number' }).notNull().default(0),
+  foodCount: int('food_count').notNull().default(0),
+  amountCount: int('amount_count').notNull().default(0),
+  /** JSON: the rejected rows [{ file, line, column, message }] (first 100). */
+  errors: mediumtext('errors'),
+  /** JSON: what a new release would change, per household (src/lib/release-changes.ts). */
+  preview: mediumtext('preview'),
+  payload: longBlob('payload'),
+  createdBy: varchar('created_by', { length: 36 }).notNull(),
+  createdAt: timestamp('created_at').notNull().defaultNow(),
+  updatedAt: timestamp('updated_at').notNull().defaultNow().onUpdateNow(),
+});
+
 export type Dataset = typeof datasets.$inferSelect;
+export type DatasetJob = typeof datasetJobs.$inferSelect;
 export type Food = typeof foods.$inferSelect;
 export type NewFood = typeof foods.$inferInsert;

@@ -116,6 +116,28 @@ export const siteAdmins = mysqlTable('site_admins', {
   grantedAt: timestamp('granted_at').notNull().defaultNow(),
 });
 
+/** Accounts a site administrator disabled: sign-in is refused and their sessions are deleted. */
+export const disabledAccounts = mysqlTable('disabled_accounts', {
+  userId: varchar('user_id', { length: 36 }).primaryKey().references(() => user.id, { onDelete: 'cascade' }),
+  disabledBy: varchar('disabled_by', { length: 36 }).references(() => user.id, { onDelete: 'set null' }),
+  disabledAt: timestamp('disabled_at').notNull().defaultNow(),
+});
+
+/** Every site administrator's action (who, what, when); the address is copied so the row outlives the account. */
+export const adminActions = mysqlTable(
+  'admin_actions',
+  {
+    id: bigint('id', { mode: 'number', unsigned: true }).autoincrement().primaryKey(),
+    userId: varchar('user_id', { length: 36 }).references(() => user.id, { onDelete: 'set null' }),
+    userEmail: varchar('user_email', { length: 255 }).notNull(),
+    action: varchar('action', { length: 60 }).notNull(),
+    subject: varchar('subject', { length: 255 }).notNull(),
+    detail: varchar('detail', { length: 1000 }).notNull().default(''),
+    createdAt: timestamp('created_at', { fsp: 3 }).notNull().defaultNow(),
+  },
+  (t) => [index('admin_actions_created_idx').on(t.createdAt)],
+);
+
 // ── Households, members and invitations ──────────────────────────────────────────────────
 
 /** The roles, from the one list in src/lib/household-schemas.ts. */
@@ -137,6 +159,8 @@ export const households = mysqlTable('households', {
   firstAutumnFrost: char('first_autumn_frost', { length: 5 }),
   /** ISO 4217 code new purchases start with; null = none chosen yet. */
   currency: char('currency', { length: 3 }),
+  /** Dataset slugs in the order food search ranks them, comma-separated; null = the order they were loaded. */
+  datasetOrder: varchar('dataset_order', { length: 400 }),
   createdAt: timestamp('created_at').notNull().defaultNow(),
 });
 

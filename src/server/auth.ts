@@ -14,6 +14,7 @@ import { PASSWORD_MAX, PASSWORD_MIN } from '@/lib/account-schemas';
 import { safeNext } from '@/lib/safe-next';
 import { authSecret, publicOrigin, rateLimitRule } from './config';
 import { linkMail, sendMail } from './mail';
+import { refuseDisabledSession } from './admin-accounts';
 
 /** The header our auth route sets from the socket's address (never taken from the client). */
 export const CLIENT_IP_HEADER = 'x-selfsown-client-ip';
@@ -101,6 +102,8 @@ function createAuth() {
       },
     },
     session: { expiresIn: 60 * 60 * 24 * 30, updateAge: 60 * 60 * 24 },
+    // An account a site administrator disabled gets no new session: sign-in answers 403.
+    databaseHooks: { session: { create: { before: async (s) => refuseDisabledSession(s) } } },
     rateLimit: {
       enabled: true,
       storage: 'database',

@@ -9,7 +9,7 @@ import { drizzle } from 'drizzle-orm/mysql2';
 import type { Pool, PoolConnection } from 'mysql2/promise';
 import type { Db } from '@/db/client';
 import * as schema from '@/db/schema';
-import { datasets, foodWeights, foods as foodsTable, nutrients } from '@/db/schema';
+import { datasetReleases, datasets, foodWeights, foods as foodsTable, nutrients } from '@/db/schema';
 import { NUTRIENTS } from '@/lib/nutrients';
 import { dbOn } from './db-on';
 
@@ -90,7 +90,7 @@ export async function importDataset(
   info: DatasetInfo,
   foods: FoodRecord[],
   amounts: AmountRecord[],
-  opts: { force?: boolean; log?: (line: string) => void } = {},
+  opts: { force?: boolean; log?: (line: string) => void; importedBy?: string } = {},
 ): Promise<ImportResult> {
   const log = opts.log ?? (() => {});
   const codes = new Set<string>();
@@ -174,6 +174,7 @@ export async function importDataset(
     const weightRows = foods.flatMap((f) => f.weights.map((w, i) => ({ foodId: idByCode.get(f.code)!, seq: i + 1, description: w.description.slice(0, 200), grams: w.grams })));
     for (let i = 0; i < weightRows.length; i += CHUNK) await db.insert(foodWeights).values(weightRows.slice(i, i + CHUNK));
     log(`  household weights ${weightRows.length}`);
+    await db.insert(datasetReleases).values({ datasetId: id, release: info.release, foodCount: foods.length, amountCount: amounts.length, importedBy: opts.importedBy ?? null });
     await conn.commit();
     return { datasetId: id, foods: foods.length, amounts: amounts.length, skipped: false };
   } catch (e) {

