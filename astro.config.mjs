@@ -4,6 +4,7 @@ import node from '@astrojs/node';
 import react from '@astrojs/react';
 import tailwindcss from '@tailwindcss/vite';
 import { fileURLToPath } from 'node:url';
+import { randomUUID } from 'node:crypto';
 
 /**
  * Adds `import 'src/server/boot.ts'` to the built server's entry (dist/server/entry.mjs), so that
@@ -39,6 +40,8 @@ export default defineConfig({
   server: { host: '127.0.0.1', port: 4321 },
   vite: {
     plugins: [tailwindcss(), bootOnServerStart()],
+    // One id per build: stored share answers (src/server/share-cache.ts) never outlive the code that wrote them.
+    define: { __SELFSOWN_BUILD__: JSON.stringify(`${new Date().toISOString()}-${randomUUID().slice(0, 8)}`) },
     // mysql2 and friends stay as Node modules in the server bundle.
     ssr: { external: ['mysql2', 'nodemailer', 'smtp-server', 'mailparser', 'highs'] },
   },

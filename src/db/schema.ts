@@ -432,12 +432,16 @@ export const purchaseGroups = mysqlTable(
   (t) => [primaryKey({ name: 'purchase_groups_pk', columns: [t.householdId, t.day, t.spread, t.foodId] })],
 );
 
-/** A household's share data version: one more on every write to its entries, larder records, crops or people. */
+/**
+ * A household's share data version: a new stamp on every statement that writes its entries, larder
+ * records, crops or people (the statement's start to the microsecond, server and connection: the
+ * same for every row of one statement, so a bulk insert writes it once, and never the same for two).
+ */
 export const shareVersions = mysqlTable('share_versions', {
   householdId: int('household_id')
     .primaryKey()
     .references(() => households.id, { onDelete: 'cascade' }),
-  version: bigint('version', { mode: 'number', unsigned: true }).notNull().default(0),
+  version: varchar('version', { length: 64 }).notNull(),
 });
 
 /**
@@ -452,7 +456,7 @@ export const shareCache = mysqlTable(
       .notNull()
       .references(() => households.id, { onDelete: 'cascade' }),
     answerKey: varchar('answer_key', { length: 190 }).notNull(),
-    version: bigint('version', { mode: 'number', unsigned: true }).notNull(),
+    version: varchar('version', { length: 64 }).notNull(),
     referenceRevision: bigint('reference_revision', { mode: 'number', unsigned: true }).notNull(),
     body: mediumtext('body').notNull(),
     createdAt: timestamp('created_at').notNull().defaultNow(),

@@ -125,7 +125,8 @@ export async function importDataset(
     await db
       .insert(datasets)
       .values(dataset)
-      .onDuplicateKeyUpdate({ set: { ...changed, importedAt: sql`CURRENT_TIMESTAMP` } });
+      // A new revision voids the stored share answers resting on the old amounts (share-cache.ts).
+      .onDuplicateKeyUpdate({ set: { ...changed, revision: sql`${datasets.revision} + 1`, importedAt: sql`CURRENT_TIMESTAMP` } });
     const id = await datasetId(db, info.slug);
 
     log(`  foods 0/${foods.length}`);

@@ -115,6 +115,9 @@ export async function purchaseGroupRows(db: Executor, householdId: number, from:
   }));
 }
 
+/** A new share version, as the triggers stamp it (drizzle/0008_share_rollup.sql). */
+export const versionStamp = sql`CONCAT(UNIX_TIMESTAMP(NOW(6)), '.', @@server_id, '.', CONNECTION_ID())`;
+
 /** The group day of an entry: its own day for a lot eaten by day, else its month's first day. */
 function groupDay(date: typeof harvests.date | typeof purchases.date, byDay: SQL): SQL<string> {
   return sql<string>`IF(${byDay}, ${date}, ${date} - INTERVAL (DAYOFMONTH(${date}) - 1) DAY)`;
@@ -126,7 +129,7 @@ function groupDay(date: typeof harvests.date | typeof purchases.date, byDay: SQL
  */
 export async function rebuildShareRollup(db: Db, householdId: number): Promise<void> {
   await db.transaction(async (tx) => {
-    await tx.execute(sql`INSERT INTO share_versions (household_id, version) VALUES (${householdId}, 1) ON DUPLICATE KEY UPDATE version = version + 1`);
+    await tx.execute(sql`INSERT INTO share_versions (household_id, version) VALUES (${householdId}, ${versionStamp}) ON DUPLICATE KEY UPDATE version = VALUES(version)`);
     await tx.delete(harvestGroups).where(eq(harvestGroups.householdId, householdId));
     await tx.delete(purchaseGroups).where(eq(purchaseGroups.householdId, householdId));
     const h = harvests;

@@ -44,7 +44,7 @@ async function entriesIn(pool: Pool, householdId: number, from: string, to: stri
  */
 export async function voidCachedShare(pool: Pool, householdId: number): Promise<void> {
   try {
-    await pool.query('UPDATE share_versions SET version = version + 1 WHERE household_id = ?', [householdId]);
+    await pool.query("INSERT INTO share_versions (household_id, version) VALUES (?, CONCAT(UNIX_TIMESTAMP(NOW(6)), '.bench')) ON DUPLICATE KEY UPDATE version = VALUES(version)", [householdId]);
   } catch (e) {
     if ((e as { code?: string }).code !== 'ER_NO_SUCH_TABLE') throw e;
   }
