@@ -8,8 +8,12 @@
  */
 import { randomUUID } from 'node:crypto';
 import { Readable } from 'node:stream';
-import { getTableColumns, sql, type Table } from 'drizzle-orm';
-import type { Executor } from './entry-input';
+import { getTableColumns, sql, type SQL, type Table } from 'drizzle-orm';
+
+/** The shared client or a transaction (only `execute` is used; no import of the client, which imports this module). */
+interface Executor {
+  execute(query: SQL): Promise<unknown>;
+}
 
 const pending = new Map<string, Buffer>();
 
