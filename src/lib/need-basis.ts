@@ -5,7 +5,7 @@
  * low end of the AMDR. The dashboard labels the need with this, and says 'mixed' when the people
  * at home rest on different kinds of value (a baby's AI beside the parents' RDA).
  */
-import { eatsHouseholdFood, stageDailyNeed, type NeedMemo, type Person } from './needs';
+import { eatsHouseholdFood, stageDailyNeeds, type NeedMemo, type Person } from './needs';
 import { lifeStageIn } from './life-stage';
 import type { NutrientKey } from './nutrients';
 
@@ -23,9 +23,9 @@ export function needBasis<K extends NutrientKey>(people: readonly Person[], mont
   for (const month of months) {
     for (const person of people) {
       if (!eatsHouseholdFood(person, month)) continue;
-      const stage = lifeStageIn(person, month)!;
+      const known = stageDailyNeeds(person, lifeStageIn(person, month)!, keys, memo);
       for (const key of keys) {
-        const need = stageDailyNeed(person, stage, key, memo);
+        const need = known.get(key);
         if (need) seen[key].add(need.basis === 'stated' ? 'EER' : need.basis);
       }
     }

@@ -92,21 +92,27 @@ function stageNeeds(memo: NeedMemo | undefined, person: Person, stage: LifeStage
   return needs;
 }
 
-/** A person's daily need for a nutrient at a life stage (dailyNeed), from the memo when it has it. */
-export function stageDailyNeed(person: Person, stage: LifeStage, key: NutrientKey, memo?: NeedMemo): DailyNeed | null {
+/**
+ * A person's daily needs at a life stage (dailyNeed per key), from the memo when it has them,
+ * e.g. stageDailyNeeds(person, lifeStageIn(person, '2026-03')!, ['protein_g'], memo).get('protein_g')?.value.
+ */
+export function stageDailyNeeds(person: Person, stage: LifeStage, keys: readonly NutrientKey[], memo?: NeedMemo): Map<NutrientKey, DailyNeed | null> {
   const known = stageNeeds(memo, person, stage);
-  let need = known.get(key);
-  if (need === undefined) known.set(key, (need = dailyNeed({ ...person, ...stage } as RequirementPerson, key)));
-  return need;
+  let who: RequirementPerson | null = null;
+  for (const key of keys) {
+    if (!known.has(key)) known.set(key, dailyNeed((who ??= { ...person, ...stage } as RequirementPerson), key));
+  }
+  return known;
 }
 
 function personMonthDetails<K extends NutrientKey>(person: Person, month: string, keys: readonly K[], memo?: NeedMemo): Record<K, PersonMonthNeed> | 'absent' {
   if (!eatsHouseholdFood(person, month)) return 'absent';
   const stage = lifeStageIn(person, month)!;
   const days = homeDays(person, month);
+  const known = stageDailyNeeds(person, stage, keys, memo);
   const out = {} as Record<K, PersonMonthNeed>;
   for (const key of keys) {
-    const need = stageDailyNeed(person, stage, key, memo);
+    const need = known.get(key)!;
     out[key] = need === null ? null : { need: need.value * days, low: (need.range?.low ?? need.value) * days, high: need.range ? need.range.high * days : null };
   }
   return out;

@@ -3,7 +3,8 @@
  * topContributors() ranking of shares.ts for every share nutrient, joined into one list of crops
  * with each one's amount and share of home for every nutrient, so the dashboard shows one table.
  */
-import { fractionEatenIn, isEaten } from './allocate';
+import { fractionEatenBetween, isEaten } from './allocate';
+import { monthIndex } from './months';
 import { SHARE_NUTRIENTS, type ShareNutrientKey } from './nutrients';
 import { contributorId, groupEntry, type ShareGroup } from './share-groups';
 import type { TopCrop } from './share-types';
@@ -22,7 +23,8 @@ export function topCrops(groups: readonly ShareGroup[], from: string, to: string
   const home = groups.filter((g) => g.source === 'home');
   const entries = home.map(groupEntry);
   // Each group's share eaten in the range, worked out once for all the nutrients.
-  const fractions = entries.map((e) => (isEaten(e.use) ? fractionEatenIn(e, { from, to }) : 0));
+  const [start, end] = [monthIndex(from), monthIndex(to)];
+  const fractions = entries.map((e) => (isEaten(e.use) ? fractionEatenBetween(e, start, end) : 0));
   const crops = new Map<string | number, TopCrop>();
   const chosen = new Set<string | number>();
   for (const key of SHARE_NUTRIENTS) {
