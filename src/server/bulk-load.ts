@@ -4,6 +4,7 @@
  * the server when it asks for the "file". The pool answers only the names registered here, each
  * once (src/db/client.ts sets `infileStreamFactory`), so a server can never make the app read a
  * file from disk. Runs in the caller's transaction like any statement; triggers fire as for INSERT.
+ * A row the server skips or changes (LOCAL makes such errors warnings) fails the whole load.
  * Needs local_infile on the server (MariaDB's default; the private server sets it explicitly).
  */
 import { randomUUID } from 'node:crypto';
@@ -16,6 +17,13 @@ interface Executor {
 }
 
 const pending = new Map<string, Buffer>();
+
+/** What mysql2 answers for LOAD DATA. */
+interface LoadResult {
+  affectedRows: number;
+  warningStatus?: number;
+  info?: string;
+}
 
 /** The stream for a name the server asks for: a registered upload, else an error (never the disk). */
 export function infileStream(name: string): Readable {
@@ -52,7 +60,13 @@ export async function loadRows<T extends Table>(ex: Executor, table: T, rows: re
   pending.set(name, Buffer.from(lines.join('\n') + '\n', 'utf8'));
   try {
     const names = sql.join(keys.map((k) => sql.identifier(columns[k]!.name)), sql`, `);
-    await ex.execute(sql`LOAD DATA LOCAL INFILE ${name} INTO TABLE ${table} CHARACTER SET utf8mb4 (${names})`);
+    const [result] = (await ex.execute(sql`LOAD DATA LOCAL INFILE ${name} INTO TABLE ${table} CHARACTER SET utf8mb4 (${names})`)) as unknown as [LoadResult];
+    // LOCAL turns a row's errors (duplicate key, missing parent, a value that does not fit) into
+    // skipped rows and warnings: anything short of every row stored cleanly fails the statement.
+    if (result.affectedRows !== rows.length || (result.warningStatus ?? 0) > 0) {
+      const [warnings] = (await ex.execute(sql`SHOW WARNINGS LIMIT 3`)) as unknown as [{ Message: string }[]];
+      throw new Error(`bulk load stored ${result.affectedRows} of ${rows.length} rows (${result.info ?? ''}): ${warnings.map((w) => w.Message).join('; ')}`);
+    }
   } finally {
     pending.delete(name);
   }

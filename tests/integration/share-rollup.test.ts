@@ -128,11 +128,13 @@ describe('crops and larder records', () => {
     await afterWrite(async () => ok(await apiAs(t.owner.cookie, 'PATCH', path(`/crops/${potato.id}`), { foodId: await foodId('11355') })));
   });
 
-  it('a crop renamed, marked not food and back', async () => {
+  it('a crop renamed; a crop marked not food and back (its harvests given away still count as production)', async () => {
     const served = await afterWrite(async () => ok(await apiAs(t.owner.cookie, 'PATCH', path(`/crops/${potato.id}`), { name: 'Maincrop potato' })));
     expect(served.topCrops.map((c: any) => c.name)).toContain('Maincrop potato');
-    await afterWrite(async () => ok(await apiAs(t.owner.cookie, 'PATCH', path(`/crops/${potato.id}`), { notFood: true, foodId: null })));
-    await afterWrite(async () => ok(await apiAs(t.owner.cookie, 'PATCH', path(`/crops/${potato.id}`), { notFood: false, foodId: await foodId('11352') })));
+    const chard = await makeCrop(t.owner.cookie, hid, { name: 'Kale', foodId: await foodId('11233'), category: 'leafy_green' });
+    await logHarvest(t.owner.cookie, hid, { cropId: chard.id, date: '2025-07-20', quantity: 4, unit: 'kg', use: 'given' });
+    await afterWrite(async () => ok(await apiAs(t.owner.cookie, 'PATCH', path(`/crops/${chard.id}`), { notFood: true, foodId: null })));
+    await afterWrite(async () => ok(await apiAs(t.owner.cookie, 'PATCH', path(`/crops/${chard.id}`), { notFood: false, foodId: await foodId('11233') })));
   });
 
   it('a larder record added and removed (the lot leaves the rollup and comes back)', async () => {
