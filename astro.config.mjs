@@ -7,6 +7,7 @@ import AstroPWA from '@vite-pwa/astro';
 import { fileURLToPath } from 'node:url';
 import { OFFLINE_FALLBACK, offlineRoutes, RUNTIME_CACHES } from './src/lib/app-cache.ts';
 import { PALETTE } from './src/lib/palette.ts';
+import { randomUUID } from 'node:crypto';
 
 /**
  * Adds `import 'src/server/boot.ts'` to the built server's entry (dist/server/entry.mjs), so that
@@ -132,6 +133,8 @@ export default defineConfig({
   server: { host: '127.0.0.1', port: 4321 },
   vite: {
     plugins: [tailwindcss(), bootOnServerStart()],
+    // One id per build: stored share answers (src/server/share-cache.ts) never outlive the code that wrote them.
+    define: { __SELFSOWN_BUILD__: JSON.stringify(`${new Date().toISOString()}-${randomUUID().slice(0, 8)}`) },
     // mysql2 and friends stay as Node modules in the server bundle.
     ssr: { external: ['mysql2', 'nodemailer', 'smtp-server', 'mailparser', 'highs'] },
   },

@@ -6,6 +6,7 @@ import mysql from 'mysql2/promise';
 import { drizzle, type MySql2Database } from 'drizzle-orm/mysql2';
 import * as schema from './schema';
 import { databaseUrl, dbPoolSize, parseDatabaseUrl } from '@/server/config';
+import { infileStream } from '@/server/bulk-load';
 
 export type Db = MySql2Database<typeof schema>;
 
@@ -25,6 +26,8 @@ export function createPool(url: string): mysql.Pool {
     timezone: 'Z',
     dateStrings: ['DATE'],
     multipleStatements: false,
+    // LOAD DATA LOCAL INFILE reads only what src/server/bulk-load.ts offers, never a file on disk.
+    infileStreamFactory: infileStream,
   });
 }
 

@@ -19,6 +19,8 @@ export const datasets = mysqlTable(
     licence: varchar('licence', { length: 200 }).notNull(),
     sourceNote: varchar('source_note', { length: 400 }).notNull().default(''),
     foodCount: int('food_count').notNull().default(0),
+    /** One more on every load of the dataset, so stored share answers resting on it are voided. */
+    revision: int('revision').notNull().default(1),
     importedAt: timestamp('imported_at').notNull().defaultNow(),
   },
   (t) => [uniqueIndex('datasets_slug_uq').on(t.slug)],

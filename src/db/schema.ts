@@ -10,6 +10,7 @@ import {
   decimal,
   double,
   index,
+  mediumtext,
   int,
   mysqlEnum,
   mysqlTable,
@@ -32,89 +33,13 @@ import { PRESERVE_METHODS } from '@/lib/retention';
 import { PLANTING_SLOTS } from '@/lib/planting-slots';
 import { LARDER_OUTCOMES } from '@/lib/larder-outcomes';
 import { foods } from './schema-reference';
+import { user } from './schema-auth';
 
 // Reference foods live in their own file, one job each; the schema is still imported from here.
 export * from './schema-reference';
 
-// ── Accounts (better-auth's tables: user, session, account, verification, rateLimit) ──────────
-
-export const user = mysqlTable('user', {
-  id: varchar('id', { length: 36 }).primaryKey(),
-  name: varchar('name', { length: 200 }).notNull(),
-  email: varchar('email', { length: 255 }).notNull().unique(),
-  emailVerified: boolean('email_verified').notNull().default(false),
-  image: text('image'),
-  createdAt: timestamp('created_at', { fsp: 3 }).notNull().defaultNow(),
-  updatedAt: timestamp('updated_at', { fsp: 3 }).notNull().defaultNow(),
-});
-
-export const session = mysqlTable(
-  'session',
-  {
-    id: varchar('id', { length: 36 }).primaryKey(),
-    expiresAt: timestamp('expires_at', { fsp: 3 }).notNull(),
-    token: varchar('token', { length: 255 }).notNull().unique(),
-    createdAt: timestamp('created_at', { fsp: 3 }).notNull().defaultNow(),
-    updatedAt: timestamp('updated_at', { fsp: 3 }).notNull().defaultNow(),
-    ipAddress: text('ip_address'),
-    userAgent: text('user_agent'),
-    userId: varchar('user_id', { length: 36 })
-      .notNull()
-      .references(() => user.id, { onDelete: 'cascade' }),
-  },
-  (t) => [index('session_user_idx').on(t.userId)],
-);
-
-export const account = mysqlTable(
-  'account',
-  {
-    id: varchar('id', { length: 36 }).primaryKey(),
-    accountId: text('account_id').notNull(),
-    providerId: text('provider_id').notNull(),
-    userId: varchar('user_id', { length: 36 })
-      .notNull()
-      .references(() => user.id, { onDelete: 'cascade' }),
-    accessToken: text('access_token'),
-    refreshToken: text('refresh_token'),
-    idToken: text('id_token'),
-    accessTokenExpiresAt: timestamp('access_token_expires_at', { fsp: 3 }),
-    refreshTokenExpiresAt: timestamp('refresh_token_expires_at', { fsp: 3 }),
-    scope: text('scope'),
-    password: text('password'),
-    createdAt: timestamp('created_at', { fsp: 3 }).notNull().defaultNow(),
-    updatedAt: timestamp('updated_at', { fsp: 3 }).notNull().defaultNow(),
-  },
-  (t) => [index('account_user_idx').on(t.userId)],
-);
-
-export const verification = mysqlTable(
-  'verification',
-  {
-    id: varchar('id', { length: 36 }).primaryKey(),
-    identifier: varchar('identifier', { length: 255 }).notNull(),
-    value: text('value').notNull(),
-    expiresAt: timestamp('expires_at', { fsp: 3 }).notNull(),
-    createdAt: timestamp('created_at', { fsp: 3 }).notNull().defaultNow(),
-    updatedAt: timestamp('updated_at', { fsp: 3 }).notNull().defaultNow(),
-  },
-  (t) => [index('verification_identifier_idx').on(t.identifier)],
-);
-
-/** better-auth's limiter counters, in the database so every app server shares them. */
-export const rateLimit = mysqlTable('rate_limit', {
-  id: varchar('id', { length: 36 }).primaryKey(),
-  key: varchar('key', { length: 255 }).notNull().unique(),
-  count: int('count').notNull(),
-  lastRequest: bigint('last_request', { mode: 'number' }).notNull(),
-});
-
-/** Site-wide administrators (reference data management). */
-export const siteAdmins = mysqlTable('site_admins', {
-  userId: varchar('user_id', { length: 36 })
-    .primaryKey()
-    .references(() => user.id, { onDelete: 'cascade' }),
-  grantedAt: timestamp('granted_at').notNull().defaultNow(),
-});
+// Accounts (better-auth's tables and site administrators) live in their own file too.
+export * from './schema-auth';
 
 /** Accounts a site administrator disabled: sign-in is refused and their sessions are deleted. */
 export const disabledAccounts = mysqlTable('disabled_accounts', {
@@ -483,6 +408,84 @@ export const letters = mysqlTable(
     sentAt: timestamp('sent_at'),
   },
   (t) => [uniqueIndex('letters_household_month_user_uq').on(t.householdId, t.month, t.userId)],
+);
+
+// ── The share report's rollup and stored answers (issue 14) ─────────────────────────────────────
+// Kept by triggers on the entry tables (drizzle/0009_share_rollup.sql), so every write — the API,
+// an import, a raw statement — updates them in its own transaction. See src/server/share-rollup.ts.
+
+/**
+ * Harvests summed as the share report groups them: by household, day (a lot eaten by day: stored or
+ * preserved over 2 months or more) or month's first day (the rest), use, spread, preserving method
+ * ('' = none), crop (0 = none) and food (0 = none). Lots with larder records are left out (the report
+ * reads them one by one). A group whose last entry goes is deleted, so `entries` is never 0.
+ */
+export const harvestGroups = mysqlTable(
+  'harvest_groups',
+  {
+    householdId: int('household_id')
+      .notNull()
+      .references(() => households.id, { onDelete: 'cascade' }),
+    day: date('day', { mode: 'string' }).notNull(),
+    use: mysqlEnum('use', USES).notNull(),
+    spread: tinyint('spread').notNull(),
+    preserveMethod: varchar('preserve_method', { length: 12 }).notNull().default(''),
+    cropId: int('crop_id').notNull().default(0),
+    foodId: int('food_id').notNull().default(0),
+    grams: double('grams').notNull(),
+    edibleGrams: double('edible_grams').notNull(),
+    entries: int('entries').notNull(),
+  },
+  (t) => [primaryKey({ name: 'harvest_groups_pk', columns: [t.householdId, t.day, t.use, t.spread, t.preserveMethod, t.cropId, t.foodId] })],
+);
+
+/** Bought food summed the same way: by household, day or month's first day (spread ≥ 2: by day), spread and food. */
+export const purchaseGroups = mysqlTable(
+  'purchase_groups',
+  {
+    householdId: int('household_id')
+      .notNull()
+      .references(() => households.id, { onDelete: 'cascade' }),
+    day: date('day', { mode: 'string' }).notNull(),
+    spread: tinyint('spread').notNull(),
+    foodId: int('food_id').notNull(),
+    grams: double('grams').notNull(),
+    edibleGrams: double('edible_grams').notNull(),
+    entries: int('entries').notNull(),
+  },
+  (t) => [primaryKey({ name: 'purchase_groups_pk', columns: [t.householdId, t.day, t.spread, t.foodId] })],
+);
+
+/**
+ * A household's share data version: a new stamp on every statement that writes its entries, larder
+ * records, crops or people (the statement's start to the microsecond, server and connection: the
+ * same for every row of one statement, so a bulk insert writes it once, and never the same for two).
+ */
+export const shareVersions = mysqlTable('share_versions', {
+  householdId: int('household_id')
+    .primaryKey()
+    .references(() => households.id, { onDelete: 'cascade' }),
+  version: varchar('version', { length: 64 }).notNull(),
+});
+
+/**
+ * Share report answers as sent (JSON), by household and a key naming everything else they rest
+ * on (range, current month, zone, records start, creation, build); valid while the household's
+ * share version and the reference datasets' revision are the ones stored beside them.
+ */
+export const shareCache = mysqlTable(
+  'share_cache',
+  {
+    householdId: int('household_id')
+      .notNull()
+      .references(() => households.id, { onDelete: 'cascade' }),
+    answerKey: varchar('answer_key', { length: 190 }).notNull(),
+    version: varchar('version', { length: 64 }).notNull(),
+    referenceRevision: bigint('reference_revision', { mode: 'number', unsigned: true }).notNull(),
+    body: mediumtext('body').notNull(),
+    createdAt: timestamp('created_at').notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.householdId, t.answerKey] })],
 );
 
 export type LarderOutcome = typeof larderOutcomes.$inferSelect;

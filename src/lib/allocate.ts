@@ -3,7 +3,7 @@
  * see spread.ts), kept apart for home-grown and bought food, with the weight whose nutrient value is unknown counted
  * beside the sums (an unknown value is never read as zero).
  */
-import { listMonths, monthIndex, monthOf, addMonths } from './months';
+import { listMonths, monthIndex, monthOf, addMonths, parseDate } from './months';
 import type { NutrientKey } from './nutrients';
 import { spreadBetween, spreadByDay, type SpreadPart } from './spread';
 
@@ -121,7 +121,7 @@ export function eatenShares(entry: EatenBasis): SpreadPart[] {
     return spreadBetween(from, entry.until).map((p) => ({ offset: p.offset + shift, fraction: p.fraction }));
   }
   if (entry.use === 'fresh' && entry.source === 'home') {
-    monthOf(entry.date); // checks the date
+    parseDate(entry.date); // checks the date
     return [{ offset: 0, fraction: 1 }];
   }
   return spreadByDay(entry.date, entry.spreadMonths);
@@ -144,17 +144,21 @@ export function fractionEatenIn(
   entry: EatenBasis,
   { from, to }: { from: string; to: string },
 ): number {
+  return fractionEatenBetween(entry, monthIndex(from), monthIndex(to));
+}
+
+/** fractionEatenIn with the range as month indexes (monthIndex), for callers that ask for many entries. */
+export function fractionEatenBetween(entry: EatenBasis, start: number, end: number): number {
   const first = dateMonthIndex(entry.date);
-  const start = monthIndex(from);
-  const end = monthIndex(to);
-  return eatenShares(entry)
-    .filter(({ offset }) => first + offset >= start && first + offset <= end)
-    .reduce((sum, p) => sum + p.fraction, 0);
+  let sum = 0;
+  for (const { offset, fraction } of eatenShares(entry)) if (first + offset >= start && first + offset <= end) sum += fraction;
+  return sum;
 }
 
 /** Month index (year × 12 + month − 1) of a 'YYYY-MM-DD' date, checked once. */
 export function dateMonthIndex(date: string): number {
-  return monthIndex(monthOf(date));
+  const { year, month } = parseDate(date);
+  return year * 12 + (month - 1);
 }
 
 function checkSpread(spreadMonths: number): void {
@@ -183,15 +187,21 @@ export function addSums(a: NutrientSums, b: NutrientSums): NutrientSums {
   return a;
 }
 
+/** An entry's amount of a nutrient (null or missing: unknown), refused when negative or not a number. */
+function checkedAmount(entry: FoodEntry, key: NutrientKey): number | null | undefined {
+  const amount = entry.nutrients[key];
+  if (amount != null && (!Number.isFinite(amount) || amount < 0)) {
+    throw new RangeError(`${key} of an entry dated ${entry.date} must be a number ≥ 0, got ${amount}`);
+  }
+  return amount;
+}
+
 /**
  * Adds one share of an entry into the sums of one month and nutrient.
  * A null or missing value adds its grams to the unknown weight, never zero to the sum.
  */
 export function addEntryPart(sums: NutrientSums, entry: FoodEntry, key: NutrientKey, fraction: number): void {
-  const amount = entry.nutrients[key];
-  if (amount != null && (!Number.isFinite(amount) || amount < 0)) {
-    throw new RangeError(`${key} of an entry dated ${entry.date} must be a number ≥ 0, got ${amount}`);
-  }
+  const amount = checkedAmount(entry, key);
   const grams = entry.edibleGrams * fraction;
   if (entry.source === 'home') {
     if (amount == null) sums.homeUnknownGrams += grams;
@@ -222,15 +232,36 @@ export function allocate<K extends NutrientKey>(
     for (const key of keys) sums[key] = emptySums();
     return { month, sums };
   });
+  // The sums of each month as an array in the order of `keys`, so the inner loop indexes, not looks up.
+  const slots = result.map((m) => keys.map((key) => m.sums[key]));
+  const amounts: (number | null | undefined)[] = new Array(keys.length);
   for (const entry of entries) {
     checkGrams(entry.edibleGrams);
     const shares = eatenShares(entry);
     if (shares.length === 0) continue;
     const first = dateMonthIndex(entry.date) - start;
+    for (let k = 0; k < keys.length; k++) amounts[k] = checkedAmount(entry, keys[k]!);
+    const home = entry.source === 'home';
     for (const { offset, fraction } of shares) {
-      const slot = result[first + offset];
+      const slot = slots[first + offset];
       if (!slot) continue; // eaten outside the report's range
-      for (const key of keys) addEntryPart(slot.sums[key], entry, key, fraction);
+      const grams = entry.edibleGrams * fraction;
+      for (let k = 0; k < keys.length; k++) {
+        const sums = slot[k]!;
+        const amount = amounts[k];
+        // As addEntryPart: a null or missing value adds its grams to the unknown weight, never zero to the sum.
+        if (home) {
+          if (amount == null) sums.homeUnknownGrams += grams;
+          else {
+            sums.home += amount * fraction;
+            sums.homeKnownGrams += grams;
+          }
+        } else if (amount == null) sums.boughtUnknownGrams += grams;
+        else {
+          sums.bought += amount * fraction;
+          sums.boughtKnownGrams += grams;
+        }
+      }
     }
   }
   return result;

@@ -15,6 +15,8 @@ export interface CsvExportOptions {
   delimiter?: CsvDelimiter;
   /** Start with a UTF-8 byte-order mark so spreadsheet programs read accents right (default true). */
   bom?: boolean;
+  /** Write the header line (default true); false for the later parts of a file written part by part. */
+  header?: boolean;
 }
 
 type Cell = string | number | boolean | null | undefined;
@@ -44,10 +46,10 @@ export function toCsv(columns: readonly string[], rows: readonly (readonly Cell[
   const delimiter = options.delimiter ?? ',';
   const text = Papa.unparse(
     { fields: [...columns], data: rows.map((r) => r.map((c) => cellText(c, delimiter))) },
-    { delimiter, newline: '\r\n', escapeFormulae: /^[=+\-@\t\r]/ },
+    { delimiter, newline: '\r\n', escapeFormulae: /^[=+\-@\t\r]/, header: options.header ?? true },
   );
   // Every line, the last included, ends with CRLF (papaparse leaves the last one open unless no rows).
-  const lines = `${text.replace(/\r\n$/, '')}\r\n`;
+  const lines = text === '' ? '' : `${text.replace(/\r\n$/, '')}\r\n`;
   return (options.bom ?? true) ? `\uFEFF${lines}` : lines;
 }
 

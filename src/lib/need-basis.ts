@@ -5,10 +5,9 @@
  * low end of the AMDR. The dashboard labels the need with this, and says 'mixed' when the people
  * at home rest on different kinds of value (a baby's AI beside the parents' RDA).
  */
-import { eatsHouseholdFood, type Person } from './needs';
+import { eatsHouseholdFood, stageDailyNeeds, type NeedMemo, type Person } from './needs';
 import { lifeStageIn } from './life-stage';
 import type { NutrientKey } from './nutrients';
-import { dailyNeed } from './requirements';
 
 export type NeedBasis = 'RDA' | 'AI' | 'AMDR' | 'EER' | 'mixed';
 
@@ -18,15 +17,15 @@ export type NeedBasis = 'RDA' | 'AI' | 'AMDR' | 'EER' | 'mixed';
  * nobody at home has a value (or nobody is at home),
  * e.g. needBasis([{ sex: 'female', ageYears: 30 }], ['2026-05'], ['iron_mg', 'vitamin_k_ug']) → { iron_mg: 'RDA', vitamin_k_ug: 'AI' }.
  */
-export function needBasis<K extends NutrientKey>(people: readonly Person[], months: readonly string[], keys: readonly K[]): Record<K, NeedBasis | null> {
+export function needBasis<K extends NutrientKey>(people: readonly Person[], months: readonly string[], keys: readonly K[], memo?: NeedMemo): Record<K, NeedBasis | null> {
   const seen = {} as Record<K, Set<Exclude<NeedBasis, 'mixed'>>>;
   for (const key of keys) seen[key] = new Set();
   for (const month of months) {
     for (const person of people) {
       if (!eatsHouseholdFood(person, month)) continue;
-      const who = { ...person, ...lifeStageIn(person, month)! };
+      const known = stageDailyNeeds(person, lifeStageIn(person, month)!, keys, memo);
       for (const key of keys) {
-        const need = dailyNeed(who, key);
+        const need = known.get(key);
         if (need) seen[key].add(need.basis === 'stated' ? 'EER' : need.basis);
       }
     }

@@ -9,10 +9,10 @@
  * infant's fibre is "not determined") adds nothing for it rather than making the household's need
  * unknown; the need is unknown only when nobody at home that month has a value.
  */
-import { ageYearsIn, lifeStageIn, type DatedPerson } from './life-stage';
+import { ageYearsIn, lifeStageIn, type DatedPerson, type LifeStage } from './life-stage';
 import { daysInMonth, overlapDays } from './months';
 import type { NutrientKey } from './nutrients';
-import { dailyNeed, type RequirementPerson } from './requirements';
+import { dailyNeed, type DailyNeed, type RequirementPerson } from './requirements';
 
 /** A person who eats in the household. */
 export interface Person extends Omit<RequirementPerson, 'ageYears'>, DatedPerson {
@@ -71,14 +71,48 @@ export function eatsHouseholdFood(person: Person, month: string): boolean {
 
 type PersonMonthNeed = { need: number; low: number; high: number | null } | null;
 
-function personMonthDetails<K extends NutrientKey>(person: Person, month: string, keys: readonly K[]): Record<K, PersonMonthNeed> | 'absent' {
+/**
+ * Daily needs already worked out, by person and life stage: a report asks for the same person at
+ * the same stage month after month, so monthlyNeedDetails can take one memo for all its months.
+ */
+export type NeedMemo = WeakMap<Person, Map<string, Map<NutrientKey, DailyNeed | null>>>;
+
+/** A fresh memo for one run of months, e.g. monthlyNeedDetails(people, month, keys, memo) for each month of a report. */
+export function needMemo(): NeedMemo {
+  return new WeakMap();
+}
+
+function stageNeeds(memo: NeedMemo | undefined, person: Person, stage: LifeStage): Map<NutrientKey, DailyNeed | null> {
+  if (!memo) return new Map();
+  let byStage = memo.get(person);
+  if (!byStage) memo.set(person, (byStage = new Map()));
+  const key = `${stage.ageYears}|${stage.condition}|${stage.trimester}|${stage.lactationPeriod}`;
+  let needs = byStage.get(key);
+  if (!needs) byStage.set(key, (needs = new Map()));
+  return needs;
+}
+
+/**
+ * A person's daily needs at a life stage (dailyNeed per key), from the memo when it has them,
+ * e.g. stageDailyNeeds(person, lifeStageIn(person, '2026-03')!, ['protein_g'], memo).get('protein_g')?.value.
+ */
+export function stageDailyNeeds(person: Person, stage: LifeStage, keys: readonly NutrientKey[], memo?: NeedMemo): Map<NutrientKey, DailyNeed | null> {
+  const known = stageNeeds(memo, person, stage);
+  let who: RequirementPerson | null = null;
+  for (const key of keys) {
+    if (!known.has(key)) known.set(key, dailyNeed((who ??= { ...person, ...stage } as RequirementPerson), key));
+  }
+  return known;
+}
+
+function personMonthDetails<K extends NutrientKey>(person: Person, month: string, keys: readonly K[], memo?: NeedMemo): Record<K, PersonMonthNeed> | 'absent' {
   if (!eatsHouseholdFood(person, month)) return 'absent';
   const stage = lifeStageIn(person, month)!;
   const days = homeDays(person, month);
-  const who: RequirementPerson = { ...person, ...stage };
+  const known = stageDailyNeeds(person, stage, keys, memo);
   const out = {} as Record<K, PersonMonthNeed>;
   for (const key of keys) {
-    const need = dailyNeed(who, key);
+    const need = known.get(key)!;
     out[key] = need === null ? null : { need: need.value * days, low: (need.range?.low ?? need.value) * days, high: need.range ? need.range.high * days : null };
   }
   return out;
@@ -105,9 +139,9 @@ export function personMonthNeeds<K extends NutrientKey>(person: Person, month: s
  * e.g. monthlyNeedDetails([{ sex: 'male', ageYears: 30, kcalPerDay: 2000 }], '2026-04', ['fat_g']).fat_g
  * → { need: 1333.3, needLow: 1333.3, needHigh: 2333.3, peopleWithoutValue: 0 } (20–35 % of 2000 kcal at 9 kcal/g × 30 days).
  */
-export function monthlyNeedDetails<K extends NutrientKey>(people: readonly Person[], month: string, keys: readonly K[]): Record<K, MonthNeed> {
+export function monthlyNeedDetails<K extends NutrientKey>(people: readonly Person[], month: string, keys: readonly K[], memo?: NeedMemo): Record<K, MonthNeed> {
   daysInMonth(month); // validates the month even for an empty household
-  const perPerson = people.map((person) => personMonthDetails(person, month, keys)).filter((d) => d !== 'absent');
+  const perPerson = people.map((person) => personMonthDetails(person, month, keys, memo)).filter((d) => d !== 'absent');
   const out = {} as Record<K, MonthNeed>;
   for (const key of keys) {
     const known = perPerson.map((d) => d[key]).filter((n) => n !== null);

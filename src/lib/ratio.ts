@@ -9,7 +9,7 @@
  * FAO states the ratio in percent: ssrPercent returns that; ssrFraction the same ÷ 100, which is
  * what computeShare's `ratio` holds so that every share in the report is a fraction.
  */
-import { listMonths, monthOf } from './months';
+import { listMonths, monthIndex, parseDate } from './months';
 import type { FoodEntry } from './allocate';
 import type { NutrientKey } from './nutrients';
 
@@ -74,17 +74,21 @@ export function selfSufficiency<K extends NutrientKey>(
   entries: readonly FoodEntry[],
   { from, to, keys }: { from: string; to: string; keys: readonly K[] },
 ): Record<K, SelfSufficiency> {
-  const inRange = new Set(listMonths(from, to));
+  listMonths(from, to); // checks the range
+  const [start, end] = [monthIndex(from), monthIndex(to)];
   const flows = new Map<K, { production: Flow; imports: Flow; exports: Flow }>();
   for (const key of keys) flows.set(key, { production: flow(), imports: flow(), exports: flow() });
+  const byKey = keys.map((key) => flows.get(key)!);
   for (const entry of entries) {
-    if (!inRange.has(monthOf(entry.date))) continue;
+    const { year, month } = parseDate(entry.date);
+    const index = year * 12 + month - 1;
+    if (index < start || index > end) continue;
     if (!Number.isFinite(entry.edibleGrams) || entry.edibleGrams < 0) {
       throw new RangeError(`edible grams must be a number ≥ 0, got ${entry.edibleGrams}`);
     }
-    for (const key of keys) {
-      const f = flows.get(key)!;
-      const amount = entry.nutrients[key];
+    for (let k = 0; k < keys.length; k++) {
+      const f = byKey[k]!;
+      const amount = entry.nutrients[keys[k]!];
       add(entry.source === 'home' ? f.production : f.imports, amount, entry.edibleGrams);
       if (entry.use === 'sold' || entry.use === 'given') add(f.exports, amount, entry.edibleGrams);
     }

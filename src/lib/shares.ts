@@ -14,7 +14,7 @@
 import { addSums, allocate, emptySums, fractionEatenIn, isEaten, type FoodEntry, type NutrientSums } from './allocate';
 import { needBasis, type NeedBasis } from './need-basis';
 import { daysInMonth, listMonths } from './months';
-import { monthlyNeedDetails, type MonthNeed, type Person } from './needs';
+import { monthlyNeedDetails, needMemo, type MonthNeed, type Person } from './needs';
 import { SHARE_NUTRIENTS, nutrientDef, type NutrientKey, type ShareNutrientKey } from './nutrients';
 import { selfSufficiency } from './ratio';
 import { isBeforeRecords, isFutureMonth } from './records-start';
@@ -183,6 +183,7 @@ export function computeShare<K extends NutrientKey = ShareNutrientKey>(input: Sh
   // Energy is always counted: the intake check rests on it.
   const allocKeys = keys.includes('energy_kcal' as K) ? keys : [...keys, 'energy_kcal' as K];
   const allocation = allocate(entries, { from, to, keys: allocKeys });
+  const memo = needMemo();
 
   const total = {} as Record<K, Running>;
   const headline = {} as Record<K, Running>;
@@ -196,7 +197,7 @@ export function computeShare<K extends NutrientKey = ShareNutrientKey>(input: Sh
   const months = allocation.map(({ month, sums }) => {
     const beforeRecords = isBeforeRecords(month, recordsSince);
     const future = isFutureMonth(month, currentMonth);
-    const needs = monthlyNeedDetails(people, month, allocKeys);
+    const needs = monthlyNeedDetails(people, month, allocKeys, memo);
     const values = {} as Record<K, ShareValue>;
     for (const key of allocKeys) {
       const need = beforeRecords ? { need: null, needLow: null, needHigh: null, peopleWithoutValue: 0 } : needs[key];
@@ -237,7 +238,7 @@ export function computeShare<K extends NutrientKey = ShareNutrientKey>(input: Sh
     nutrients,
     months,
     total: { values: totalValues },
-    needBasis: needBasis(people, counted, keys),
+    needBasis: needBasis(people, counted, keys, memo),
     headline: headlineList.length === 0 ? null : { from: headlineList[0]!, to: headlineList[headlineList.length - 1]!, values: headlineValues },
     intake: {
       loggedEnergyShareOfNeed,
@@ -272,16 +273,19 @@ export function topContributors(
   key: NutrientKey,
   n: number,
   range?: { from: string; to: string },
+  /** The share of each entry eaten in `range`, when the caller has them already (one per entry). */
+  fractions?: readonly number[],
 ): Contributor[] {
   if (!Number.isInteger(n) || n < 0) throw new RangeError(`n must be a whole number ≥ 0, got ${n}`);
   const byCrop = new Map<string | number, { name: string; amount: number }>();
   let total = 0;
-  for (const entry of entries) {
+  for (let i = 0; i < entries.length; i++) {
+    const entry = entries[i]!;
     if (entry.source !== 'home' || !isEaten(entry.use)) continue;
     const amount = entry.nutrients[key];
     if (amount == null) continue; // unknown: cannot rank
     // By day, like allocate(): a lot stored on 30 November counts one day's share in November.
-    const fraction = range ? fractionEatenIn(entry, range) : 1;
+    const fraction = fractions ? fractions[i]! : range ? fractionEatenIn(entry, range) : 1;
     const eaten = amount * fraction;
     if (eaten <= 0) continue;
     const crop = byCrop.get(entry.cropId) ?? { name: entry.name, amount: 0 };

@@ -3,7 +3,8 @@
  * topContributors() ranking of shares.ts for every share nutrient, joined into one list of crops
  * with each one's amount and share of home for every nutrient, so the dashboard shows one table.
  */
-import { fractionEatenIn } from './allocate';
+import { fractionEatenBetween, isEaten } from './allocate';
+import { monthIndex } from './months';
 import { SHARE_NUTRIENTS, type ShareNutrientKey } from './nutrients';
 import { contributorId, groupEntry, type ShareGroup } from './share-groups';
 import type { TopCrop } from './share-types';
@@ -21,10 +22,13 @@ export const TOP_CROPS_PER_NUTRIENT = 5;
 export function topCrops(groups: readonly ShareGroup[], from: string, to: string): TopCrop[] {
   const home = groups.filter((g) => g.source === 'home');
   const entries = home.map(groupEntry);
+  // Each group's share eaten in the range, worked out once for all the nutrients.
+  const [start, end] = [monthIndex(from), monthIndex(to)];
+  const fractions = entries.map((e) => (isEaten(e.use) ? fractionEatenBetween(e, start, end) : 0));
   const crops = new Map<string | number, TopCrop>();
   const chosen = new Set<string | number>();
   for (const key of SHARE_NUTRIENTS) {
-    const ranked = topContributors(entries, key, entries.length, { from, to });
+    const ranked = topContributors(entries, key, entries.length, { from, to }, fractions);
     ranked.forEach((c, i) => {
       let crop = crops.get(c.cropId);
       if (!crop) {
@@ -38,17 +42,16 @@ export function topCrops(groups: readonly ShareGroup[], from: string, to: string
     });
   }
   // A crop eaten in the range whose food has no value for a nutrient: unknown, not 0.
-  for (const e of entries) {
+  entries.forEach((e, i) => {
     const crop = crops.get(e.cropId);
-    if (!crop) continue;
-    if (fractionEatenIn(e, { from, to }) === 0) continue;
+    if (!crop || fractions[i] === 0) return;
     for (const key of SHARE_NUTRIENTS) {
       if (e.nutrients[key] == null && crop.values[key] === 0) {
         crop.values[key] = null;
         crop.shareOfHome[key] = null;
       }
     }
-  }
+  });
   return [...crops.entries()]
     .filter(([id]) => chosen.has(id))
     .map(([, c]) => c)

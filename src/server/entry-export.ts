@@ -3,7 +3,7 @@
  * bought food in exactly the importer's columns, so an export re-imports to the same entries), and
  * the whole household as one JSON backup. Every query is scoped by the household id.
  */
-import { asc, eq } from 'drizzle-orm';
+import { and, asc, eq, gt, or } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { foods, harvests, people, purchases, type Household } from '@/db/schema';
 import type { CsvDelimiter } from '@/lib/csv-import';
@@ -41,50 +41,97 @@ async function foodCodes(householdId: number, table: 'harvests' | 'purchases'): 
   return new Map(rows.map((r) => [r.id, r.code]));
 }
 
-/** The harvest log as CSV, oldest first. Example: `(await harvestsCsv(7)).split('\r\n')[0]` → '\uFEFFdate,crop,variety,…' */
-export async function harvestsCsv(householdId: number, delimiter: CsvDelimiter = ','): Promise<string> {
+/** Rows read and written per part of a streamed export: the whole log never sits in memory at once. */
+const PAGE_ROWS = 2000;
+
+/**
+ * The rows of one household's harvests or purchases, oldest first, a page at a time (keyset on
+ * date and id along the household's date index, so each page costs the same).
+ */
+async function* pages<T extends typeof harvests | typeof purchases>(table: T, householdId: number): AsyncGenerator<T['$inferSelect'][]> {
+  let after: { date: string; id: number } | null = null;
+  for (;;) {
+    const next = after ? or(gt(table.date, after.date), and(eq(table.date, after.date), gt(table.id, after.id))) : undefined;
+    const rows = (await getDb()
+      .select()
+      .from(table as typeof harvests)
+      .where(and(eq(table.householdId, householdId), next))
+      .orderBy(asc(table.date), asc(table.id))
+      .limit(PAGE_ROWS)) as T['$inferSelect'][];
+    if (rows.length === 0) return;
+    yield rows;
+    const last = rows[rows.length - 1]!;
+    after = { date: last.date, id: last.id };
+  }
+}
+
+/** The harvest log as CSV text in parts (the first with the BOM and header), oldest first. */
+export async function* harvestsCsvParts(householdId: number, delimiter: CsvDelimiter = ','): AsyncGenerator<string> {
   const db = getDb();
-  const rows = await db.select().from(harvests).where(eq(harvests.householdId, householdId)).orderBy(asc(harvests.date), asc(harvests.id));
   const cropsById = new Map((await cropRows(db, householdId)).map((c) => [c.id, c]));
   const codes = await foodCodes(householdId, 'harvests');
   const lookups: ExportLookups = { crop: (id) => cropsById.get(id), foodCode: (id) => codes.get(id) };
-  const records = rows.map((h) => {
-    // A harvest of a crop is written by the crop's name; only a harvest without one names its food.
-    const entry = {
-      date: h.date,
-      ...(h.cropId !== null ? { cropId: h.cropId } : { foodId: h.foodId ?? undefined }),
-      quantity: h.quantity,
-      unit: h.unit,
-      use: h.use,
-      spreadMonths: h.spreadMonths,
-      ...(h.preserveMethod !== null ? { preserveMethod: h.preserveMethod } : {}),
-      trimmed: h.trimmed,
-      ...(h.note !== null ? { note: h.note } : {}),
-    } as HarvestInput;
-    return harvestRecord(entry, lookups);
-  });
-  return harvestsToCsv(records, { delimiter });
+  let first = true;
+  for await (const rows of pages(harvests, householdId)) {
+    const records = rows.map((h) => {
+      // A harvest of a crop is written by the crop's name; only a harvest without one names its food.
+      const entry = {
+        date: h.date,
+        ...(h.cropId !== null ? { cropId: h.cropId } : { foodId: h.foodId ?? undefined }),
+        quantity: h.quantity,
+        unit: h.unit,
+        use: h.use,
+        spreadMonths: h.spreadMonths,
+        ...(h.preserveMethod !== null ? { preserveMethod: h.preserveMethod } : {}),
+        trimmed: h.trimmed,
+        ...(h.note !== null ? { note: h.note } : {}),
+      } as HarvestInput;
+      return harvestRecord(entry, lookups);
+    });
+    yield harvestsToCsv(records, { delimiter, bom: first, header: first });
+    first = false;
+  }
+  if (first) yield harvestsToCsv([], { delimiter });
 }
 
-/** Bought food as CSV, oldest first. */
-export async function purchasesCsv(householdId: number, delimiter: CsvDelimiter = ','): Promise<string> {
-  const rows = await getDb().select().from(purchases).where(eq(purchases.householdId, householdId)).orderBy(asc(purchases.date), asc(purchases.id));
+/** Bought food as CSV text in parts, oldest first. */
+export async function* purchasesCsvParts(householdId: number, delimiter: CsvDelimiter = ','): AsyncGenerator<string> {
   const codes = await foodCodes(householdId, 'purchases');
-  const records = rows.map((p) => {
-    const entry: PurchaseInput = {
-      date: p.date,
-      foodId: p.foodId,
-      quantity: p.quantity,
-      unit: p.unit,
-      ...(p.price !== null ? { price: Number(p.price) } : {}),
-      ...(p.currency !== null ? { currency: p.currency } : {}),
-      spreadMonths: p.spreadMonths,
-      trimmed: p.trimmed,
-      ...(p.note !== null ? { note: p.note } : {}),
-    };
-    return purchaseRecord(entry, { foodCode: (id) => codes.get(id) });
+  let first = true;
+  for await (const rows of pages(purchases, householdId)) {
+    const records = rows.map((p) => {
+      const entry: PurchaseInput = {
+        date: p.date,
+        foodId: p.foodId,
+        quantity: p.quantity,
+        unit: p.unit,
+        ...(p.price !== null ? { price: Number(p.price) } : {}),
+        ...(p.currency !== null ? { currency: p.currency } : {}),
+        spreadMonths: p.spreadMonths,
+        trimmed: p.trimmed,
+        ...(p.note !== null ? { note: p.note } : {}),
+      };
+      return purchaseRecord(entry, { foodCode: (id) => codes.get(id) });
+    });
+    yield purchasesToCsv(records, { delimiter, bom: first, header: first });
+    first = false;
+  }
+  if (first) yield purchasesToCsv([], { delimiter });
+}
+
+/** Parts of text as a byte stream, read one part ahead of the client at most. */
+function streamOf(parts: AsyncGenerator<string>): ReadableStream<Uint8Array> {
+  const utf8 = new TextEncoder();
+  return new ReadableStream({
+    async pull(controller) {
+      const next = await parts.next();
+      if (next.done) controller.close();
+      else controller.enqueue(utf8.encode(next.value));
+    },
+    async cancel() {
+      await parts.return(undefined);
+    },
   });
-  return purchasesToCsv(records, { delimiter });
 }
 
 /** The crop catalogue as CSV, archived crops included. */
@@ -155,14 +202,14 @@ export function exportFileName(household: Household, file: ExportFile): string {
   return `${slug}-${base}-${todayIn(household.timezone)}.${ext}`;
 }
 
-/** The body and content type of one export file. */
-export async function exportFile(household: Household, file: ExportFile, delimiter: CsvDelimiter = ','): Promise<{ body: string; contentType: string }> {
-  const csv = (body: string) => ({ body, contentType: 'text/csv; charset=utf-8' });
+/** The body and content type of one export file; the harvest and purchase logs stream page by page. */
+export async function exportFile(household: Household, file: ExportFile, delimiter: CsvDelimiter = ','): Promise<{ body: string | ReadableStream<Uint8Array>; contentType: string }> {
+  const csv = (body: string | ReadableStream<Uint8Array>) => ({ body, contentType: 'text/csv; charset=utf-8' });
   switch (file) {
     case 'harvests.csv':
-      return csv(await harvestsCsv(household.id, delimiter));
+      return csv(streamOf(harvestsCsvParts(household.id, delimiter)));
     case 'purchases.csv':
-      return csv(await purchasesCsv(household.id, delimiter));
+      return csv(streamOf(purchasesCsvParts(household.id, delimiter)));
     case 'crops.csv':
       return csv(await cropsCsv(household.id, delimiter));
     case 'people.csv':

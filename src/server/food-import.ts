@@ -2,15 +2,16 @@
  * Loads a food composition dataset into MariaDB in one transaction. Re-running it updates foods in
  * place (their ids stay, so crops and entries that point at them keep working) and replaces their
  * nutrient amounts and household weights: never duplicates. Statements go through Drizzle's builder
- * except the bulk load of nutrient amounts and the joined deletes, each marked where it stays raw.
+ * except the joined deletes (marked where they stay raw); the nutrient amounts go in with one bulk load.
  */
 import { eq, sql } from 'drizzle-orm';
 import { drizzle } from 'drizzle-orm/mysql2';
-import type { Pool, PoolConnection } from 'mysql2/promise';
+import type { Pool } from 'mysql2/promise';
 import type { Db } from '@/db/client';
 import * as schema from '@/db/schema';
-import { datasetReleases, datasets, foodWeights, foods as foodsTable, nutrients } from '@/db/schema';
+import { datasetReleases, datasets, foodNutrients, foodWeights, foods as foodsTable, nutrients } from '@/db/schema';
 import { NUTRIENTS } from '@/lib/nutrients';
+import { loadRows } from './bulk-load';
 import { dbOn } from './db-on';
 
 export interface DatasetInfo {
@@ -46,18 +47,6 @@ export interface ImportResult {
 }
 
 const CHUNK = 1000;
-
-async function insertChunks(
-  conn: PoolConnection,
-  statement: string,
-  rows: unknown[][],
-  progress?: (done: number) => void,
-): Promise<void> {
-  for (let i = 0; i < rows.length; i += CHUNK) {
-    await conn.query(statement, [rows.slice(i, i + CHUNK)]);
-    progress?.(Math.min(i + CHUNK, rows.length));
-  }
-}
 
 /** Writes the nutrient definitions from src/lib/nutrients.ts (idempotent). */
 export async function syncNutrients(db: Db): Promise<void> {
@@ -125,7 +114,8 @@ export async function importDataset(
     await db
       .insert(datasets)
       .values(dataset)
-      .onDuplicateKeyUpdate({ set: { ...changed, importedAt: sql`CURRENT_TIMESTAMP` } });
+      // A new revision voids the stored share answers resting on the old amounts (share-cache.ts).
+      .onDuplicateKeyUpdate({ set: { ...changed, revision: sql`${datasets.revision} + 1`, importedAt: sql`CURRENT_TIMESTAMP` } });
     const id = await datasetId(db, info.slug);
 
     log(`  foods 0/${foods.length}`);
@@ -162,15 +152,9 @@ export async function importDataset(
     await conn.query('DELETE fn FROM food_nutrients fn JOIN foods f ON f.id = fn.food_id WHERE f.dataset_id = ?', [id]);
     await conn.query('DELETE w FROM food_weights w JOIN foods f ON f.id = w.food_id WHERE f.dataset_id = ?', [id]);
     log(`  nutrient amounts 0/${amounts.length}`);
-    // Raw bulk insert: about 260,000 rows, where mysql2's nested-array VALUES ? is the fast path.
-    await insertChunks(
-      conn,
-      'INSERT INTO food_nutrients (food_id, nutrient_key, amount) VALUES ?',
-      amounts.map((a) => [idByCode.get(a.code), a.key, a.amount]),
-      (n) => {
-        if (n % 50_000 < CHUNK || n === amounts.length) log(`  nutrient amounts ${n}/${amounts.length}`);
-      },
-    );
+    // About 260,000 rows: one LOAD DATA LOCAL INFILE from memory, the database's own bulk path (bulk-load.ts).
+    await loadRows(db, foodNutrients, amounts.map((a) => ({ foodId: idByCode.get(a.code)!, nutrientKey: a.key, amount: a.amount })));
+    log(`  nutrient amounts ${amounts.length}`);
     const weightRows = foods.flatMap((f) => f.weights.map((w, i) => ({ foodId: idByCode.get(f.code)!, seq: i + 1, description: w.description.slice(0, 200), grams: w.grams })));
     for (let i = 0; i < weightRows.length; i += CHUNK) await db.insert(foodWeights).values(weightRows.slice(i, i + CHUNK));
     log(`  household weights ${weightRows.length}`);

@@ -23,6 +23,11 @@ export function json(body: unknown, status = 200, headers: Record<string, string
   });
 }
 
+/** An answer whose JSON text is already written (a stored answer), sent as it is. */
+export function jsonText(text: string, status = 200): Response {
+  return new Response(text, { status, headers: { 'content-type': 'application/json; charset=utf-8', 'cache-control': 'no-store' } });
+}
+
 export function errorResponse(status: number, code: string, message: string, fields?: Record<string, string>): Response {
   return json({ error: { code, message, ...(fields ? { fields } : {}) } }, status);
 }

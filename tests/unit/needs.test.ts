@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { ageInMonth, homeDays, monthlyNeeds, personMonthNeeds } from '@/lib/needs';
+import { ageInMonth, homeDays, monthlyNeedDetails, monthlyNeeds, needMemo, personMonthNeeds } from '@/lib/needs';
 
 describe('monthly need', () => {
   it('is the daily need times the days of the month', () => {
@@ -50,5 +50,22 @@ describe('monthly need', () => {
   it('refuses a person without an age and an out-of-range home share', () => {
     expect(() => homeDays({ sex: 'female' }, '2026-01')).toThrow(/ageYears or birthYear/);
     expect(() => homeDays({ sex: 'female', ageYears: 30, atHomePct: 120 }, '2026-01')).toThrow(/atHomePct/);
+  });
+});
+
+describe('the need memo of a report', () => {
+  it('gives every month the same need as working each month out alone', () => {
+    // A boy turning 9 in May 2026 changes DRI group (4–8 → 9–13 y), a pregnancy runs its trimesters:
+    // the memo must keep each life stage apart.
+    const people = [
+      { sex: 'male', birthMonth: '2017-05', activity: 'active' },
+      { sex: 'female', ageYears: 31, pregnancyDueMonth: '2026-08', weightKg: 60 },
+      { sex: 'male', ageYears: 70, kcalPerDay: 2100, atHomePct: 80 },
+    ] as const;
+    const keys = ['energy_kcal', 'protein_g', 'iron_mg', 'fat_g', 'vitamin_c_mg'] as const;
+    const memo = needMemo();
+    for (const month of ['2025-09', '2025-12', '2026-01', '2026-04', '2026-05', '2026-06', '2026-08', '2026-09']) {
+      expect(monthlyNeedDetails(people, month, keys, memo)).toEqual(monthlyNeedDetails(people, month, keys));
+    }
   });
 });

@@ -6,6 +6,7 @@
  * of that energy, in bulk buys spread over the months they last, milk weekly, and a few fixed buys.
  */
 import { edibleGrams } from '@/lib/edible';
+import { addDays } from '@/lib/growing-season';
 import { addMonths, daysInMonth, listMonths } from '@/lib/months';
 import { toGrams } from '@/lib/units';
 import { DEMO_STAPLES, type BoughtStaple } from './demo-catalogue';
@@ -25,6 +26,8 @@ export interface PurchasePlanInput {
   homeKcal: ReadonlyMap<string, number>;
   foods: ReadonlyMap<string, DemoFood>;
   staples?: readonly BoughtStaple[];
+  /** Shopping trips per purchase (default 1): each buy split into that many on consecutive days. */
+  trips?: number;
 }
 
 function food(foods: ReadonlyMap<string, DemoFood>, code: string): DemoFood {
@@ -48,6 +51,14 @@ function purchase(code: string, f: DemoFood, date: string, kg: number, staple: B
     grams,
     edibleGrams: edibleGrams(grams, { refusePercent: f.refusePct }),
   };
+}
+
+/** One purchase as `trips` equal buys on consecutive days, each rounded as a shop weighs it. */
+function inTrips(p: DemoPurchase, trips: number, foods: ReadonlyMap<string, DemoFood>, staples: readonly BoughtStaple[]): DemoPurchase[] {
+  const staple = staples.find((s) => s.code === p.food)!;
+  const f = food(foods, p.food);
+  const kg = p.grams / 1000 / trips;
+  return Array.from({ length: trips }, (_, i) => purchase(p.food, f, addDays(p.entry.date, i), kg, { ...staple, stepKg: Math.min(staple.stepKg, 0.05) }, p.entry.spreadMonths));
 }
 
 const day = (month: string, d: number) => `${month}-${String(Math.min(d, daysInMonth(month))).padStart(2, '0')}`;
@@ -91,5 +102,8 @@ export function demoPurchases(input: PurchasePlanInput): DemoPurchase[] {
       }
     }
   }
-  return out.filter((p) => p.entry.date <= input.anchor).sort((a, b) => (a.entry.date < b.entry.date ? -1 : a.entry.date > b.entry.date ? 1 : 0));
+  const trips = input.trips ?? 1;
+  if (!Number.isInteger(trips) || trips < 1) throw new Error(`trips must be a whole number from 1, got ${trips}.`);
+  const split = trips === 1 ? out : out.flatMap((p) => inTrips(p, trips, input.foods, staples));
+  return split.filter((p) => p.entry.date <= input.anchor).sort((a, b) => (a.entry.date < b.entry.date ? -1 : a.entry.date > b.entry.date ? 1 : 0));
 }

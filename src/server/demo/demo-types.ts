@@ -37,10 +37,21 @@ export interface DemoOptions {
   people?: readonly PersonInputRaw[];
   hens?: number;
   hives?: number;
+  /**
+   * Sizes for the benchmark's heavy household (defaults keep the demo as it is): `lines` repeats
+   * the beds that many times, each line growing its own variety of every crop; `pickScale` picks
+   * that many times as often; `tripsPerBuy` splits every purchase into that many shopping trips.
+   */
+  lines?: number;
+  pickScale?: number;
+  tripsPerBuy?: number;
 }
 
 export interface DemoCrop {
+  /** The crop's own key (a second line's crops carry the line: 'potatoes~2'). */
   key: string;
+  /** Its row of the reference crop table. */
+  referenceKey: string;
   name: string;
   variety: string;
   code: string;

@@ -27,6 +27,12 @@ import type { DemoBed, DemoCrop, DemoData, DemoFood, DemoHarvest, DemoOptions, D
 
 export const DEFAULT_DEMO_SEED = 20261;
 const MAX_YEARS = 10;
+const MAX_LINES = 4;
+
+/** Keys and names of a line of beds: the first line's are the catalogue's own. */
+function lineOf(line: number): { key: string; name: string } {
+  return line === 1 ? { key: '', name: '' } : { key: `~${line}`, name: ` (line ${line})` };
+}
 
 function tableRow(table: readonly CropTableRow[], key: string): CropTableRow {
   const row = table.find((r) => r.key === key);
@@ -71,15 +77,23 @@ export function generateDemo(options: DemoOptions): DemoData {
   const firstSeason = Number(startMonth.slice(0, 4));
   const lastSeason = Number(anchor.slice(0, 4));
 
+  const lines = options.lines ?? 1;
+  if (!Number.isInteger(lines) || lines < 1 || lines > MAX_LINES) throw new Error(`lines must be a whole number from 1 to ${MAX_LINES}, got ${lines}.`);
+  const pickScale = options.pickScale ?? 1;
+  if (!(pickScale > 0)) throw new Error(`pickScale must be more than 0, got ${pickScale}.`);
+  const lineList = Array.from({ length: lines }, (_, i) => lineOf(i + 1));
+
   const bedSpecs = DEMO_BEDS.slice(0, options.bedCount ?? DEMO_BEDS.length);
-  const beds: DemoBed[] = bedSpecs.map((b) => ({ key: b.key, name: b.name, areaM2: b.areaM2 * areaScale, notes: b.notes }));
+  const beds: DemoBed[] = lineList.flatMap((line) => bedSpecs.map((b) => ({ key: b.key + line.key, name: b.name + line.name, areaM2: b.areaM2 * areaScale, notes: b.notes })));
   const grown = new Set(bedSpecs.flatMap((b) => (b.group ? DEMO_BEDS.filter((g) => g.group === b.group && bedSpecs.includes(g)) : [b]).flatMap((g) => g.plan.map((p) => p.crop))));
   const specs = DEMO_CROPS.filter((c) => grown.has(c.key));
-  const crops: DemoCrop[] = specs.map((c) => {
-    const row = tableRow(cropTable, c.key);
-    foodOf(foods, row.sr28Code);
-    return { key: c.key, name: c.name, variety: c.variety, code: row.sr28Code, category: row.category, edibleFraction: row.edibleFraction, defaultSpreadMonths: c.storedSpread ?? row.defaultSpreadMonths };
-  });
+  const crops: DemoCrop[] = lineList.flatMap((line) =>
+    specs.map((c) => {
+      const row = tableRow(cropTable, c.key);
+      foodOf(foods, row.sr28Code);
+      return { key: c.key + line.key, referenceKey: c.key, name: c.name, variety: c.variety + line.name, code: row.sr28Code, category: row.category, edibleFraction: row.edibleFraction, defaultSpreadMonths: c.storedSpread ?? row.defaultSpreadMonths };
+    }),
+  );
 
   // Every entry from the autumn before the records start up to the anchor.
   const plantings: DemoPlanting[] = [];
@@ -87,16 +101,17 @@ export function generateDemo(options: DemoOptions): DemoData {
   for (let season = firstSeason - 1; season <= lastSeason; season++) {
     const yearRng = streamOf(seed, `season:${season}`);
     const seasonFactor = yearRng.between(0.82, 1.12); // a wet summer, a good one
-    for (const bed of bedSpecs) {
+    for (const line of lineList) for (const bed of bedSpecs) {
       for (const part of planOf(bedSpecs, bed, season - firstSeason)) {
-        const spec = specs.find((c) => c.key === part.crop)!;
+        const base = specs.find((c) => c.key === part.crop)!;
+        const spec = { ...base, key: base.key + line.key, everyDays: base.everyDays && Math.max(1, Math.round(base.everyDays / pickScale)) };
         const row = tableRow(cropTable, part.crop);
         const slot = part.slot ?? 'main';
         const w = slotWindow(harvestWindow(row, season, frost), slot, season);
         const planting: DemoPlanting = {
-          key: `${bed.key}:${part.crop}:${season}`,
-          crop: part.crop,
-          bed: bed.key,
+          key: `${bed.key}${line.key}:${part.crop}:${season}`,
+          crop: spec.key,
+          bed: bed.key + line.key,
           areaM2: part.areaM2 * areaScale,
           seasonYear: season,
           slot,
@@ -135,7 +150,7 @@ export function generateDemo(options: DemoOptions): DemoData {
   const needPeople = people.map((p) => needsPerson(personInput.parse(p)));
   const needKcal = new Map(months.map((m) => [m, monthlyNeeds(needPeople, m, ['energy_kcal']).energy_kcal ?? 0]));
   const homeKcal = eatenByMonth(kept.map((h) => ({ ...h.entry, kcal: (h.edibleGrams / 100) * foods.get(h.food)!.kcalPer100g, eaten: isEatenUse(h.entry.use) })), months);
-  const purchases = demoPurchases({ seed, from: startMonth, anchor, needKcal, homeKcal, foods });
+  const purchases = demoPurchases({ seed, from: startMonth, anchor, needKcal, homeKcal, foods, trips: options.tripsPerBuy });
   const boughtKcal = eatenByMonth(purchases.map((p) => ({ ...p.entry, kcal: (p.edibleGrams / 100) * foods.get(p.food)!.kcalPer100g, eaten: true })), months);
 
   const sum = (xs: number[]) => xs.reduce((a, b) => a + b, 0);

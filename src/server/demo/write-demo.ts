@@ -66,7 +66,7 @@ export async function writeDemo(tx: Tx, data: DemoData, foods: ReadonlyMap<strin
   const crops = new Map<string, { id: number; basis: ReturnType<typeof cropBasis> }>();
   for (const c of data.crops) {
     const f = food(c.code);
-    const row = { householdId, name: c.name, variety: c.variety, foodId: f.id, category: c.category, edibleFraction: c.edibleFraction, defaultSpreadMonths: c.defaultSpreadMonths, notFood: false, referenceKey: c.key };
+    const row = { householdId, name: c.name, variety: c.variety, foodId: f.id, category: c.category, edibleFraction: c.edibleFraction, defaultSpreadMonths: c.defaultSpreadMonths, notFood: false, referenceKey: c.referenceKey };
     const id = (await tx.insert(schema.crops).values(row))[0].insertId;
     crops.set(c.key, { id, basis: cropBasis({ ...row, id }, f) });
   }

@@ -1,21 +1,22 @@
 import { growingYear } from '@/lib/growing-year';
 import { shareQuery } from '@/lib/share-query';
 import { householdRoute } from '@/server/authz';
-import { HttpError, json } from '@/server/http';
+import { HttpError, jsonText } from '@/server/http';
 import { currentMonth } from '@/server/people';
-import { householdShare } from '@/server/share-data';
+import { householdShareJson } from '@/server/share-cache';
 
 /**
  * GET /api/households/{id}/share?from=YYYY-MM&to=YYYY-MM: the home share per month and nutrient,
  * totals, the FAO self-sufficiency ratio, the crops that supplied most and the harvest's uses.
- * Without a range: the household's growing year containing today (in its time zone).
+ * Without a range: the household's growing year containing today (in its time zone). Answers are
+ * stored and sent again until a write changes what they rest on (share-cache.ts).
  */
 export const GET = householdRoute('read', async (ctx, a) => {
   const params = ctx.url.searchParams;
   const q = shareQuery.parse({ from: params.get('from') ?? undefined, to: params.get('to') ?? undefined });
   const range = q.from && q.to ? { from: q.from, to: q.to } : growingYear(currentMonth(a.household.timezone), a.household.yearStartMonth);
   try {
-    return json(await householdShare(a.household, range.from, range.to));
+    return jsonText(await householdShareJson(a.household, range.from, range.to));
   } catch (e) {
     // The pure code refuses what it cannot count (a person older than the tables, …) with a sentence.
     if (e instanceof RangeError) throw new HttpError(422, 'cannot_compute', e.message);

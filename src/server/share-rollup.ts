@@ -1,0 +1,183 @@
+/**
+ * The share report's rollup: harvests and purchases already summed as the report groups them
+ * (harvest_groups, purchase_groups; see src/db/schema.ts), so a report reads a few rows per month
+ * and crop instead of grouping every weighing again. Triggers on the entry tables keep the rollup
+ * in step with every write in the writer's own transaction (drizzle/0009_share_rollup.sql): an
+ * insert adds its entry to its group, a delete takes it off (a group with no entries left goes), an
+ * edit does both, and a lot's first larder record takes it out (the report reads such lots one by
+ * one) until its last record goes.
+ *
+ * `rebuildShareRollup` computes one household's groups again from its raw entries — the
+ * recomputation the tests compare the kept rollup with, and a repair should one ever drift.
+ */
+import { and, eq, gte, inArray, isNotNull, isNull, lte, notExists, or, sql, type SQL } from 'drizzle-orm';
+import type { Db } from '@/db/client';
+import { crops, foods, harvestGroups, harvests, larderOutcomes, purchaseGroups, purchases } from '@/db/schema';
+import { ENTRY_LIMITS } from '@/lib/entry-schemas';
+import { addMonths, daysInMonth } from '@/lib/months';
+import { isPreserveMethod } from '@/lib/retention';
+import type { GroupRow } from '@/lib/share-groups';
+import type { Use } from '@/lib/uses';
+import type { Executor } from './entry-input';
+
+function lastDay(month: string): string {
+  return `${month}-${String(daysInMonth(month)).padStart(2, '0')}`;
+}
+
+/** 'YYYY-MM' → 'YYYYMM', the period format of MariaDB's PERIOD_DIFF. */
+const period = (month: string) => month.replace('-', '');
+
+/** First day of the earliest month whose stored or bought food can still be eaten in `from`. */
+const lookback = (from: string) => `${addMonths(from, -ENTRY_LIMITS.maxSpreadMonths)}-01`;
+
+/** Subtracting an entry from its group can leave a rounding crumb below zero: never a negative weight. */
+const weight = (v: number) => (v > 0 ? v : 0);
+
+/** The group's crop, in the same household (crop 0 = none). */
+const cropOfGroup = () => and(eq(crops.id, harvestGroups.cropId), eq(crops.householdId, harvestGroups.householdId));
+
+/**
+ * Harvest groups whose eating can fall in [from, to] or that are dated in it: dated in the range,
+ * or stored/preserved earlier with a spread reaching `from`. Not-food crops never count as food,
+ * nor a crop of another household. Names: the crop with its variety, else the food.
+ */
+export async function harvestGroupRows(db: Executor, householdId: number, from: string, to: string): Promise<GroupRow[]> {
+  const g = harvestGroups;
+  // A `sql` template naming the schema's columns, its rows read as mysql2 gives them: the report
+  // reads thousands of groups, and mapping each row through the query builder cost more than the query.
+  const [rows] = (await db.execute(sql`
+    SELECT ${g.day} AS date, ${g.use} AS \`use\`, ${g.spread} AS spread, ${g.preserveMethod} AS preserveMethod,
+           ${g.cropId} AS cropId, ${g.foodId} AS foodId,
+           COALESCE(NULLIF(CONCAT_WS(', ', ${crops.name}, NULLIF(${crops.variety}, '')), ''), ${foods.name}) AS name,
+           ${g.grams} AS grams, ${g.edibleGrams} AS edibleGrams, ${g.entries} AS entries
+      FROM ${g}
+      LEFT JOIN ${crops} ON ${cropOfGroup()}
+      LEFT JOIN ${foods} ON ${foods.id} = ${g.foodId}
+     WHERE ${and(
+       eq(g.householdId, householdId),
+       gte(g.day, lookback(from)),
+       lte(g.day, lastDay(to)),
+       or(isNull(crops.id), eq(crops.notFood, false)),
+       or(eq(g.cropId, 0), isNotNull(crops.id)),
+       or(
+         gte(g.day, `${from}-01`),
+         // ≤: a lot spread by day from late in a month reaches one month further than its spread.
+         and(inArray(g.use, ['stored', 'preserved']), sql`PERIOD_DIFF(${period(from)}, DATE_FORMAT(${g.day}, '%Y%m')) <= ${g.spread}`),
+       ),
+     )}`)) as unknown as [RawGroup[]];
+  return rows.map((r) => ({
+    month: r.date.slice(0, 7),
+    date: r.date,
+    use: r.use,
+    spread: r.spread,
+    preserveMethod: isPreserveMethod(r.preserveMethod) ? r.preserveMethod : null,
+    cropId: r.cropId === 0 ? null : r.cropId,
+    foodId: r.foodId === 0 ? null : r.foodId,
+    name: r.name,
+    grams: weight(r.grams),
+    edibleGrams: weight(r.edibleGrams),
+    entries: r.entries,
+  }));
+}
+
+/** A harvest group as mysql2 reads it (DATE as 'YYYY-MM-DD', see src/db/client.ts). */
+interface RawGroup {
+  date: string;
+  use: Use;
+  spread: number;
+  preserveMethod: string;
+  cropId: number;
+  foodId: number;
+  name: string | null;
+  grams: number;
+  edibleGrams: number;
+  entries: number;
+}
+
+/** Purchase groups whose eating can fall in [from, to] (bought food is always spread). */
+export async function purchaseGroupRows(db: Executor, householdId: number, from: string, to: string): Promise<GroupRow[]> {
+  const g = purchaseGroups;
+  const [rows] = (await db.execute(sql`
+    SELECT ${g.day} AS date, ${g.spread} AS spread, ${g.foodId} AS foodId, ${g.grams} AS grams, ${g.edibleGrams} AS edibleGrams, ${g.entries} AS entries
+      FROM ${g}
+     WHERE ${and(
+       eq(g.householdId, householdId),
+       gte(g.day, lookback(from)),
+       lte(g.day, lastDay(to)),
+       or(gte(g.day, `${from}-01`), sql`PERIOD_DIFF(${period(from)}, DATE_FORMAT(${g.day}, '%Y%m')) <= ${g.spread}`),
+     )}`)) as unknown as [Omit<RawGroup, 'use' | 'preserveMethod' | 'cropId' | 'name'>[]];
+  return rows.map((r) => ({
+    month: r.date.slice(0, 7),
+    date: r.date,
+    use: 'fresh',
+    spread: r.spread,
+    cropId: null,
+    foodId: r.foodId,
+    name: null,
+    grams: weight(r.grams),
+    edibleGrams: weight(r.edibleGrams),
+    entries: r.entries,
+  }));
+}
+
+/** A new share version, as the triggers stamp it (drizzle/0009_share_rollup.sql). */
+export const versionStamp = sql`CONCAT(UNIX_TIMESTAMP(NOW(6)), '.', @@server_id, '.', CONNECTION_ID())`;
+
+/** The group day of an entry: its own day for a lot eaten by day, else its month's first day. */
+function groupDay(date: typeof harvests.date | typeof purchases.date, byDay: SQL): SQL<string> {
+  return sql<string>`IF(${byDay}, ${date}, ${date} - INTERVAL (DAYOFMONTH(${date}) - 1) DAY)`;
+}
+
+/**
+ * Rebuilds one household's rollup from its raw entries (the same grouping the triggers keep), in
+ * one transaction that first takes the household's share version row, as every writer does.
+ */
+export async function rebuildShareRollup(db: Db, householdId: number): Promise<void> {
+  await db.transaction(async (tx) => {
+    await tx.execute(sql`INSERT INTO share_versions (household_id, version) VALUES (${householdId}, ${versionStamp}) ON DUPLICATE KEY UPDATE version = VALUES(version)`);
+    await tx.delete(harvestGroups).where(eq(harvestGroups.householdId, householdId));
+    await tx.delete(purchaseGroups).where(eq(purchaseGroups.householdId, householdId));
+    const h = harvests;
+    const hDay = groupDay(h.date, sql`${h.use} IN ('stored', 'preserved') AND ${h.spreadMonths} >= 2`);
+    const hSpread = sql<number>`GREATEST(${h.spreadMonths}, 1)`;
+    const hMethod = sql<string>`COALESCE(${h.preserveMethod}, '')`;
+    const hCrop = sql<number>`COALESCE(${h.cropId}, 0)`;
+    const hFood = sql<number>`COALESCE(${h.foodId}, 0)`;
+    await tx.insert(harvestGroups).select(
+      tx
+        .select({
+          householdId: h.householdId,
+          day: hDay.as('day'),
+          use: h.use,
+          spread: hSpread.as('spread'),
+          preserveMethod: hMethod.as('preserve_method'),
+          cropId: hCrop.as('crop_id'),
+          foodId: hFood.as('food_id'),
+          grams: sql<number>`SUM(${h.grams})`.as('grams'),
+          edibleGrams: sql<number>`SUM(${h.edibleGrams})`.as('edible_grams'),
+          entries: sql<number>`COUNT(*)`.as('entries'),
+        })
+        .from(h)
+        .where(and(eq(h.householdId, householdId), notExists(tx.select({ one: sql`1` }).from(larderOutcomes).where(eq(larderOutcomes.harvestId, h.id)))))
+        .groupBy(h.householdId, hDay, h.use, hSpread, hMethod, hCrop, hFood),
+    );
+    const p = purchases;
+    const pDay = groupDay(p.date, sql`${p.spreadMonths} >= 2`);
+    const pSpread = sql<number>`GREATEST(${p.spreadMonths}, 1)`;
+    await tx.insert(purchaseGroups).select(
+      tx
+        .select({
+          householdId: p.householdId,
+          day: pDay.as('day'),
+          spread: pSpread.as('spread'),
+          foodId: p.foodId,
+          grams: sql<number>`SUM(${p.grams})`.as('grams'),
+          edibleGrams: sql<number>`SUM(${p.edibleGrams})`.as('edible_grams'),
+          entries: sql<number>`COUNT(*)`.as('entries'),
+        })
+        .from(p)
+        .where(eq(p.householdId, householdId))
+        .groupBy(p.householdId, pDay, pSpread, p.foodId),
+    );
+  });
+}
