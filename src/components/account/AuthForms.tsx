@@ -3,12 +3,22 @@
  * react-hook-form form checked with the shared zod rules of src/lib/account-schemas.ts (the ones
  * auth.ts uses) and sends through better-auth's own client (./auth-client.ts).
  */
-import { useState, type ReactNode } from 'react';
+import { useEffect, useState, type ReactNode } from 'react';
 import { forgotPasswordInput, PASSWORD_MIN, resetPasswordInput, signInInput, signUpInput } from '@/lib/account-schemas';
 import { safeNext, withNext } from '@/lib/safe-next';
 import { Field, FormAlert, formMessage, showFieldProblem, showFormMessage, useSchemaForm } from '@/components/forms';
 import { authCall, authClient, tooMany } from './auth-client';
 import { clearRuntimeCaches } from '@/components/app-caches';
+
+/**
+ * False until the island has hydrated. Before that a submit would be the browser's own GET, putting
+ * the password in the address bar and server logs: the buttons stay disabled and the forms say POST.
+ */
+function useHydrated(): boolean {
+  const [hydrated, setHydrated] = useState(false);
+  useEffect(() => setHydrated(true), []);
+  return hydrated;
+}
 
 function OutboxHint({ outbox }: { outbox: boolean }) {
   return outbox ? (
@@ -30,6 +40,7 @@ function SentCard({ title, children, outbox }: { title?: string; children: React
 }
 
 export function SignUpForm({ next, email, outbox }: { next: string | null; email?: string; outbox: boolean }) {
+  const hydrated = useHydrated();
   const form = useSchemaForm(signUpInput, { name: '', email: email ?? '', password: '' });
   const { errors, isSubmitting } = form.formState;
   const [sentTo, setSentTo] = useState<string | null>(null);
@@ -54,14 +65,14 @@ export function SignUpForm({ next, email, outbox }: { next: string | null; email
     );
   }
   return (
-    <form onSubmit={submit} noValidate className="card mt-6 max-w-md" aria-describedby="sign-up-alert">
+    <form method="post" onSubmit={submit} noValidate className="card mt-6 max-w-md" aria-describedby="sign-up-alert">
       <Field id="name" label="Your name" autoComplete="name" registration={form.register('name')} error={errors.name?.message} hint="Shown to the people in your households." />
       <Field id="email" label="E-mail" type="email" inputMode="email" autoComplete="email" defaultValue={email} registration={form.register('email')} error={errors.email?.message} />
       <Field id="password" label="Password" type="password" autoComplete="new-password" registration={form.register('password')} error={errors.password?.message} hint={`At least ${PASSWORD_MIN} characters. A few unrelated words work well.`} />
       <div id="sign-up-alert">
         <FormAlert message={formMessage(form)} />
       </div>
-      <button className="btn-primary mt-6 w-full" type="submit" disabled={isSubmitting}>
+      <button className="btn-primary mt-6 w-full" type="submit" disabled={!hydrated || isSubmitting}>
         {isSubmitting ? 'Creating your account…' : 'Create my account'}
       </button>
       <p className="mt-4 text-center">
@@ -72,6 +83,7 @@ export function SignUpForm({ next, email, outbox }: { next: string | null; email
 }
 
 export function SignInForm({ next, outbox }: { next: string | null; outbox: boolean }) {
+  const hydrated = useHydrated();
   const form = useSchemaForm(signInInput, { email: '', password: '' });
   const { errors, isSubmitting, isSubmitSuccessful } = form.formState;
   const [unverified, setUnverified] = useState(false);
@@ -98,6 +110,7 @@ export function SignInForm({ next, outbox }: { next: string | null; outbox: bool
 
   return (
     <form
+      method="post"
       onSubmit={(e) => {
         setUnverified(false);
         void check(e);
@@ -109,7 +122,7 @@ export function SignInForm({ next, outbox }: { next: string | null; outbox: bool
       <Field id="password" label="Password" type="password" autoComplete="current-password" registration={form.register('password')} error={errors.password?.message} />
       <FormAlert message={formMessage(form)} />
       {unverified ? <OutboxHint outbox={outbox} /> : null}
-      <button className="btn-primary mt-6 w-full" type="submit" disabled={busy}>
+      <button className="btn-primary mt-6 w-full" type="submit" disabled={!hydrated || busy}>
         {busy ? 'Signing in…' : 'Sign in'}
       </button>
       <p className="mt-4 flex flex-wrap justify-between gap-2">
@@ -121,6 +134,7 @@ export function SignInForm({ next, outbox }: { next: string | null; outbox: bool
 }
 
 export function ForgotPasswordForm({ outbox }: { outbox: boolean }) {
+  const hydrated = useHydrated();
   const form = useSchemaForm(forgotPasswordInput, { email: '' });
   const { errors, isSubmitting } = form.formState;
   const [sentTo, setSentTo] = useState<string | null>(null);
@@ -142,10 +156,10 @@ export function ForgotPasswordForm({ outbox }: { outbox: boolean }) {
     );
   }
   return (
-    <form onSubmit={submit} noValidate className="card mt-6 max-w-md">
+    <form method="post" onSubmit={submit} noValidate className="card mt-6 max-w-md">
       <Field id="email" label="E-mail of your account" type="email" inputMode="email" autoComplete="email" registration={form.register('email')} error={errors.email?.message} />
       <FormAlert message={formMessage(form)} />
-      <button className="btn-primary mt-6 w-full" type="submit" disabled={isSubmitting}>
+      <button className="btn-primary mt-6 w-full" type="submit" disabled={!hydrated || isSubmitting}>
         {isSubmitting ? 'Sending…' : 'Send me a link'}
       </button>
     </form>
@@ -153,6 +167,7 @@ export function ForgotPasswordForm({ outbox }: { outbox: boolean }) {
 }
 
 export function ResetPasswordForm({ token }: { token: string }) {
+  const hydrated = useHydrated();
   const form = useSchemaForm(resetPasswordInput, { password: '', confirm: '' });
   const { errors, isSubmitting } = form.formState;
   const [done, setDone] = useState(false);
@@ -174,11 +189,11 @@ export function ResetPasswordForm({ token }: { token: string }) {
     );
   }
   return (
-    <form onSubmit={submit} noValidate className="card mt-6 max-w-md">
+    <form method="post" onSubmit={submit} noValidate className="card mt-6 max-w-md">
       <Field id="password" label="New password" type="password" autoComplete="new-password" registration={form.register('password')} error={errors.password?.message} hint={`At least ${PASSWORD_MIN} characters.`} />
       <Field id="confirm" label="The same password again" type="password" autoComplete="new-password" registration={form.register('confirm')} error={errors.confirm?.message} />
       <FormAlert message={formMessage(form)} />
-      <button className="btn-primary mt-6 w-full" type="submit" disabled={isSubmitting}>
+      <button className="btn-primary mt-6 w-full" type="submit" disabled={!hydrated || isSubmitting}>
         {isSubmitting ? 'Saving…' : 'Set the new password'}
       </button>
       <p className="mt-4">
@@ -190,6 +205,7 @@ export function ResetPasswordForm({ token }: { token: string }) {
 
 /** On /verify after a failed link: sends a fresh verification mail. */
 export function ResendVerification({ next, outbox }: { next: string | null; outbox: boolean }) {
+  const hydrated = useHydrated();
   const form = useSchemaForm(forgotPasswordInput, { email: '' });
   const { errors, isSubmitting } = form.formState;
   const [sent, setSent] = useState(false);
@@ -208,10 +224,10 @@ export function ResendVerification({ next, outbox }: { next: string | null; outb
     );
   }
   return (
-    <form onSubmit={submit} noValidate className="card mt-6 max-w-md">
+    <form method="post" onSubmit={submit} noValidate className="card mt-6 max-w-md">
       <Field id="email" label="Your e-mail" type="email" inputMode="email" autoComplete="email" registration={form.register('email')} error={errors.email?.message} />
       <FormAlert message={formMessage(form)} />
-      <button className="btn-primary mt-6 w-full" type="submit" disabled={isSubmitting}>
+      <button className="btn-primary mt-6 w-full" type="submit" disabled={!hydrated || isSubmitting}>
         {isSubmitting ? 'Sending…' : 'Send a new link'}
       </button>
     </form>
