@@ -18,7 +18,7 @@ import { Alert, ErrorText, invalidProps, useRememberedCurrency, useRememberedUni
 import { CheckCard, NoteField } from './entry-form-fields';
 import { WeightField } from './WeightField';
 import { foodWeighBasis } from './unit-basis';
-import { currencyChoices } from '@/lib/currency';
+import { currencyChoices, currencyForZone } from '@/lib/currency';
 import { parseDecimal } from './quantity-text';
 
 export function PurchaseForm({ household, today, outbox, onSaved }: { household: HouseholdInfo; today: string; outbox: PurchaseOutbox; onSaved: (s: SavedPurchase) => void }) {
@@ -127,7 +127,8 @@ export function PurchaseForm({ household, today, outbox, onSaved }: { household:
             type="text"
             className="field mt-1 uppercase"
             maxLength={3}
-            placeholder="EUR"
+            // Never a currency the household does not use: its own, or the guess from its time zone.
+            placeholder={household.currency ?? currencyForZone(household.timezone) ?? undefined}
             autoCapitalize="characters"
             list="p-currency-codes"
             value={currency}

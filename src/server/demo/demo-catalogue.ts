@@ -14,6 +14,8 @@ export const DEMO_HOUSEHOLD = {
   name: 'Fernhollow Plot (demo)',
   timezone: 'Europe/London',
   units: 'metric' as const,
+  // Its bought food is priced in pounds sterling, so new purchases start there too.
+  currency: 'GBP',
   yearStartMonth: 3,
   // A cool, wet valley: frost until late May, again from late September (invented, for the demo).
   lastSpringFrost: '05-20',

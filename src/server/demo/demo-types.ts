@@ -123,7 +123,7 @@ export interface DemoMonth {
 }
 
 export interface DemoData {
-  household: { name: string; timezone: string; units: 'metric'; yearStartMonth: number; recordsSince: string; lastSpringFrost: string; firstAutumnFrost: string };
+  household: { name: string; timezone: string; units: 'metric'; currency: string; yearStartMonth: number; recordsSince: string; lastSpringFrost: string; firstAutumnFrost: string };
   people: PersonInputRaw[];
   beds: DemoBed[];
   crops: DemoCrop[];
