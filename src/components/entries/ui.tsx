@@ -61,34 +61,31 @@ export function UnitToggle({ name, value, onChange, label = 'Unit' }: { name: st
           onChange={(e) => isEntryUnit(e.target.value) && onChange(e.target.value)}
         >
           <option value="">more units</option>
-          {others.map((g) => (
-            <optgroup key={g.label} label={g.label}>
-              {g.units.map((u) => (
-                <option key={u} value={u}>
-                  {ENTRY_UNIT_NAMES[u]}
-                </option>
-              ))}
-            </optgroup>
-          ))}
+          <UnitOptions groups={others} />
         </select>
       </div>
     </div>
   );
 }
 
+/** One labelled option group per kind of unit (weights, counts, volumes). */
+function UnitOptions({ groups }: { groups: typeof UNIT_GROUPS }) {
+  return groups.map((g) => (
+    <optgroup key={g.label} label={g.label}>
+      {g.units.map((u) => (
+        <option key={u} value={u}>
+          {ENTRY_UNIT_NAMES[u]}
+        </option>
+      ))}
+    </optgroup>
+  ));
+}
+
 /** A compact unit select for edit rows and lists: weights, then counts, then volumes, each group labelled. */
 export function UnitSelect({ id, value, onChange, error }: { id: string; value: EntryUnit; onChange: (u: EntryUnit) => void; error?: string | undefined }) {
   return (
     <select {...invalidProps(id, error)} className="field mt-1" value={value} onChange={(e) => isEntryUnit(e.target.value) && onChange(e.target.value)}>
-      {UNIT_GROUPS.map((g) => (
-        <optgroup key={g.label} label={g.label}>
-          {g.units.map((u) => (
-            <option key={u} value={u}>
-              {ENTRY_UNIT_NAMES[u]}
-            </option>
-          ))}
-        </optgroup>
-      ))}
+      <UnitOptions groups={UNIT_GROUPS} />
     </select>
   );
 }
