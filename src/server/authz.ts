@@ -7,6 +7,7 @@ import { and, eq } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { households, memberships, type Household, type Role } from '@/db/schema';
 import { roleAllows, type Access } from '@/lib/household-schemas';
+import { parseRouteId } from '@/lib/route-id';
 import { HttpError, handle } from './http';
 
 export interface HouseholdAccess {
@@ -26,10 +27,8 @@ export function requireUser(ctx: Pick<APIContext, 'locals'>): { id: string; emai
 
 /** Resolves the household from its id and checks the caller's membership and role. */
 export async function householdAccess(userId: string, householdIdParam: string | undefined, access: Access): Promise<HouseholdAccess> {
-  const id = Number(householdIdParam);
-  if (!Number.isInteger(id) || id <= 0 || String(id) !== householdIdParam) {
-    throw new HttpError(404, 'not_found', 'No such household.');
-  }
+  const id = parseRouteId(householdIdParam);
+  if (id === null) throw new HttpError(404, 'not_found', 'No such household.');
   const rows = await getDb()
     .select({ household: households, role: memberships.role })
     .from(memberships)

@@ -6,6 +6,7 @@
 import type { z } from 'zod';
 import type { Db } from '@/db/client';
 import { zodErrorBody } from '@/lib/error-body';
+import { parseRouteId } from '@/lib/route-id';
 import { HttpError } from './http';
 
 /** A Drizzle transaction (what `db.transaction(fn)` hands to fn). */
@@ -63,10 +64,9 @@ export function isRetryableLock(e: unknown): boolean {
   return code === 'ER_LOCK_DEADLOCK' || code === 'ER_LOCK_WAIT_TIMEOUT';
 }
 
-
 /** A route parameter holding a record id, or a 404 when it is not one. */
 export function idParam(value: string | undefined, what: string): number {
-  const id = Number(value);
-  if (!Number.isSafeInteger(id) || id <= 0 || String(id) !== value) throw new HttpError(404, 'not_found', `No such ${what}.`);
+  const id = parseRouteId(value);
+  if (id === null) throw new HttpError(404, 'not_found', `No such ${what}.`);
   return id;
 }
