@@ -13,6 +13,7 @@ import { account, rateLimit, session, user, verification } from '@/db/schema';
 import { PASSWORD_MAX, PASSWORD_MIN } from '@/lib/account-schemas';
 import { safeNext } from '@/lib/safe-next';
 import { authSecret, publicOrigin, rateLimitRule } from './config';
+import { authAfter, authBefore } from './auth-guards';
 import { linkMail, sendMail } from './mail';
 
 /** The header our auth route sets from the socket's address (never taken from the client). */
@@ -101,6 +102,8 @@ function createAuth() {
       },
     },
     session: { expiresIn: 60 * 60 * 24 * 30, updateAge: 60 * 60 * 24 },
+    // Plain-text names and the per-account sign-in limit (src/server/auth-guards.ts).
+    hooks: { before: authBefore, after: authAfter },
     rateLimit: {
       enabled: true,
       storage: 'database',

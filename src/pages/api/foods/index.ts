@@ -1,12 +1,13 @@
 import type { APIRoute } from 'astro';
 import { z } from 'zod';
 import { getPool } from '@/db/client';
+import { lineText } from '@/lib/text-schemas';
 import { foodsByCode, searchFoods } from '@/server/food-search';
 import { handle, json } from '@/server/http';
 
 const query = z
   .object({
-    q: z.string().trim().min(1).max(100).optional(),
+    q: lineText('The search', 100).min(1).optional(),
     code: z.string().trim().regex(/^[A-Za-z0-9._-]{1,20}$/, 'A food code is 1–20 letters, digits, dots or dashes.').optional(),
     dataset: z.string().trim().regex(/^[a-z0-9-]{1,40}$/).optional(),
     limit: z.coerce.number().int().min(1).max(50).default(20),
