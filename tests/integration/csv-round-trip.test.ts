@@ -41,7 +41,7 @@ describe('CSV round trip of generated entries through the server', () => {
     const raws = fc.sample(
       fc.record({ date: pastDate, crop: fc.nat(crops.length - 1), quantity: messyQuantity, unit: fc.constantFrom(...WEIGHT_UNITS), use: fc.constantFrom(...USES), spreadMonths: fc.integer({ min: 1, max: 24 }), note: messyText() }),
       { numRuns: 40, seed: SEED },
-    ).map(({ crop, spreadMonths, ...r }) => ({ ...r, cropId: crops[crop].id, ...(isSpreadUse(r.use) ? { spreadMonths } : {}) }));
+    ).map(({ crop, spreadMonths, ...r }) => ({ ...r, cropId: crops[crop]!.id, ...(isSpreadUse(r.use) ? { spreadMonths } : {}) }));
 
     let accepted = 0;
     for (const raw of raws) {
