@@ -36,6 +36,10 @@ export default defineConfig({
   // check compares with Astro.url, whose host is "localhost" unless security.allowedDomains is baked
   // into the build, and so refused every same-site DELETE without a body.
   security: { checkOrigin: false },
+  // Astro hashes the scripts it inlines (island runtime, client directives, small page scripts) and
+  // sends them in a Content-Security-Policy header; src/server/middleware/security-headers.ts keeps
+  // those script hashes and writes the app's whole policy around them.
+  experimental: { csp: true },
   server: { host: '127.0.0.1', port: 4321 },
   vite: {
     plugins: [tailwindcss(), bootOnServerStart()],

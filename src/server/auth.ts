@@ -12,7 +12,7 @@ import { getDb } from '@/db/client';
 import { account, rateLimit, session, user, verification } from '@/db/schema';
 import { PASSWORD_MAX, PASSWORD_MIN } from '@/lib/account-schemas';
 import { safeNext } from '@/lib/safe-next';
-import { authSecret, publicOrigin, rateLimitRule } from './config';
+import { authSecret, publicOrigin, rateLimitRule, secureCookies } from './config';
 import { authAfter, authBefore } from './auth-guards';
 import { linkMail, sendMail } from './mail';
 
@@ -120,7 +120,7 @@ function createAuth() {
       cookiePrefix: COOKIE_PREFIX,
       ipAddress: { ipAddressHeaders: [CLIENT_IP_HEADER] },
       defaultCookieAttributes: { httpOnly: true, sameSite: 'lax' },
-      useSecureCookies: publicOrigin().startsWith('https://'),
+      useSecureCookies: secureCookies(),
       database: { generateId: () => crypto.randomUUID() },
     },
   });

@@ -142,6 +142,11 @@ export function publicOrigin(): string {
   return (env.PUBLIC_ORIGIN || `http://${env.HOST}:${env.PORT}`).replace(/\/$/, '');
 }
 
+/** Whether cookies must be Secure: the public origin is https (behind a TLS proxy the socket may be plain http). */
+export function secureCookies(): boolean {
+  return publicOrigin().startsWith('https://');
+}
+
 export function authSecret(): string {
   const env = readEnv();
   const s = env.BETTER_AUTH_SECRET;

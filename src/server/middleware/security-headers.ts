@@ -1,22 +1,33 @@
 /**
- * The headers every answer carries: no MIME sniffing, not framed by other sites, no full referrers
- * sent out. The outermost step, so that the answers of the other steps (a refused cross-site
- * request, the redirect to sign-in) carry them too.
+ * The headers every answer carries (src/lib/security-policy.ts): no MIME sniffing, not framed by
+ * other sites, no full referrers sent out, its own browsing context group, powerful features off,
+ * and a Content-Security-Policy — for pages the app's whole policy around the script hashes Astro
+ * sent (experimental.csp, astro.config.mjs), for anything else one that lets nothing run. Signed-in
+ * pages and every API answer are `Cache-Control: no-store`: household records stay out of shared
+ * and back-button caches. The outermost step, so that the answers of the other steps (a refused
+ * cross-site request, the redirect to sign-in) carry them too. Static files never reach the
+ * middleware: src/server/boot.ts gives them the base headers.
  */
 import { defineMiddleware } from 'astro:middleware';
+import { BASE_SECURITY_HEADERS, NON_PAGE_POLICY, pagePolicy, scriptHashesOf } from '@/lib/security-policy';
 
-export const securityHeaders = defineMiddleware(async (_ctx, next) => withSecurityHeaders(await next()));
+export const securityHeaders = defineMiddleware(async (ctx, next) => {
+  const response = await next();
+  const noStore = ctx.url.pathname.startsWith('/api/') || ctx.locals.user !== null;
+  return withSecurityHeaders(response, { noStore });
+});
 
-/** Adds each header the response does not set itself. */
-export function withSecurityHeaders(response: Response): Response {
+/** Adds each header the response does not set itself; writes the Content-Security-Policy whole. */
+export function withSecurityHeaders(response: Response, opts: { noStore?: boolean } = {}): Response {
+  const h = response.headers;
   const set = (name: string, value: string) => {
-    if (!response.headers.has(name)) response.headers.set(name, value);
+    if (!h.has(name)) h.set(name, value);
   };
   try {
-    set('X-Content-Type-Options', 'nosniff');
-    set('X-Frame-Options', 'SAMEORIGIN');
-    set('Content-Security-Policy', "frame-ancestors 'self'");
-    set('Referrer-Policy', 'strict-origin-when-cross-origin');
+    for (const [name, value] of Object.entries(BASE_SECURITY_HEADERS)) set(name, value);
+    const isPage = (h.get('content-type') ?? '').startsWith('text/html');
+    h.set('Content-Security-Policy', isPage ? pagePolicy(scriptHashesOf(h.get('content-security-policy'))) : NON_PAGE_POLICY);
+    if (opts.noStore) set('Cache-Control', 'no-store');
   } catch {
     // Some responses (e.g. a fetched Response passed through) have immutable headers: leave them.
   }
