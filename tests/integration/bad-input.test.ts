@@ -7,8 +7,8 @@
  * (better-auth's own /api/auth/ routes: `{ code?, message }`); a refused import writes nothing.
  *
  * Like the route matrix, a route file or method without a generator below fails the test: a new
- * route joins GENERATORS with the fields it reads. Runs per route: BAD_INPUT_RUNS (default 12);
- * on failure fast-check prints the seed and the shrunk request.
+ * route joins GENERATORS with the fields it reads. Runs per route: BAD_INPUT_RUNS (default 25);
+ * on failure fast-check prints the seed and the shrunk request; BAD_INPUT_DEBUG=1 prints every answer.
  */
 import { readdirSync } from 'node:fs';
 import { join, relative } from 'node:path';
@@ -26,9 +26,10 @@ import { harvestQuery, purchaseQuery } from '@/lib/list-query-schemas';
 import { messyQuantity, messyText, pastDate } from '../support/arbitraries';
 import { api, BASE_URL, testPool } from '../support/env';
 import { freshLoopbackAddress, requestFrom } from '../support/loopback';
-import { createHousehold, newVerifiedUser, type TestUser } from '../support/users';
+import { foodId } from '../support/entries';
+import { apiAs, createHousehold, newVerifiedUser, type TestUser } from '../support/users';
 
-const RUNS = Number(process.env.BAD_INPUT_RUNS ?? 12);
+const RUNS = Number(process.env.BAD_INPUT_RUNS ?? 25);
 const API_DIR = join(process.cwd(), 'src/pages/api');
 const METHODS = ['GET', 'POST', 'PUT', 'PATCH', 'DELETE', 'ALL'];
 
@@ -76,7 +77,11 @@ function queryOver(fields: readonly string[]): fc.Arbitrary<string> {
   return fc.dictionary(fc.constantFrom(...fields, 'unknown'), value, { maxKeys: fields.length + 1 }).map((d) => new URLSearchParams(d as Record<string, string>).toString());
 }
 
-const junkId = fc.oneof(fc.constantFrom('0x27', '0', '-1', '1.5', '1e3', '99999999999999999999', 'abc', ' 1', '01', '..', 'null', '%00', '999999999'), fc.string({ maxLength: 10 }), fc.nat().map(String));
+// '.' and '..' are left out: they are dot segments, which the URL parser (here fetch) removes before
+// sending — '/api/households/7/harvests/..' is a request to '/api/households/7' itself.
+const junkId = fc
+  .oneof(fc.constantFrom('0x27', '0', '-1', '1.5', '1e3', '99999999999999999999', 'abc', ' 1', '01', '...', 'null', '%00', '999999999'), fc.string({ maxLength: 10 }), fc.nat().map(String))
+  .filter((j) => j !== '.' && j !== '..');
 
 type Body = { kind: 'json'; value: unknown } | { kind: 'raw'; text: string; type: string } | { kind: 'none' };
 interface Request {
@@ -219,7 +224,13 @@ function urlFor(route: string, params: Record<string, string>, query: string): s
 const pool = testPool();
 let owner: TestUser;
 let hid: number;
+/** Ids of the fixture's own records by route parameter name: edits reach their validation with them. */
+const realIds: Record<string, string> = {};
 const counts = { requests: 0, byStatus: new Map<number, number>() };
+
+// Deletions get junk ids only, so the fixture's records stay for the reads and edits that follow.
+const idFor = (name: string, method: string): fc.Arbitrary<string> =>
+  realIds[name] && method !== 'DELETE' ? fc.oneof({ weight: 2, arbitrary: fc.constant(realIds[name]!) }, { weight: 1, arbitrary: junkId }) : junkId;
 
 async function rowsOf(householdId: number): Promise<number> {
   const [rows] = await pool.query('SELECT (SELECT COUNT(*) FROM harvests WHERE household_id = ?) + (SELECT COUNT(*) FROM purchases WHERE household_id = ?) + (SELECT COUNT(*) FROM crops WHERE household_id = ?) AS n', [householdId, householdId, householdId]);
@@ -268,6 +279,19 @@ describe('bad input, generated, on every API route', () => {
     discovered = await discover();
     owner = await newVerifiedUser({ name: 'Fuzzy owner' });
     hid = (await createHousehold(owner.cookie, { name: 'Probed plot' })).id;
+    const potato = await foodId('11352'); // USDA SR28, NDB 11352 "Potatoes, flesh and skin, raw"
+    const made = async (path: string, body: unknown, pick: (b: any) => number) => {
+      const r = await apiAs(owner.cookie, 'POST', `/api/households/${hid}/${path}`, body);
+      if (r.status !== 201) throw new Error(`fixture ${path} answered ${r.status}: ${JSON.stringify(r.body)}`);
+      return String(pick(r.body));
+    };
+    realIds.cropId = await made('crops', { name: 'Potato', category: 'root_tuber', foodId: potato }, (b) => b.crop.id);
+    realIds.harvestId = await made('harvests', { date: '2026-09-01', cropId: Number(realIds.cropId), quantity: 5, unit: 'kg', use: 'stored', spreadMonths: 3 }, (b) => b.harvest.id);
+    realIds.purchaseId = await made('purchases', { date: '2026-09-02', foodId: potato, quantity: 2, unit: 'kg' }, (b) => b.purchase.id);
+    realIds.stapleId = await made('staples', { foodId: potato, quantity: 2, unit: 'kg' }, (b) => b.staple.id);
+    realIds.bedId = await made('beds', { name: 'Bed', area: 4 }, (b) => b.bed.id);
+    realIds.plantingId = await made('plantings', { cropId: Number(realIds.cropId), bedId: Number(realIds.bedId), area: 2, seasonYear: 2026 }, (b) => b.planting.id);
+    realIds.personId = await made('people', { name: 'Eater', sex: 'female', ageYears: 30 }, (b) => b.person.id);
   });
 
   it('has a generator for every route file and method, and none for a route that is gone', () => {
@@ -284,8 +308,8 @@ describe('bad input, generated, on every API route', () => {
       const paramNames = [...route.matchAll(/\[(\w+)\]/g)].map((m) => m[1]!).filter((n) => !(route.startsWith('households/') && n === 'id'));
       const request = fc.record({
         method: fc.constantFrom(...(method === 'ALL' ? (gen.methods ?? ['GET']) : [method])),
-        params: fc.record(Object.fromEntries(paramNames.map((n) => [n, gen.params?.[n] ?? junkId])) as Record<string, fc.Arbitrary<string>>),
-        householdId: gen.householdId === 'junk' ? junkId : fc.oneof({ weight: 9, arbitrary: fc.constant(String(hid)) }, { weight: 1, arbitrary: junkId }),
+        params: fc.record(Object.fromEntries(paramNames.map((n) => [n, gen.params?.[n] ?? idFor(n, method)])) as Record<string, fc.Arbitrary<string>>),
+        householdId: gen.householdId === 'junk' ? junkId.filter((j) => j !== String(hid)) : fc.oneof({ weight: 9, arbitrary: fc.constant(String(hid)) }, { weight: 1, arbitrary: junkId }),
         query: gen.query ?? fc.constant(''),
         body: gen.body ?? none,
         form: gen.multipart ? importForm : fc.constant(undefined),
@@ -309,6 +333,7 @@ describe('bad input, generated, on every API route', () => {
             answer = await send(gen, route, { ...r, params });
           }
           counts.requests += 1;
+          if (process.env.BAD_INPUT_DEBUG) console.log(answer.status, key, r.method, urlFor(route, params, r.query).slice(0, 120), JSON.stringify(answer.body).slice(0, 160));
           counts.byStatus.set(answer.status, (counts.byStatus.get(answer.status) ?? 0) + 1);
           expectDocumented(answer.status, answer.body, `${r.method} ${urlFor(route, params, r.query)}`, gen.auth);
         }),
