@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import { afterAll, describe, expect, it } from 'vitest';
 import { testPool } from '../support/env';
 import { freshLoopbackAddress } from '../support/loopback';
-import { newVerifiedUser, signIn, signUp, uniqueEmail } from '../support/users';
+import { apiAs, newVerifiedUser, signIn, signUp, uniqueEmail } from '../support/users';
 
 const pool = testPool();
 afterAll(() => pool.end());
@@ -82,6 +82,11 @@ describe('names at sign-up follow the plain-text rule on the server', () => {
       const [rows] = await pool.query('SELECT id FROM user WHERE email = ?', [email]);
       expect(rows).toEqual([]);
     }
+    // The same rule when a signed-in person renames their account.
+    const u = await newVerifiedUser({ name: 'Renamer' });
+    const rename = await apiAs(u.cookie, 'POST', '/api/auth/update-user', { name: 'Re\u0007namer' });
+    expect(rename.status).toBe(400);
+    expect(rename.body.code).toBe('INVALID_NAME');
     const email = uniqueEmail('trimmed');
     expect((await signUp({ name: '  Robin  ', email, password: 'bean-row-compost-42' })).status).toBe(200);
     const [rows] = await pool.query('SELECT name FROM user WHERE email = ?', [email]);
