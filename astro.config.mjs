@@ -31,16 +31,16 @@ const THIRTY_DAYS = 30 * 24 * 60 * 60;
 const routes = offlineRoutes();
 
 /**
- * A Workbox plugin: keep no redirect (a signed-out visit lands on sign-in) and nothing the server
- * marked `no-store`. Signed-in answers are `private, no-cache` (src/server/middleware/security-headers.ts):
- * no shared cache, and the browser asks the server each time; this worker keeps its own copy of
- * the listed pages anyway — that copy is the offline feature, used only when the network fails,
- * and emptied at sign-in and sign-out. Written into the worker as text: self-contained.
+ * A Workbox plugin: keep no redirect (a signed-out visit lands on sign-in), and only answers the
+ * server marked for offline use (the X-Selfsown-Offline header, src/lib/app-cache.ts). Household
+ * answers are `no-store` for every HTTP cache (src/server/middleware/security-headers.ts); this
+ * worker's copy lives in the app's own offline store, is used only when the network fails, and is
+ * emptied at sign-in and sign-out. Written into the worker as text: self-contained.
  */
 /** @type {import('workbox-core').WorkboxPlugin} */
-const keepNoRedirectOrNoStore = {
+const keepMarkedForOffline = {
   cacheWillUpdate: async ({ response }) =>
-    response && !response.redirected && !/no-store/i.test(response.headers.get('cache-control') || '') ? response : null,
+    response && !response.redirected && response.headers.get('x-selfsown-offline') === 'keep' ? response : null,
 };
 
 /**
@@ -93,7 +93,7 @@ const pwa = AstroPWA({
           networkTimeoutSeconds: 5,
           expiration: { maxEntries: 100, maxAgeSeconds: THIRTY_DAYS },
           cacheableResponse: { statuses: [200] },
-          plugins: [keepNoRedirectOrNoStore],
+          plugins: [keepMarkedForOffline],
         },
       },
       {
@@ -104,7 +104,7 @@ const pwa = AstroPWA({
           networkTimeoutSeconds: 5,
           expiration: { maxEntries: 30, maxAgeSeconds: THIRTY_DAYS },
           cacheableResponse: { statuses: [200] },
-          plugins: [keepNoRedirectOrNoStore],
+          plugins: [keepMarkedForOffline],
           precacheFallback: { fallbackURL: OFFLINE_FALLBACK },
         },
       },
@@ -130,6 +130,10 @@ export default defineConfig({
   // check compares with Astro.url, whose host is "localhost" unless security.allowedDomains is baked
   // into the build, and so refused every same-site DELETE without a body.
   security: { checkOrigin: false },
+  // Astro hashes the scripts it inlines (island runtime, client directives, small page scripts) and
+  // sends them in a Content-Security-Policy header; src/server/middleware/security-headers.ts keeps
+  // those script hashes and writes the app's whole policy around them.
+  experimental: { csp: true },
   server: { host: '127.0.0.1', port: 4321 },
   vite: {
     plugins: [tailwindcss(), bootOnServerStart()],

@@ -95,6 +95,7 @@ async function main(): Promise<number> {
     AUTH_SIGNUP_RATE_LIMIT: '100000/60',
     AUTH_RESET_RATE_LIMIT: '1000/60',
     AUTH_SIGNIN_RATE_LIMIT: '5/2',
+    AUTH_ACCOUNT_SIGNIN_RATE_LIMIT: '8/3',
     DATABASE_URL: testUrl,
     TEST_DATABASE_URL: testUrl,
     HOST: '127.0.0.1',

@@ -285,13 +285,17 @@ export const idempotencyKeys = mysqlTable(
     householdId: int('household_id')
       .notNull()
       .references(() => households.id, { onDelete: 'cascade' }),
+    /** The member who sent it: the same key from another member is another key ('' for keys stored before migration 0008). */
+    userId: varchar('user_id', { length: 36 }).notNull().default(''),
     key: varchar('key', { length: 100 }).notNull(),
     route: varchar('route', { length: 40 }).notNull(),
+    /** SHA-256 (hex) of the request's path and body: the key reused with another body is refused ('' = not recorded). */
+    requestHash: char('request_hash', { length: 64 }).notNull().default(''),
     status: smallint('status').notNull(),
     response: text('response').notNull(),
     createdAt: timestamp('created_at').notNull().defaultNow(),
   },
-  (t) => [primaryKey({ columns: [t.householdId, t.key] })],
+  (t) => [primaryKey({ columns: [t.householdId, t.userId, t.key] })],
 );
 
 /** Foods a household buys again and again: one tap to log another. */

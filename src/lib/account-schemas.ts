@@ -1,5 +1,6 @@
 /** Input rules for the account forms (sign-up, sign-in, reset), shared by the pages and auth.ts. */
 import { z } from 'zod';
+import { lineText } from './text-schemas';
 import { atMostCharsShort } from './zod-messages';
 
 /** Passwords: long enough to resist guessing, short enough to hash quickly. */
@@ -18,8 +19,11 @@ const password = z
   .min(PASSWORD_MIN, `Use at least ${PASSWORD_MIN} characters.`)
   .max(PASSWORD_MAX, `Use at most ${PASSWORD_MAX} characters.`);
 
+/** What to call a person: one plain line (sign-up, and better-auth's hooks on the server). */
+export const accountName = lineText('The name', 200).min(1, 'Tell us what to call you.');
+
 export const signUpInput = z.object({
-  name: z.string().trim().min(1, 'Tell us what to call you.').max(200, atMostCharsShort(200)),
+  name: accountName,
   email,
   password,
 });

@@ -20,6 +20,13 @@ export const OFFLINE_PAGES = ['log', 'bought', 'harvests'] as const;
 /** Household API lists kept for offline use (GET only), by the last part of their path. */
 export const OFFLINE_LISTS = ['crops', 'staples', 'harvests', 'purchases', 'plantings'] as const;
 
+/**
+ * The header the server sets on an answer the worker may keep for offline use (the offline pages and
+ * lists, for a signed-in person). Those answers are `Cache-Control: no-store` like every household
+ * answer — kept out of every HTTP cache — so the worker keeps only what carries this mark.
+ */
+export const OFFLINE_KEEP_HEADER = 'X-Selfsown-Offline';
+
 /** The page the worker shows for a page never opened with a signal (public/offline.html). */
 export const OFFLINE_FALLBACK = '/offline.html';
 

@@ -7,10 +7,10 @@
 import { z } from 'zod';
 import { isoDate, recordId, ENTRY_LIMITS } from './entry-schemas';
 import { isMonthDay } from './growing-season';
-import { isPlainLine, PLAIN_LINE_MESSAGE } from './plain-text';
+import { lineText, noteText } from './text-schemas';
 import { PLANTING_SLOTS } from './planting-slots';
 import type { UnitSystem } from './units';
-import { atMostChars, mustBeNumber, mustBeText, mustBeWhole, oneOf } from './zod-messages';
+import { mustBeNumber, mustBeWhole, oneOf } from './zod-messages';
 
 /** Area units: square metres and square feet. Example: `AREA_UNITS[1]` → 'ft2' */
 export const AREA_UNITS = ['m2', 'ft2'] as const;
@@ -59,17 +59,9 @@ export const area = z
 /** m² or ft²; absent means the household's own unit. */
 export const areaUnit = z.enum(AREA_UNITS, { error: oneOf('The area unit', AREA_UNITS) });
 
-const name = z
-  .string({ error: mustBeText('The name') })
-  .trim()
-  .min(1, { error: 'Give the bed a name.' })
-  .max(L.maxNameLength, { error: atMostChars('The name', L.maxNameLength) })
-  .refine(isPlainLine, { error: PLAIN_LINE_MESSAGE });
+const name = lineText('The name', L.maxNameLength).min(1, { error: 'Give the bed a name.' });
 
-const notesText = z
-  .string({ error: mustBeText('The notes') })
-  .trim()
-  .max(L.maxNotesLength, { error: atMostChars('The notes', L.maxNotesLength) });
+const notesText = noteText('The notes', L.maxNotesLength);
 const notes = notesText.transform((s) => (s === '' ? undefined : s));
 const notesOrClear = z.union([notesText.transform((s) => (s === '' ? null : s)), z.null()]);
 

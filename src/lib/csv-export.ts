@@ -6,7 +6,7 @@
  */
 import Papa from 'papaparse';
 import type { CropCategory } from './crop-categories';
-import { HARVEST_CSV_COLUMNS, PURCHASE_CSV_COLUMNS, type CsvDelimiter } from './csv-import';
+import { FORMULA_START, HARVEST_CSV_COLUMNS, PURCHASE_CSV_COLUMNS, type CsvDelimiter } from './csv-import';
 import type { HarvestInput, PurchaseInput, Use } from './entry-schemas';
 import type { EntryUnit } from './entry-units';
 
@@ -46,7 +46,7 @@ export function toCsv(columns: readonly string[], rows: readonly (readonly Cell[
   const delimiter = options.delimiter ?? ',';
   const text = Papa.unparse(
     { fields: [...columns], data: rows.map((r) => r.map((c) => cellText(c, delimiter))) },
-    { delimiter, newline: '\r\n', escapeFormulae: /^[=+\-@\t\r]/, header: options.header ?? true },
+    { delimiter, newline: '\r\n', escapeFormulae: FORMULA_START, header: options.header ?? true },
   );
   // Every line, the last included, ends with CRLF (papaparse leaves the last one open unless no rows).
   const lines = text === '' ? '' : `${text.replace(/\r\n$/, '')}\r\n`;

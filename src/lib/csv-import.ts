@@ -155,8 +155,10 @@ export function parseCsvBoolean(text: string): boolean | undefined {
 }
 
 // Exports put an apostrophe before text starting with = + - @ (so spreadsheets do not run it as a
-// formula); take it off again so an export re-imports as it was.
-const FORMULA_START = /^[=+\-@\t\r]/;
+// formula), and before text already starting with apostrophes and then one of those, so that
+// "'=x" written by a person survives too; take one off again so an export re-imports as it was.
+/** Text the export guards with one apostrophe (csv-export.ts uses it too). */
+export const FORMULA_START = /^'*[=+\-@\t\r]/;
 
 /** Text of a cell, trimmed, with the export's formula guard taken off. Example: `textCell("'=1+1")` → '=1+1' */
 export function textCell(text: string): string {

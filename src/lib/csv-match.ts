@@ -16,6 +16,8 @@ export interface CropMatch {
 /** The caller's lookups. cropByName gets the trimmed name and variety; compare with cropNameKey. */
 export interface HarvestResolvers {
   cropByName(name: string, variety?: string): number | CropMatch | undefined;
+  /** When two names are one crop (default: cropNameKey of both); the server passes the database's collation rule. */
+  cropKey?(name: string, variety?: string): string;
   foodByCode(code: string): number | undefined;
 }
 
@@ -64,7 +66,7 @@ export function resolveHarvestRows(rows: readonly ParsedHarvestRow[], resolvers:
       const found = resolvers.cropByName(parsed.crop, parsed.variety);
       crop = typeof found === 'number' ? { id: found } : found;
       if (crop === undefined) {
-        const key = `${cropNameKey(parsed.crop)}\u0000${cropNameKey(parsed.variety ?? '')}`;
+        const key = resolvers.cropKey?.(parsed.crop, parsed.variety) ?? `${cropNameKey(parsed.crop)}\u0000${cropNameKey(parsed.variety ?? '')}`;
         if (!unknownCrops.has(key)) unknownCrops.set(key, { name: parsed.crop, ...(parsed.variety !== undefined ? { variety: parsed.variety } : {}) });
         errors.push({ row: parsed.row, column: 'crop', message: `There is no crop ${describeCrop(parsed.crop, parsed.variety)} in this household.` });
         continue;

@@ -9,10 +9,11 @@
  * - In a patch, `null` clears an optional field (note, price, currency, variety, …).
  */
 import { z } from 'zod';
-import { atMostChars, mustBeNumber, mustBeText, mustBeWhole, oneOf, trueOrFalse } from './zod-messages';
+import { mustBeNumber, mustBeWhole, oneOf, trueOrFalse } from './zod-messages';
 import { isDate } from './months';
 import { formatCount } from './format-number';
-import { isPlainLine, PLAIN_LINE_MESSAGE } from './plain-text';
+import { lineText, noteText as plainNote } from './text-schemas';
+import { QUANTITY_RULES, QUANTITY_TOO_SMALL, roundQuantity } from './quantity-rules';
 import { CROP_CATEGORIES } from './crop-categories';
 import { WEIGHT_UNITS } from './units';
 import { ENTRY_UNITS } from './entry-units';
@@ -67,11 +68,13 @@ export const recordId = z
   .int({ error: 'An id is a whole number.' })
   .positive({ error: 'An id is a positive whole number.' });
 
-/** An amount in the entry's unit, more than 0. Example: `quantity.parse(1.5)` → 1.5 */
+/** An amount in the entry's unit, at least 0.001, kept to 6 decimals (quantity-rules.ts). Example: `quantity.parse(1.5)` → 1.5 */
 export const quantity = z
   .number({ error: (iss) => (iss.input === undefined ? 'Enter the weight.' : mustBeNumber('The weight')) })
-  .positive({ error: 'The weight must be more than 0.' })
-  .max(L.maxQuantity, { error: `The weight is too large (at most ${formatCount(L.maxQuantity)} in its unit); check the unit.` });
+  .positive({ error: 'The weight must be more than 0.', abort: true })
+  .min(QUANTITY_RULES.min, { error: QUANTITY_TOO_SMALL })
+  .max(L.maxQuantity, { error: `The weight is too large (at most ${formatCount(L.maxQuantity)} in its unit); check the unit.` })
+  .overwrite(roundQuantity);
 
 /** One of g, kg, oz, lb. Example: `weightUnit.parse('lb')` → 'lb' */
 export const weightUnit = z.enum(WEIGHT_UNITS, { error: oneOf('The unit', WEIGHT_UNITS) });
@@ -96,10 +99,7 @@ export const spreadMonths = z
   .min(L.minSpreadMonths, { error: `The spread must be at least ${L.minSpreadMonths} month.` })
   .max(L.maxSpreadMonths, { error: `The spread can be at most ${L.maxSpreadMonths} months.` });
 
-const noteText = z
-  .string({ error: mustBeText('The note') })
-  .trim()
-  .max(L.maxNoteLength, { error: atMostChars('The note', L.maxNoteLength) });
+const noteText = plainNote('The note', L.maxNoteLength);
 
 /** A free-text note up to 500 characters; blank becomes no note. Example: `note.parse('  ')` → undefined */
 export const note = noteText.transform((s) => (s === '' ? undefined : s));
@@ -123,12 +123,7 @@ export const currency = z
   .regex(/^[A-Z]{3}$/, { error: 'The currency must be a three-letter ISO 4217 code, like EUR or USD.' });
 
 /** A one-line name of up to ENTRY_LIMITS.maxNameLength characters (crops, staples). */
-export const nameText = (what: string) =>
-  z
-    .string({ error: mustBeText(`The ${what}`) })
-    .trim()
-    .max(L.maxNameLength, { error: atMostChars(`The ${what}`, L.maxNameLength) })
-    .refine(isPlainLine, { error: PLAIN_LINE_MESSAGE });
+export const nameText = (what: string) => lineText(`The ${what}`, L.maxNameLength);
 
 // ---------------------------------------------------------------------------------------------
 // Shared rules

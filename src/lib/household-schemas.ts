@@ -1,7 +1,7 @@
 /** Input rules for households and memberships, shared by the forms and the API. */
 import { z } from 'zod';
 import { atMostCharsShort } from './zod-messages';
-import { isPlainLine, PLAIN_LINE_MESSAGE } from './plain-text';
+import { lineText } from './text-schemas';
 import { isMonth } from './months';
 import { UNIT_SYSTEMS } from './units';
 import { currentZoneList, currentZoneName } from './time-zones';
@@ -49,7 +49,7 @@ export function isTimeZone(tz: string): boolean {
 }
 
 const householdFields = {
-  name: z.string().trim().min(1, 'Give the household a name.').max(120, atMostCharsShort(120)).refine(isPlainLine, PLAIN_LINE_MESSAGE),
+  name: lineText('The name', 120).min(1, 'Give the household a name.'),
   // An old spelling is accepted and stored under its current name (Asia/Calcutta → Asia/Kolkata).
   timezone: z.string().trim().refine(isTimeZone, 'Not a known IANA time zone (e.g. Europe/Berlin).').transform(currentZoneName),
   units: z.enum(UNIT_SYSTEMS, { error: 'Choose metric or us.' }),

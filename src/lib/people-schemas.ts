@@ -16,9 +16,9 @@
  * record fail every later change.
  */
 import { z } from 'zod';
-import { atMostChars, mustBeNumber, mustBeWhole, oneOf } from './zod-messages';
+import { mustBeNumber, mustBeWhole, oneOf } from './zod-messages';
 import { formatCount } from './format-number';
-import { isPlainLine, PLAIN_LINE_MESSAGE } from './plain-text';
+import { lineText } from './text-schemas';
 import { isDate, isMonth } from './months';
 import { DIETS, type Diet } from './diet';
 import type { Person } from './needs';
@@ -118,12 +118,7 @@ export function personMonth(what: string) {
 }
 
 const fields = {
-  name: z
-    .string({ error: 'Give the person a name.' })
-    .trim()
-    .min(1, { error: 'Give the person a name.' })
-    .max(L.maxNameLength, { error: atMostChars('The name', L.maxNameLength) })
-    .refine(isPlainLine, { error: PLAIN_LINE_MESSAGE }),
+  name: lineText('The name', L.maxNameLength, 'Give the person a name.').min(1, { error: 'Give the person a name.' }),
   sex: z.enum(SEXES, { error: 'Choose female or male (the reference intakes are given by sex).' }),
   ageYears: optionalNumber('The age', 0, L.maxAgeYears, ' years'),
   birthYear: optionalNumber('The birth year', L.minBirthYear, L.maxBirthYear, '', true),

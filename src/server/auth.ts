@@ -12,7 +12,8 @@ import { getDb } from '@/db/client';
 import { account, rateLimit, session, user, verification } from '@/db/schema';
 import { PASSWORD_MAX, PASSWORD_MIN } from '@/lib/account-schemas';
 import { safeNext } from '@/lib/safe-next';
-import { authSecret, publicOrigin, rateLimitRule } from './config';
+import { authSecret, publicOrigin, rateLimitRule, secureCookies } from './config';
+import { authAfter, authBefore } from './auth-guards';
 import { linkMail, sendMail } from './mail';
 import { refuseDisabledSession } from './admin-accounts';
 
@@ -104,6 +105,8 @@ function createAuth() {
     session: { expiresIn: 60 * 60 * 24 * 30, updateAge: 60 * 60 * 24 },
     // An account a site administrator disabled gets no new session: sign-in answers 403.
     databaseHooks: { session: { create: { before: async (s) => refuseDisabledSession(s) } } },
+    // Plain-text names and the per-account sign-in limit (src/server/auth-guards.ts).
+    hooks: { before: authBefore, after: authAfter },
     rateLimit: {
       enabled: true,
       storage: 'database',
@@ -120,7 +123,7 @@ function createAuth() {
       cookiePrefix: COOKIE_PREFIX,
       ipAddress: { ipAddressHeaders: [CLIENT_IP_HEADER] },
       defaultCookieAttributes: { httpOnly: true, sameSite: 'lax' },
-      useSecureCookies: publicOrigin().startsWith('https://'),
+      useSecureCookies: secureCookies(),
       database: { generateId: () => crypto.randomUUID() },
     },
   });

@@ -7,6 +7,7 @@ import { and, eq } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { households, memberships, type Household, type Role } from '@/db/schema';
 import { roleAllows, type Access } from '@/lib/household-schemas';
+import { parseRouteId } from '@/lib/route-id';
 import { HttpError, handle } from './http';
 
 export interface HouseholdAccess {
@@ -26,10 +27,8 @@ export function requireUser(ctx: Pick<APIContext, 'locals'>): { id: string; emai
 
 /** Resolves the household from its id and checks the caller's membership and role. */
 export async function householdAccess(userId: string, householdIdParam: string | undefined, access: Access): Promise<HouseholdAccess> {
-  const id = Number(householdIdParam);
-  if (!Number.isInteger(id) || id <= 0 || String(id) !== householdIdParam) {
-    throw new HttpError(404, 'not_found', 'No such household.');
-  }
+  const id = parseRouteId(householdIdParam);
+  if (id === null) throw new HttpError(404, 'not_found', 'No such household.');
   const rows = await getDb()
     .select({ household: households, role: memberships.role })
     .from(memberships)
@@ -73,11 +72,29 @@ export function islandHousehold(a: HouseholdAccess) {
  * Wraps a handler of /api/households/{id}/…: authorisation first, then the handler, every error
  * answered as JSON. `param` names the route parameter holding the household id.
  */
+const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+async function householdExists(id: number): Promise<boolean> {
+  const rows = await getDb().select({ id: households.id }).from(households).where(eq(households.id, id)).limit(1);
+  return rows.length > 0;
+}
+
 export function householdRoute(access: Access, fn: (ctx: APIContext, a: HouseholdAccess) => Promise<Response> | Response, param = 'id'): APIRoute {
   const route = handle(async (ctx: APIContext) => {
     const user = requireUser(ctx);
     const a = await householdAccess(user.id, ctx.params[param], access);
-    return fn(ctx, a);
+    // A write refused because the household was deleted meanwhile (its crop "does not exist", a
+    // foreign key failed…) is answered for what happened: the household is gone.
+    const gone = async () => !SAFE_METHODS.has(ctx.request.method) && !(await householdExists(a.household.id));
+    let response: Response;
+    try {
+      response = await fn(ctx, a);
+    } catch (e) {
+      if (await gone()) throw new HttpError(404, 'not_found', 'No such household: it was deleted.');
+      throw e;
+    }
+    if (response.status >= 400 && response.status !== 404 && (await gone())) throw new HttpError(404, 'not_found', 'No such household: it was deleted.');
+    return response;
   });
   Object.defineProperty(route, GUARDED, { value: access });
   return route;

@@ -65,6 +65,7 @@ export const envSchema = z.object({
   SELFSOWN_ALLOW_DEV_SECRET: flag,
   AUTH_RATE_LIMIT: rateRule,
   AUTH_SIGNIN_RATE_LIMIT: rateRule,
+  AUTH_ACCOUNT_SIGNIN_RATE_LIMIT: rateRule,
   AUTH_SIGNUP_RATE_LIMIT: rateRule,
   AUTH_RESET_RATE_LIMIT: rateRule,
   // Mail.
@@ -141,6 +142,11 @@ export function publicOrigin(): string {
   return (env.PUBLIC_ORIGIN || `http://${env.HOST}:${env.PORT}`).replace(/\/$/, '');
 }
 
+/** Whether cookies must be Secure: the public origin is https (behind a TLS proxy the socket may be plain http). */
+export function secureCookies(): boolean {
+  return publicOrigin().startsWith('https://');
+}
+
 export function authSecret(): string {
   const env = readEnv();
   const s = env.BETTER_AUTH_SECRET;
@@ -157,7 +163,7 @@ export function hasAuthSecret(): boolean {
 }
 
 /** The variables that hold a limiter rule. */
-export type RateLimitName = 'AUTH_RATE_LIMIT' | 'AUTH_SIGNIN_RATE_LIMIT' | 'AUTH_SIGNUP_RATE_LIMIT' | 'AUTH_RESET_RATE_LIMIT';
+export type RateLimitName = 'AUTH_RATE_LIMIT' | 'AUTH_SIGNIN_RATE_LIMIT' | 'AUTH_ACCOUNT_SIGNIN_RATE_LIMIT' | 'AUTH_SIGNUP_RATE_LIMIT' | 'AUTH_RESET_RATE_LIMIT';
 
 /**
  * A limiter rule from an env value "max/windowSeconds" (e.g. AUTH_SIGNIN_RATE_LIMIT=5/60), or the

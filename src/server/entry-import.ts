@@ -12,7 +12,6 @@ import { foods, harvests, purchases, type Crop } from '@/db/schema';
 import type { ImportAnswer, PreviewRow } from '@/lib/api-types';
 import {
   CSV_LIMITS,
-  cropNameKey,
   parseHarvestCsv,
   parsePurchaseCsv,
   type CsvError,
@@ -22,6 +21,7 @@ import { type HarvestInput, type PurchaseInput } from '@/lib/entry-schemas';
 import { cropInput, type CropInput } from '@/lib/crop-schemas';
 import { isCountOrVolume, type PintMeaning } from '@/lib/entry-units';
 import type { MeasuredFood } from '@/lib/count-volume';
+import { cropKeyer } from './crop-keys';
 import { cropDisplayName, cropRows, insertCrop, newCropCategory } from './crops';
 import { loadRows } from './bulk-load';
 import { HttpError, readBodyBytes } from './http';
@@ -157,7 +157,6 @@ async function foodsByIds(ex: Executor, ids: readonly number[]): Promise<Map<num
   return new Map(rows.map((r) => [r.id, r]));
 }
 
-const cropKey = (name: string, variety?: string | null) => `${cropNameKey(name)}\u0000${cropNameKey(variety ?? '')}`;
 
 /** A crop as the importer sees it; new ones of a preview have stand-in ids above the INT range. */
 type ImportCrop = Pick<Crop, 'id' | 'name' | 'variety' | 'foodId' | 'category' | 'edibleFraction' | 'defaultSpreadMonths' | 'notFood' | 'countGrams'>;
@@ -229,6 +228,8 @@ interface Prepared<V> {
 async function prepareHarvests(ex: Executor, req: ImportRequest, household: ImportHousehold, householdCrops: ImportCrop[], today: string): Promise<Prepared<ReturnType<typeof harvestValues>>> {
   const parsed = parseHarvestCsv(req.file, { pint: household.pint });
   const codes = await foodsByCodes(ex, parsed.rows.flatMap((r) => (r.foodCode === undefined ? [] : [r.foodCode])));
+  // Names match by the database's collation (crop-keys.ts), so the preview sees the crops the commit will.
+  const cropKey = await cropKeyer(ex, [...householdCrops.flatMap((c) => [c.name, c.variety]), ...parsed.rows.flatMap((r) => [r.crop ?? '', r.variety ?? ''])]);
   const cropsByKey = new Map<string, ImportCrop>();
   for (const c of householdCrops) if (!cropsByKey.has(cropKey(c.name, c.variety))) cropsByKey.set(cropKey(c.name, c.variety), c);
   const cropsById = new Map(householdCrops.map((c) => [c.id, c]));
@@ -238,6 +239,7 @@ async function prepareHarvests(ex: Executor, req: ImportRequest, household: Impo
       return c === undefined ? undefined : { id: c.id, name: cropDisplayName(c.name, c.variety), notFood: c.notFood };
     },
     foodByCode: (code) => codes.get(code)?.id,
+    cropKey,
   });
   const cropFoods = await foodsByIds(ex, householdCrops.flatMap((c) => (c.foodId === null ? [] : [c.foodId])));
   const foodsById = new Map([...codes.values()].map((f) => [f.id, f]));
@@ -353,8 +355,10 @@ function answer<V extends { grams: number; edibleGrams: number }>(req: ImportReq
   };
 }
 
-/** Crops to create first, without those the household already has (same name and variety). */
-function newCrops(existing: ImportCrop[], wanted: CropInput[]): CropInput[] {
+/** Crops to create first, without those the household already has (same name and variety, by the database's collation). */
+async function newCrops(ex: Executor, existing: ImportCrop[], wanted: CropInput[]): Promise<CropInput[]> {
+  if (wanted.length === 0) return [];
+  const cropKey = await cropKeyer(ex, [...existing, ...wanted].flatMap((c) => [c.name, c.variety ?? '']));
   const seen = new Set(existing.map((c) => cropKey(c.name, c.variety)));
   const out: CropInput[] = [];
   for (const c of wanted) {
@@ -386,7 +390,7 @@ export async function importEntries(household: ImportHousehold, userId: string |
     const existing = await cropRows(db, householdId);
     // Crops the grower chose to create are matched as if they existed. Their stand-in ids are
     // positive (the row rules want ids > 0) but far above any id an INT column can hold: never stored.
-    const virtual = newCrops(existing, req.createCrops).map((c, i) => cropFromInput(Number.MAX_SAFE_INTEGER - i, c));
+    const virtual = (await newCrops(db, existing, req.createCrops)).map((c, i) => cropFromInput(Number.MAX_SAFE_INTEGER - i, c));
     const missingFoods = virtual.flatMap((c) => (c.foodId === null ? [] : [c.foodId]));
     const known = await foodsByIds(db, missingFoods);
     const badFood = missingFoods.find((id) => !known.has(id));
@@ -399,7 +403,7 @@ export async function importEntries(household: ImportHousehold, userId: string |
       let prepared: Prepared<{ grams: number; edibleGrams: number }>;
       if (req.kind === 'harvests') {
         const existing = await cropRows(tx, householdId);
-        const toCreate = newCrops(existing, req.createCrops);
+        const toCreate = await newCrops(tx, existing, req.createCrops);
         for (const c of toCreate) await insertCrop(tx, householdId, c);
         prepared = await prepareHarvests(tx, req, household, toCreate.length > 0 ? await cropRows(tx, householdId) : existing, today);
       } else {

@@ -3,9 +3,11 @@
  * imports): one way to turn a zod failure into a 400, the transaction type, database error tests
  * and the household's local date.
  */
+import { sql } from 'drizzle-orm';
 import type { z } from 'zod';
 import type { Db } from '@/db/client';
 import { zodErrorBody } from '@/lib/error-body';
+import { parseRouteId } from '@/lib/route-id';
 import { HttpError } from './http';
 
 /** A Drizzle transaction (what `db.transaction(fn)` hands to fn). */
@@ -37,36 +39,22 @@ export function fieldError(field: string, message: string, code = 'invalid_input
 
 // readOptionalJson lives with the other body readers in ./http.
 
-function errCode(e: unknown): string | undefined {
-  // Drizzle wraps the driver's error in DrizzleQueryError with the original as `cause`.
-  for (let cur: unknown = e, i = 0; cur && i < 4; cur = (cur as { cause?: unknown }).cause, i++) {
-    const code = (cur as { code?: unknown }).code;
-    if (typeof code === 'string' && code.startsWith('ER_')) return code;
-  }
-  return undefined;
-}
+// The MariaDB error tests live in ./db-errors (http.ts needs them too); re-exported for the data layer.
+export { isDuplicateKey, isParentMissing, isRetryableLock, isRowReferenced } from './db-errors';
 
-/** True for MariaDB's duplicate-key error (a unique index refused the row). */
-export function isDuplicateKey(e: unknown): boolean {
-  return errCode(e) === 'ER_DUP_ENTRY';
+/**
+ * Takes a shared lock on the household's row at the start of a write transaction, or answers 404
+ * when it is gone: a concurrent deletion (which locks the row first, for update) then waits for
+ * this write to end, or this write waits for the deletion and finds nothing — never half of each.
+ */
+export async function lockHousehold(tx: Tx, householdId: number): Promise<void> {
+  const [rows] = (await tx.execute(sql`SELECT id FROM households WHERE id = ${householdId} LOCK IN SHARE MODE`)) as unknown as [unknown[]];
+  if (rows.length === 0) throw new HttpError(404, 'not_found', 'No such household.');
 }
-
-/** True when a foreign key refused a delete or update (the row is still referenced). */
-export function isRowReferenced(e: unknown): boolean {
-  const code = errCode(e);
-  return code === 'ER_ROW_IS_REFERENCED_2' || code === 'ER_ROW_IS_REFERENCED';
-}
-
-/** True for a deadlock or lock wait timeout, after which the transaction can be tried again. */
-export function isRetryableLock(e: unknown): boolean {
-  const code = errCode(e);
-  return code === 'ER_LOCK_DEADLOCK' || code === 'ER_LOCK_WAIT_TIMEOUT';
-}
-
 
 /** A route parameter holding a record id, or a 404 when it is not one. */
 export function idParam(value: string | undefined, what: string): number {
-  const id = Number(value);
-  if (!Number.isSafeInteger(id) || id <= 0 || String(id) !== value) throw new HttpError(404, 'not_found', `No such ${what}.`);
+  const id = parseRouteId(value);
+  if (id === null) throw new HttpError(404, 'not_found', `No such ${what}.`);
   return id;
 }

@@ -5,7 +5,7 @@ import { crops, harvests, households, memberships, plantings, purchases, staples
 import { compareMonths, monthOf, todayIn } from '@/lib/months';
 import { currentZoneName } from '@/lib/time-zones';
 import { currencyForZone } from '@/lib/currency';
-import { fieldError, type Tx } from './entry-input';
+import { fieldError, isRetryableLock, type Tx } from './entry-input';
 import { HttpError } from './http';
 
 export interface HouseholdInput {
@@ -83,11 +83,25 @@ export async function updateHousehold(current: Household, patch: HouseholdPatch)
  * keys ON DELETE CASCADE, tested in tests/integration/household-delete.test.ts).
  */
 export async function deleteHousehold(householdId: number): Promise<void> {
-  await getDb().transaction((tx) => deleteHouseholdRows(tx, householdId));
+  // Writes racing the deletion can still deadlock with it on some rows: try again, then 409 (http.ts).
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await getDb().transaction((tx) => deleteHouseholdRows(tx, householdId));
+    } catch (e) {
+      if (!isRetryableLock(e) || attempt >= 3) throw e;
+    }
+  }
 }
 
-/** deleteHousehold's statements inside a transaction of the caller's (the demo reset uses its own pool). */
+/**
+ * deleteHousehold's statements inside a transaction of the caller's (the demo reset uses its own pool).
+ * The household's row is locked first: writes that began earlier (each holds it shared, see
+ * lockHousehold) finish before anything is deleted, and later ones wait and then find it gone (404).
+ * A household already deleted by a twin request is a 404.
+ */
 export async function deleteHouseholdRows(tx: Tx, householdId: number): Promise<void> {
+  const [locked] = (await tx.execute(sql`SELECT id FROM households WHERE id = ${householdId} FOR UPDATE`)) as unknown as [unknown[]];
+  if (locked.length === 0) throw new HttpError(404, 'not_found', 'No such household.');
   await tx.delete(harvests).where(eq(harvests.householdId, householdId));
   await tx.delete(purchases).where(eq(purchases.householdId, householdId));
   await tx.delete(staples).where(eq(staples.householdId, householdId));

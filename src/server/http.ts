@@ -4,6 +4,7 @@
  */
 import { ZodError } from 'zod';
 import { zodErrorBody } from '@/lib/error-body';
+import { databaseErrorAnswer } from './db-errors';
 
 export class HttpError extends Error {
   constructor(
@@ -39,6 +40,8 @@ export function toResponse(e: unknown): Response {
     const body = zodErrorBody(e);
     return errorResponse(400, body.code, body.message, body.fields);
   }
+  const db = databaseErrorAnswer(e);
+  if (db) return errorResponse(db.status, db.code, db.message);
   console.error('unexpected error in API route', e);
   return errorResponse(500, 'internal', 'Something went wrong on our side. Please try again.');
 }

@@ -10,6 +10,7 @@ import { todayIn } from '@/lib/months';
 import { monthOf } from '@/lib/months';
 import { mergePerson, needsPerson, personInput, type PersonFields, type PersonInput, type PersonPatch } from '@/lib/people-schemas';
 import { personEnergy } from '@/lib/person-energy';
+import { parseRouteId } from '@/lib/route-id';
 import { HttpError } from './http';
 
 
@@ -96,7 +97,7 @@ export async function deletePerson(householdId: number, personId: number): Promi
 
 /** The person id of a route, or a 404 for anything that is not a positive whole number. */
 export function personIdParam(value: string | undefined): number {
-  const id = Number(value);
-  if (!Number.isInteger(id) || id <= 0 || String(id) !== value) throw new HttpError(404, 'not_found', 'No such person in this household.');
+  const id = parseRouteId(value);
+  if (id === null) throw new HttpError(404, 'not_found', 'No such person in this household.');
   return id;
 }

@@ -1,7 +1,9 @@
 /**
  * Playwright's `test` with pages that wait, after every navigation, until the islands that hydrate
  * at load (`client:load`) are interactive: a tap on server-rendered HTML before React takes over
- * does nothing, and on a busy machine that race made tests flaky.
+ * does nothing, and on a busy machine that race made tests flaky. Every page also fails its test
+ * when the browser reports a Content-Security-Policy violation (a blocked script, style or worker):
+ * the whole e2e suite checks that the policy breaks nothing.
  */
 import { test as base, expect, type Page } from '@playwright/test';
 
@@ -25,13 +27,26 @@ export function waitForIslands(page: Page): Page {
   return page;
 }
 
-export const test = base.extend({
-  page: async ({ page }, use) => {
-    await use(waitForIslands(page));
+/** Collects the page's Content-Security-Policy violations, as Chromium reports them in the console. */
+function watchPolicy(page: Page, violations: string[]): Page {
+  page.on('console', (m) => {
+    if (m.type() === 'error' && /Content Security Policy/i.test(m.text())) violations.push(`${page.url()}: ${m.text()}`);
+  });
+  return page;
+}
+
+export const test = base.extend<{ policyViolations: string[] }>({
+  policyViolations: async ({}, use) => {
+    const violations: string[] = [];
+    await use(violations);
+    expect(violations, 'Content-Security-Policy violations').toEqual([]);
   },
-  context: async ({ context }, use) => {
+  page: async ({ page, policyViolations }, use) => {
+    await use(waitForIslands(watchPolicy(page, policyViolations)));
+  },
+  context: async ({ context, policyViolations }, use) => {
     const newPage = context.newPage.bind(context);
-    context.newPage = async () => waitForIslands(await newPage());
+    context.newPage = async () => waitForIslands(watchPolicy(await newPage(), policyViolations));
     await use(context);
   },
 });

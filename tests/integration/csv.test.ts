@@ -154,7 +154,7 @@ describe('bad uploads', () => {
     expect(noKind.body.error.fields.kind).toBeDefined();
     const form = new FormData();
     form.set('kind', 'harvests');
-    const noFile = await api(`/api/households/${hid}/imports`, { method: 'POST', headers: { cookie: t.owner.cookie }, body: form });
+    const noFile = await api(`/api/households/${hid}/imports`, { method: 'POST', headers: { cookie: t.owner.cookie, origin: BASE_URL }, body: form });
     expect(noFile.status).toBe(400);
     expect(noFile.body.error.fields.file).toBeDefined();
     expect((await upload(t.viewer.cookie, hid, { kind: 'harvests', mode: 'preview', csv: goodLog })).status).toBe(403);

@@ -64,8 +64,12 @@ describe('GET /api/foods/{id}', () => {
     expect(r.body.food.datasetInfo.release).toBe('Release 28');
   });
 
-  it('answers 404 for an unknown id and 400 for a malformed one', async () => {
+  it('answers 404 for an unknown id and for one that is not plain digits, like every route', async () => {
     expect((await api('/api/foods/99999999')).status).toBe(404);
-    expect((await api('/api/foods/abc')).status).toBe(400);
+    for (const bad of ['abc', '0x1', '1.0', '1e0', '01']) {
+      const r = await api(`/api/foods/${bad}`);
+      expect(r.status).toBe(404);
+      expect(r.body.error.code).toBe('not_found');
+    }
   });
 });

@@ -149,7 +149,7 @@ describe('bad harvest input', () => {
   it('answers 400, not 500, for a body that is not JSON', async () => {
     const r = await apiAs(t.owner.cookie, 'POST', url(), undefined, { 'content-type': 'application/json' });
     expect(r.status).toBe(400);
-    const r2 = await fetch(`${BASE_URL}${url()}`, { method: 'POST', headers: { cookie: t.owner.cookie, 'content-type': 'application/json' }, body: '{"date":' });
+    const r2 = await fetch(`${BASE_URL}${url()}`, { method: 'POST', headers: { cookie: t.owner.cookie, origin: BASE_URL, 'content-type': 'application/json' }, body: '{"date":' });
     expect(r2.status).toBe(400);
     expect((await r2.json()).error.code).toBe('invalid_json');
   });

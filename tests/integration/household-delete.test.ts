@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Pool } from 'mysql2/promise';
-import { foodId, logHarvest, makeCrop } from '../support/entries';
+import { foodId, logHarvest, makeCrop, upload } from '../support/entries';
 import { testPool } from '../support/env';
 import { apiAs, createHousehold, householdWithRoles, newVerifiedUser, type TestUser } from '../support/users';
 
@@ -82,5 +82,56 @@ describe('deleting a household', () => {
     expect((await apiAs(t.outsider.cookie, 'DELETE', `/api/households/${t.household.id}`)).status).toBe(404);
     expect(await count('memberships', t.household.id)).toBe(3);
     expect((await apiAs(t.owner.cookie, 'GET', `/api/households/${t.household.id}`)).body.household.name).toBe('Not yours to close');
+  });
+
+  it('answers writes racing the deletion with 2xx, 404 or 409 — never a 500 — and leaves nothing behind', async () => {
+    const potato = await foodId('11352'); // USDA SR28, NDB 11352 "Potatoes, flesh and skin, raw"
+    const TABLES = ['crops', 'harvests', 'purchases', 'staples', 'people', 'beds', 'plantings', 'idempotency_keys', 'memberships'];
+    const statuses: number[] = [];
+    for (let round = 0; round < 4; round++) {
+      const h = await createHousehold(owner.cookie, { name: `Busy plot ${round}` });
+      const base = `/api/households/${h.id}`;
+      const crop = await makeCrop(owner.cookie, h.id, { name: 'Potato', category: 'root_tuber', foodId: potato });
+      const harvest = await logHarvest(owner.cookie, h.id, { date: '2026-09-01', cropId: crop.id, quantity: 3, unit: 'kg', use: 'stored' });
+      const staple = (await apiAs(owner.cookie, 'POST', `${base}/staples`, { foodId: potato, label: 'Sack', quantity: 5, unit: 'kg' })).body.staple;
+      const bed = (await apiAs(owner.cookie, 'POST', `${base}/beds`, { name: 'Bed', area: 4 })).body.bed;
+      const day = (i: number) => `2026-08-${String((i % 28) + 1).padStart(2, '0')}`;
+      const writes = [
+        ...Array.from({ length: 6 }, (_, i) => () => apiAs(owner.cookie, 'POST', `${base}/harvests`, { date: day(i), cropId: crop.id, quantity: 1 + i, unit: 'kg' }, i % 2 ? { 'Idempotency-Key': `race-${round}-${i}` } : {})),
+        ...Array.from({ length: 3 }, (_, i) => () => apiAs(owner.cookie, 'POST', `${base}/purchases`, { date: day(i), foodId: potato, quantity: 2, unit: 'kg' })),
+        () => apiAs(owner.cookie, 'POST', `${base}/harvests`, { date: day(9), cropId: crop.id, unit: 'kg', parts: [{ quantity: 2, use: 'stored' }, { quantity: 1, use: 'fresh' }] }),
+        () => apiAs(owner.cookie, 'POST', `${base}/staples/${staple.id}/log`, {}),
+        () => apiAs(owner.cookie, 'PATCH', `${base}/harvests/${harvest.id}`, { quantity: 4 }),
+        () => apiAs(owner.cookie, 'DELETE', `${base}/harvests/${harvest.id}`),
+        () => apiAs(owner.cookie, 'POST', `${base}/crops`, { name: `Kale ${round}`, category: 'leafy_green' }),
+        () => apiAs(owner.cookie, 'POST', `${base}/people`, { name: 'Eater', sex: 'female', ageYears: 30 }),
+        () => apiAs(owner.cookie, 'POST', `${base}/beds`, { name: `Bed ${round}`, area: 2 }),
+        () => apiAs(owner.cookie, 'POST', `${base}/plantings`, { cropId: crop.id, bedId: bed.id, area: 2, seasonYear: 2026 }),
+        () => upload(owner.cookie, h.id, { kind: 'harvests', mode: 'commit', csv: `date,crop,quantity,unit\n${day(3)},Potato,2,kg\n` }),
+      ];
+      // The deletion goes out in the middle of the writes (half before it, half after).
+      const half = Math.floor(writes.length / 2);
+      const pending = writes.slice(0, half).map((w) => w());
+      const del = apiAs(owner.cookie, 'DELETE', base);
+      pending.push(...writes.slice(half).map((w) => w()));
+      const answers = await Promise.all(pending);
+      const deleted = await del;
+      expect(deleted.status, JSON.stringify(deleted.body)).toBe(204);
+      for (const a of answers) {
+        expect([200, 201, 204, 404, 409], JSON.stringify(a.body)).toContain(a.status);
+        if (a.status >= 400) expect(a.body.error.code).toMatch(/^(not_found|conflict|in_use)$/);
+      }
+      statuses.push(...answers.map((a) => a.status));
+      for (const t of TABLES) expect(await count(t, h.id), t).toBe(0);
+    }
+    // Both outcomes were seen: writes that got in before the deletion and writes that found it gone.
+    expect(statuses.some((s) => s < 300)).toBe(true);
+    expect(statuses.some((s) => s === 404)).toBe(true);
+  });
+
+  it('answers a second deletion of the same household 404, also when both race', async () => {
+    const h = await createHousehold(owner.cookie, { name: 'Twice closed' });
+    const [a, b] = await Promise.all([apiAs(owner.cookie, 'DELETE', `/api/households/${h.id}`), apiAs(owner.cookie, 'DELETE', `/api/households/${h.id}`)]);
+    expect([a.status, b.status].sort()).toEqual([204, 404]);
   });
 });

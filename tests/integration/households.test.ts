@@ -282,6 +282,18 @@ describe('invitations', () => {
     expect(row.accepted_at).not.toBeNull();
   });
 
+  it('reads an invitation id like every route: 0x27, 39.0 or 039 name no invitation, and revoke nothing', async () => {
+    const { invitation } = await invite(t.owner, t.household.id, uniqueEmail('hex'), 'viewer');
+    const base = `/api/households/${t.household.id}/invitations`;
+    for (const lax of [`0x${invitation.id.toString(16)}`, `${invitation.id}.0`, `0${invitation.id}`, `${invitation.id}e0`, `+${invitation.id}`]) {
+      const r = await apiAs(t.owner.cookie, 'DELETE', `${base}/${encodeURIComponent(lax)}`);
+      expect(r.status).toBe(404);
+      expect(r.body.error.code).toBe('not_found');
+    }
+    const list = await apiAs(t.owner.cookie, 'GET', base);
+    expect(list.body.invitations.map((i: { id: number }) => i.id)).toContain(invitation.id);
+  });
+
   it('lists pending invitations to the owner only, and a withdrawn link stops working', async () => {
     const email = uniqueEmail('withdrawn');
     const { invitation, token } = await invite(t.owner, t.household.id, email, 'grower');

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { allHarvests, allPurchases, foodId, makeCrop } from '../support/entries';
-import { apiAs, createHousehold, newVerifiedUser, type TestHousehold, type TestUser } from '../support/users';
+import { addMember, apiAs, createHousehold, newVerifiedUser, type TestHousehold, type TestUser } from '../support/users';
 
 let owner: TestUser;
 let h: TestHousehold;
@@ -113,5 +113,60 @@ describe('Idempotency-Key on entry creation', () => {
     expect(malformed.body.error.code).toBe('invalid_idempotency_key');
     const tooLong = await apiAs(owner.cookie, 'POST', harvestsUrl(), { date: '2026-07-05', cropId, quantity: 1, unit: 'kg' }, withKey('k'.repeat(101)));
     expect(tooLong.status).toBe(400);
+  });
+
+  it('refuses a key sent again with a different body (422), storing nothing more', async () => {
+    const key = randomUUID();
+    const first = await apiAs(owner.cookie, 'POST', harvestsUrl(), { date: '2026-07-07', cropId, quantity: 1, unit: 'kg' }, withKey(key));
+    expect(first.status).toBe(201);
+    const other = await apiAs(owner.cookie, 'POST', harvestsUrl(), { date: '2026-07-07', cropId, quantity: 2, unit: 'kg' }, withKey(key));
+    expect(other.status).toBe(422);
+    expect(other.body.error.code).toBe('idempotency_key_reused');
+    expect(other.body.error.message).toMatch(/different body/);
+    expect(other.body.error.fields['Idempotency-Key']).toBeDefined();
+    // The same body with its fields in another order is the same request: replayed.
+    const reordered = await apiAs(owner.cookie, 'POST', harvestsUrl(), { unit: 'kg', quantity: 1, cropId, date: '2026-07-07' }, withKey(key));
+    expect(reordered.status).toBe(201);
+    expect(reordered.headers.get('idempotency-replayed')).toBe('true');
+    const list = await allHarvests(owner.cookie, h.id, 'from=2026-07-07&to=2026-07-07');
+    expect(list.harvests.map((x) => x.quantity)).toEqual([1]);
+  });
+
+  it('answers racing twins with different bodies: one stored, the others refused, none lost silently', async () => {
+    const key = randomUUID();
+    const bodies = [1, 2, 3, 4].map((q) => ({ date: '2026-07-08', cropId, quantity: q, unit: 'kg' }));
+    const answers = await Promise.all(bodies.map((b) => apiAs(owner.cookie, 'POST', harvestsUrl(), b, withKey(key))));
+    expect(answers.filter((a) => a.status === 201)).toHaveLength(1);
+    expect(answers.filter((a) => a.status === 422).every((a) => a.body.error.code === 'idempotency_key_reused')).toBe(true);
+    expect(answers.filter((a) => a.status === 422)).toHaveLength(3);
+    expect((await allHarvests(owner.cookie, h.id, 'from=2026-07-08&to=2026-07-08')).total).toBe(1);
+  });
+
+  it('keeps keys apart per member: the same key from another member is another request', async () => {
+    const grower = await newVerifiedUser({ name: 'Gro Wer' });
+    await addMember(owner, h.id, grower, 'grower');
+    const key = randomUUID();
+    const body = { date: '2026-07-09', cropId, quantity: 1, unit: 'kg' };
+    const mine = await apiAs(owner.cookie, 'POST', harvestsUrl(), body, withKey(key));
+    const theirs = await apiAs(grower.cookie, 'POST', harvestsUrl(), body, withKey(key));
+    expect(mine.status).toBe(201);
+    expect(theirs.status).toBe(201);
+    expect(theirs.headers.get('idempotency-replayed')).toBeNull();
+    expect(theirs.body.harvest.id).not.toBe(mine.body.harvest.id);
+    // Each member's retry still replays their own answer.
+    expect((await apiAs(grower.cookie, 'POST', harvestsUrl(), body, withKey(key))).body.harvest.id).toBe(theirs.body.harvest.id);
+    expect((await allHarvests(owner.cookie, h.id, 'from=2026-07-09&to=2026-07-09')).total).toBe(2);
+  });
+
+  it('refuses a staple-log key reused for another staple', async () => {
+    // USDA SR28 NDB 11352 potatoes and 09040 bananas (a staple per food)
+    const made = await Promise.all(['11352', '09040'].map(async (code) => apiAs(owner.cookie, 'POST', `/api/households/${h.id}/staples`, { foodId: await foodId(code), quantity: 1, unit: 'kg' })));
+    expect(made.map((m) => m.status)).toEqual([201, 201]);
+    const key = randomUUID();
+    const log = (id: number) => apiAs(owner.cookie, 'POST', `/api/households/${h.id}/staples/${id}/log`, { date: '2026-04-05' }, withKey(key));
+    expect((await log(made[0]!.body.staple.id)).status).toBe(201);
+    const other = await log(made[1]!.body.staple.id);
+    expect(other.status).toBe(422);
+    expect(other.body.error.code).toBe('idempotency_key_reused');
   });
 });

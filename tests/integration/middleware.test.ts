@@ -5,6 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { api, BASE_URL } from '../support/env';
+import { apiAs, newVerifiedUser } from '../support/users';
 
 function expectSecurityHeaders(headers: Headers) {
   expect(headers.get('x-content-type-options')).toBe('nosniff');
@@ -43,5 +44,36 @@ describe('the middleware steps', () => {
     const r = await api('/households', { method: 'POST', headers: { origin: BASE_URL }, body: 'x=1' });
     expect(r.status).toBe(303);
     expect(r.headers.get('location')).toBe('/sign-in?next=%2Fhouseholds');
+  });
+});
+
+describe('state changes that carry a session cookie but no Origin', () => {
+  it('refuses them, even with a foreign or our own Referer; Sec-Fetch-Site: same-origin lets them through', async () => {
+    const u = await newVerifiedUser({ name: 'No-origin owner' });
+    const body = JSON.stringify({ name: 'Planted without an origin', timezone: 'UTC' });
+    const send = (headers: Record<string, string>) =>
+      api('/api/households', { method: 'POST', headers: { cookie: u.cookie, 'content-type': 'application/json', ...headers }, body });
+
+    const bare = await send({});
+    expect(bare.status).toBe(403);
+    expect(bare.body.error.code).toBe('bad_origin');
+    expect((await send({ referer: 'https://elsewhere.example/page' })).status).toBe(403);
+    expect((await send({ referer: `${BASE_URL}/households` })).status).toBe(403);
+    expect((await send({ origin: 'null' })).status).toBe(403);
+    expect((await send({ 'sec-fetch-site': 'cross-site' })).status).toBe(403);
+    expect((await apiAs(u.cookie, 'GET', '/api/households')).body.households).toEqual([]);
+
+    const sameOrigin = await send({ 'sec-fetch-site': 'same-origin' });
+    expect(sameOrigin.status).toBe(201);
+    // A page form post without Origin is refused the same way (plain text, not JSON).
+    const form = await api('/households', { method: 'POST', headers: { cookie: u.cookie }, body: 'x=1' });
+    expect(form.status).toBe(403);
+    expect(form.body).toBe('Cross-site form submissions are refused.');
+  });
+
+  it('keeps the token-only unsubscribe open to mail programs without Origin', async () => {
+    const r = await api('/api/letters/unsubscribe?t=not-a-token', { method: 'POST', headers: { cookie: 'selfsown.session_token=x' } });
+    expect(r.status).toBe(400);
+    expect(r.body.error.code).toBe('invalid_token');
   });
 });

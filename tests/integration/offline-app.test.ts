@@ -1,11 +1,11 @@
 /**
  * The installable app as the built server serves it: the web app manifest and its icons, the
- * service worker and the offline page; and the caching rule of household data — JSON `no-store`
- * (never kept), except the signed-in pages and the API lists the offline pages read, which are
- * `private, no-cache` (no shared cache; the service worker may keep the last copy).
+ * service worker and the offline page; and the caching rule of household data — `no-store` for every
+ * HTTP cache, with the signed-in offline pages and the API lists they read marked X-Selfsown-Offline:
+ * keep, the only answers the service worker keeps.
  */
 import { describe, expect, it } from 'vitest';
-import { OFFLINE_FALLBACK, OFFLINE_LISTS, RUNTIME_CACHES } from '@/lib/app-cache';
+import { OFFLINE_FALLBACK, OFFLINE_KEEP_HEADER, OFFLINE_LISTS, RUNTIME_CACHES } from '@/lib/app-cache';
 import { PALETTE } from '@/lib/palette';
 import { api } from '../support/env';
 import { apiAs, createHousehold, newVerifiedUser } from '../support/users';
@@ -36,6 +36,8 @@ describe('the installable app', () => {
     expect(text).toContain('offline.html');
     for (const name of Object.values(RUNTIME_CACHES)) expect(text).toContain(`cacheName:"${name}"`);
     for (const list of OFFLINE_LISTS) expect(text).toContain(list);
+    // The worker keeps only what the server marked (its plugin is written in as text).
+    expect(text).toContain(`"${OFFLINE_KEEP_HEADER.toLowerCase()}"`);
     const offline = await api(OFFLINE_FALLBACK);
     expect(offline.status).toBe(200);
     expect(String(offline.body)).toContain('No connection');
@@ -48,28 +50,32 @@ describe('the installable app', () => {
 });
 
 describe('caching of household data', () => {
-  it('lets the offline lists and signed-in pages be kept on the device only, and nothing else', async () => {
+  it('keeps household data out of every HTTP cache and marks only the offline lists and pages for the worker', async () => {
     const owner = await newVerifiedUser();
     const h = await createHousehold(owner.cookie, { name: 'Cache plot' });
     for (const list of OFFLINE_LISTS) {
       const r = await apiAs(owner.cookie, 'GET', `/api/households/${h.id}/${list}${list === 'plantings' ? '?year=2026' : ''}`);
       expect(r.status, list).toBe(200);
-      expect(r.headers.get('cache-control'), list).toBe('private, no-cache');
+      expect(r.headers.get('cache-control'), list).toBe('no-store');
+      expect(r.headers.get(OFFLINE_KEEP_HEADER), list).toBe('keep');
     }
     const log = await apiAs(owner.cookie, 'GET', `/households/${h.id}/log`);
     expect(log.status).toBe(200);
-    expect(log.headers.get('cache-control')).toBe('private, no-cache');
-    // Everything else that is JSON stays never-kept.
-    for (const path of [`/api/households/${h.id}/members`, `/api/households/${h.id}/people`, `/api/households/${h.id}`]) {
+    expect(log.headers.get('cache-control')).toBe('no-store');
+    expect(log.headers.get(OFFLINE_KEEP_HEADER)).toBe('keep');
+    // Everything else is never kept, by the worker either.
+    for (const path of [`/api/households/${h.id}/members`, `/api/households/${h.id}/people`, `/api/households/${h.id}`, `/households/${h.id}/share`]) {
       const r = await apiAs(owner.cookie, 'GET', path);
       expect(r.status, path).toBe(200);
       expect(r.headers.get('cache-control'), path).toBe('no-store');
+      expect(r.headers.get(OFFLINE_KEEP_HEADER), path).toBeNull();
     }
     // A refusal of a list is not marked for keeping.
     const outsider = await newVerifiedUser();
     const refused = await apiAs(outsider.cookie, 'GET', `/api/households/${h.id}/crops`);
     expect(refused.status).toBe(404);
     expect(refused.headers.get('cache-control')).toBe('no-store');
+    expect(refused.headers.get(OFFLINE_KEEP_HEADER)).toBeNull();
   });
 
   it('sets no caching rule on pages for a signed-out visitor', async () => {

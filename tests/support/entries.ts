@@ -5,7 +5,7 @@
  *   const crop = await makeCrop(owner.cookie, hid, { name: 'Potato', foodId: potato, category: 'root_tuber' });
  *   const r = await upload(owner.cookie, hid, { kind: 'harvests', mode: 'commit', csv: 'date,crop,…' });
  */
-import { api } from './env';
+import { api, BASE_URL } from './env';
 import { apiAs } from './users';
 
 const foodIds = new Map<string, number>();
@@ -62,5 +62,5 @@ export async function upload(
   if (opts.mode !== undefined) form.set('mode', opts.mode);
   if (opts.createCrops !== undefined) form.set('createCrops', JSON.stringify(opts.createCrops));
   for (const [k, v] of Object.entries(opts.fields ?? {})) form.set(k, v);
-  return api(`/api/households/${householdId}/imports`, { method: 'POST', headers: cookie ? { cookie } : {}, body: form });
+  return api(`/api/households/${householdId}/imports`, { method: 'POST', headers: cookie ? { cookie, origin: BASE_URL } : {}, body: form });
 }

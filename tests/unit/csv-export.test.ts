@@ -48,7 +48,7 @@ const harvests: HarvestInput[] = [
   { date: '2026-10-02', cropId: 3, quantity: 7.3, unit: 'lb', use: 'stored', trimmed: false },
   { date: '2026-08-01', cropId: 4, quantity: 12, unit: 'oz', use: 'given', spreadMonths: 1, trimmed: true, note: 'für die Nachbarn — ça va' },
   { date: '2026-08-03', foodId: 102, quantity: 0.1 + 0.2, unit: 'g', use: 'preserved', spreadMonths: 9, trimmed: false, note: '=SUM(A1:A9) is not a formula' },
-  { date: '2026-08-04', cropId: 5, quantity: 1e-7, unit: 'kg', use: 'seed', spreadMonths: 1, trimmed: false, note: "-5 °C frost; 'quoted'" },
+  { date: '2026-08-04', cropId: 5, quantity: 0.001, unit: 'kg', use: 'seed', spreadMonths: 1, trimmed: false, note: "-5 °C frost; 'quoted'" },
 ].map((h) => harvestInput.parse(h));
 
 const purchases: PurchaseInput[] = [

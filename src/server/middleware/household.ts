@@ -5,6 +5,7 @@
  * remembers it in that cookie.
  */
 import { defineMiddleware } from 'astro:middleware';
+import { secureCookies } from '@/server/config';
 import { listHouseholds } from '@/server/households';
 
 /** The cookie that remembers the household a person last opened. */
@@ -27,7 +28,7 @@ export const household = defineMiddleware(async (ctx, next) => {
     list.find((h) => String(h.id) === inUrl) ?? list.find((h) => String(h.id) === remembered) ?? (list.length === 1 ? list[0] : undefined);
   ctx.locals.household = current ?? null;
   if (current && String(current.id) === inUrl && remembered !== inUrl) {
-    ctx.cookies.set(HOUSEHOLD_COOKIE, inUrl, { path: '/', httpOnly: true, sameSite: 'lax', maxAge: ONE_YEAR_SECONDS, secure: url.protocol === 'https:' });
+    ctx.cookies.set(HOUSEHOLD_COOKIE, inUrl, { path: '/', httpOnly: true, sameSite: 'lax', maxAge: ONE_YEAR_SECONDS, secure: secureCookies() });
   }
   return next();
 });

@@ -1,10 +1,12 @@
 /**
- * The app's one origin check: a state-changing request (anything but GET, HEAD, OPTIONS) sent from
- * another site is refused with 403 before any other step reads or writes. Browsers name the page
- * that sent a request (Origin, Sec-Fetch-Site); it must be PUBLIC_ORIGIN. better-auth checks
- * /api/auth/ itself. Astro's own check is off (see astro.config.mjs).
+ * The app's one origin check: a state-changing request (anything but GET, HEAD, OPTIONS) that could
+ * act for someone is refused with 403 unless the browser says it came from our own pages, before any
+ * other step reads or writes. The rule itself is `sameSiteRequest` (src/lib/origin-rule.ts).
+ * better-auth checks /api/auth/ itself (Origin, else Referer, against PUBLIC_ORIGIN). Astro's own
+ * check is off (see astro.config.mjs).
  */
 import { defineMiddleware } from 'astro:middleware';
+import { sameSiteRequest } from '@/lib/origin-rule';
 import { publicOrigin } from '@/server/config';
 import { errorResponse } from '@/server/http';
 
@@ -19,11 +21,11 @@ const TOKEN_ONLY = '/api/letters/unsubscribe';
 export const originCheck = defineMiddleware((ctx, next) => {
   const { request, url } = ctx;
   if (SAFE.has(request.method) || url.pathname.startsWith('/api/auth/') || url.pathname === TOKEN_ONLY) return next();
-  const origin = request.headers.get('origin');
-  const site = request.headers.get('sec-fetch-site');
-  if ((origin && origin !== publicOrigin()) || site === 'cross-site') {
+  const h = request.headers;
+  const ok = sameSiteRequest({ origin: h.get('origin'), fetchSite: h.get('sec-fetch-site'), hasCookie: h.has('cookie') }, publicOrigin());
+  if (!ok) {
     return url.pathname.startsWith('/api/')
-      ? errorResponse(403, 'bad_origin', 'This request came from another site and was refused.')
+      ? errorResponse(403, 'bad_origin', 'This request did not come from Selfsown\'s own pages and was refused. Send it from the app (with its Origin header).')
       : new Response('Cross-site form submissions are refused.', { status: 403, headers: { 'content-type': 'text/plain; charset=utf-8' } });
   }
   return next();

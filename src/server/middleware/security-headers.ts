@@ -1,50 +1,48 @@
 /**
- * The headers every answer carries: no MIME sniffing, not framed by other sites, no full referrers
- * sent out. The outermost step, so that the answers of the other steps (a refused cross-site
- * request, the redirect to sign-in) carry them too.
- *
- * Caching of household data, decided here once. JSON answers say `no-store` (src/server/http.ts):
- * never kept anywhere, and the service worker honours it. Two exceptions say `private, no-cache`
- * instead — no shared cache, and the browser asks the server each time, but the service worker
- * may keep the last copy for use with no signal (astro.config.mjs; emptied at sign-in and
- * sign-out): the pages of a signed-in person (which set no rule of their own) and the few API
- * lists the offline pages read (src/lib/app-cache.ts: crops, staples, harvests, bought food,
- * plantings). Exports, members, people and the rest stay `no-store`.
+ * The headers every answer carries (src/lib/security-policy.ts): no MIME sniffing, not framed by
+ * other sites, no full referrers sent out, its own browsing context group, powerful features off,
+ * and a Content-Security-Policy — for pages the app's whole policy around the script hashes Astro
+ * sent (experimental.csp, astro.config.mjs), for anything else one that lets nothing run. Signed-in
+ * pages and every API answer are `Cache-Control: no-store`: household records stay out of shared
+ * and back-button caches. The outermost step, so that the answers of the other steps (a refused
+ * cross-site request, the redirect to sign-in) carry them too. Static files never reach the
+ * middleware: src/server/boot.ts gives them the base headers.
  */
 import { defineMiddleware } from 'astro:middleware';
-import { offlineRoutes } from '@/lib/app-cache';
+import { OFFLINE_KEEP_HEADER, offlineRoutes } from '@/lib/app-cache';
+import { BASE_SECURITY_HEADERS, NON_PAGE_POLICY, pagePolicy, scriptHashesOf } from '@/lib/security-policy';
 
-/** The caching rule of what a grower may open with no signal: kept on the device only. */
-export const KEPT_OFFLINE_CACHE_CONTROL = 'private, no-cache';
-
-const offlineLists = offlineRoutes().lists;
+const offline = offlineRoutes();
 
 export const securityHeaders = defineMiddleware(async (ctx, next) => {
   const response = await next();
-  const keptList = ctx.request.method === 'GET' && response.status === 200 && offlineLists.test(ctx.url.href);
-  if (keptList) trySet(response, 'Cache-Control', KEPT_OFFLINE_CACHE_CONTROL);
-  return withSecurityHeaders(response, ctx.locals.user ? KEPT_OFFLINE_CACHE_CONTROL : undefined);
+  const noStore = ctx.url.pathname.startsWith('/api/') || ctx.locals.user !== null;
+  withSecurityHeaders(response, { noStore });
+  // `no-store` keeps these out of every HTTP cache; our own service worker (astro.config.mjs) keeps
+  // a copy in the app's offline store only of what is marked here: the offline pages and lists a
+  // grower opens with no signal, emptied at sign-in and sign-out.
+  const href = ctx.url.href;
+  if (ctx.request.method === 'GET' && response.status === 200 && ctx.locals.user && (offline.lists.test(href) || offline.pages.test(href))) {
+    try {
+      response.headers.set(OFFLINE_KEEP_HEADER, 'keep');
+    } catch {
+      // Immutable headers (a fetched Response passed through): not kept offline.
+    }
+  }
+  return response;
 });
 
-function trySet(response: Response, name: string, value: string): void {
-  try {
-    response.headers.set(name, value);
-  } catch {
-    // Immutable headers (a fetched Response passed through): leave them.
-  }
-}
-
-/** Adds each header the response does not set itself (and the cache rule, when given). */
-export function withSecurityHeaders(response: Response, cacheControl?: string): Response {
+/** Adds each header the response does not set itself; writes the Content-Security-Policy whole. */
+export function withSecurityHeaders(response: Response, opts: { noStore?: boolean } = {}): Response {
+  const h = response.headers;
   const set = (name: string, value: string) => {
-    if (!response.headers.has(name)) response.headers.set(name, value);
+    if (!h.has(name)) h.set(name, value);
   };
   try {
-    set('X-Content-Type-Options', 'nosniff');
-    set('X-Frame-Options', 'SAMEORIGIN');
-    set('Content-Security-Policy', "frame-ancestors 'self'");
-    set('Referrer-Policy', 'strict-origin-when-cross-origin');
-    if (cacheControl) set('Cache-Control', cacheControl);
+    for (const [name, value] of Object.entries(BASE_SECURITY_HEADERS)) set(name, value);
+    const isPage = (h.get('content-type') ?? '').startsWith('text/html');
+    h.set('Content-Security-Policy', isPage ? pagePolicy(scriptHashesOf(h.get('content-security-policy'))) : NON_PAGE_POLICY);
+    if (opts.noStore) set('Cache-Control', 'no-store');
   } catch {
     // Some responses (e.g. a fetched Response passed through) have immutable headers: leave them.
   }

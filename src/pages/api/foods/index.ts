@@ -2,6 +2,7 @@ import type { APIRoute } from 'astro';
 import { z } from 'zod';
 import { getPool } from '@/db/client';
 import { datasetSlug } from '@/lib/dataset-order';
+import { lineText } from '@/lib/text-schemas';
 import { searchOrderFor } from '@/server/food-search-order';
 import { datasetExists } from '@/server/datasets';
 import { foodsByCode, searchFoods } from '@/server/food-search';
@@ -9,7 +10,7 @@ import { errorResponse, handle, json } from '@/server/http';
 
 const query = z
   .object({
-    q: z.string().trim().min(1).max(100).optional(),
+    q: lineText('The search', 100).min(1).optional(),
     code: z.string().trim().regex(/^[A-Za-z0-9._-]{1,20}$/, 'A food code is 1–20 letters, digits, dots or dashes.').optional(),
     dataset: datasetSlug.optional(),
     /** The household whose dataset order ranks the hits (default: the signed-in person's current one). */

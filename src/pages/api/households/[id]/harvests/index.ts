@@ -20,10 +20,11 @@ export const POST = householdRoute('write', async (ctx, a) => {
   const key = idempotencyKey(ctx.request);
   const body = await readJson(ctx.request);
   const hid = a.household.id;
+  const keyed = { householdId: hid, userId: a.userId, route: 'harvests', path: ctx.url.pathname, body };
   if (body !== null && typeof body === 'object' && 'parts' in body) {
     const split = parseInput(harvestSplitInput, body);
-    return answerResponse(await idempotent(hid, key, 'harvests', async (tx) => ({ status: 201, body: { harvests: await createSplitHarvest(tx, hid, a.userId, split) } })));
+    return answerResponse(await idempotent(keyed, key, async (tx) => ({ status: 201, body: { harvests: await createSplitHarvest(tx, hid, a.userId, split) } })));
   }
   const input = parseInput(harvestInput, body);
-  return answerResponse(await idempotent(hid, key, 'harvests', async (tx) => ({ status: 201, body: { harvest: await createHarvest(tx, hid, a.userId, input) } })));
+  return answerResponse(await idempotent(keyed, key, async (tx) => ({ status: 201, body: { harvest: await createHarvest(tx, hid, a.userId, input) } })));
 });

@@ -15,7 +15,9 @@ export const GET = householdRoute('read', async (ctx, a) => {
 /** POST /api/households/{id}/purchases (owner, grower) → 201 { purchase }. Honours Idempotency-Key. */
 export const POST = householdRoute('write', async (ctx, a) => {
   const key = idempotencyKey(ctx.request);
-  const input = parseInput(purchaseInput, await readJson(ctx.request));
+  const body = await readJson(ctx.request);
+  const input = parseInput(purchaseInput, body);
   const hid = a.household.id;
-  return answerResponse(await idempotent(hid, key, 'purchases', async (tx) => ({ status: 201, body: { purchase: await createPurchase(tx, hid, a.userId, input) } })));
+  const keyed = { householdId: hid, userId: a.userId, route: 'purchases', path: ctx.url.pathname, body };
+  return answerResponse(await idempotent(keyed, key, async (tx) => ({ status: 201, body: { purchase: await createPurchase(tx, hid, a.userId, input) } })));
 });

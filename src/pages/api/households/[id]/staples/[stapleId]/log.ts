@@ -9,7 +9,9 @@ import { logStaple } from '@/server/staples';
 export const POST = householdRoute('write', async (ctx, a) => {
   const stapleId = idParam(ctx.params.stapleId, 'staple');
   const key = idempotencyKey(ctx.request);
-  const { date } = parseInput(stapleLogInput, await readOptionalJson(ctx.request));
-  // Same kind as POST purchases: what is stored is bought food.
-  return answerResponse(await idempotent(a.household.id, key, 'purchases', async (tx) => ({ status: 201, body: { purchase: await logStaple(tx, a.household, a.userId, stapleId, date) } })));
+  const body = await readOptionalJson(ctx.request);
+  const { date } = parseInput(stapleLogInput, body);
+  // Same kind as POST purchases: what is stored is bought food. The path names the staple.
+  const keyed = { householdId: a.household.id, userId: a.userId, route: 'purchases', path: ctx.url.pathname, body };
+  return answerResponse(await idempotent(keyed, key, async (tx) => ({ status: 201, body: { purchase: await logStaple(tx, a.household, a.userId, stapleId, date) } })));
 });
