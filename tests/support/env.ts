@@ -17,8 +17,23 @@ export function testPool() {
   return createPool(TEST_DB_URL);
 }
 
+/**
+ * A kept-alive socket the server closes for idleness just as the client reuses it fails the request
+ * before it was sent (undici: UND_ERR_SOCKET, "other side closed"); a read is sent again once. Writes
+ * are never sent twice here: a test must see what its one request did.
+ */
+async function fetchOnce(url: string, init: RequestInit): Promise<Response> {
+  try {
+    return await fetch(url, init);
+  } catch (e) {
+    const code = (e as { cause?: { code?: string } }).cause?.code;
+    if ((init.method ?? 'GET').toUpperCase() !== 'GET' || code !== 'UND_ERR_SOCKET') throw e;
+    return fetch(url, init);
+  }
+}
+
 export async function api(path: string, init: RequestInit = {}): Promise<{ status: number; body: any; headers: Headers }> {
-  const res = await fetch(`${BASE_URL}${path}`, { redirect: 'manual', ...init });
+  const res = await fetchOnce(`${BASE_URL}${path}`, { redirect: 'manual', ...init });
   const text = await res.text();
   let body: unknown = text;
   try {

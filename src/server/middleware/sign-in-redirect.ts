@@ -5,7 +5,7 @@
 import { defineMiddleware } from 'astro:middleware';
 
 /** Pages anyone may see; everything else needs sign-in. /admin answers 404 itself to all but site administrators. */
-const PUBLIC_PAGES = [/^\/admin(\/|$)/, /^\/$/, /^\/sign-(in|up)\/?$/, /^\/forgot-password\/?$/, /^\/reset-password\/?$/, /^\/verify\/?$/, /^\/invite\//, /^\/letters\/unsubscribe\/?$/, /^\/foods(\/|$)/, /^\/dev\/mail(\/|$)/, /^\/_astro\//, /^\/favicon/];
+const PUBLIC_PAGES = [/^\/admin(\/|$)/, /^\/404\/?$/, /^\/$/, /^\/sign-(in|up)\/?$/, /^\/forgot-password\/?$/, /^\/reset-password\/?$/, /^\/verify\/?$/, /^\/invite\//, /^\/letters\/unsubscribe\/?$/, /^\/foods(\/|$)/, /^\/dev\/mail(\/|$)/, /^\/_astro\//, /^\/favicon/];
 
 export const signInRedirect = defineMiddleware((ctx, next) => {
   const { url } = ctx;
