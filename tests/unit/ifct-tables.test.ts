@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { ifctCoverage, ifctReading, ifctTableOf } from '@/lib/ifct-tables';
 
 // Made-up rows in the package's layout (grams per 100 g); they test the rule, not any food.
-const rows = [
+const rows: Record<string, string>[] = [
   { code: 'A001', grup: 'Cereals and Millets', water: '9', protcnt: '10', fatce: '2', enerc: '1400', vitc: '0', thia: '0.0003', retol: '0', tocpha: '0.0001' },
   { code: 'A002', grup: 'Cereals and Millets', water: '70', protcnt: '3', fatce: '1', enerc: '500', vitc: '0.004', thia: '0.0002', retol: '0', tocpha: '0.0001' },
   { code: 'O001', grup: 'Animal Meat', water: '66', protcnt: '20', fatce: '12', enerc: '780', vitc: '0', thia: '0.00007', retol: '0.0000075', tocpha: '0.0003' },
