@@ -9,6 +9,7 @@
 import { sql } from 'drizzle-orm';
 import { getDb, getPool } from '@/db/client';
 import { datasetJobs } from '@/db/schema';
+import { formatAmount } from '@/lib/format-number';
 import { countText } from '@/lib/plural';
 import { recordAction, type Admin } from './admin';
 import { BUILTIN_DATASETS, builtinDataset, type BuiltinDataset } from './builtin-datasets';
@@ -30,12 +31,19 @@ async function runLoad(id: number, builtin: BuiltinDataset): Promise<void> {
     const total = foods.length + amounts.length;
     await updateJob(id, { phase: 'loading into the database', foodCount: foods.length, amountCount: amounts.length, bytesTotal: total });
     let last = 0;
+    // Progress writes go one after another and all land before the last word, never after it.
+    let written: Promise<unknown> = Promise.resolve();
     const progress = (rows: number) => {
       if (Date.now() - last < PROGRESS_EVERY_MS && rows < total) return;
       last = Date.now();
-      void updateJob(id, { rowsRead: rows, bytesRead: rows, phase: `loading: ${countText(rows, 'row')} of ${total} written` }).catch(() => {});
+      const phase = `loading: ${formatAmount(rows)} of ${formatAmount(total)} rows written`;
+      written = written.then(() => updateJob(id, { rowsRead: rows, bytesRead: rows, phase })).catch(() => {});
     };
-    await importDataset(getPool(), builtin.info, foods, amounts, { force: true, progress });
+    try {
+      await importDataset(getPool(), builtin.info, foods, amounts, { force: true, progress });
+    } finally {
+      await written;
+    }
     const secs = ((Date.now() - started) / 1000).toFixed(1);
     await updateJob(id, { status: 'applied', activeSlug: null, rowsRead: total, bytesRead: total, phase: `loaded ${countText(foods.length, 'food')} and ${countText(amounts.length, 'nutrient amount')} in ${secs} s` });
   } catch (e) {

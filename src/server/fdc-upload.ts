@@ -125,6 +125,8 @@ export async function readUpload(jobId: number, files: ReadonlyMap<FdcFile, Uplo
       await update(jobId, { phase: `reading ${file}`, rowsRead: progress.rows, bytesRead: progress.bytes });
       await readFile(reader, file, upload, progress);
     }
+    // Every byte is read: the files go now, before the job says what became of them.
+    await removeJobFolder(jobId);
     const result = reader.finish();
     const done = { rowsRead: progress.rows, bytesRead: progress.bytes, format: result.format, foodCount: result.foods.length, amountCount: result.amounts.length };
     if (result.errors.length) {
@@ -191,13 +193,15 @@ export async function applyUpload(admin: Admin, id: number): Promise<UploadJobJs
   const info = { slug: j!.slug, name: j!.name, release: j!.release, publisher: j!.publisher, licence: j!.licence, sourceNote: `Uploaded by ${admin.email}: FoodData Central ${j!.format === 'foundation' ? 'Foundation Foods' : 'SR Legacy'} CSV.` };
   const foodsIn = payload.foods.map((f) => ({ code: f.code, name: f.name, originalName: f.name, group: f.group, refusePct: null, rawness: f.rawness, weights: f.weights }));
   let last = 0;
+  // Phase writes go one after another and all land before the last word, never after it.
+  let written: Promise<unknown> = Promise.resolve();
   const log = (line: string) => {
     if (Date.now() - last < 1000) return;
     last = Date.now();
-    void update(id, { phase: `loading:${line}`.slice(0, 200) });
+    written = written.then(() => update(id, { phase: `loading:${line}`.slice(0, 200) })).catch(() => {});
   };
   try {
-    await importDataset(getPool(), info, foodsIn, payload.amounts, { force: true, importedBy: admin.id, log });
+    await importDataset(getPool(), info, foodsIn, payload.amounts, { force: true, importedBy: admin.id, log }).finally(() => written);
   } catch (e) {
     await update(id, { status: 'failed', activeSlug: null, phase: `not applied, nothing changed: ${e instanceof Error ? e.message : String(e)}`.slice(0, 200), payload: null });
     throw new HttpError(422, 'apply_failed', `The upload could not be loaded; nothing changed. ${e instanceof Error ? e.message : ''}`);

@@ -1,8 +1,10 @@
 /**
  * A site administrator loads IFCT 2017 again from its package on /admin: asks, confirms, watches
  * the job until it is loaded, and finds it in the list of loads. The admin pages fit a phone's
- * width and a desktop's without scrolling sideways (screenshots kept with the run's artifacts).
+ * width and a desktop's without scrolling sideways and with no serious or critical WCAG 2.2 AA
+ * violation found by axe-core (screenshots kept with the run's artifacts).
  */
+import AxeBuilder from '@axe-core/playwright';
 import { expect, test } from './fixtures';
 import { BASE_URL, testPool } from '../support/env';
 import { newVerifiedUser } from '../support/users';
@@ -49,7 +51,7 @@ for (const [name, size] of [
   ['phone', { width: 390, height: 844 }],
   ['desktop', { width: 1280, height: 900 }],
 ] as const) {
-  test(`the admin pages fit a ${name}'s width`, async ({ page, context }, testInfo) => {
+  test(`the admin pages fit a ${name}'s width and pass axe`, async ({ page, context }, testInfo) => {
     await signInAdmin(context);
     await page.setViewportSize(size);
     for (const path of ['/admin', '/admin/uploads', '/admin/accounts', '/admin/outbox']) {
@@ -58,6 +60,9 @@ for (const [name, size] of [
       const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
       expect(overflow, `${path} scrolls sideways at ${size.width} px`).toBeLessThanOrEqual(0);
       await page.screenshot({ path: testInfo.outputPath(`${name}${path.replaceAll('/', '-')}.png`), fullPage: true });
+      const axe = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa']).analyze();
+      const serious = axe.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.help}`);
+      expect(serious, `${path} at ${size.width} px`).toEqual([]);
     }
   });
 }

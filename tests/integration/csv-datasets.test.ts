@@ -28,7 +28,12 @@ beforeAll(async () => {
   ids.clashRoot = await idOf('F006', CLASH);
   t = await householdWithRoles({ name: 'Clash plot' });
 });
-afterAll(() => pool.end());
+afterAll(async () => {
+  // Other files look 11352 up across every dataset: take the test dataset away again, with the entries on it.
+  await pool.query('DELETE p FROM purchases p JOIN foods f ON f.id = p.food_id JOIN datasets d ON d.id = f.dataset_id WHERE d.slug = ?', [CLASH]);
+  await pool.query('DELETE FROM datasets WHERE slug = ?', [CLASH]);
+  await pool.end();
+});
 
 const bought = (rows: string[], header = 'date,food_code,quantity,unit') => [header, ...rows].join('\n');
 

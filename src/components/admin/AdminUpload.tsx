@@ -58,7 +58,7 @@ function JobView({ id }: { id: number }) {
         {countText(j.amountCount, 'nutrient amount')}{j.format ? ` · ${j.format === 'foundation' ? 'Foundation Foods' : 'SR Legacy'}` : ''}
       </p>
       {j.errors.length > 0 ? (
-        <div className="mt-4 overflow-x-auto">
+        <div className="mt-4 overflow-x-auto" tabIndex={0} role="region" aria-label="Rows refused">
           <h3 className="font-bold">Rows refused — nothing was loaded</h3>
           <table className="mt-2 w-full text-left text-sm" data-testid="upload-errors">
             <thead>
