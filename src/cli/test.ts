@@ -84,11 +84,16 @@ async function main(): Promise<number> {
   const mailFake = await startMailFake({ port: smtpPort, dir: mailDir });
   console.log(`• fake SMTP on 127.0.0.1:${smtpPort}, mail in ${mailDir}`);
 
+  // And its own folder for dataset uploads, so a test can watch a file arrive.
+  const uploadDir = resolve(root, '.data', `test-uploads-${port}`);
+  rmSync(uploadDir, { recursive: true, force: true });
+
   const env = childEnv({
     // Always the fake, whatever .env says: tests never send real mail.
     SMTP_URL: '',
     FAKE_SMTP_PORT: String(smtpPort),
     MAIL_DIR: mailDir,
+    UPLOAD_DIR: uploadDir,
     // Generous limits so many test users can sign up; sign-in keeps a small limit with a short
     // window (the rate-limit test connects from its own loopback address, 127.0.0.x).
     AUTH_RATE_LIMIT: '100000/60',

@@ -4,7 +4,7 @@
  * src/db/schema.ts re-exports it, and code imports it from there.
  */
 import { bigint, customType, double, index, int, mediumtext, mysqlEnum, mysqlTable, primaryKey, smallint, text, timestamp, tinyint, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
-import { DATASET_JOB_STATUSES, FDC_FORMATS } from '@/lib/dataset-jobs';
+import { DATASET_JOB_KINDS, DATASET_JOB_STATUSES, FDC_FORMATS } from '@/lib/dataset-jobs';
 // ── Reference data: food composition datasets ────────────────────────────────────────────────
 
 /** A public food composition dataset (e.g. USDA SR28), with its release and licence. */
@@ -112,11 +112,13 @@ export const datasetReleases = mysqlTable(
 const longBlob = customType<{ data: Buffer }>({ dataType: () => 'longblob' });
 
 /**
- * An administrator's FoodData Central upload: read and checked into `payload` (gzipped JSON of the
- * foods and amounts) with progress the page polls, then applied in one transaction on confirmation.
+ * A dataset job the admin pages follow. An administrator's FoodData Central upload: read and checked
+ * into `payload` (gzipped JSON of the foods and amounts) with progress the page polls, then applied
+ * in one transaction on confirmation. Or a reload of a built-in dataset (SR28, IFCT 2017).
  */
 export const datasetJobs = mysqlTable('dataset_jobs', {
   id: int('id').autoincrement().primaryKey(),
+  kind: mysqlEnum('kind', DATASET_JOB_KINDS).notNull().default('fdc_upload'),
   slug: varchar('slug', { length: 40 }).notNull(),
   name: varchar('name', { length: 200 }).notNull(),
   release: varchar('release', { length: 80 }).notNull(),
@@ -137,6 +139,12 @@ export const datasetJobs = mysqlTable('dataset_jobs', {
   preview: mediumtext('preview'),
   payload: longBlob('payload'),
   createdBy: varchar('created_by', { length: 36 }).notNull(),
+  /** The server process running it ("host:pid:boot id", src/lib/job-runner.ts) while reading or applying. */
+  runner: varchar('runner', { length: 160 }),
+  /** Touched every few seconds while it runs: a running job with an old heartbeat was left by a server that stopped. */
+  heartbeatAt: timestamp('heartbeat_at'),
+  /** The slug while the job loads into the database: the unique key lets one load per dataset run at a time. */
+  activeSlug: varchar('active_slug', { length: 40 }).unique('dataset_jobs_active_slug'),
   createdAt: timestamp('created_at').notNull().defaultNow(),
   updatedAt: timestamp('updated_at').notNull().defaultNow().onUpdateNow(),
 });

@@ -62,6 +62,8 @@ export interface HarvestCsvRecord {
   crop?: string;
   variety?: string;
   foodCode?: string;
+  /** The food's dataset slug, so a code two datasets share re-imports as the same food. */
+  foodDataset?: string;
   quantity: number;
   unit: EntryUnit;
   use: Use;
@@ -76,7 +78,14 @@ export interface HarvestCsvRecord {
 export interface ExportLookups {
   crop(id: number): { name: string; variety?: string | null } | undefined;
   foodCode(id: number): string | undefined;
+  /** The slug of the food's dataset (written in the dataset column). */
+  foodDataset?(id: number): string | undefined;
 }
+
+const datasetOf = (lookups: Pick<ExportLookups, 'foodDataset'>, foodId: number) => {
+  const slug = lookups.foodDataset?.(foodId);
+  return slug === undefined ? {} : { foodDataset: slug };
+};
 
 /** A harvest entry as an export record, naming its crop or food. Example: `harvestRecord(entry, lookups).crop` → 'Potato' */
 export function harvestRecord(entry: HarvestInput, lookups: ExportLookups): HarvestCsvRecord {
@@ -89,18 +98,19 @@ export function harvestRecord(entry: HarvestInput, lookups: ExportLookups): Harv
   if (foodId !== undefined) {
     const foodCode = lookups.foodCode(foodId);
     if (foodCode === undefined) throw new Error(`Harvest of ${entry.date} names food ${foodId}, which was not found.`);
-    return { ...rest, foodCode };
+    return { ...rest, foodCode, ...datasetOf(lookups, foodId) };
   }
   throw new Error(`Harvest of ${entry.date} names neither a crop nor a food.`);
 }
 
-/** Harvests as CSV with the importer's columns. Example: `harvestsToCsv([record]).split('\r\n')[0]` → '\uFEFFdate,crop,variety,food_code,quantity,unit,use,spread_months,preserve_method,trimmed,note' */
+/** Harvests as CSV with the importer's columns. Example: `harvestsToCsv([record]).split('\r\n')[0]` → '\uFEFFdate,crop,variety,food_code,dataset,quantity,unit,use,spread_months,preserve_method,trimmed,note' */
 export function harvestsToCsv(records: readonly HarvestCsvRecord[], options: CsvExportOptions = {}): string {
   const cells = (r: HarvestCsvRecord): Record<(typeof HARVEST_CSV_COLUMNS)[number], Cell> => ({
     date: r.date,
     crop: r.crop,
     variety: r.variety,
     food_code: r.foodCode,
+    dataset: r.foodDataset,
     quantity: r.quantity,
     unit: r.unit,
     use: r.use,
@@ -119,6 +129,7 @@ export function harvestsToCsv(records: readonly HarvestCsvRecord[], options: Csv
 export interface PurchaseCsvRecord {
   date: string;
   foodCode: string;
+  foodDataset?: string;
   quantity: number;
   unit: EntryUnit;
   price?: number | null;
@@ -129,11 +140,11 @@ export interface PurchaseCsvRecord {
 }
 
 /** A purchase entry as an export record. Example: `purchaseRecord(entry, lookups).foodCode` → '20081' */
-export function purchaseRecord(entry: PurchaseInput, lookups: Pick<ExportLookups, 'foodCode'>): PurchaseCsvRecord {
+export function purchaseRecord(entry: PurchaseInput, lookups: Pick<ExportLookups, 'foodCode' | 'foodDataset'>): PurchaseCsvRecord {
   const { foodId, ...rest } = entry;
   const foodCode = lookups.foodCode(foodId);
   if (foodCode === undefined) throw new Error(`Purchase of ${entry.date} names food ${foodId}, which was not found.`);
-  return { ...rest, foodCode };
+  return { ...rest, foodCode, ...datasetOf(lookups, foodId) };
 }
 
 /** Bought food as CSV with the importer's columns. Example: `purchasesToCsv([record], { delimiter: ';' })` */
@@ -141,6 +152,7 @@ export function purchasesToCsv(records: readonly PurchaseCsvRecord[], options: C
   const cells = (r: PurchaseCsvRecord): Record<(typeof PURCHASE_CSV_COLUMNS)[number], Cell> => ({
     date: r.date,
     food_code: r.foodCode,
+    dataset: r.foodDataset,
     quantity: r.quantity,
     unit: r.unit,
     price: r.price,

@@ -17,6 +17,8 @@
  * - Units: the API codes (g kg oz lb piece bunch head ml l cup fl_oz pint_us pint_imp) or common
  *   spellings (lbs, pcs, each, bunches, litre, cups, fl oz…); a bare "pint" or "pt" is the
  *   household's own pint (US for a household in US units, else imperial).
+ * - A food by its dataset code (food_code); where two datasets share the code, the dataset column
+ *   or a code written "slug:code" (ifct2017:F006) says which, else the household's dataset order.
  * - Row numbers are as a spreadsheet shows them: the header is row 1, the first data row is row 2,
  *   blank rows count, and a quoted note with line breaks is one row. Row 0 means the whole file.
  */
@@ -34,6 +36,7 @@ import {
   type PurchaseInput,
 } from './entry-schemas';
 import { parseEntryUnit, type PintMeaning } from './entry-units';
+import { readFoodCodeRef, type FoodCodeRef } from './food-code-ref';
 
 // ---------------------------------------------------------------------------------------------
 // Format
@@ -47,6 +50,7 @@ export const HARVEST_CSV_COLUMNS = [
   'crop',
   'variety',
   'food_code',
+  'dataset',
   'quantity',
   'unit',
   'use',
@@ -60,6 +64,7 @@ export const HARVEST_CSV_COLUMNS = [
 export const PURCHASE_CSV_COLUMNS = [
   'date',
   'food_code',
+  'dataset',
   'quantity',
   'unit',
   'price',
@@ -91,6 +96,8 @@ const COLUMN_ALIASES: Readonly<Record<string, string>> = {
   code: 'food_code',
   ndb: 'food_code',
   ndb_no: 'food_code',
+  food_dataset: 'dataset',
+  dataset_slug: 'dataset',
   qty: 'quantity',
   weight: 'quantity',
   units: 'unit',
@@ -332,6 +339,16 @@ class RowReader {
     return raw === undefined ? undefined : textCell(raw);
   }
 
+  /** The row's food: food_code, with its dataset from the dataset column or a "slug:code" code; undefined when blank or wrong (noted). */
+  food(): FoodCodeRef | undefined {
+    const code = this.cell('food_code');
+    if (code === undefined) return undefined;
+    const read = readFoodCodeRef(code, this.cell('dataset'));
+    if ('ref' in read) return read.ref;
+    this.fail(read.column, read.message);
+    return undefined;
+  }
+
   /** Common entry fields, with the unit (weights, counts, volumes: units.ts, entry-units.ts) and use read leniently (case, plurals). */
   entryFields(): Record<string, unknown> {
     const unitText = this.cell('unit');
@@ -381,19 +398,21 @@ export interface CsvParseResult<Row> {
   ignoredColumns: string[];
 }
 
-/** A checked harvest row; `crop` (with `variety`) or `foodCode` is left for the caller to match. */
+/** A checked harvest row; `crop` (with `variety`) or `foodCode` (with `foodDataset` when the row names one) is left for the caller to match. */
 export interface ParsedHarvestRow {
   row: number;
   crop?: string;
   variety?: string;
   foodCode?: string;
+  foodDataset?: string;
   entry: HarvestDetails;
 }
 
-/** A checked bought-food row; `foodCode` is left for the caller to match. */
+/** A checked bought-food row; `foodCode` (and `foodDataset`) is left for the caller to match. */
 export interface ParsedPurchaseRow {
   row: number;
   foodCode: string;
+  foodDataset?: string;
   entry: PurchaseDetails;
 }
 
@@ -426,6 +445,8 @@ export function parseHarvestCsv(source: CsvSource, options: CsvReadOptions = {})
     const foodCode = reader.cell('food_code')?.trim();
     if (crop === undefined && foodCode === undefined) reader.fail(table.columns.has('crop') ? 'crop' : 'food_code', 'Give the crop name (or a food_code).');
     if (crop !== undefined && foodCode !== undefined) reader.fail('food_code', 'Give either a crop or a food_code, not both.');
+    if (foodCode === undefined && reader.cell('dataset') !== undefined) reader.fail('dataset', 'A dataset goes with a food_code; a crop names its food itself.');
+    const food = crop === undefined ? reader.food() : undefined;
     if (variety !== undefined && crop === undefined) reader.fail('variety', 'A variety needs its crop name.');
     const method = reader.cell('preserve_method')?.trim().toLowerCase();
     const entry = reader.validate(harvestDetailsInput, { ...reader.entryFields(), preserveMethod: method });
@@ -435,7 +456,7 @@ export function parseHarvestCsv(source: CsvSource, options: CsvReadOptions = {})
       row: record.row,
       ...(crop !== undefined ? { crop } : {}),
       ...(variety !== undefined ? { variety } : {}),
-      ...(foodCode !== undefined ? { foodCode } : {}),
+      ...(food !== undefined ? { foodCode: food.code, ...(food.dataset !== undefined ? { foodDataset: food.dataset } : {}) } : {}),
       entry,
     });
   }
@@ -456,13 +477,13 @@ export function parsePurchaseCsv(source: CsvSource, options: CsvReadOptions = {}
   const rows: ParsedPurchaseRow[] = [];
   for (const record of table.records) {
     const reader = new RowReader(table, record, options);
-    const foodCode = reader.cell('food_code')?.trim();
-    if (foodCode === undefined) reader.fail('food_code', 'Give the food_code of the reference food.');
+    if (reader.cell('food_code') === undefined) reader.fail('food_code', 'Give the food_code of the reference food.');
+    const food = reader.food();
     const fields = { ...reader.entryFields(), price: reader.number('price'), currency: reader.cell('currency')?.trim() };
     const entry = reader.validate(purchaseDetailsInput, fields);
     errors.push(...reader.errors);
-    if (entry === undefined || foodCode === undefined || reader.errors.length > 0) continue;
-    rows.push({ row: record.row, foodCode, entry });
+    if (entry === undefined || food === undefined || reader.errors.length > 0) continue;
+    rows.push({ row: record.row, foodCode: food.code, ...(food.dataset !== undefined ? { foodDataset: food.dataset } : {}), entry });
   }
   return { rows, errors: byRow(errors), delimiter: table.delimiter, ignoredColumns: table.ignoredColumns };
 }

@@ -5,6 +5,14 @@
  */
 import { cropUseError, harvestInput, purchaseInput, type HarvestInput, type PurchaseInput } from './entry-schemas';
 import { addIssues, byRow, cropNameKey, type CsvError, type ParsedHarvestRow, type ParsedPurchaseRow } from './csv-import';
+import { foodCodeText } from './food-code-ref';
+
+/** The row's food code as the person wrote it, and the message when no food has it. */
+function unknownFood(row: { foodCode: string; foodDataset?: string }): { text: string; message: string } {
+  const text = foodCodeText({ code: row.foodCode, dataset: row.foodDataset });
+  const where = row.foodDataset === undefined ? '' : ` in dataset ${row.foodDataset}`;
+  return { text, message: `There is no reference food with code "${row.foodCode}"${where}.` };
+}
 
 /** A matched crop: its id, and whether it is marked not food (for the use rule). */
 export interface CropMatch {
@@ -18,11 +26,12 @@ export interface HarvestResolvers {
   cropByName(name: string, variety?: string): number | CropMatch | undefined;
   /** When two names are one crop (default: cropNameKey of both); the server passes the database's collation rule. */
   cropKey?(name: string, variety?: string): string;
-  foodByCode(code: string): number | undefined;
+  /** The food with this code: of `dataset` when the row names one, else the household's first dataset that has it. */
+  foodByCode(code: string, dataset?: string): number | undefined;
 }
 
 export interface PurchaseResolvers {
-  foodByCode(code: string): number | undefined;
+  foodByCode(code: string, dataset?: string): number | undefined;
 }
 
 /** A row ready to be written, with its spreadsheet row number. */
@@ -73,10 +82,11 @@ export function resolveHarvestRows(rows: readonly ParsedHarvestRow[], resolvers:
       }
       ref = { cropId: crop.id };
     } else if (parsed.foodCode !== undefined) {
-      const foodId = resolvers.foodByCode(parsed.foodCode);
+      const foodId = resolvers.foodByCode(parsed.foodCode, parsed.foodDataset);
       if (foodId === undefined) {
-        unknownFoodCodes.add(parsed.foodCode);
-        errors.push({ row: parsed.row, column: 'food_code', message: `There is no reference food with code "${parsed.foodCode}".` });
+        const unknown = unknownFood({ foodCode: parsed.foodCode, foodDataset: parsed.foodDataset });
+        unknownFoodCodes.add(unknown.text);
+        errors.push({ row: parsed.row, column: 'food_code', message: unknown.message });
         continue;
       }
       ref = { foodId };
@@ -102,10 +112,11 @@ export function resolvePurchaseRows(rows: readonly ParsedPurchaseRow[], resolver
   const errors: CsvError[] = [];
   const unknownFoodCodes = new Set<string>();
   for (const parsed of rows) {
-    const foodId = resolvers.foodByCode(parsed.foodCode);
+    const foodId = resolvers.foodByCode(parsed.foodCode, parsed.foodDataset);
     if (foodId === undefined) {
-      unknownFoodCodes.add(parsed.foodCode);
-      errors.push({ row: parsed.row, column: 'food_code', message: `There is no reference food with code "${parsed.foodCode}".` });
+      const unknown = unknownFood(parsed);
+      unknownFoodCodes.add(unknown.text);
+      errors.push({ row: parsed.row, column: 'food_code', message: unknown.message });
       continue;
     }
     const result = purchaseInput.safeParse({ ...parsed.entry, foodId });

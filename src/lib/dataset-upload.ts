@@ -4,7 +4,7 @@
  */
 import { z } from 'zod';
 import { datasetSlug } from './dataset-order';
-import type { DatasetJobStatus, FdcFormat } from './dataset-jobs';
+import type { DatasetJobKind, DatasetJobStatus, FdcFormat } from './dataset-jobs';
 import type { FdcRowError } from './fdc-csv';
 import type { HouseholdChange } from './release-changes';
 
@@ -23,9 +23,10 @@ export const uploadMeta = z.object({
 });
 export type UploadMeta = z.infer<typeof uploadMeta>;
 
-/** GET /api/admin/uploads/{id}: the job as the page shows it. */
+/** GET /api/admin/uploads/{id} and /api/admin/jobs/{id}: a dataset job (an upload or a built-in reload) as the page shows it. */
 export interface UploadJobJson extends UploadMeta {
   id: number;
+  kind: DatasetJobKind;
   status: DatasetJobStatus;
   format: FdcFormat | null;
   phase: string;

@@ -4,14 +4,18 @@
  * Selfsown's nutrient keys and units (src/lib/nutrients.ts).
  *
  * The package gives every amount in grams per 100 g of edible portion, energy in kJ. It writes 0
- * both where the book found none and where the book prints no value (the 14 edible oils have 0 kJ
- * and 0 g protein; cow's milk has 0 retinol), so a 0 cannot be told from "not reported": **every 0
- * is stored as unknown (no row), never as zero**. The cost is that a food that truly has none reads
- * "unknown" and a share resting on it is marked uncertain; a false zero is never shown. The book
- * gives no refuse percentage: its values are per 100 g of the edible part, so `refusePct` is null.
+ * both where the book printed a blank (below the detectable limit: a measured none) and where the
+ * book gives no value (the 14 oils have no Table 1 row, so 0 kJ; milk's retinol is in a footnote).
+ * src/lib/ifct-tables.ts tells them apart per food and nutrient from which book table each column
+ * came from: a blank of a table the food is in is kept as 0, a nutrient the book did not analyse for
+ * the food is left out (unknown, no row), never 0. The book gives no refuse percentage: its values
+ * are per 100 g of the edible part, so `refusePct` is null.
  */
 import Papa from 'papaparse';
+import { ifctCoverage, ifctReading, type IfctCoverage } from './ifct-tables';
 import type { NutrientKey } from './nutrients';
+
+export { ifctCoverage, type IfctCoverage };
 
 /** IFCT 2017 energy is in kJ; 1 kcal = 4.184 kJ (the thermochemical calorie, ISO 80000-5). */
 export const KJ_PER_KCAL = 4.184;
@@ -51,13 +55,6 @@ export function isPlantGroup(group: string): boolean {
   return PLANT_GROUPS.has(group);
 }
 
-/** A reported amount: a finite number above 0 (0 and blanks are "not reported", see the module note). */
-function reported(row: IfctRow, column: string): number | null {
-  const text = row[column];
-  if (text === undefined || text.trim() === '') return null;
-  const n = Number(text);
-  return Number.isFinite(n) && n > 0 ? n : null;
-}
 
 /** Grams per 100 g in the package → the unit of the nutrient key. */
 const SCALE = { g: 1, mg: 1_000, 'µg': 1_000_000 } as const;
@@ -105,41 +102,49 @@ function tidy(n: number): number {
 
 /**
  * Vitamin A as retinol activity equivalents, µg: retinol + β-carotene/12 + (α-carotene +
- * β-cryptoxanthin)/24 (IOM 2001). Known when retinol is reported, or for a plant food (no retinol
- * by nature) when a carotene is; an animal food without retinol stays unknown, since its retinol
- * was not measured (the package gives cow's milk β-carotene but 0 retinol).
+ * β-cryptoxanthin)/24 (IOM 2001). Plant foods have no preformed retinol by nature, so theirs rests on
+ * the carotenoids of Table 4 (unknown when the food is not there); an animal food needs its retinol
+ * (unknown when the book gives none, as for milk), and a carotenoid it was not analysed for adds
+ * nothing, since Table 4 lists few animal foods and retinol carries their vitamin A.
  */
-export function ifctVitaminARae(row: IfctRow, group: string): number | null {
-  const retinol = reported(row, 'retol');
-  const beta = reported(row, 'cartb') ?? 0;
-  const alphaAndCrypto = (reported(row, 'carta') ?? 0) + (reported(row, 'crypxb') ?? 0);
-  if (retinol === null && !(isPlantGroup(group) && beta + alphaAndCrypto > 0)) return null;
-  return tidy(((retinol ?? 0) + beta / 12 + alphaAndCrypto / 24) * SCALE['µg']);
+export function ifctVitaminARae(row: IfctRow, coverage: IfctCoverage): number | null {
+  const plant = isPlantGroup((row.grup ?? '').trim());
+  const retinol = plant ? 0 : ifctReading(row, 'retol', coverage);
+  const beta = ifctReading(row, 'cartb', coverage);
+  if (retinol === null || (plant && beta === null)) return null;
+  const alphaAndCrypto = (ifctReading(row, 'carta', coverage) ?? 0) + (ifctReading(row, 'crypxb', coverage) ?? 0);
+  return tidy((retinol + (beta ?? 0) / 12 + alphaAndCrypto / 24) * SCALE['µg']);
 }
 
-/** Vitamin D (D2 + D3), µg, as SR28 counts it; unknown when neither is reported. */
-function vitaminD(row: IfctRow): number | null {
-  const d2 = reported(row, 'ergcal');
-  const d3 = reported(row, 'chocal');
-  if (d2 === null && d3 === null) return null;
+/**
+ * Vitamin D (D2 + D3), µg, as SR28 counts it. Animals form D3 and fungi and plants D2, and the book
+ * prints each only on the pages of the foods that carry it: the other form counts as none.
+ */
+function vitaminD(row: IfctRow, coverage: IfctCoverage): number | null {
+  const plant = isPlantGroup((row.grup ?? '').trim());
+  const d2 = ifctReading(row, 'ergcal', coverage);
+  const d3 = ifctReading(row, 'chocal', coverage);
+  const own = plant ? d2 : d3;
+  if (own === null) return null;
   return tidy(((d2 ?? 0) + (d3 ?? 0)) * SCALE['µg']);
 }
 
 /**
- * Every nutrient the row reports, in Selfsown's keys and units; a nutrient it does not report is
- * left out (unknown). Example: potato F006, enerc "292" → { key: 'energy_kcal', amount: 69.79… }.
+ * Every nutrient the book gives for the row, in Selfsown's keys and units: 0 for a reading below
+ * the detectable limit, left out (unknown) where the book has no reading. `coverage` comes from
+ * ifctCoverage(all rows). Example: potato F006, enerc "292" → { key: 'energy_kcal', amount: 69.79… }.
  */
-export function ifctAmounts(row: IfctRow): { key: NutrientKey; amount: number }[] {
+export function ifctAmounts(row: IfctRow, coverage: IfctCoverage): { key: NutrientKey; amount: number }[] {
   const out: { key: NutrientKey; amount: number }[] = [];
-  const kj = reported(row, 'enerc');
+  const kj = ifctReading(row, 'enerc', coverage);
   if (kj !== null) out.push({ key: 'energy_kcal', amount: kj / KJ_PER_KCAL });
   for (const d of DIRECT) {
-    const v = reported(row, d.column);
+    const v = ifctReading(row, d.column, coverage);
     if (v !== null) out.push({ key: d.key, amount: tidy(v * SCALE[d.unit]) });
   }
-  const rae = ifctVitaminARae(row, row.grup ?? '');
+  const rae = ifctVitaminARae(row, coverage);
   if (rae !== null) out.push({ key: 'vitamin_a_rae_ug', amount: rae });
-  const d = vitaminD(row);
+  const d = vitaminD(row, coverage);
   if (d !== null) out.push({ key: 'vitamin_d_ug', amount: d });
   return out;
 }

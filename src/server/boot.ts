@@ -1,13 +1,15 @@
 /**
  * Runs once when the built app server starts (`node dist/server/entry.mjs`, and so `npm start`):
  * astro.config.mjs adds an import of this module to the server entry, because the middleware and
- * the pages are only loaded on the first request. Starts the monthly letter's scheduler, and gives
- * every answer the base security headers before anything else handles it — static files (served by
- * @astrojs/node before Astro's middleware) included; the middleware's own values win on the rest.
+ * the pages are only loaded on the first request. Starts the monthly letter's scheduler, fails the
+ * dataset jobs a stopped server left running (dataset-jobs.ts), and gives every answer the base
+ * security headers before anything else handles it — static files (served by @astrojs/node before
+ * Astro's middleware) included; the middleware's own values win on the rest.
  */
 import { subscribe } from 'node:diagnostics_channel';
 import type { IncomingMessage, ServerResponse } from 'node:http';
 import { BASE_SECURITY_HEADERS } from '@/lib/security-policy';
+import { sweepAtStart } from './dataset-jobs';
 import { startLetterScheduler } from './letter-scheduler';
 
 // Node publishes every incoming request here before the server's handler runs (Node ≥ 18.7).
@@ -40,3 +42,5 @@ function answerBadAddressAsJson(response: ServerResponse): void {
 }
 
 startLetterScheduler();
+// Not awaited: the server must start even while the database is still coming up.
+sweepAtStart().catch((e: unknown) => console.error('dataset jobs: the check at start failed', e));

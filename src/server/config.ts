@@ -73,6 +73,8 @@ export const envSchema = z.object({
   FAKE_SMTP_PORT: withDefault('2525').transform(Number),
   MAIL_FROM: withDefault('Selfsown <no-reply@selfsown.invalid>'),
   MAIL_DIR: withDefault('.data/mail'),
+  // Where an administrator's upload is written while it streams in and is read (one folder per job).
+  UPLOAD_DIR: withDefault('.data/uploads'),
   // The monthly letter's hourly run inside the app server: "off" disables it (npm test's server).
   LETTERS_SCHEDULER: withDefault('on').transform((v) => v.toLowerCase() !== 'off'),
   // The build and the start and test commands.
@@ -198,6 +200,11 @@ export function mailConfig(): { smtpUrl: string; from: string; fake: boolean; fa
     fakePort: env.FAKE_SMTP_PORT,
     mailDir: resolve(env.MAIL_DIR),
   };
+}
+
+/** The folder holding the dataset uploads being read (UPLOAD_DIR, default .data/uploads), absolute. */
+export function uploadDir(): string {
+  return resolve(readEnv().UPLOAD_DIR);
 }
 
 /** Whether the app server runs the monthly letter's hourly job (LETTERS_SCHEDULER, default on; "off" disables it). */

@@ -5,7 +5,7 @@
  */
 import { and, asc, eq, gt, or } from 'drizzle-orm';
 import { getDb } from '@/db/client';
-import { foods, harvests, people, purchases, type Household } from '@/db/schema';
+import { datasets, foods, harvests, people, purchases, type Household } from '@/db/schema';
 import type { CsvDelimiter } from '@/lib/csv-import';
 import {
   cropsToCsv,
@@ -32,13 +32,16 @@ export type ExportFile = (typeof EXPORT_FILES)[number];
 /** Identifies the backup format, so a later version can read older files. */
 export const BACKUP_FORMAT = { format: 'selfsown-household-backup', version: 1 } as const;
 
-async function foodCodes(householdId: number, table: 'harvests' | 'purchases'): Promise<Map<number, string>> {
+/** The code and dataset slug of each food the household's harvests or purchases name. */
+async function foodCodes(householdId: number, table: 'harvests' | 'purchases'): Promise<Pick<ExportLookups, 'foodCode' | 'foodDataset'>> {
   const db = getDb();
+  const columns = { id: foods.id, code: foods.code, slug: datasets.slug };
   const rows =
     table === 'harvests'
-      ? await db.selectDistinct({ id: foods.id, code: foods.code }).from(harvests).innerJoin(foods, eq(foods.id, harvests.foodId)).where(eq(harvests.householdId, householdId))
-      : await db.selectDistinct({ id: foods.id, code: foods.code }).from(purchases).innerJoin(foods, eq(foods.id, purchases.foodId)).where(eq(purchases.householdId, householdId));
-  return new Map(rows.map((r) => [r.id, r.code]));
+      ? await db.selectDistinct(columns).from(harvests).innerJoin(foods, eq(foods.id, harvests.foodId)).innerJoin(datasets, eq(datasets.id, foods.datasetId)).where(eq(harvests.householdId, householdId))
+      : await db.selectDistinct(columns).from(purchases).innerJoin(foods, eq(foods.id, purchases.foodId)).innerJoin(datasets, eq(datasets.id, foods.datasetId)).where(eq(purchases.householdId, householdId));
+  const byId = new Map(rows.map((r) => [r.id, r]));
+  return { foodCode: (id) => byId.get(id)?.code, foodDataset: (id) => byId.get(id)?.slug };
 }
 
 /** Rows read and written per part of a streamed export: the whole log never sits in memory at once. */
@@ -70,7 +73,7 @@ export async function* harvestsCsvParts(householdId: number, delimiter: CsvDelim
   const db = getDb();
   const cropsById = new Map((await cropRows(db, householdId)).map((c) => [c.id, c]));
   const codes = await foodCodes(householdId, 'harvests');
-  const lookups: ExportLookups = { crop: (id) => cropsById.get(id), foodCode: (id) => codes.get(id) };
+  const lookups: ExportLookups = { crop: (id) => cropsById.get(id), ...codes };
   let first = true;
   for await (const rows of pages(harvests, householdId)) {
     const records = rows.map((h) => {
@@ -111,7 +114,7 @@ export async function* purchasesCsvParts(householdId: number, delimiter: CsvDeli
         trimmed: p.trimmed,
         ...(p.note !== null ? { note: p.note } : {}),
       };
-      return purchaseRecord(entry, { foodCode: (id) => codes.get(id) });
+      return purchaseRecord(entry, codes);
     });
     yield purchasesToCsv(records, { delimiter, bom: first, header: first });
     first = false;

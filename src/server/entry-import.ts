@@ -5,10 +5,10 @@
  * row named. The rules for the file itself live in src/lib/csv-import.ts.
  */
 import type { CropCategory } from '@/lib/crop-categories';
-import { asc, inArray } from 'drizzle-orm';
+import { asc, eq, inArray } from 'drizzle-orm';
 import { z } from 'zod';
 import { getDb } from '@/db/client';
-import { foods, harvests, purchases, type Crop } from '@/db/schema';
+import { datasets, foods, harvests, purchases, type Crop } from '@/db/schema';
 import type { ImportAnswer, PreviewRow } from '@/lib/api-types';
 import {
   CSV_LIMITS,
@@ -17,6 +17,7 @@ import {
   type CsvError,
 } from '@/lib/csv-import';
 import { resolveHarvestRows, resolvePurchaseRows } from '@/lib/csv-match';
+import { pickFood } from '@/lib/food-code-ref';
 import { type HarvestInput, type PurchaseInput } from '@/lib/entry-schemas';
 import { cropInput, type CropInput } from '@/lib/crop-schemas';
 import { isCountOrVolume, type PintMeaning } from '@/lib/entry-units';
@@ -54,6 +55,8 @@ export interface ImportHousehold {
   id: number;
   /** A bare "pint" in the file: US for a household in US units, else imperial. */
   pint: PintMeaning;
+  /** The household's dataset slugs, first first: which food a code two datasets share means. */
+  datasetOrder: readonly string[];
 }
 
 async function readLimited(request: Request, maxBytes: number): Promise<Uint8Array> {
@@ -132,19 +135,31 @@ interface FoodRef {
   refusePct: number | null;
 }
 
-/** Reference foods by dataset code; when two datasets share a code, the first imported wins. */
-async function foodsByCodes(ex: Executor, codes: readonly string[]): Promise<Map<string, FoodRef>> {
-  const found = new Map<string, FoodRef>();
+/** Reference foods by dataset code, each code with the foods of every dataset that has it. */
+async function foodsByCodes(ex: Executor, codes: readonly string[]): Promise<FoodsByCode> {
+  const found = new Map<string, (FoodRef & { dataset: string })[]>();
   const unique = [...new Set(codes)];
   for (let i = 0; i < unique.length; i += 1000) {
     const rows = await ex
-      .select({ id: foods.id, code: foods.code, name: foods.name, refusePct: foods.refusePct })
+      .select({ id: foods.id, code: foods.code, name: foods.name, refusePct: foods.refusePct, dataset: datasets.slug })
       .from(foods)
+      .innerJoin(datasets, eq(datasets.id, foods.datasetId))
       .where(inArray(foods.code, unique.slice(i, i + 1000)))
       .orderBy(asc(foods.datasetId), asc(foods.id));
-    for (const r of rows) if (!found.has(r.code)) found.set(r.code, r);
+    for (const r of rows) found.set(r.code, [...(found.get(r.code) ?? []), r]);
   }
   return found;
+}
+
+type FoodsByCode = Map<string, (FoodRef & { dataset: string })[]>;
+
+/** The food a row's code (and dataset, when it names one) means for this household (src/lib/food-code-ref.ts). */
+function foodFinder(codes: FoodsByCode, household: ImportHousehold) {
+  const byId = new Map([...codes.values()].flat().map((f) => [f.id, f]));
+  return {
+    foodByCode: (code: string, dataset?: string) => pickFood(codes.get(code) ?? [], { code, ...(dataset !== undefined ? { dataset } : {}) }, household.datasetOrder)?.id,
+    byId,
+  };
 }
 
 async function foodsByIds(ex: Executor, ids: readonly number[]): Promise<Map<number, FoodRef>> {
@@ -227,7 +242,7 @@ interface Prepared<V> {
 
 async function prepareHarvests(ex: Executor, req: ImportRequest, household: ImportHousehold, householdCrops: ImportCrop[], today: string): Promise<Prepared<ReturnType<typeof harvestValues>>> {
   const parsed = parseHarvestCsv(req.file, { pint: household.pint });
-  const codes = await foodsByCodes(ex, parsed.rows.flatMap((r) => (r.foodCode === undefined ? [] : [r.foodCode])));
+  const finder = foodFinder(await foodsByCodes(ex, parsed.rows.flatMap((r) => (r.foodCode === undefined ? [] : [r.foodCode]))), household);
   // Names match by the database's collation (crop-keys.ts), so the preview sees the crops the commit will.
   const cropKey = await cropKeyer(ex, [...householdCrops.flatMap((c) => [c.name, c.variety]), ...parsed.rows.flatMap((r) => [r.crop ?? '', r.variety ?? ''])]);
   const cropsByKey = new Map<string, ImportCrop>();
@@ -238,11 +253,11 @@ async function prepareHarvests(ex: Executor, req: ImportRequest, household: Impo
       const c = cropsByKey.get(cropKey(name, variety));
       return c === undefined ? undefined : { id: c.id, name: cropDisplayName(c.name, c.variety), notFood: c.notFood };
     },
-    foodByCode: (code) => codes.get(code)?.id,
+    foodByCode: finder.foodByCode,
     cropKey,
   });
   const cropFoods = await foodsByIds(ex, householdCrops.flatMap((c) => (c.foodId === null ? [] : [c.foodId])));
-  const foodsById = new Map([...codes.values()].map((f) => [f.id, f]));
+  const foodsById = finder.byId;
   const measured = await measuresFor(ex, resolved.inputs, ({ input }) => {
     const i = input as HarvestInput;
     return i.cropId === undefined ? i.foodId : cropsById.get(i.cropId)?.foodId;
@@ -292,9 +307,9 @@ async function prepareHarvests(ex: Executor, req: ImportRequest, household: Impo
 
 async function preparePurchases(ex: Executor, req: ImportRequest, household: ImportHousehold): Promise<Prepared<ReturnType<typeof purchaseValues>>> {
   const parsed = parsePurchaseCsv(req.file, { pint: household.pint });
-  const codes = await foodsByCodes(ex, parsed.rows.map((r) => r.foodCode));
-  const resolved = resolvePurchaseRows(parsed.rows, { foodByCode: (code) => codes.get(code)?.id });
-  const foodsById = new Map([...codes.values()].map((f) => [f.id, f]));
+  const finder = foodFinder(await foodsByCodes(ex, parsed.rows.map((r) => r.foodCode)), household);
+  const resolved = resolvePurchaseRows(parsed.rows, { foodByCode: finder.foodByCode });
+  const foodsById = finder.byId;
   const measured = await measuresFor(ex, resolved.inputs, ({ input }) => (input as PurchaseInput).foodId);
   const unweighed: CsvError[] = [];
   const values: Prepared<ReturnType<typeof purchaseValues>>['values'] = [];

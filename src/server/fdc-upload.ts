@@ -1,41 +1,67 @@
 /**
- * An administrator's FoodData Central CSV upload, as a job in dataset_jobs: the files are streamed
- * through papaparse into FdcReader (src/lib/fdc-csv.ts) while the job row shows progress; a clean
- * read is kept gzipped in the row with what a new release would change per household; applying it
- * loads it through the one importer (src/server/food-import.ts) in one transaction. The row, not
- * process memory, carries the job, so any app server can answer the page's polling.
+ * An administrator's FoodData Central CSV upload, as a job in dataset_jobs. fdc-upload-form.ts
+ * streams the request's files into the job's folder on disk; from there each is streamed through
+ * papaparse into FdcReader (src/lib/fdc-csv.ts) while the job row shows progress, then the folder
+ * is removed. A clean read is kept gzipped in the row with what a new release would change per
+ * household; applying it loads it through the one importer (src/server/food-import.ts) in one
+ * transaction. The row, not process memory, carries the job, so any app server can answer the
+ * page's polling (dataset-jobs.ts).
  */
-import { Readable } from 'node:stream';
+import { createReadStream } from 'node:fs';
+import { Transform } from 'node:stream';
+import { StringDecoder } from 'node:string_decoder';
 import { gunzipSync, gzipSync } from 'node:zlib';
-import { and, eq, inArray, sql } from 'drizzle-orm';
+import { and, eq, inArray } from 'drizzle-orm';
 import Papa from 'papaparse';
 import { getDb, getPool } from '@/db/client';
-import { datasetJobs, datasets, foodNutrients, foods, type DatasetJob } from '@/db/schema';
+import { datasetJobs, datasets, foodNutrients, foods } from '@/db/schema';
 import { FDC_FILE_ORDER, FDC_REQUIRED_FILES, FdcReader, type FdcFile, type FdcResult } from '@/lib/fdc-csv';
 import type { UploadJobJson, UploadMeta } from '@/lib/dataset-upload';
 import { countText } from '@/lib/plural';
 import { releaseChanges, type EnergyProtein, type HouseholdFoodGrams } from '@/lib/release-changes';
 import { recordAction, type Admin } from './admin';
+import { claimLoad, datasetJob, keepAlive, SELF_TEXT, updateJob as update } from './dataset-jobs';
 import { importDataset } from './food-import';
 import { HttpError } from './http';
+import { removeJobFolder } from './upload-files';
 
-/** A job still "reading" after this long was left by a server that stopped. */
-const STALE_MS = 10 * 60_000;
 const PROGRESS_EVERY_ROWS = 20_000;
 
 type Payload = Pick<FdcResult, 'foods' | 'amounts'>;
 
-async function update(id: number, set: Partial<typeof datasetJobs.$inferInsert>): Promise<void> {
-  await getDb().update(datasetJobs).set(set).where(eq(datasetJobs.id, id));
+/** One uploaded file as it lies in the job's folder. */
+export interface UploadedFile {
+  path: string;
+  bytes: number;
 }
 
-/** Streams one file's rows into the reader, counting bytes and rows for the job's progress. */
-async function readFile(reader: FdcReader, file: FdcFile, blob: Blob, progress: { bytes: number; rows: number; tick: () => Promise<void> }): Promise<void> {
+/** Counts the bytes going by and decodes them as UTF-8, dropping a byte-order mark papaparse would keep in the first header. */
+function countedText(progress: { bytes: number }): Transform {
+  const decoder = new StringDecoder('utf8');
+  let first = true;
+  return new Transform({
+    readableObjectMode: true,
+    transform(chunk: Buffer, _enc, done) {
+      progress.bytes += chunk.length;
+      let text = decoder.write(chunk);
+      if (first && text.length > 0) {
+        first = false;
+        text = text.replace(/^\uFEFF/, '');
+      }
+      done(null, text || undefined);
+    },
+    flush(done) {
+      done(null, decoder.end() || undefined);
+    },
+  });
+}
+
+/** Streams one file's rows from disk into the reader, counting bytes and rows for the job's progress. */
+async function readFile(reader: FdcReader, file: FdcFile, upload: UploadedFile, progress: { bytes: number; rows: number; tick: () => Promise<void> }): Promise<void> {
   const headers: string[] = [];
   const parser = Papa.parse(Papa.NODE_STREAM_INPUT, { header: true, skipEmptyLines: true, transformHeader: (h: string) => (headers.push(h.trim()), h.trim()) });
-  // Count bytes before decoding; TextDecoderStream drops a UTF-8 byte-order mark.
-  const counted = blob.stream().pipeThrough(new TransformStream<Uint8Array, Uint8Array>({ transform(c, ctl) { progress.bytes += c.byteLength; ctl.enqueue(c); } }));
-  Readable.fromWeb(counted.pipeThrough(new TextDecoderStream() as unknown as TransformStream<Uint8Array, string>) as never).pipe(parser);
+  const source = createReadStream(upload.path);
+  source.pipe(countedText(progress)).pipe(parser);
   let started: boolean | null = null;
   let line = 1;
   for await (const row of parser as AsyncIterable<Record<string, string>>) {
@@ -46,6 +72,7 @@ async function readFile(reader: FdcReader, file: FdcFile, blob: Blob, progress: 
     if (++progress.rows % PROGRESS_EVERY_ROWS === 0) await progress.tick();
   }
   if (started === null) reader.start(file, headers);
+  source.destroy();
   parser.destroy();
 }
 
@@ -83,20 +110,23 @@ async function previewChanges(slug: string, payload: Payload) {
   return releaseChanges(grams, before, after);
 }
 
-/** Reads the uploaded files into the job (called without waiting: the page polls the row). */
-export async function readUpload(jobId: number, files: ReadonlyMap<FdcFile, Blob>): Promise<void> {
+/** Reads the uploaded files into the job, then removes them (called without waiting: the page polls the row). */
+export async function readUpload(jobId: number, files: ReadonlyMap<FdcFile, UploadedFile>): Promise<void> {
   const reader = new FdcReader();
   const progress = { bytes: 0, rows: 0, tick: async () => update(jobId, { rowsRead: progress.rows, bytesRead: progress.bytes }) };
+  const stop = keepAlive(jobId);
   try {
     for (const file of FDC_FILE_ORDER) {
-      const blob = files.get(file);
-      if (!blob) {
+      const upload = files.get(file);
+      if (!upload) {
         if ((FDC_REQUIRED_FILES as readonly string[]).includes(file)) reader.start(file, []);
         continue;
       }
       await update(jobId, { phase: `reading ${file}`, rowsRead: progress.rows, bytesRead: progress.bytes });
-      await readFile(reader, file, blob, progress);
+      await readFile(reader, file, upload, progress);
     }
+    // Every byte is read: the files go now, before the job says what became of them.
+    await removeJobFolder(jobId);
     const result = reader.finish();
     const done = { rowsRead: progress.rows, bytesRead: progress.bytes, format: result.format, foodCount: result.foods.length, amountCount: result.amounts.length };
     if (result.errors.length) {
@@ -112,97 +142,81 @@ export async function readUpload(jobId: number, files: ReadonlyMap<FdcFile, Blob
   } catch (e) {
     console.error('dataset upload failed while reading', e);
     await update(jobId, { status: 'failed', phase: `stopped: ${e instanceof Error ? e.message : String(e)}`.slice(0, 200) }).catch(() => {});
+  } finally {
+    stop();
+    await removeJobFolder(jobId).catch((e: unknown) => console.error(`dataset job ${jobId}: could not remove its upload folder`, e));
   }
-}
-
-/** Creates the job row for an upload and starts reading it; answers the job's id at once. */
-export async function startUpload(admin: Admin, meta: UploadMeta, files: ReadonlyMap<FdcFile, Blob>): Promise<number> {
-  const bytesTotal = [...files.values()].reduce((s, b) => s + b.size, 0);
-  const [r] = await getDb().insert(datasetJobs).values({ ...meta, status: 'reading', phase: 'starting', bytesTotal, createdBy: admin.id }).$returningId();
-  await recordAction(admin, 'dataset.upload', meta.slug, `${meta.release}: ${[...files.keys()].join(', ')} (${bytesTotal} bytes)`);
-  void readUpload(r!.id, files);
-  return r!.id;
-}
-
-function jobJson(j: DatasetJob, now = Date.now()): UploadJobJson {
-  const stale = j.status === 'reading' && now - j.updatedAt.getTime() > STALE_MS;
-  return {
-    id: j.id,
-    slug: j.slug,
-    name: j.name,
-    release: j.release,
-    publisher: j.publisher,
-    licence: j.licence,
-    status: stale ? 'failed' : j.status,
-    format: j.format,
-    phase: stale ? 'stopped: the server reading it went away; upload again' : j.phase,
-    rowsRead: j.rowsRead,
-    bytesRead: j.bytesRead,
-    bytesTotal: j.bytesTotal,
-    foodCount: j.foodCount,
-    amountCount: j.amountCount,
-    errors: j.errors ? (JSON.parse(j.errors) as UploadJobJson['errors']) : [],
-    changes: j.preview ? (JSON.parse(j.preview) as UploadJobJson['changes']) : null,
-    createdAt: j.createdAt.toISOString(),
-  };
-}
-
-const jobColumns = {
-  id: datasetJobs.id, slug: datasetJobs.slug, name: datasetJobs.name, release: datasetJobs.release, publisher: datasetJobs.publisher,
-  licence: datasetJobs.licence, format: datasetJobs.format, status: datasetJobs.status, phase: datasetJobs.phase, rowsRead: datasetJobs.rowsRead,
-  bytesRead: datasetJobs.bytesRead, bytesTotal: datasetJobs.bytesTotal, foodCount: datasetJobs.foodCount, amountCount: datasetJobs.amountCount,
-  errors: datasetJobs.errors, preview: datasetJobs.preview, createdBy: datasetJobs.createdBy, createdAt: datasetJobs.createdAt, updatedAt: datasetJobs.updatedAt,
-};
-
-export async function uploadJob(id: number): Promise<UploadJobJson> {
-  const [j] = await getDb().select(jobColumns).from(datasetJobs).where(eq(datasetJobs.id, id));
-  if (!j) throw new HttpError(404, 'not_found', 'No upload has that id.');
-  return jobJson({ ...j, payload: null });
-}
-
-/** The latest uploads, newest first. */
-export async function listUploads(limit = 20): Promise<UploadJobJson[]> {
-  const rows = await getDb().select(jobColumns).from(datasetJobs).orderBy(sql`${datasetJobs.id} DESC`).limit(limit);
-  return rows.map((j) => jobJson({ ...j, payload: null }));
 }
 
 /**
- * Applies a read and checked upload: claims it (ready → applying, once), loads it in one transaction
- * and records the action. Anything but a ready job is 409.
+ * Creates the job row for an upload that has arrived, moves its files into the job's own folder
+ * (`adopt`) and starts reading them; answers the job's id at once.
+ */
+export async function startUpload(
+  admin: Admin,
+  meta: UploadMeta,
+  files: ReadonlyMap<FdcFile, UploadedFile>,
+  adopt: (id: number) => Promise<ReadonlyMap<FdcFile, UploadedFile>>,
+): Promise<number> {
+  const bytesTotal = [...files.values()].reduce((s, f) => s + f.bytes, 0);
+  const [r] = await getDb()
+    .insert(datasetJobs)
+    .values({ ...meta, kind: 'fdc_upload', status: 'reading', phase: 'starting', bytesTotal, createdBy: admin.id, runner: SELF_TEXT })
+    .$returningId();
+  const id = r!.id;
+  let moved: ReadonlyMap<FdcFile, UploadedFile>;
+  try {
+    moved = await adopt(id);
+  } catch (e) {
+    await update(id, { status: 'failed', phase: 'stopped: the uploaded files could not be kept for reading' }).catch(() => {});
+    throw e;
+  }
+  await recordAction(admin, 'dataset.upload', meta.slug, `${meta.release}: ${[...files.keys()].join(', ')} (${bytesTotal} bytes)`);
+  void readUpload(id, moved);
+  return id;
+}
+
+/**
+ * Applies a read and checked upload: claims it (ready → applying, once, and one load per dataset),
+ * loads it in one transaction and records the action. Anything but a ready job is 409.
  */
 export async function applyUpload(admin: Admin, id: number): Promise<UploadJobJson> {
   const db = getDb();
-  const [claim] = await db.update(datasetJobs).set({ status: 'applying', phase: 'loading into the database' }).where(and(eq(datasetJobs.id, id), eq(datasetJobs.status, 'ready')));
-  if (claim.affectedRows !== 1) {
-    const job = await uploadJob(id);
+  const [ready] = await db.select({ slug: datasetJobs.slug }).from(datasetJobs).where(eq(datasetJobs.id, id));
+  if (!ready || !(await claimLoad(id, ready.slug, 'ready', 'loading into the database'))) {
+    const job = await datasetJob(id);
     throw new HttpError(409, 'not_ready', `This upload is ${job.status}, not ready to apply.`);
   }
+  const stop = keepAlive(id);
   const [j] = await db.select().from(datasetJobs).where(eq(datasetJobs.id, id));
   const payload = JSON.parse(gunzipSync(j!.payload!).toString('utf8')) as Payload;
   const info = { slug: j!.slug, name: j!.name, release: j!.release, publisher: j!.publisher, licence: j!.licence, sourceNote: `Uploaded by ${admin.email}: FoodData Central ${j!.format === 'foundation' ? 'Foundation Foods' : 'SR Legacy'} CSV.` };
   const foodsIn = payload.foods.map((f) => ({ code: f.code, name: f.name, originalName: f.name, group: f.group, refusePct: null, rawness: f.rawness, weights: f.weights }));
   let last = 0;
+  // Phase writes go one after another and all land before the last word, never after it.
+  let written: Promise<unknown> = Promise.resolve();
   const log = (line: string) => {
     if (Date.now() - last < 1000) return;
     last = Date.now();
-    void update(id, { phase: `loading:${line}`.slice(0, 200) });
+    written = written.then(() => update(id, { phase: `loading:${line}`.slice(0, 200) })).catch(() => {});
   };
   try {
-    await importDataset(getPool(), info, foodsIn, payload.amounts, { force: true, importedBy: admin.id, log });
+    await importDataset(getPool(), info, foodsIn, payload.amounts, { force: true, importedBy: admin.id, log }).finally(() => written);
   } catch (e) {
-    await update(id, { status: 'failed', phase: `not applied, nothing changed: ${e instanceof Error ? e.message : String(e)}`.slice(0, 200), payload: null });
+    await update(id, { status: 'failed', activeSlug: null, phase: `not applied, nothing changed: ${e instanceof Error ? e.message : String(e)}`.slice(0, 200), payload: null });
     throw new HttpError(422, 'apply_failed', `The upload could not be loaded; nothing changed. ${e instanceof Error ? e.message : ''}`);
+  } finally {
+    stop();
   }
-  await update(id, { status: 'applied', phase: `loaded ${countText(payload.foods.length, 'food')}`, payload: null });
+  await update(id, { status: 'applied', activeSlug: null, phase: `loaded ${countText(payload.foods.length, 'food')}`, payload: null });
   await recordAction(admin, 'dataset.apply', j!.slug, `${j!.release}: ${payload.foods.length} foods, ${payload.amounts.length} amounts`);
-  return uploadJob(id);
+  return datasetJob(id);
 }
 
 /** Cancels an upload that is not applied (its payload is dropped). */
 export async function cancelUpload(admin: Admin, id: number): Promise<void> {
-  await uploadJob(id); // 404 for an unknown id
-  const [r] = await getDb().update(datasetJobs).set({ status: 'cancelled', phase: 'cancelled', payload: null }).where(and(eq(datasetJobs.id, id), inArray(datasetJobs.status, ['ready', 'failed'])));
+  await datasetJob(id); // 404 for an unknown id
+  const [r] = await getDb().update(datasetJobs).set({ status: 'cancelled', phase: 'cancelled', payload: null }).where(and(eq(datasetJobs.id, id), eq(datasetJobs.kind, 'fdc_upload'), inArray(datasetJobs.status, ['ready', 'failed'])));
   if (r.affectedRows !== 1) throw new HttpError(409, 'not_cancellable', 'Only an upload that is ready or failed can be cancelled.');
   await recordAction(admin, 'dataset.upload_cancel', String(id));
 }
-

@@ -79,7 +79,7 @@ export async function importDataset(
   info: DatasetInfo,
   foods: FoodRecord[],
   amounts: AmountRecord[],
-  opts: { force?: boolean; log?: (line: string) => void; importedBy?: string } = {},
+  opts: { force?: boolean; log?: (line: string) => void; progress?: (rowsWritten: number) => void; importedBy?: string } = {},
 ): Promise<ImportResult> {
   const log = opts.log ?? (() => {});
   const codes = new Set<string>();
@@ -144,6 +144,7 @@ export async function importDataset(
           },
         });
       log(`  foods ${Math.min(i + CHUNK, foods.length)}/${foods.length}`);
+      opts.progress?.(Math.min(i + CHUNK, foods.length));
     }
     const idRows = await db.select({ id: foodsTable.id, code: foodsTable.code }).from(foodsTable).where(eq(foodsTable.datasetId, id));
     const idByCode = new Map(idRows.map((r) => [r.code, r.id]));
@@ -155,6 +156,7 @@ export async function importDataset(
     // About 260,000 rows: one LOAD DATA LOCAL INFILE from memory, the database's own bulk path (bulk-load.ts).
     await loadRows(db, foodNutrients, amounts.map((a) => ({ foodId: idByCode.get(a.code)!, nutrientKey: a.key, amount: a.amount })));
     log(`  nutrient amounts ${amounts.length}`);
+    opts.progress?.(foods.length + amounts.length);
     const weightRows = foods.flatMap((f) => f.weights.map((w, i) => ({ foodId: idByCode.get(f.code)!, seq: i + 1, description: w.description.slice(0, 200), grams: w.grams })));
     for (let i = 0; i < weightRows.length; i += CHUNK) await db.insert(foodWeights).values(weightRows.slice(i, i + CHUNK));
     log(`  household weights ${weightRows.length}`);

@@ -74,7 +74,11 @@ export async function readBodyBytes(request: Request, maxBytes: number, tooLarge
     if (done) break;
     total += value.byteLength;
     if (total > maxBytes) {
-      await reader.cancel();
+      // Read the rest and drop it rather than cancel: cancelling Node's request body while a read
+      // is pending throws inside undici and stops the server (see fdc-upload-form.ts).
+      void (async () => {
+        while (!(await reader.read()).done);
+      })().catch(() => {});
       throw refuse();
     }
     chunks.push(value);

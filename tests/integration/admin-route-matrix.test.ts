@@ -36,6 +36,8 @@ const ROUTES: Row[] = [
   ['GET',    'pages/api/admin/uploads/[jobId]/index',       404],
   ['DELETE', 'pages/api/admin/uploads/[jobId]/index',       404],
   ['POST',   'pages/api/admin/uploads/[jobId]/apply',       404],
+  ['POST',   'pages/api/admin/datasets/[slug]/reload',      404],
+  ['GET',    'pages/api/admin/jobs/[jobId]',                404],
 ];
 
 const SRC = join(process.cwd(), 'src');

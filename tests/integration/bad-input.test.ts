@@ -201,6 +201,9 @@ const GENERATORS: Record<string, Generator> = {
   'GET admin/uploads/[jobId]/index':          {},
   'DELETE admin/uploads/[jobId]/index':       {},
   'POST admin/uploads/[jobId]/apply':         {},
+  'GET admin/jobs/[jobId]':                   {},
+  // Never a real dataset's slug: a reload of SR28 is a real job, not a probe.
+  'POST admin/datasets/[slug]/reload':        { params: { slug: fc.oneof(fc.constantFrom('no-such-set', 'SR28', 'sr28 ', '../sr28', '%00'), messyText(2)).filter((x) => x !== 'sr28' && x !== 'ifct2017') } },
   [`GET ${H}/exports/[file]`]:                { params: { file: fc.oneof(fc.constantFrom('harvests.csv', 'purchases.csv', 'crops.csv', 'people.csv', 'backup.json', 'HARVESTS.CSV', '..%2Fpasswd', 'x.csv'), messyText(2)) }, query: queryOver(['delimiter']) },
 };
 

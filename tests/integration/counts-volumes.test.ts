@@ -156,8 +156,8 @@ describe('CSV with counts and volumes', () => {
     expect(commit.status).toBe(201);
     const exported = await api(`/api/households/${home.id}/exports/harvests.csv`, { headers: { cookie: t.owner.cookie } });
     const lines = String(exported.body).split('\r\n');
-    expect(lines[1]).toMatch(/^2026-05-01,Hens eggs,,,12,piece,/);
-    expect(lines[2]).toMatch(/^2026-05-02,,,01077,1,pint_imp,/);
+    expect(lines[1]).toMatch(/^2026-05-01,Hens eggs,,,,12,piece,/);
+    expect(lines[2]).toMatch(/^2026-05-02,,,01077,usda-sr28,1,pint_imp,/);
   });
 
   it('refuses the whole file when a row has no weight, naming the row and unit', async () => {

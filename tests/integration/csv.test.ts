@@ -173,7 +173,7 @@ describe('exports', () => {
     // A UTF-8 byte-order mark first, so spreadsheet programs read accents right.
     expect([...bytes.slice(0, 3)]).toEqual([0xef, 0xbb, 0xbf]);
     const csv = new TextDecoder('utf-8', { ignoreBOM: true }).decode(bytes);
-    expect(csv.startsWith('\uFEFFdate,crop,variety,food_code,quantity,unit,use,spread_months,preserve_method,trimmed,note\r\n')).toBe(true);
+    expect(csv.startsWith('\uFEFFdate,crop,variety,food_code,dataset,quantity,unit,use,spread_months,preserve_method,trimmed,note\r\n')).toBe(true);
 
     const copy = await createHousehold(t.owner.cookie, { name: 'Copy plot' });
     const crops = (await apiAs(t.owner.cookie, 'GET', `/api/households/${hid}/crops?includeArchived=1`)).body.crops;

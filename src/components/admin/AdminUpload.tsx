@@ -11,6 +11,7 @@ import { ApiError, get, request } from '@/components/request';
 import type { UploadJobJson } from '@/lib/dataset-upload';
 import { formatAmount } from '@/lib/format-number';
 import { countText } from '@/lib/plural';
+import { ProgressBar } from './ProgressBar';
 
 interface DatasetChoice {
   slug: string;
@@ -42,7 +43,6 @@ function JobView({ id }: { id: number }) {
   const cancel = useMutation({ mutationFn: () => request('DELETE', `/api/admin/uploads/${id}`), onSettled: () => job.refetch() });
   const j = apply.data?.upload ?? job.data;
   if (!j) return <p className="mt-4">Starting…</p>;
-  const pct = j.bytesTotal > 0 ? Math.round((100 * j.bytesRead) / j.bytesTotal) : 0;
   const busy = ACTIVE.has(j.status) || apply.isPending;
   return (
     <section className="card mt-6" aria-live="polite" data-testid="upload-job" data-status={apply.isPending ? 'applying' : j.status}>
@@ -52,15 +52,13 @@ function JobView({ id }: { id: number }) {
       <p className="mt-1 font-semibold" data-testid="upload-phase">
         {apply.isPending ? 'Loading into the database…' : j.phase}
       </p>
-      <div className="mt-2 h-3 overflow-hidden rounded-full bg-loam-200" role="progressbar" aria-valuenow={pct} aria-valuemin={0} aria-valuemax={100} aria-label="Read so far">
-        <div className="h-3 bg-sprout-500" style={{ width: `${pct}%` }} />
-      </div>
+      <ProgressBar done={j.bytesRead} total={j.bytesTotal} label="Read so far" />
       <p className="mt-1 text-sm text-loam-700">
         {formatAmount(j.bytesRead)} of {countText(j.bytesTotal, 'byte')}, {countText(j.rowsRead, 'row')} read · {countText(j.foodCount, 'food')},{' '}
         {countText(j.amountCount, 'nutrient amount')}{j.format ? ` · ${j.format === 'foundation' ? 'Foundation Foods' : 'SR Legacy'}` : ''}
       </p>
       {j.errors.length > 0 ? (
-        <div className="mt-4 overflow-x-auto">
+        <div className="mt-4 overflow-x-auto" tabIndex={0} role="region" aria-label="Rows refused">
           <h3 className="font-bold">Rows refused — nothing was loaded</h3>
           <table className="mt-2 w-full text-left text-sm" data-testid="upload-errors">
             <thead>

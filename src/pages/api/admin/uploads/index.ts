@@ -1,17 +1,29 @@
+import { join } from 'node:path';
 import { adminRoute } from '@/server/admin';
-import { readUploadForm } from '@/server/fdc-upload-form';
-import { listUploads, startUpload, uploadJob } from '@/server/fdc-upload';
+import { datasetJob, listDatasetJobs } from '@/server/dataset-jobs';
+import { receiveUploadForm } from '@/server/fdc-upload-form';
+import { startUpload } from '@/server/fdc-upload';
 import { json } from '@/server/http';
+import { adoptFolder, removeFolder } from '@/server/upload-files';
 
 /** GET /api/admin/uploads: the latest uploads. */
-export const GET = adminRoute(async () => json({ uploads: await listUploads() }));
+export const GET = adminRoute(async () => json({ uploads: await listDatasetJobs('fdc_upload') }));
 
 /**
- * POST /api/admin/uploads (multipart: slug, name, release, publisher, licence, files…): starts
- * reading a FoodData Central CSV download; 202 with the job, which GET /api/admin/uploads/{id} follows.
+ * POST /api/admin/uploads (multipart: slug, name, release, publisher, licence, files…): streams a
+ * FoodData Central CSV download to disk and starts reading it; 202 with the job, which GET
+ * /api/admin/uploads/{id} follows.
  */
 export const POST = adminRoute(async ({ request }, admin) => {
-  const { meta, files } = await readUploadForm(request);
-  const id = await startUpload(admin, meta, files);
-  return json({ upload: await uploadJob(id) }, 202);
+  const arrived = await receiveUploadForm(request);
+  try {
+    const id = await startUpload(admin, arrived.meta, arrived.files, async (jobId) => {
+      const dir = await adoptFolder(arrived.folder, jobId);
+      return new Map([...arrived.files].map(([name, f]) => [name, { ...f, path: join(dir, name) }]));
+    });
+    return json({ upload: await datasetJob(id) }, 202);
+  } catch (e) {
+    await removeFolder(arrived.folder);
+    throw e;
+  }
 });
