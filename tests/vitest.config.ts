@@ -34,6 +34,20 @@ export default defineConfig({
           hookTimeout: 180_000,
         },
       },
+      {
+        resolve,
+        test: {
+          // Only `npm run test:cluster` (src/cli/test-cluster.ts) runs these: they need its Galera cluster.
+          name: 'cluster',
+          root,
+          include: ['tests/cluster/**/*.test.ts'],
+          environment: 'node',
+          pool: 'forks',
+          poolOptions: { forks: { singleFork: true } },
+          testTimeout: 240_000,
+          hookTimeout: 120_000,
+        },
+      },
     ],
   },
 });
