@@ -126,7 +126,7 @@ function hostPort(text: string): { host: string; port: number } | undefined {
  */
 export function parseDatabaseUrl(url: string): DbUrlParts {
   // The WHATWG parser takes one host: read the list first and hand it the first one.
-  const listed = /^(mysql:\/\/(?:[^@/?#]*@)?)([^/?#@]*,[^/?#@]*)(.*)$/.exec(url);
+  const listed = /^(mysql:\/\/(?:[^@/?#]*@)?)([^/?#@]*,[^/?#@]*)([/?#].*)?$/.exec(url);
   let extra: { host: string; port: number }[] = [];
   if (listed) {
     const parts = listed[2]!.split(',').map((h) => h.trim());
@@ -134,7 +134,7 @@ export function parseDatabaseUrl(url: string): DbUrlParts {
     const bad = parts.find((_, i) => !parsed[i]);
     if (bad !== undefined) throw new Error(`DATABASE_URL lists the host "${bad}", which is not host or host:port`);
     extra = parsed.slice(1) as { host: string; port: number }[];
-    url = `${listed[1]}${parts[0]}${listed[3]}`;
+    url = `${listed[1]}${parts[0]}${listed[3] ?? ''}`;
   }
   let u: URL;
   try {

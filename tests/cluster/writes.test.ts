@@ -44,7 +44,7 @@ let stop = false;
 beforeAll(async () => {
   const foods = await call(0, '', 'GET', '/api/foods?q=potato&dataset=ifct2017');
   const foodId = foods.body.foods[0].id as number;
-  for (let h = 0; h < 2; h++) {
+  for (let h = 0; h < 3; h++) {
     const [owner, grower] = await Promise.all([newVerifiedUser({ name: `Owner ${h}` }), newVerifiedUser({ name: `Grower ${h}` })]);
     const household = await createHousehold(owner.cookie, { name: `Cluster plot ${h}` });
     await addMember(owner, household.id, grower, 'grower');
