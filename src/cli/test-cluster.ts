@@ -87,7 +87,8 @@ async function main(): Promise<number> {
   const base = clusterDataDir(root);
   const cluster = clusterLayout(base, Number(port) + 1);
   const appPorts = [Number(port) + 4, Number(port) + 5];
-  const smtpPort = Number(port) + 10000;
+  // Beside npm test's own fake (TEST_PORT + 10000), so the two commands may run side by side.
+  const smtpPort = Number(port) + 10001;
   const apps: ChildProcess[] = [];
   let mail: MailFake | null = null;
   let tornDown = false;
