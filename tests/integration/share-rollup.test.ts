@@ -115,7 +115,9 @@ describe('entries', () => {
   });
 
   it('a CSV import committed (its rows bulk-loaded as written)', async () => {
-    const note = 'dug wet\tback \\ bed "3", Größe L';
+    // No tab: the plain-text rule refuses control characters in notes (plain-text.ts); the backslash,
+    // quotes and non-ASCII letters still test the bulk load's escaping.
+    const note = 'dug wet; back \\ bed "3", Größe L';
     const csv = `date,crop,quantity,unit,use,spread_months,note\n2025-08-01,Potato,2.5,kg,fresh,,"${note.replace(/"/g, '""')}"\n2025-09-30,Potato,30,kg,stored,5,\n2025-10-01,Potato,1,kg,given,,\n`;
     await afterWrite(async () => ok(await upload(t.owner.cookie, hid, { kind: 'harvests', mode: 'commit', csv }), 201));
     const [rows] = (await pool.query("SELECT note, quantity, unit FROM harvests WHERE household_id = ? AND `date` = '2025-08-01'", [hid])) as any;
