@@ -31,10 +31,14 @@ export function isParentMissing(e: unknown): boolean {
   return code === 'ER_NO_REFERENCED_ROW_2' || code === 'ER_NO_REFERENCED_ROW';
 }
 
-/** True for a deadlock or lock wait timeout, after which the transaction can be tried again. */
+/**
+ * True for a deadlock or lock wait timeout, after which the transaction can be tried again. A
+ * deadlock on a table's auto-increment lock reaches us as ER_AUTOINC_READ_FAILED (1467): InnoDB
+ * rolled the transaction back all the same (MariaDB MDEV-33593), so it counts here too.
+ */
 export function isRetryableLock(e: unknown): boolean {
   const code = errCode(e);
-  return code === 'ER_LOCK_DEADLOCK' || code === 'ER_LOCK_WAIT_TIMEOUT';
+  return code === 'ER_LOCK_DEADLOCK' || code === 'ER_LOCK_WAIT_TIMEOUT' || code === 'ER_AUTOINC_READ_FAILED';
 }
 
 /** The status, code and sentence for a database error a route did not handle itself; undefined for any other error. */
