@@ -5,8 +5,9 @@ const root = fileURLToPath(new URL('..', import.meta.url));
 /** tsconfig.json's "@/*" → "src/*", which Vitest does not read by itself. */
 const resolve = { alias: [{ find: /^@\//, replacement: `${root}src/` }] };
 
-// Two projects: pure domain code (no database) and the data layer + HTTP API against the real
-// MariaDB and the built server that `npm test` (src/cli/test.ts) starts before running these.
+// Three projects: pure domain code (no database), the data layer + HTTP API against the real
+// MariaDB and the built server that `npm test` (src/cli/test.ts) starts before running these, and
+// the cluster tests that only `npm run test:cluster` runs (two servers on a Galera cluster).
 export default defineConfig({
   root,
   test: {
@@ -32,6 +33,20 @@ export default defineConfig({
           poolOptions: { forks: { singleFork: true } },
           testTimeout: 60_000,
           hookTimeout: 180_000,
+        },
+      },
+      {
+        resolve,
+        test: {
+          // Only `npm run test:cluster` (src/cli/test-cluster.ts) runs these: they need its Galera cluster.
+          name: 'cluster',
+          root,
+          include: ['tests/cluster/**/*.test.ts'],
+          environment: 'node',
+          pool: 'forks',
+          poolOptions: { forks: { singleFork: true } },
+          testTimeout: 240_000,
+          hookTimeout: 120_000,
         },
       },
     ],

@@ -22,11 +22,26 @@ let aptUpdated = false;
 export function ensureProgram(program: string, pkg: string): string {
   const found = findProgram(program);
   if (found) return found;
+  aptInstall(pkg, program);
+  const after = findProgram(program);
+  if (!after) throw new Error(`installed ${pkg} but ${program} is still not on the PATH`);
+  return after;
+}
+
+/** Makes sure the file `path` exists (a library without a program, e.g. Galera's), installing `pkg` like ensureProgram. */
+export function ensurePackageFile(path: string, pkg: string): string {
+  if (existsSync(path)) return path;
+  aptInstall(pkg, path);
+  if (!existsSync(path)) throw new Error(`installed ${pkg} but ${path} is still missing`);
+  return path;
+}
+
+function aptInstall(pkg: string, what: string): void {
   const isRoot = typeof process.getuid === 'function' && process.getuid() === 0;
   if (!isRoot || !findProgram('apt-get')) {
-    throw new Error(`${program} is not installed. Install the Debian package "${pkg}" (sudo apt-get install ${pkg}) and run again.`);
+    throw new Error(`${what} is not installed. Install the Debian package "${pkg}" (sudo apt-get install ${pkg}) and run again.`);
   }
-  console.log(`• ${program} not found: installing Debian package ${pkg} (one time, takes a little while)…`);
+  console.log(`• ${what} not found: installing Debian package ${pkg} (one time, takes a little while)…`);
   const env = childEnv({ DEBIAN_FRONTEND: 'noninteractive' });
   if (!aptUpdated) {
     execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit', env });
@@ -34,7 +49,4 @@ export function ensureProgram(program: string, pkg: string): string {
   }
   const r = spawnSync('apt-get', ['install', '-y', '-qq', '--no-install-recommends', pkg], { stdio: 'inherit', env });
   if (r.status !== 0) throw new Error(`apt-get install ${pkg} failed (exit ${r.status})`);
-  const after = findProgram(program);
-  if (!after) throw new Error(`installed ${pkg} but ${program} is still not on the PATH`);
-  return after;
 }

@@ -77,6 +77,12 @@ export const envSchema = z.object({
   UPLOAD_DIR: withDefault('.data/uploads'),
   // The monthly letter's hourly run inside the app server: "off" disables it (npm test's server).
   LETTERS_SCHEDULER: withDefault('on').transform((v) => v.toLowerCase() !== 'off'),
+  // When it runs: a croner pattern in UTC (a leading seconds field allowed); the cluster test runs it every 10 s.
+  LETTERS_SCHEDULE: withDefault('7 * * * *'),
+  // The instant the letter job takes for "now" (ISO 8601; tests only — unset means the clock).
+  LETTERS_NOW: maybe,
+  // npm run test:cluster: where the Galera nodes keep their data (removed after a passing run).
+  CLUSTER_DATA_DIR: withDefault('.data/cluster'),
   // The build and the start and test commands.
   SELFSOWN_OUT_DIR: withDefault('dist'),
   TEST_PORT: withDefault('4399'),
@@ -99,15 +105,39 @@ export function childEnv(overrides: NodeJS.ProcessEnv = {}): NodeJS.ProcessEnv {
 }
 
 export interface DbUrlParts {
+  /** The first host (the only one unless the URL lists several). */
   host: string;
   port: number;
+  /** Every host the URL lists, in order: `mysql://u:p@h1:3306,h2:3306/db` (a Galera cluster's nodes). */
+  hosts: { host: string; port: number }[];
   user: string;
   password: string;
   database: string;
 }
 
-/** Splits a mysql:// URL into its parts, with a sentence when it is not one. */
+/** `host:port` → its parts (port 3306 when left out), or undefined when it is not one. */
+function hostPort(text: string): { host: string; port: number } | undefined {
+  const m = /^([A-Za-z0-9.-]+|\[[0-9A-Fa-f:.]+\])(?::(\d{1,5}))?$/.exec(text);
+  return m ? { host: m[1]!, port: m[2] ? Number(m[2]) : 3306 } : undefined;
+}
+
+/**
+ * Splits a mysql:// URL into its parts, with a sentence when it is not one. Several hosts may be
+ * listed, comma-separated (`mysql://u:p@10.0.0.1:3306,10.0.0.2:3306/selfsown`): the app uses the
+ * first and fails over to the next (src/db/failover-pool.ts).
+ */
 export function parseDatabaseUrl(url: string): DbUrlParts {
+  // The WHATWG parser takes one host: read the list first and hand it the first one.
+  const listed = /^(mysql:\/\/(?:[^@/?#]*@)?)([^/?#@]*,[^/?#@]*)([/?#].*)?$/.exec(url);
+  let extra: { host: string; port: number }[] = [];
+  if (listed) {
+    const parts = listed[2]!.split(',').map((h) => h.trim());
+    const parsed = parts.map(hostPort);
+    const bad = parts.find((_, i) => !parsed[i]);
+    if (bad !== undefined) throw new Error(`DATABASE_URL lists the host "${bad}", which is not host or host:port`);
+    extra = parsed.slice(1) as { host: string; port: number }[];
+    url = `${listed[1]}${parts[0]}${listed[3] ?? ''}`;
+  }
   let u: URL;
   try {
     u = new URL(url);
@@ -117,9 +147,10 @@ export function parseDatabaseUrl(url: string): DbUrlParts {
   if (u.protocol !== 'mysql:') throw new Error(`DATABASE_URL must start with mysql:// (got ${u.protocol}//)`);
   const database = decodeURIComponent(u.pathname.replace(/^\//, ''));
   if (!/^[A-Za-z0-9_]+$/.test(database)) throw new Error(`database name "${database}" may use only letters, digits and _`);
+  const first = { host: u.hostname || '127.0.0.1', port: u.port ? Number(u.port) : 3306 };
   return {
-    host: u.hostname || '127.0.0.1',
-    port: u.port ? Number(u.port) : 3306,
+    ...first,
+    hosts: [first, ...extra],
     user: decodeURIComponent(u.username),
     password: decodeURIComponent(u.password),
     database,
@@ -210,6 +241,24 @@ export function uploadDir(): string {
 /** Whether the app server runs the monthly letter's hourly job (LETTERS_SCHEDULER, default on; "off" disables it). */
 export function lettersSchedulerOn(): boolean {
   return readEnv().LETTERS_SCHEDULER;
+}
+
+/** The letter job's croner pattern (LETTERS_SCHEDULE, default minute 7 of every hour, UTC). */
+export function lettersSchedule(): string {
+  return readEnv().LETTERS_SCHEDULE;
+}
+
+/** What the letter job takes for now: LETTERS_NOW when set (the cluster test), else the clock. */
+export function lettersNow(): Date {
+  const fixed = readEnv().LETTERS_NOW;
+  const at = fixed ? new Date(fixed) : new Date();
+  if (Number.isNaN(at.getTime())) throw new Error(`LETTERS_NOW "${fixed}" is not an ISO 8601 instant`);
+  return at;
+}
+
+/** The cluster test's folder for its nodes' data (CLUSTER_DATA_DIR, default .data/cluster), absolute from `root`. */
+export function clusterDataDir(root = process.cwd()): string {
+  return resolve(root, readEnv().CLUSTER_DATA_DIR);
 }
 
 /** The folder `astro build` writes to (SELFSOWN_OUT_DIR, default dist), absolute from `root`. */

@@ -32,9 +32,9 @@ export function isParentMissing(e: unknown): boolean {
 }
 
 /**
- * True for a deadlock or lock wait timeout, after which the transaction can be tried again. InnoDB
- * reports a deadlock met while taking a table's auto-increment lock (an insert whose triggers write
- * the share rollup, racing a household's deletion) as ER_AUTOINC_READ_FAILED (1467): the same case.
+ * True for a deadlock or lock wait timeout, after which the transaction can be tried again. A
+ * deadlock on a table's auto-increment lock reaches us as ER_AUTOINC_READ_FAILED (1467): InnoDB
+ * rolled the transaction back all the same (MariaDB MDEV-33593), so it counts here too.
  */
 export function isRetryableLock(e: unknown): boolean {
   const code = errCode(e);

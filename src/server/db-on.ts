@@ -3,16 +3,14 @@
  * the tests hand them their own) query through Drizzle's builder all the same: one client per pool,
  * made on first use and kept as long as the pool lives.
  */
-import { drizzle } from 'drizzle-orm/mysql2';
 import type { Pool } from 'mysql2/promise';
-import type { Db } from '@/db/client';
-import * as schema from '@/db/schema';
+import { drizzleOn, type Db } from '@/db/client';
 
 const clients = new WeakMap<Pool, Db>();
 
 /** The Drizzle client for `pool`, e.g. dbOn(getPool()).select().from(foods). */
 export function dbOn(pool: Pool): Db {
   let db = clients.get(pool);
-  if (!db) clients.set(pool, (db = drizzle(pool, { schema, mode: 'default' })));
+  if (!db) clients.set(pool, (db = drizzleOn(pool)));
   return db;
 }

@@ -7,6 +7,7 @@
 import { eq, sql } from 'drizzle-orm';
 import { drizzle } from 'drizzle-orm/mysql2';
 import type { Pool } from 'mysql2/promise';
+import { withWriteRetry } from './write-retry';
 import type { Db } from '@/db/client';
 import * as schema from '@/db/schema';
 import { datasetReleases, datasets, foodNutrients, foodWeights, foods as foodsTable, nutrients } from '@/db/schema';
@@ -95,6 +96,18 @@ export async function importDataset(
     return { datasetId: await datasetId(dbOn(pool), info.slug), foods: foods.length, amounts: 0, skipped: true };
   }
 
+  // One transaction on one connection, run whole again after a deadlock (write-retry.ts).
+  return withWriteRetry(() => loadInOneTransaction(pool, info, foods, amounts, opts, log));
+}
+
+async function loadInOneTransaction(
+  pool: Pool,
+  info: DatasetInfo,
+  foods: FoodRecord[],
+  amounts: AmountRecord[],
+  opts: { importedBy?: string; progress?: (rowsWritten: number) => void },
+  log: (line: string) => void,
+): Promise<ImportResult> {
   const conn = await pool.getConnection();
   // Drizzle on the transaction's own connection; the bulk statements below use `conn` directly.
   const db = drizzle(conn, { schema, mode: 'default' });

@@ -21,7 +21,8 @@ import { and, eq } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { idempotencyKeys } from '@/db/schema';
 import { HttpError, json } from './http';
-import { isDuplicateKey, isRetryableLock, lockHousehold, type Tx } from './entry-input';
+import { isDuplicateKey, lockHousehold, type Tx } from './entry-input';
+import { withWriteRetry } from './write-retry';
 
 /** The request header. */
 export const IDEMPOTENCY_HEADER = 'Idempotency-Key';
@@ -124,16 +125,9 @@ export async function idempotent(r: KeyedRequest, key: string | undefined, work:
   };
   if (key === undefined) return { ...(await getDb().transaction(lockedWork)), replayed: false };
   const hash = requestHash(r.path, r.body);
-  // Twins waiting on a key whose first request rolled back can deadlock each other: try again
-  // after a short random pause, so they do not meet again at once.
-  for (let attempt = 1; ; attempt++) {
-    try {
-      return await claimAndRun(r, key, hash, lockedWork);
-    } catch (e) {
-      if (!isRetryableLock(e) || attempt >= 5) throw e;
-      await new Promise((done) => setTimeout(done, 5 + Math.random() * 20 * attempt));
-    }
-  }
+  // Twins waiting on a key whose first request rolled back can deadlock each other, and on Galera a
+  // twin through another node fails certification: both start over from the stored-answer lookup.
+  return withWriteRetry(() => claimAndRun(r, key, hash, lockedWork));
 }
 
 async function claimAndRun(r: KeyedRequest, key: string, hash: string, work: (tx: Tx) => Promise<Answer>): Promise<Answer & { replayed: boolean }> {

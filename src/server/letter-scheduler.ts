@@ -5,10 +5,10 @@
  * letters.ts keeps every letter to one sending. LETTERS_SCHEDULER=off leaves it out.
  */
 import { Cron } from 'croner';
-import { lettersSchedulerOn } from './config';
+import { lettersNow, lettersSchedule, lettersSchedulerOn } from './config';
 import { sendDueLetters } from './letters';
 
-/** Minute 7 of every hour (UTC): clear of the top of the hour, when other jobs tend to run. */
+/** Minute 7 of every hour (UTC): clear of the top of the hour, when other jobs tend to run. LETTERS_SCHEDULE may say otherwise. */
 export const LETTER_SCHEDULE = '7 * * * *';
 
 let job: Cron | null = null;
@@ -17,7 +17,7 @@ let job: Cron | null = null;
 export function startLetterScheduler(log: (line: string) => void = (l) => console.log(l)): Cron | null {
   if (job || !lettersSchedulerOn()) return job;
   job = new Cron(
-    LETTER_SCHEDULE,
+    lettersSchedule(),
     {
       name: 'monthly-letters',
       timezone: 'UTC',
@@ -27,9 +27,10 @@ export function startLetterScheduler(log: (line: string) => void = (l) => consol
       catch: (e) => log(`letters: the run failed: ${e instanceof Error ? e.message : String(e)}`),
     },
     async () => {
-      const r = await sendDueLetters(new Date(), { log: (l) => log(`letters: ${l}`) });
-      if (r.sent.length || r.failed.length || r.uncertain.length) {
-        log(`letters: ${r.sent.length} sent, ${r.failed.length} failed, ${r.uncertain.length} uncertain`);
+      const r = await sendDueLetters(lettersNow(), { log: (l) => log(`letters: ${l}`) });
+      // Letters another server claimed first count as skipped: with several servers, each says what it did.
+      if (r.sent.length || r.failed.length || r.uncertain.length || r.skipped) {
+        log(`letters: ${r.sent.length} sent, ${r.failed.length} failed, ${r.uncertain.length} uncertain, ${r.skipped} skipped`);
       }
     },
   );

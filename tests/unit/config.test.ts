@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { authSecret, mailConfig, publicOrigin, rateLimitRule, readEnv, testRunConfig } from '@/server/config';
+import { authSecret, lettersNow, lettersSchedule, mailConfig, publicOrigin, rateLimitRule, readEnv, testRunConfig } from '@/server/config';
 
 afterEach(() => {
   vi.unstubAllEnvs();
@@ -47,6 +47,19 @@ describe('the environment schema', () => {
 });
 
 describe('the helpers over it', () => {
+  it('runs the letter job at minute 7 on the clock unless LETTERS_SCHEDULE and LETTERS_NOW say otherwise', () => {
+    vi.stubEnv('LETTERS_SCHEDULE', '');
+    vi.stubEnv('LETTERS_NOW', '');
+    expect(lettersSchedule()).toBe('7 * * * *');
+    expect(Math.abs(lettersNow().getTime() - Date.now())).toBeLessThan(1000);
+    vi.stubEnv('LETTERS_SCHEDULE', '*/10 * * * * *');
+    vi.stubEnv('LETTERS_NOW', '2026-12-02T12:00:00.000Z');
+    expect(lettersSchedule()).toBe('*/10 * * * * *');
+    expect(lettersNow().toISOString()).toBe('2026-12-02T12:00:00.000Z');
+    vi.stubEnv('LETTERS_NOW', 'the second');
+    expect(() => lettersNow()).toThrow(/not an ISO 8601 instant/);
+  });
+
   it('builds the public origin from HOST and PORT unless PUBLIC_ORIGIN is set, without a trailing slash', () => {
     vi.stubEnv('PUBLIC_ORIGIN', '');
     vi.stubEnv('HOST', '127.0.0.2');
