@@ -5,8 +5,9 @@ const root = fileURLToPath(new URL('..', import.meta.url));
 /** tsconfig.json's "@/*" → "src/*", which Vitest does not read by itself. */
 const resolve = { alias: [{ find: /^@\//, replacement: `${root}src/` }] };
 
-// Two projects: pure domain code (no database) and the data layer + HTTP API against the real
-// MariaDB and the built server that `npm test` (src/cli/test.ts) starts before running these.
+// Three projects: pure domain code (no database); the data layer + HTTP API against the real
+// MariaDB and the built server that `npm test` (src/cli/test.ts) starts before running these; and
+// the faults and load tests, which npm test runs file by file in their own stages.
 export default defineConfig({
   root,
   test: {
@@ -32,6 +33,20 @@ export default defineConfig({
           poolOptions: { forks: { singleFork: true } },
           testTimeout: 60_000,
           hookTimeout: 180_000,
+        },
+      },
+      {
+        // npm test's faults and load stages: each brings up what it breaks or loads (src/cli/test.ts).
+        resolve,
+        test: {
+          name: 'faults',
+          root,
+          include: ['tests/faults/**/*.test.ts', 'tests/load/**/*.test.ts'],
+          environment: 'node',
+          pool: 'forks',
+          poolOptions: { forks: { singleFork: true } },
+          testTimeout: 180_000,
+          hookTimeout: 120_000,
         },
       },
     ],
