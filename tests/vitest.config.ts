@@ -5,9 +5,10 @@ const root = fileURLToPath(new URL('..', import.meta.url));
 /** tsconfig.json's "@/*" → "src/*", which Vitest does not read by itself. */
 const resolve = { alias: [{ find: /^@\//, replacement: `${root}src/` }] };
 
-// Three projects: pure domain code (no database), the data layer + HTTP API against the real
-// MariaDB and the built server that `npm test` (src/cli/test.ts) starts before running these, and
-// the cluster tests that only `npm run test:cluster` runs (two servers on a Galera cluster).
+// Four projects: pure domain code (no database); the data layer + HTTP API against the real
+// MariaDB and the built server that `npm test` (src/cli/test.ts) starts before running these; the
+// faults and load tests, which npm test runs file by file in their own stages; and the cluster
+// tests that only `npm run test:cluster` runs (two servers on a Galera cluster).
 export default defineConfig({
   root,
   test: {
@@ -46,6 +47,20 @@ export default defineConfig({
           pool: 'forks',
           poolOptions: { forks: { singleFork: true } },
           testTimeout: 240_000,
+          hookTimeout: 120_000,
+        },
+      },
+      {
+        // npm test's faults and load stages: each brings up what it breaks or loads (src/cli/test.ts).
+        resolve,
+        test: {
+          name: 'faults',
+          root,
+          include: ['tests/faults/**/*.test.ts', 'tests/load/**/*.test.ts'],
+          environment: 'node',
+          pool: 'forks',
+          poolOptions: { forks: { singleFork: true } },
+          testTimeout: 180_000,
           hookTimeout: 120_000,
         },
       },

@@ -18,8 +18,9 @@ export interface ServerPaths {
   marker: string;
 }
 
-export function serverPaths(root = process.cwd()): ServerPaths {
-  const base = resolve(root, '.data');
+/** Where a private server keeps its files: `.data` for the project's, another folder for a test's own (npm test's faults stage). */
+export function serverPaths(root = process.cwd(), folder = '.data'): ServerPaths {
+  const base = resolve(root, folder);
   return {
     base,
     dataDir: resolve(base, 'mariadb'),
@@ -34,7 +35,7 @@ function sleep(ms: number) {
   return new Promise((r) => setTimeout(r, ms));
 }
 
-function pidAlive(pid: number): boolean {
+export function pidAlive(pid: number): boolean {
   try {
     process.kill(pid, 0);
     return true;
@@ -43,7 +44,7 @@ function pidAlive(pid: number): boolean {
   }
 }
 
-function readPid(p: ServerPaths): number | null {
+export function readPid(p: ServerPaths): number | null {
   if (!existsSync(p.pidFile)) return null;
   const n = Number(readFileSync(p.pidFile, 'utf8').trim());
   return Number.isInteger(n) && n > 0 ? n : null;
@@ -69,7 +70,7 @@ export function ensureInstalled(p: ServerPaths): void {
   // A data directory without our marker is a half-finished init (crash): start it again.
   if (existsSync(p.dataDir)) rmSync(p.dataDir, { recursive: true, force: true });
   mkdirSync(p.dataDir, { recursive: true });
-  console.log('• initialising a private MariaDB data directory in .data/mariadb');
+  console.log(`• initialising a private MariaDB data directory in ${p.dataDir}`);
   const args = ['--no-defaults', `--datadir=${p.dataDir}`, '--auth-root-authentication-method=normal', '--skip-test-db'];
   if (process.getuid?.() === 0) args.push('--user=root');
   const r = spawnSync(installDb, args, { encoding: 'utf8' });
@@ -162,4 +163,14 @@ export async function stopServer(p: ServerPaths): Promise<boolean> {
   for (let i = 0; i < 300 && pidAlive(pid); i++) await sleep(100);
   if (pidAlive(pid)) process.kill(pid, 'SIGKILL');
   return true;
+}
+
+/** Kills the server at once (SIGKILL: no shutdown, no flush), as a crash would; waits until it is gone. */
+export async function killServer(p: ServerPaths): Promise<number> {
+  const pid = readPid(p);
+  if (!pid || !pidAlive(pid)) throw new Error(`no MariaDB is running from ${p.dataDir}`);
+  process.kill(pid, 'SIGKILL');
+  for (let i = 0; i < 100 && pidAlive(pid); i++) await sleep(50);
+  if (pidAlive(pid)) throw new Error(`MariaDB (pid ${pid}) did not die on SIGKILL`);
+  return pid;
 }

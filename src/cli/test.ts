@@ -1,7 +1,9 @@
 /**
  * npm test: brings up the private MariaDB and a fresh test database (selfsown_test), loads the
  * reference foods, builds the app, serves it on a test port and runs unit, integration and e2e
- * tests against it. Exits non-zero on any failure and ends with a summary.
+ * tests against it, then the load stage (50 growers for 60 s against that server) and the faults
+ * stage (its own MariaDB, killed and restarted, and its own app servers: src/cli/test-faults.ts).
+ * Exits non-zero on any failure and ends with a summary.
  */
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { resolve } from 'node:path';
@@ -13,6 +15,7 @@ import { importFoods } from './import-foods';
 import { startMailFake } from './mail-fake';
 import { run, startService, stopService, waitForHttp } from './processes';
 import { ensureProgram } from './system';
+import { withFaultsDatabase } from './test-faults';
 
 interface Stage {
   name: string;
@@ -26,7 +29,7 @@ interface Stage {
 const root = process.cwd();
 const outDir = buildDir(root);
 /**
- * Developer shortcuts: TEST_STAGES=unit,integration,e2e picks stages; TEST_FILES=a,b narrows files.
+ * Developer shortcuts: TEST_STAGES=unit,integration,e2e,load,faults picks stages; TEST_FILES=a,b narrows files.
  * These and the report folder are read from the shell's environment, before `.env` is loaded.
  */
 const { stages: wanted, files, port: portBeforeDotEnv } = testRunConfig();
@@ -57,6 +60,35 @@ async function stage(name: string, fn: () => Promise<{ code: number; counts?: { 
 }
 
 const filesFor = (dir: string) => files.filter((f) => f.includes(dir));
+
+type Counts = { passed: number; failed: number; skipped: number };
+
+/** Vitest's project `project` over `dir` (or the TEST_FILES in it), its counts read from its JSON report. */
+async function vitestRun(project: string, dir: string, report: string, env: NodeJS.ProcessEnv): Promise<{ code: number; counts: Counts }> {
+  const out = resolve(reports, `${report}.json`);
+  const chosen = filesFor(dir);
+  const code = await run(bin('vitest'), ['run', '--config', 'tests/vitest.config.ts', '--project', project, '--reporter=default', '--reporter=json', `--outputFile.json=${out}`, ...(chosen.length ? chosen : [dir])], env);
+  return { code, counts: vitestCounts(out) };
+}
+
+/** The faults stage: the Vitest file (database killed, app restarted) and the browser's queue over a restart (Playwright). */
+async function faultsStage(port: string, testUrl: string, env: NodeJS.ProcessEnv): Promise<{ code: number; counts: Counts }> {
+  return withFaultsDatabase(port, testUrl, async (faultsEnv) => {
+    const stageEnv = { ...env, ...faultsEnv };
+    const chosen = files.length ? files.filter((f) => f.includes('tests/faults/')) : [];
+    const api = chosen.length && !chosen.some((f) => f.endsWith('.test.ts')) ? { code: 0, counts: { passed: 0, failed: 0, skipped: 0 } } : await vitestRun('faults', 'tests/faults/', 'faults', stageEnv);
+    let browser = { code: 0, counts: { passed: 0, failed: 0, skipped: 0 } };
+    if (!chosen.length || chosen.some((f) => f.endsWith('.spec.ts'))) {
+      const out = resolve(reports, 'faults-e2e.json');
+      const code = await run(bin('playwright'), ['test', '--config', 'tests/faults/playwright.config.ts', ...chosen.filter((f) => f.endsWith('.spec.ts'))], { ...stageEnv, PLAYWRIGHT_JSON_OUTPUT_NAME: out });
+      browser = { code, counts: playwrightCounts(out) };
+    }
+    return {
+      code: api.code || browser.code,
+      counts: { passed: api.counts.passed + browser.counts.passed, failed: api.counts.failed + browser.counts.failed, skipped: api.counts.skipped + browser.counts.skipped },
+    };
+  });
+}
 
 async function main(): Promise<number> {
   loadDotEnv();
@@ -142,9 +174,11 @@ async function main(): Promise<number> {
           return { code, counts: playwrightCounts(out) };
         }),
       );
+      if (wanted.has('load')) stages.push(await stage('load (50 growers for 60 s, built server)', () => vitestRun('faults', 'tests/load/', 'load', env)));
     } finally {
       await stopService(server);
     }
+    if (wanted.has('faults')) stages.push(await stage('faults (MariaDB killed, app restarted)', () => faultsStage(port, testUrl, env)));
   }
   await mailFake.close();
   if (!wasRunning) await stopServer(paths);

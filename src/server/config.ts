@@ -87,7 +87,7 @@ export const envSchema = z.object({
   SELFSOWN_OUT_DIR: withDefault('dist'),
   TEST_PORT: withDefault('4399'),
   TEST_SMTP_PORT: maybe,
-  TEST_STAGES: withDefault('unit,integration,e2e').transform((v) => v.split(',')),
+  TEST_STAGES: withDefault('unit,integration,e2e,load,faults').transform((v) => v.split(',')),
   TEST_FILES: withDefault('').transform((v) => v.split(',').filter(Boolean)),
   PATH: withDefault(''),
 });

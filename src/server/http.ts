@@ -4,7 +4,7 @@
  */
 import { ZodError } from 'zod';
 import { zodErrorBody } from '@/lib/error-body';
-import { databaseErrorAnswer } from './db-errors';
+import { DATABASE_RETRY_AFTER_SECONDS, DATABASE_UNAVAILABLE_MESSAGE, databaseErrorAnswer } from './db-errors';
 
 export class HttpError extends Error {
   constructor(
@@ -33,6 +33,11 @@ export function errorResponse(status: number, code: string, message: string, fie
   return json({ error: { code, message, ...(fields ? { fields } : {}) } }, status);
 }
 
+/** 503 `database_unavailable` with Retry-After: the database is down or restarting, try again soon. */
+export function databaseUnavailableResponse(): Response {
+  return json({ error: { code: 'database_unavailable', message: DATABASE_UNAVAILABLE_MESSAGE } }, 503, { 'retry-after': String(DATABASE_RETRY_AFTER_SECONDS) });
+}
+
 /** Turns anything thrown in a route into a response; unexpected errors are logged, not shown. */
 export function toResponse(e: unknown): Response {
   if (e instanceof HttpError) return errorResponse(e.status, e.code, e.message, e.fields);
@@ -41,6 +46,7 @@ export function toResponse(e: unknown): Response {
     return errorResponse(400, body.code, body.message, body.fields);
   }
   const db = databaseErrorAnswer(e);
+  if (db?.status === 503) return databaseUnavailableResponse();
   if (db) return errorResponse(db.status, db.code, db.message);
   console.error('unexpected error in API route', e);
   return errorResponse(500, 'internal', 'Something went wrong on our side. Please try again.');

@@ -16,7 +16,7 @@ describe('the environment schema', () => {
     expect(env.FAKE_SMTP_PORT).toBe(2525);
     expect(env.TRUST_PROXY).toBe(false);
     expect(env.SELFSOWN_OUT_DIR).toBe('dist');
-    expect(env.TEST_STAGES).toEqual(['unit', 'integration', 'e2e']);
+    expect(env.TEST_STAGES).toEqual(['unit', 'integration', 'e2e', 'load', 'faults']);
     expect(env.TEST_FILES).toEqual([]);
   });
 

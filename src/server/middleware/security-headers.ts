@@ -16,8 +16,12 @@ const offline = offlineRoutes();
 
 export const securityHeaders = defineMiddleware(async (ctx, next) => {
   const response = await next();
-  const noStore = ctx.url.pathname.startsWith('/api/') || ctx.locals.user !== null;
-  withSecurityHeaders(response, { noStore });
+  const isApi = ctx.url.pathname.startsWith('/api/');
+  const noStore = isApi || ctx.locals.user !== null;
+  // A page answering a bare 404/500 (`new Response(null, { status: 404 })`) is replaced by Astro's
+  // error page, which keeps these headers: it gets the page policy, or its inline styles are blocked.
+  const errorPage = !isApi && response.body === null && (response.status === 404 || response.status === 500);
+  withSecurityHeaders(response, { noStore, page: errorPage });
   // `no-store` keeps these out of every HTTP cache; our own service worker (astro.config.mjs) keeps
   // a copy in the app's offline store only of what is marked here: the offline pages and lists a
   // grower opens with no signal, emptied at sign-in and sign-out.
@@ -33,14 +37,14 @@ export const securityHeaders = defineMiddleware(async (ctx, next) => {
 });
 
 /** Adds each header the response does not set itself; writes the Content-Security-Policy whole. */
-export function withSecurityHeaders(response: Response, opts: { noStore?: boolean } = {}): Response {
+export function withSecurityHeaders(response: Response, opts: { noStore?: boolean; page?: boolean } = {}): Response {
   const h = response.headers;
   const set = (name: string, value: string) => {
     if (!h.has(name)) h.set(name, value);
   };
   try {
     for (const [name, value] of Object.entries(BASE_SECURITY_HEADERS)) set(name, value);
-    const isPage = (h.get('content-type') ?? '').startsWith('text/html');
+    const isPage = opts.page || (h.get('content-type') ?? '').startsWith('text/html');
     h.set('Content-Security-Policy', isPage ? pagePolicy(scriptHashesOf(h.get('content-security-policy'))) : NON_PAGE_POLICY);
     if (opts.noStore) set('Cache-Control', 'no-store');
   } catch {
