@@ -227,54 +227,86 @@ export function lpNumber(x: number): string {
   return String(Number(x.toPrecision(12)));
 }
 
-function linear(terms: [number, string][]): string {
-  const kept = terms.filter(([c]) => Math.abs(c) > 1e-15);
-  if (kept.length === 0) return '';
-  const parts = kept.map(([c, v], i) => `${c < 0 ? '- ' : i === 0 ? '' : '+ '}${Math.abs(c) === 1 ? '' : `${lpNumber(Math.abs(c))} `}${v}`);
+/** One term of a linear expression: coefficient and LP column name. */
+export type LpTerm = [number, string];
+
+/** A constraint row: lower ≤ Σ terms ≤ upper, one side infinite. */
+export interface LpRow {
+  name: string;
+  terms: LpTerm[];
+  lower: number;
+  upper: number;
+}
+
+/**
+ * One stage of the plan as a linear programme, before it is written down: the objective
+ * (minimised), the rows and the column bounds, terms already without the zero coefficients. LP text
+ * (planLp) and the packed arrays of ./plan-matrix.ts are both written from it, so they say the same.
+ */
+export interface LpProgram {
+  objective: LpTerm[];
+  rows: LpRow[];
+  bounds: { column: string; lower: number; upper: number }[];
+}
+
+const kept = (terms: LpTerm[]): LpTerm[] => terms.filter(([c]) => Math.abs(c) > 1e-15);
+
+/** The shortfall column of a target row. */
+export const slackName = (row: TargetRow) => `s${row.name.slice(1)}`;
+
+/**
+ * The model's programme for one stage. Columns are `a<i>` (m² of crop i) and, in the best-effort
+ * stages, `s<j>` (the shortfall of target row j, in shares of need).
+ */
+export function planProgram(model: PlanModel, stage: PlanStage): LpProgram {
+  const area = model.crops.map((c): LpTerm => [1, c.column]);
+  const withSlack = stage.kind !== 'area';
+  const targetRows = withSlack ? model.rows : model.rows.filter((r) => !r.unsupplied);
+  const shortfall = model.rows.map((r): LpTerm => [r.weight, slackName(r)]);
+
+  const objective = kept(stage.kind === 'shortfall' ? shortfall : area);
+  const rows: LpRow[] = [];
+  const add = (name: string, terms: LpTerm[], lower: number, upper: number) => {
+    const nonzero = kept(terms);
+    if (nonzero.length > 0) rows.push({ name, terms: nonzero, lower, upper });
+  };
+  for (const r of targetRows) {
+    const terms = model.crops.map((c, i): LpTerm => [r.coeffs[i]!, c.column]);
+    if (withSlack) terms.push([1, slackName(r)]);
+    add(r.name, terms, r.gap, Infinity);
+  }
+  for (const group of ['vegetables', 'fruit'] as const) {
+    add(`cap_${group}`, model.crops.filter((c) => c.capGroup === group).map((c): LpTerm => [c.edibleKgM2, c.column]), -Infinity, model.capKg[group]);
+  }
+  if (model.maxAreaM2 != null && area.length > 0) add('area', area, -Infinity, model.maxAreaM2);
+  if (stage.kind === 'area-within-shortfall' && shortfall.length > 0) {
+    // A hair of room above the least shortfall, so rounding in the first solve cannot make this one infeasible.
+    add('short', shortfall, -Infinity, stage.maxShortfall * (1 + 1e-7) + 1e-9);
+  }
+  const bounds = model.crops.map((c) => ({ column: c.column, lower: 0, upper: c.energyCapM2 ?? Infinity }));
+  if (withSlack) for (const r of model.rows) bounds.push({ column: slackName(r), lower: 0, upper: r.gap });
+  if (model.crops.length === 0) bounds.push({ column: 'a0', lower: 0, upper: 0 });
+  return { objective, rows, bounds };
+}
+
+function linear(terms: LpTerm[]): string {
+  const parts = terms.map(([c, v], i) => `${c < 0 ? '- ' : i === 0 ? '' : '+ '}${Math.abs(c) === 1 ? '' : `${lpNumber(Math.abs(c))} `}${v}`);
   // A line break every few terms keeps the text readable; the LP format allows it anywhere between terms.
   const lines: string[] = [];
   for (let i = 0; i < parts.length; i += 8) lines.push(parts.slice(i, i + 8).join(' '));
   return lines.join('\n   ');
 }
 
-/** The shortfall column of a target row. */
-export const slackName = (row: TargetRow) => `s${row.name.slice(1)}`;
-
 /**
- * The model as CPLEX LP text for one stage. Columns are `a<i>` (m² of crop i) and, in the
- * best-effort stages, `s<j>` (the shortfall of target row j, in shares of need).
+ * The model as CPLEX LP text for one stage (see planProgram for the columns).
  * Example: `planLp(preparePlan(input), { kind: 'area' })` → 'Minimize\n obj: a0 + a1\nSubject To\n t0: 0.0004 a0 + … >= 0.5\n…End\n'
  */
 export function planLp(model: PlanModel, stage: PlanStage): string {
-  const area = model.crops.map((c): [number, string] => [1, c.column]);
-  const withSlack = stage.kind !== 'area';
-  const rows = withSlack ? model.rows : model.rows.filter((r) => !r.unsupplied);
-  const shortfall = model.rows.map((r): [number, string] => [r.weight, slackName(r)]);
-
-  const out: string[] = ['Minimize'];
-  const objective = stage.kind === 'shortfall' ? shortfall : area;
-  out.push(` obj: ${linear(objective) || '0 a0'}`);
-  out.push('Subject To');
-  for (const r of rows) {
-    const terms = model.crops.map((c, i): [number, string] => [r.coeffs[i]!, c.column]);
-    if (withSlack) terms.push([1, slackName(r)]);
-    const lhs = linear(terms);
-    if (lhs) out.push(` ${r.name}: ${lhs} >= ${lpNumber(r.gap)}`);
-  }
-  for (const group of ['vegetables', 'fruit'] as const) {
-    const terms = model.crops.filter((c) => c.capGroup === group).map((c): [number, string] => [c.edibleKgM2, c.column]);
-    const lhs = linear(terms);
-    if (lhs) out.push(` cap_${group}: ${lhs} <= ${lpNumber(model.capKg[group])}`);
-  }
-  if (model.maxAreaM2 != null && area.length > 0) out.push(` area: ${linear(area)} <= ${lpNumber(model.maxAreaM2)}`);
-  if (stage.kind === 'area-within-shortfall' && shortfall.length > 0) {
-    // A hair of room above the least shortfall, so rounding in the first solve cannot make this one infeasible.
-    out.push(` short: ${linear(shortfall)} <= ${lpNumber(stage.maxShortfall * (1 + 1e-7) + 1e-9)}`);
-  }
+  const program = planProgram(model, stage);
+  const out: string[] = ['Minimize', ` obj: ${linear(program.objective) || '0 a0'}`, 'Subject To'];
+  for (const r of program.rows) out.push(` ${r.name}: ${linear(r.terms)} ${r.upper === Infinity ? `>= ${lpNumber(r.lower)}` : `<= ${lpNumber(r.upper)}`}`);
   out.push('Bounds');
-  for (const c of model.crops) out.push(c.energyCapM2 === null ? ` ${c.column} >= 0` : ` 0 <= ${c.column} <= ${lpNumber(c.energyCapM2)}`);
-  if (withSlack) for (const r of model.rows) out.push(` 0 <= ${slackName(r)} <= ${lpNumber(r.gap)}`);
-  if (model.crops.length === 0) out.push(' 0 <= a0 <= 0');
+  for (const b of program.bounds) out.push(b.upper === Infinity ? ` ${b.column} >= ${lpNumber(b.lower)}` : ` ${lpNumber(b.lower)} <= ${b.column} <= ${lpNumber(b.upper)}`);
   out.push('End', '');
   return out.join('\n');
 }

@@ -1,15 +1,18 @@
 /**
  * Solves the planting plan with HiGHS (npm `highs`, WebAssembly). The solver is loaded once per
  * process — a module-level promise, so concurrent first requests share one load — and each plan
- * is a few one-shot solves of the LP text from src/lib/plan-model.ts: the least area that meets
+ * is a few one-shot solves of the programme of src/lib/plan-model.ts: the least area that meets
  * every target, or, when that is impossible, the least weighted shortfall and then the least area
- * within it (the best achievable plan). The wasm file is read from the package itself and handed
+ * within it (the best achievable plan). Each solve hands HiGHS the programme as packed arrays
+ * (src/lib/plan-matrix.ts: the same numbers and order as its LP text), since reading the text back
+ * cost several times the solve itself. The wasm file is read from the package itself and handed
  * to the loader, so a bundled server finds it wherever its own chunk lands.
  */
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import type { Highs } from 'highs';
-import { planLp, preparePlan, type PlanInput, type PlanModel, type PlanStage } from '@/lib/plan-model';
+import { packProgram } from '@/lib/plan-matrix';
+import { planProgram, preparePlan, type PlanInput, type PlanModel, type PlanStage } from '@/lib/plan-model';
 import { readPlan, type PlanAnswer } from '@/lib/plan-result';
 
 let solver: Promise<Highs> | null = null;
@@ -34,13 +37,34 @@ interface Solved {
   primal: Map<string, number>;
 }
 
+/** HiGHS's model status codes as the words its LP-text solver used (the planner's checks read these). */
+const STATUS_WORDS: Record<number, string> = { 7: 'Optimal', 8: 'Infeasible', 9: 'Primal infeasible or unbounded', 10: 'Unbounded' };
+
 function solve(highs: Highs, model: PlanModel, stage: PlanStage): Solved {
-  const result = highs.solve(planLp(model, stage), { output_flag: false });
-  const primal = new Map<string, number>();
-  if (result.Status === 'Optimal') {
-    for (const [name, col] of Object.entries(result.Columns)) primal.set(name, (col as { Primal: number }).Primal);
-  }
-  return { status: result.Status, objective: result.ObjectiveValue, primal };
+  const m = packProgram(planProgram(model, stage));
+  const numCols = m.columns.length;
+  const numRows = m.rowNames.length;
+  return highs.withModel((lp) => {
+    lp.options.set('output_flag', false);
+    lp.passModel({
+      numCols,
+      numRows,
+      colCost: m.colCost,
+      colLower: m.colLower,
+      colUpper: m.colUpper,
+      rowLower: m.rowLower,
+      rowUpper: m.rowUpper,
+      matrix: { format: 'csc', numRows, numCols, starts: m.starts, indices: m.indices, values: m.values },
+    });
+    const run = lp.run();
+    const status = STATUS_WORDS[run.modelStatus] ?? `model status ${run.modelStatus}`;
+    const primal = new Map<string, number>();
+    if (status === 'Optimal') {
+      const values = lp.getSolution().colValue;
+      m.columns.forEach((name, i) => primal.set(name, values[i]!));
+    }
+    return { status, objective: lp.getObjectiveValue(), primal };
+  });
 }
 
 function mustBeOptimal(s: Solved, what: string): Solved {
