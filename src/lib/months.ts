@@ -90,11 +90,27 @@ export function isDate(value: unknown): value is string {
  */
 export function todayIn(timeZone: string, now: Date = new Date()): string {
   try {
-    // en-CA writes dates as YYYY-MM-DD.
-    return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(now);
+    return dayFormat(timeZone).format(now);
   } catch {
     return now.toISOString().slice(0, 10);
   }
+}
+
+/**
+ * One formatter per zone, kept: making an Intl.DateTimeFormat costs far more than formatting with
+ * it, and a share request asks for "today" several times. Only zones the runtime knows get in
+ * (an unknown one throws before it is kept), so the map holds at most the runtime's zone list.
+ */
+const dayFormats = new Map<string, Intl.DateTimeFormat>();
+
+function dayFormat(timeZone: string): Intl.DateTimeFormat {
+  let f = dayFormats.get(timeZone);
+  if (!f) {
+    // en-CA writes dates as YYYY-MM-DD.
+    f = new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' });
+    dayFormats.set(timeZone, f);
+  }
+  return f;
 }
 
 /** Year, month and day of a 'YYYY-MM-DD' string, e.g. parseDate('2026-04-30'). Throws RangeError for an impossible date. */
