@@ -1,21 +1,24 @@
 /**
  * Stored share answers: the JSON of GET …/share as it was sent, kept in share_cache per household
- * and a key naming everything else it rests on (range, current month, zone, records start, creation
- * date, build). An answer is valid while the household's share version — stamped anew by every
- * statement that writes its entries, larder records, crops or people, by triggers in the writer's transaction
- * (drizzle/0009_share_rollup.sql) — and the reference datasets' revision (one more on every food
- * reload) are the ones stored beside it. One query looks an answer up with both; a valid one is
- * sent as stored, without parsing or writing JSON again. Nothing lives in process memory, so every
- * app server sees the same answers and the same invalidation.
+ * and a key naming the request as asked (its range, or none for the default, and the build),
+ * beside the context it was worked out in (the range that meant, current month, zone, records
+ * start, creation date). An answer is valid while its context is still the household's, and the
+ * household's share version — stamped anew by every statement that writes its entries, larder
+ * records, crops or people, by triggers in the writer's transaction (drizzle/0009_share_rollup.sql)
+ * — and the reference datasets' revision (one more on every food reload) are the ones stored
+ * beside it. The key needs nothing but the URL, so the lookup rides on the household gate's own
+ * query (storedAnswerColumns, read by householdRouteWith in authz.ts): a valid answer costs one
+ * query after the session and is sent as stored, without parsing or writing JSON again. Nothing
+ * lives in process memory, so every app server sees the same answers and the same invalidation.
  *
  * The version is read before the report is worked out: a write that lands meanwhile leaves the new
  * answer labelled with the older version, so it is never served after that write. A household with
  * no version row yet (nothing written since migration 0009) has the version ''.
  */
 import { createHash, randomUUID } from 'node:crypto';
-import { sql } from 'drizzle-orm';
-import { getDb } from '@/db/client';
-import { shareCache } from '@/db/schema';
+import { and, eq, ne, sql, type SQL } from 'drizzle-orm';
+import { getDb, getPool } from '@/db/client';
+import { datasets, shareCache, shareVersions } from '@/db/schema';
 import { currentMonth } from './people';
 import { householdShare, type ShareHousehold } from './share-data';
 
@@ -23,49 +26,68 @@ import { householdShare, type ShareHousehold } from './share-data';
 declare const __SELFSOWN_BUILD__: string | undefined;
 const BUILD = typeof __SELFSOWN_BUILD__ === 'string' ? __SELFSOWN_BUILD__ : `source-${randomUUID()}`;
 
-/** The key of an answer: everything besides the household's records and the reference foods that it rests on. */
-export function answerKey(household: ShareHousehold, from: string, to: string, now: Date): string {
-  const parts = [from, to, currentMonth(household.timezone, now), household.timezone, household.recordsSince ?? '', household.createdAt.toISOString(), BUILD];
-  return createHash('sha256').update(parts.join('|')).digest('base64url');
+/** The key of a request: its range as asked (unchecked: a bad one is refused later, never stored) and the build. */
+export function requestKey(from: string | null, to: string | null): string {
+  return createHash('sha256').update(`${from ?? ''}|${to ?? ''}|${BUILD}`).digest('base64url');
 }
 
-interface Lookup {
-  body: string | null;
-  version: string;
-  revision: number;
+/** What else an answer rests on besides the household's records and the reference foods. */
+export function answerContext(household: ShareHousehold, from: string, to: string, now: Date): string {
+  return [from, to, currentMonth(household.timezone, now), household.timezone, household.recordsSince ?? '', household.createdAt.toISOString()].join('|');
 }
 
-async function lookup(householdId: number, key: string): Promise<Lookup> {
-  const [rows] = (await getDb().execute(sql`
-    SELECT IF(c.version = COALESCE(v.version, '') AND c.reference_revision = r.revision, c.body, NULL) AS body,
-           COALESCE(v.version, '') AS version, r.revision AS revision
-      FROM (SELECT COALESCE(SUM(revision), 0) AS revision FROM datasets) r
-      LEFT JOIN share_versions v ON v.household_id = ${householdId}
-      LEFT JOIN share_cache c ON c.household_id = ${householdId} AND c.answer_key = ${key}`)) as unknown as [{ body: string | null; version: string; revision: number | string }[]];
-  const r = rows[0]!;
-  return { body: r.body, version: r.version, revision: Number(r.revision) };
+/** The stored answer of a request as the gate's query found it, with the version and revision it read. */
+export interface StoredAnswer {
+  /** The stored JSON when its version and revision are current, else null. */
+  storedBody: string | null;
+  storedContext: string | null;
+  shareVersion: string;
+  referenceRevision: number | string;
 }
 
-/** Stores an answer and drops the household's answers of other versions (not awaited by the reader). */
-async function store(householdId: number, key: string, found: Lookup, body: string): Promise<void> {
-  const db = getDb();
-  await db
-    .insert(shareCache)
-    .values({ householdId, answerKey: key, version: found.version, referenceRevision: found.revision, body })
-    .onDuplicateKeyUpdate({ set: { version: found.version, referenceRevision: found.revision, body, createdAt: sql`CURRENT_TIMESTAMP` } });
-  await db.execute(sql`DELETE FROM share_cache WHERE household_id = ${householdId} AND version <> ${found.version}`);
+/** The lookup as columns of one query (subqueries on constants, evaluated once). */
+export function storedAnswerColumns(householdId: number, key: string): { [K in keyof StoredAnswer]: SQL<StoredAnswer[K]> } {
+  const version = sql`COALESCE((SELECT ${shareVersions.version} FROM ${shareVersions} WHERE ${shareVersions.householdId} = ${householdId}), '')`;
+  const revision = sql`(SELECT COALESCE(SUM(${datasets.revision}), 0) FROM ${datasets})`;
+  const current = sql`FROM ${shareCache} WHERE ${shareCache.householdId} = ${householdId} AND ${shareCache.answerKey} = ${key}
+    AND ${shareCache.version} = ${version} AND ${shareCache.referenceRevision} = ${revision}`;
+  return {
+    storedBody: sql<string | null>`(SELECT ${shareCache.body} ${current})`,
+    storedContext: sql<string | null>`(SELECT ${shareCache.context} ${current})`,
+    shareVersion: sql<string>`${version}`,
+    referenceRevision: sql<number | string>`${revision}`,
+  };
 }
 
 /**
- * The share report of [from, to] as JSON text: the stored answer when it is still valid, else
- * worked out by householdShare() and stored for the next reader.
- * Throws what householdShare throws (RangeError when the report cannot be computed).
+ * Stores an answer and drops the household's answers of other versions. Written by the builder,
+ * sent as a prepared statement: the body goes as it is (the text protocol escapes every
+ * character of a 500 KB answer first), and only once (the update reads it back with VALUES()).
  */
-export async function householdShareJson(household: ShareHousehold, from: string, to: string, now: Date = new Date()): Promise<string> {
-  const key = answerKey(household, from, to, now);
-  const found = await lookup(household.id, key);
-  if (found.body !== null) return found.body;
+async function store(householdId: number, key: string, found: StoredAnswer, context: string, body: string): Promise<void> {
+  const db = getDb();
+  const again = (column: typeof shareCache.body | typeof shareCache.version | typeof shareCache.context | typeof shareCache.referenceRevision) => sql`VALUES(${column})`;
+  const insert = db
+    .insert(shareCache)
+    .values({ householdId, answerKey: key, version: found.shareVersion, referenceRevision: Number(found.referenceRevision), context, body })
+    .onDuplicateKeyUpdate({
+      set: { version: again(shareCache.version), referenceRevision: again(shareCache.referenceRevision), context: again(shareCache.context), body: again(shareCache.body), createdAt: sql`CURRENT_TIMESTAMP` },
+    })
+    .toSQL();
+  const drop = db.delete(shareCache).where(and(eq(shareCache.householdId, householdId), ne(shareCache.version, found.shareVersion))).toSQL();
+  await getPool().execute(insert.sql, insert.params as (string | number)[]);
+  await getPool().execute(drop.sql, drop.params as (string | number)[]);
+}
+
+/**
+ * The share report of [from, to] as JSON text: the stored answer `found` by the gate when it is
+ * still valid, else worked out by householdShare() and stored for the next reader (after this
+ * answer has gone out). Throws what householdShare throws (RangeError when it cannot be computed).
+ */
+export async function householdShareJson(household: ShareHousehold, from: string, to: string, key: string, found: StoredAnswer, now: Date = new Date()): Promise<string> {
+  const context = answerContext(household, from, to, now);
+  if (found.storedBody !== null && found.storedContext === context) return found.storedBody;
   const body = JSON.stringify(await householdShare(household, from, to, undefined, now));
-  store(household.id, key, found, body).catch((e: unknown) => console.error('share cache: could not store an answer', e));
+  setImmediate(() => store(household.id, key, found, context, body).catch((e: unknown) => console.error('share cache: could not store an answer', e)));
   return body;
 }
