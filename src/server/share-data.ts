@@ -10,10 +10,10 @@
  * day instead of its month, because it is spread by day. Lots with larder records are read one by
  * one. Queries go through Drizzle's builder and `sql` templates that name the schema's columns.
  */
-import { and, eq, gte, inArray, lte, min, sql } from 'drizzle-orm';
+import { and, eq, gte, inArray, lte, min, sql, type SQL } from 'drizzle-orm';
 import type { Pool } from 'mysql2/promise';
 import { getDb, type Db } from '@/db/client';
-import { crops, datasets, foodNutrients, foods, harvests, larderOutcomes, purchases, type Household } from '@/db/schema';
+import { crops, datasets, foodNutrients, foods, harvestGroups, harvests, larderOutcomes, purchaseGroups, purchases, type Household } from '@/db/schema';
 import { ENTRY_LIMITS } from '@/lib/entry-schemas';
 import { lotGroupRows } from '@/lib/larder-share';
 import { addMonths, daysInMonth, todayIn } from '@/lib/months';
@@ -26,6 +26,7 @@ import { computeShare } from '@/lib/shares';
 import { topCrops } from '@/lib/top-crops';
 import { useTotals } from '@/lib/use-totals';
 import { dbOn } from './db-on';
+import type { Executor } from './entry-input';
 import { countsAsFood, cropOfHarvest, foodOfHarvest, harvestNameSql } from './harvest-sql';
 import { outcomesOf } from './larder';
 import { harvestGroupRows, purchaseGroupRows } from './share-rollup';
@@ -86,34 +87,66 @@ async function firstEntryDate(db: Db, householdId: number): Promise<string | nul
   return dates.length === 0 ? null : dates.sort()[0]!;
 }
 
+/** What the report needs of a reference food: its share nutrients per 100 g and its dataset. */
+interface FoodFacts {
+  amounts: FoodAmounts;
+  datasets: Map<number, DatasetRef>;
+}
+
 /**
- * The share nutrients of the foods behind the groups, in one query over the distinct foods
- * (a handful), instead of joining every group to its nutrients in SQL.
+ * The share nutrients and datasets of some foods, in one query: `ids` a list, or a subquery
+ * naming them. Rows come per food and nutrient (a food with no share nutrient still comes once,
+ * with its dataset), so a missing amount stays unknown.
  */
-async function foodAmounts(db: Db, foodIds: readonly number[]): Promise<FoodAmounts> {
-  const out: FoodAmounts = new Map();
-  if (foodIds.length === 0) return out;
-  const rows = await db
-    .select({ foodId: foodNutrients.foodId, key: foodNutrients.nutrientKey, amount: foodNutrients.amount })
-    .from(foodNutrients)
-    .where(and(inArray(foodNutrients.foodId, [...foodIds]), inArray(foodNutrients.nutrientKey, [...SHARE_NUTRIENTS])));
+async function foodFacts(db: Executor, ids: readonly number[] | SQL): Promise<FoodFacts> {
+  const out: FoodFacts = { amounts: new Map(), datasets: new Map() };
+  if (Array.isArray(ids) && ids.length === 0) return out;
+  const chosen = Array.isArray(ids) ? sql`(SELECT ${foods.id} AS food_id FROM ${foods} WHERE ${inArray(foods.id, [...ids])})` : sql`(${ids})`;
+  const [rows] = (await db.execute(sql`
+    SELECT ${foods.id} AS foodId, ${datasets.slug} AS slug, ${datasets.name} AS datasetName, ${datasets.release} AS \`release\`,
+           ${foodNutrients.nutrientKey} AS nutrientKey, ${foodNutrients.amount} AS amount
+      FROM ${chosen} chosen
+      JOIN ${foods} ON ${foods.id} = chosen.food_id
+      JOIN ${datasets} ON ${datasets.id} = ${foods.datasetId}
+      LEFT JOIN ${foodNutrients} ON ${foodNutrients.foodId} = ${foods.id} AND ${inArray(foodNutrients.nutrientKey, [...SHARE_NUTRIENTS])}`)) as unknown as [
+    { foodId: number; slug: string; datasetName: string; release: string; nutrientKey: ShareNutrientKey | null; amount: number | string | null }[],
+  ];
   for (const r of rows) {
-    let m = out.get(r.foodId);
-    if (!m) out.set(r.foodId, (m = {}));
-    m[r.key as ShareNutrientKey] = Number(r.amount);
+    if (!out.datasets.has(r.foodId)) out.datasets.set(r.foodId, { slug: r.slug, name: r.datasetName, release: r.release });
+    let m = out.amounts.get(r.foodId);
+    if (!m) out.amounts.set(r.foodId, (m = {}));
+    if (r.nutrientKey !== null && r.amount !== null) m[r.nutrientKey] = Number(r.amount);
   }
   return out;
 }
 
-/** The food composition datasets the foods come from, by slug. */
-async function datasetsOf(db: Db, foodIds: readonly number[]): Promise<DatasetRef[]> {
-  if (foodIds.length === 0) return [];
-  return db
-    .selectDistinct({ slug: datasets.slug, name: datasets.name, release: datasets.release })
-    .from(foods)
-    .innerJoin(datasets, eq(datasets.id, foods.datasetId))
-    .where(inArray(foods.id, [...foodIds]))
-    .orderBy(datasets.slug);
+/**
+ * The foods the report of [from, to] can meet, as a subquery: those of the household's groups in
+ * the groups' own look-back window and of its lots with larder records (a superset of what the
+ * group queries return), so their facts are read beside the groups instead of after them.
+ */
+function foodsNear(householdId: number, from: string, to: string): SQL {
+  const [start, end] = [lookback(from), lastDay(to)];
+  return sql`SELECT ${harvestGroups.foodId} AS food_id FROM ${harvestGroups}
+      WHERE ${and(eq(harvestGroups.householdId, householdId), gte(harvestGroups.day, start), lte(harvestGroups.day, end))}
+    UNION SELECT ${purchaseGroups.foodId} FROM ${purchaseGroups}
+      WHERE ${and(eq(purchaseGroups.householdId, householdId), gte(purchaseGroups.day, start), lte(purchaseGroups.day, end))}
+    UNION SELECT ${harvests.foodId} FROM ${larderOutcomes} JOIN ${harvests} ON ${harvests.id} = ${larderOutcomes.harvestId}
+      WHERE ${eq(larderOutcomes.householdId, householdId)}`;
+}
+
+/** The datasets of the foods behind a report, by slug, each once. */
+function datasetsOf(facts: FoodFacts, foodIds: readonly number[]): DatasetRef[] {
+  const bySlug = new Map<string, DatasetRef>();
+  for (const id of foodIds) {
+    const d = facts.datasets.get(id);
+    if (d) bySlug.set(`${d.slug}|${d.name}|${d.release}`, d);
+  }
+  return [...bySlug.values()].sort((a, b) => (a.slug < b.slug ? -1 : a.slug > b.slug ? 1 : 0));
+}
+
+function mergeFacts(a: FoodFacts, b: FoodFacts): FoodFacts {
+  return { amounts: new Map([...a.amounts, ...b.amounts]), datasets: new Map([...a.datasets, ...b.datasets]) };
 }
 
 /** What the report needs of a household: its id, zone (for "now"), creation and records start. */
@@ -136,23 +169,28 @@ export async function effectiveRecordsSince(household: ShareHousehold): Promise<
  */
 export async function householdShare(household: ShareHousehold, from: string, to: string, pool?: Pool, now: Date = new Date()): Promise<ShareResponse> {
   const db = pool ? dbOn(pool) : getDb();
-  const [grouped, withOutcomes, bought, rows, first] = await Promise.all([
+  // Every query at once: the foods' facts come by a subquery on the groups, not after them.
+  const [grouped, withOutcomes, bought, rows, first, near] = await Promise.all([
     harvestGroupRows(db, household.id, from, to),
     outcomeLotGroups(db, household.id, from, to),
     purchaseGroupRows(db, household.id, from, to),
     listPeople(household.id),
     household.recordsSince ? Promise.resolve(null) : firstEntryDate(db, household.id),
+    foodFacts(db, foodsNear(household.id, from, to)),
   ]);
   const home = [...grouped, ...withOutcomes];
   const ids = foodIdsOf([...home, ...bought]);
-  const [amounts, sources] = await Promise.all([foodAmounts(db, ids), datasetsOf(db, ids)]);
-  const groups = shareGroups(home, bought, amounts, loadRetention());
+  // A write between those queries can bring a food the subquery did not see: read it now.
+  const missing = ids.filter((id) => !near.datasets.has(id));
+  const facts = missing.length === 0 ? near : mergeFacts(near, await foodFacts(db, missing));
+  const groups = shareGroups(home, bought, facts.amounts, loadRetention());
   const people = rows.map((r) => needsPerson(personFields(r)));
   const recordsSince = household.recordsSince ?? defaultRecordsSince(todayIn(household.timezone, household.createdAt), first);
+  const entries = groups.map(groupEntry);
   const report = computeShare({
     from,
     to,
-    entries: groups.map(groupEntry),
+    entries,
     people,
     nutrients: SHARE_NUTRIENTS,
     recordsSince,
@@ -160,9 +198,9 @@ export async function householdShare(household: ShareHousehold, from: string, to
   });
   return {
     ...report,
-    topCrops: topCrops(groups, from, to),
+    topCrops: topCrops(groups, from, to, entries),
     uses: useTotals(groups, from, to),
     peopleCount: people.length,
-    datasets: sources,
+    datasets: datasetsOf(facts, ids),
   };
 }
