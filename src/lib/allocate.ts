@@ -111,9 +111,9 @@ export function eatenParts(entry: EatenBasis): EatenPart[] {
  * strings: the share report calls this for every entry,
  * e.g. eatenShares({ date: '2026-11-30', use: 'stored', source: 'home', spreadMonths: 3 })[0] → { offset: 0, fraction: 1/90 }.
  */
-export function eatenShares(entry: EatenBasis): SpreadPart[] {
+export function eatenShares(entry: EatenBasis): readonly SpreadPart[] {
   checkSpread(entry.spreadMonths);
-  if (!isEaten(entry.use)) return [];
+  if (!isEaten(entry.use)) return NONE;
   if (entry.until) {
     // Offsets stay counted from the entry's own month, as for every other entry.
     const from = entry.eatenFrom ?? entry.date;
@@ -122,10 +122,14 @@ export function eatenShares(entry: EatenBasis): SpreadPart[] {
   }
   if (entry.use === 'fresh' && entry.source === 'home') {
     parseDate(entry.date); // checks the date
-    return [{ offset: 0, fraction: 1 }];
+    return WHOLE_OWN_MONTH;
   }
   return spreadByDay(entry.date, entry.spreadMonths);
 }
+
+// Shared answers, read and never changed by callers (as spreadByDay's kept parts are).
+const NONE: readonly SpreadPart[] = Object.freeze([]);
+const WHOLE_OWN_MONTH: readonly SpreadPart[] = Object.freeze([Object.freeze({ offset: 0, fraction: 1 })]);
 
 /**
  * The months an entry touches, as offsets from its month; a lot spread by day from a late date
@@ -187,8 +191,11 @@ export function addSums(a: NutrientSums, b: NutrientSums): NutrientSums {
   return a;
 }
 
+/** What addEntryPart reads of an entry. */
+type EntryAmounts = Pick<FoodEntry, 'date' | 'source' | 'edibleGrams' | 'nutrients'>;
+
 /** An entry's amount of a nutrient (null or missing: unknown), refused when negative or not a number. */
-function checkedAmount(entry: FoodEntry, key: NutrientKey): number | null | undefined {
+function checkedAmount(entry: EntryAmounts, key: NutrientKey): number | null | undefined {
   const amount = entry.nutrients[key];
   if (amount != null && (!Number.isFinite(amount) || amount < 0)) {
     throw new RangeError(`${key} of an entry dated ${entry.date} must be a number ≥ 0, got ${amount}`);
@@ -200,7 +207,7 @@ function checkedAmount(entry: FoodEntry, key: NutrientKey): number | null | unde
  * Adds one share of an entry into the sums of one month and nutrient.
  * A null or missing value adds its grams to the unknown weight, never zero to the sum.
  */
-export function addEntryPart(sums: NutrientSums, entry: FoodEntry, key: NutrientKey, fraction: number): void {
+export function addEntryPart(sums: NutrientSums, entry: EntryAmounts, key: NutrientKey, fraction: number): void {
   const amount = checkedAmount(entry, key);
   const grams = entry.edibleGrams * fraction;
   if (entry.source === 'home') {
