@@ -3,8 +3,8 @@
  * URL (404 — its existence is not revealed), role allowing the action (403).
  */
 import type { APIContext, APIRoute } from 'astro';
-import { and, eq, type SQL } from 'drizzle-orm';
-import { getDb } from '@/db/client';
+import { and, eq, sql, type SQL } from 'drizzle-orm';
+import { preparedOnce } from '@/db/client';
 import { households, memberships, type Household, type Role } from '@/db/schema';
 import { roleAllows, type Access } from '@/lib/household-schemas';
 import { HttpError, handle } from './http';
@@ -24,7 +24,10 @@ export function requireUser(ctx: Pick<APIContext, 'locals'>): { id: string; emai
   return u;
 }
 
-/** Columns a route reads in the gate's own query (householdRouteWith): subqueries on the household id. */
+/**
+ * Columns a route reads in the gate's own query (householdRouteWith): subqueries that may use the
+ * placeholders `householdId` and those the route gives values for.
+ */
 export type GateColumns = Record<string, SQL>;
 /** The values of such columns as the query answers them. */
 export type GateValues<X extends GateColumns> = { [K in keyof X]: X[K] extends SQL<infer T> ? T : never };
@@ -36,26 +39,42 @@ function householdIdOf(param: string | undefined): number {
   return id;
 }
 
-/** The gate's one query: the membership with its household (and any extra columns), checked. */
-async function gate<X extends GateColumns>(userId: string, id: number, access: Access, columns: X): Promise<{ access: HouseholdAccess; values: GateValues<X> }> {
-  const rows = await getDb()
-    .select({ household: households, role: memberships.role, ...columns })
-    .from(memberships)
-    .innerJoin(households, eq(households.id, memberships.householdId))
-    .where(and(eq(memberships.householdId, id), eq(memberships.userId, userId)))
-    .limit(1);
+/** The gate's one query (the membership with its household, and any extra columns), prepared once. */
+function gateQuery<X extends GateColumns>(columns: X) {
+  return preparedOnce((db) =>
+    db
+      .select({ household: households, role: memberships.role, ...columns })
+      .from(memberships)
+      .innerJoin(households, eq(households.id, memberships.householdId))
+      .where(and(eq(memberships.householdId, sql.placeholder('householdId')), eq(memberships.userId, sql.placeholder('userId'))))
+      .limit(1)
+      .prepare(),
+  );
+}
+
+/** Runs a gate query for a user and household and checks the membership and role. */
+async function gate<X extends GateColumns>(
+  query: ReturnType<typeof gateQuery<X>>,
+  userId: string,
+  id: number,
+  access: Access,
+  values: Record<string, unknown> = {},
+): Promise<{ access: HouseholdAccess; values: GateValues<X> }> {
+  const rows = await query().execute({ ...values, householdId: id, userId });
   const row = rows[0] as ({ household: Household; role: Role } & GateValues<X>) | undefined;
   if (!row) throw new HttpError(404, 'not_found', 'No such household.');
   if (!roleAllows(row.role, access)) {
     throw new HttpError(403, 'forbidden', `Your role (${row.role}) cannot do this in this household.`);
   }
-  const { household, role, ...values } = row;
-  return { access: { userId, household, role }, values: values as unknown as GateValues<X> };
+  const { household, role, ...rest } = row;
+  return { access: { userId, household, role }, values: rest as unknown as GateValues<X> };
 }
+
+const plainGate = gateQuery({});
 
 /** Resolves the household from its id and checks the caller's membership and role. */
 export async function householdAccess(userId: string, householdIdParam: string | undefined, access: Access): Promise<HouseholdAccess> {
-  return (await gate(userId, householdIdOf(householdIdParam), access, {})).access;
+  return (await gate(plainGate, userId, householdIdOf(householdIdParam), access)).access;
 }
 
 /**
@@ -88,26 +107,34 @@ export function islandHousehold(a: HouseholdAccess) {
  * answered as JSON. `param` names the route parameter holding the household id.
  */
 export function householdRoute(access: Access, fn: (ctx: APIContext, a: HouseholdAccess) => Promise<Response> | Response, param = 'id'): APIRoute {
-  return householdRouteWith(access, () => ({}), (ctx, a) => fn(ctx, a), param);
+  return guarded(access, param, async (ctx, user, id) => fn(ctx, (await gate(plainGate, user.id, id, access)).access));
 }
 
 /**
  * householdRoute for a handler that reads a little more about the household before anything else
- * (the share endpoint's stored answer): `columns` (subqueries on the household id, from the URL)
- * are read in the gate's own query, so it costs no round trip of its own. For anyone the gate
- * refuses, no row comes back and nothing of them is read.
+ * (the share endpoint's stored answer): `extra.columns` (subqueries on the placeholder
+ * `householdId` and on those `extra.values` gives per request) are read in the gate's own query,
+ * so they cost no round trip of their own. For anyone the gate refuses, no row comes back and
+ * nothing of them is read.
  */
 export function householdRouteWith<X extends GateColumns>(
   access: Access,
-  columns: (ctx: APIContext, householdId: number) => X,
+  extra: { columns: X; values: (ctx: APIContext) => Record<string, unknown> },
   fn: (ctx: APIContext, a: HouseholdAccess, values: GateValues<X>) => Promise<Response> | Response,
   param = 'id',
 ): APIRoute {
+  const query = gateQuery(extra.columns);
+  return guarded(access, param, async (ctx, user, id) => {
+    const passed = await gate(query, user.id, id, access, extra.values(ctx));
+    return fn(ctx, passed.access, passed.values);
+  });
+}
+
+/** A route that answers 401 signed out and 404 for an id that cannot be a household's, marked as gated. */
+function guarded(access: Access, param: string, fn: (ctx: APIContext, user: { id: string }, householdId: number) => Promise<Response>): APIRoute {
   const route = handle(async (ctx: APIContext) => {
     const user = requireUser(ctx);
-    const id = householdIdOf(ctx.params[param]);
-    const passed = await gate(user.id, id, access, columns(ctx, id));
-    return fn(ctx, passed.access, passed.values);
+    return fn(ctx, user, householdIdOf(ctx.params[param]));
   });
   Object.defineProperty(route, GUARDED, { value: access });
   return route;

@@ -9,8 +9,8 @@
  * the round trips do. Nothing is kept between requests.
  */
 import { createHmac, timingSafeEqual } from 'node:crypto';
-import { eq } from 'drizzle-orm';
-import { getDb } from '@/db/client';
+import { eq, sql } from 'drizzle-orm';
+import { preparedOnce } from '@/db/client';
 import { session, user } from '@/db/schema';
 import { getAuth } from './auth';
 
@@ -51,17 +51,8 @@ export function verifiedToken(value: string, secret: string): string | null {
   return given.length === expected.length && timingSafeEqual(given, expected) ? token : null;
 }
 
-/**
- * The request's session and user, null when it carries no validly signed session cookie, or
- * undefined when better-auth must decide (no such session, expired, due for refresh).
- */
-export async function quickSession(headers: Headers, now: number = Date.now()): Promise<SignedInSession | null | undefined> {
-  const ctx = await getAuth().$context;
-  const value = cookieValue(headers.get('cookie'), ctx.authCookies.sessionToken.name);
-  if (!value) return null;
-  const token = verifiedToken(value, ctx.secret);
-  if (!token) return null;
-  const [row] = await getDb()
+const sessionByToken = preparedOnce((db) =>
+  db
     .select({
       sessionId: session.id,
       expiresAt: session.expiresAt,
@@ -72,8 +63,22 @@ export async function quickSession(headers: Headers, now: number = Date.now()): 
     })
     .from(session)
     .innerJoin(user, eq(user.id, session.userId))
-    .where(eq(session.token, token))
-    .limit(1);
+    .where(eq(session.token, sql.placeholder('token')))
+    .limit(1)
+    .prepare(),
+);
+
+/**
+ * The request's session and user, null when it carries no validly signed session cookie, or
+ * undefined when better-auth must decide (no such session, expired, due for refresh).
+ */
+export async function quickSession(headers: Headers, now: number = Date.now()): Promise<SignedInSession | null | undefined> {
+  const ctx = await getAuth().$context;
+  const value = cookieValue(headers.get('cookie'), ctx.authCookies.sessionToken.name);
+  if (!value) return null;
+  const token = verifiedToken(value, ctx.secret);
+  if (!token) return null;
+  const [row] = await sessionByToken().execute({ token });
   if (!row) return undefined;
   const expires = row.expiresAt.getTime();
   const { expiresIn, updateAge } = ctx.sessionConfig;

@@ -45,19 +45,23 @@ export interface StoredAnswer {
   referenceRevision: number | string;
 }
 
-/** The lookup as columns of one query (subqueries on constants, evaluated once). */
-export function storedAnswerColumns(householdId: number, key: string): { [K in keyof StoredAnswer]: SQL<StoredAnswer[K]> } {
-  const version = sql`COALESCE((SELECT ${shareVersions.version} FROM ${shareVersions} WHERE ${shareVersions.householdId} = ${householdId}), '')`;
-  const revision = sql`(SELECT COALESCE(SUM(${datasets.revision}), 0) FROM ${datasets})`;
-  const current = sql`FROM ${shareCache} WHERE ${shareCache.householdId} = ${householdId} AND ${shareCache.answerKey} = ${key}
+const householdId = sql.placeholder('householdId');
+const answerKey = sql.placeholder('answerKey');
+const version = sql`COALESCE((SELECT ${shareVersions.version} FROM ${shareVersions} WHERE ${shareVersions.householdId} = ${householdId}), '')`;
+const revision = sql`(SELECT COALESCE(SUM(${datasets.revision}), 0) FROM ${datasets})`;
+const current = sql`FROM ${shareCache} WHERE ${shareCache.householdId} = ${householdId} AND ${shareCache.answerKey} = ${answerKey}
     AND ${shareCache.version} = ${version} AND ${shareCache.referenceRevision} = ${revision}`;
-  return {
-    storedBody: sql<string | null>`(SELECT ${shareCache.body} ${current})`,
-    storedContext: sql<string | null>`(SELECT ${shareCache.context} ${current})`,
-    shareVersion: sql<string>`${version}`,
-    referenceRevision: sql<number | string>`${revision}`,
-  };
-}
+
+/**
+ * The lookup as columns of the gate's query (subqueries on constants, evaluated once), on the
+ * placeholders `householdId` and `answerKey` (requestKey).
+ */
+export const storedAnswerColumns: { [K in keyof StoredAnswer]: SQL<StoredAnswer[K]> } = {
+  storedBody: sql<string | null>`(SELECT ${shareCache.body} ${current})`,
+  storedContext: sql<string | null>`(SELECT ${shareCache.context} ${current})`,
+  shareVersion: sql<string>`${version}`,
+  referenceRevision: sql<number | string>`${revision}`,
+};
 
 /**
  * Stores an answer and drops the household's answers of other versions. Written by the builder,

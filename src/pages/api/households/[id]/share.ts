@@ -16,7 +16,7 @@ const askedKey = (url: URL) => requestKey(url.searchParams.get('from'), url.sear
  */
 export const GET = householdRouteWith(
   'read',
-  (ctx, householdId) => storedAnswerColumns(householdId, askedKey(ctx.url)),
+  { columns: storedAnswerColumns, values: (ctx) => ({ answerKey: askedKey(ctx.url) }) },
   async (ctx, a, stored) => {
     const params = ctx.url.searchParams;
     const q = shareQuery.parse({ from: params.get('from') ?? undefined, to: params.get('to') ?? undefined });
