@@ -12,10 +12,10 @@
  */
 import { and, eq, gte, inArray, lte, min, sql, type SQL } from 'drizzle-orm';
 import type { Pool } from 'mysql2/promise';
-import { getDb, type Db } from '@/db/client';
+import { getDb, getPool, type Db } from '@/db/client';
 import { crops, datasets, foodNutrients, foods, harvestGroups, harvests, larderOutcomes, purchaseGroups, purchases, type Household } from '@/db/schema';
 import { ENTRY_LIMITS } from '@/lib/entry-schemas';
-import { lotGroupRows } from '@/lib/larder-share';
+import { lotGroupRows, type OutcomeLot } from '@/lib/larder-share';
 import { addMonths, daysInMonth, todayIn } from '@/lib/months';
 import { SHARE_NUTRIENTS, type ShareNutrientKey } from '@/lib/nutrients';
 import { needsPerson } from '@/lib/people-schemas';
@@ -26,7 +26,7 @@ import { computeShare } from '@/lib/shares';
 import { topCrops } from '@/lib/top-crops';
 import { useTotals } from '@/lib/use-totals';
 import { dbOn } from './db-on';
-import type { Executor } from './entry-input';
+import { rawQuery } from './raw-query';
 import { countsAsFood, cropOfHarvest, foodOfHarvest, harvestNameSql } from './harvest-sql';
 import { outcomesOf } from './larder';
 import { harvestGroupRows, purchaseGroupRows } from './share-rollup';
@@ -45,37 +45,28 @@ const lookback = (from: string) => `${addMonths(from, -ENTRY_LIMITS.maxSpreadMon
  * turned into its eaten segments and lost parts (src/lib/larder-share.ts). No lot lasts longer
  * than ENTRY_LIMITS.maxSpreadMonths (larder.ts), so the same look-back as the grouped query holds.
  */
-async function outcomeLotGroups(db: Db, householdId: number, from: string, to: string): Promise<GroupRow[]> {
-  const lots = await db
-    .select({
-      id: harvests.id,
-      date: harvests.date,
-      use: harvests.use,
-      spread: sql<number>`GREATEST(${harvests.spreadMonths}, 1)`.mapWith(Number),
-      preserveMethod: harvests.preserveMethod,
-      cropId: harvests.cropId,
-      foodId: harvests.foodId,
-      name: harvestNameSql(),
-      grams: harvests.grams,
-      edibleGrams: harvests.edibleGrams,
-    })
-    .from(harvests)
-    .leftJoin(crops, cropOfHarvest())
-    .leftJoin(foods, foodOfHarvest())
-    .where(
-      and(
-        eq(harvests.householdId, householdId),
-        gte(harvests.date, lookback(from)),
-        lte(harvests.date, lastDay(to)),
-        countsAsFood(),
-        // Driven from the household's records (a few lots), not by probing every harvest in the range.
-        inArray(harvests.id, db.selectDistinct({ id: larderOutcomes.harvestId }).from(larderOutcomes).where(eq(larderOutcomes.householdId, householdId))),
-      ),
-    );
+async function outcomeLotGroups(db: Db, pool: Pool, householdId: number, from: string, to: string): Promise<GroupRow[]> {
+  const lots = await lotsWithRecords.run(pool, { householdId, start: lookback(from), end: lastDay(to) });
   if (lots.length === 0) return [];
   const outcomes = await outcomesOf(db, householdId, lots.map((l) => l.id));
   return lots.flatMap(({ id, ...lot }) => lotGroupRows(lot, outcomes.get(id) ?? []));
 }
+
+const lotsWithRecords = rawQuery<OutcomeLot & { id: number }>(sql`
+    SELECT ${harvests.id} AS id, ${harvests.date} AS date, ${harvests.use} AS \`use\`, GREATEST(${harvests.spreadMonths}, 1) AS spread,
+           ${harvests.preserveMethod} AS preserveMethod, ${harvests.cropId} AS cropId, ${harvests.foodId} AS foodId,
+           ${harvestNameSql()} AS name, ${harvests.grams} AS grams, ${harvests.edibleGrams} AS edibleGrams
+      FROM ${harvests}
+      LEFT JOIN ${crops} ON ${cropOfHarvest()}
+      LEFT JOIN ${foods} ON ${foodOfHarvest()}
+     WHERE ${and(
+       eq(harvests.householdId, sql.placeholder('householdId')),
+       gte(harvests.date, sql.placeholder('start')),
+       lte(harvests.date, sql.placeholder('end')),
+       countsAsFood(),
+       // Driven from the household's records (a few lots), not by probing every harvest in the range.
+       sql`${harvests.id} IN (SELECT DISTINCT ${larderOutcomes.harvestId} FROM ${larderOutcomes} WHERE ${eq(larderOutcomes.householdId, sql.placeholder('householdId'))})`,
+     )}`);
 
 /** The date of the household's first harvest or purchase, or null when it has logged nothing. */
 async function firstEntryDate(db: Db, householdId: number): Promise<string | null> {
@@ -93,24 +84,48 @@ interface FoodFacts {
   datasets: Map<number, DatasetRef>;
 }
 
-/**
- * The share nutrients and datasets of some foods, in one query: `ids` a list, or a subquery
- * naming them. Rows come per food and nutrient (a food with no share nutrient still comes once,
- * with its dataset), so a missing amount stays unknown.
- */
-async function foodFacts(db: Executor, ids: readonly number[] | SQL): Promise<FoodFacts> {
-  const out: FoodFacts = { amounts: new Map(), datasets: new Map() };
-  if (Array.isArray(ids) && ids.length === 0) return out;
-  const chosen = Array.isArray(ids) ? sql`(SELECT ${foods.id} AS food_id FROM ${foods} WHERE ${inArray(foods.id, [...ids])})` : sql`(${ids})`;
-  const [rows] = (await db.execute(sql`
+/** A food's share nutrient (one row per food and nutrient; a food with none comes once, with nulls) and its dataset. */
+interface FoodFactRow {
+  foodId: number;
+  slug: string;
+  datasetName: string;
+  release: string;
+  nutrientKey: ShareNutrientKey | null;
+  amount: string | number | null;
+}
+
+/** The facts of the foods a subquery names (its column `food_id`). */
+function foodFactsOf(chosen: SQL): SQL {
+  return sql`
     SELECT ${foods.id} AS foodId, ${datasets.slug} AS slug, ${datasets.name} AS datasetName, ${datasets.release} AS \`release\`,
            ${foodNutrients.nutrientKey} AS nutrientKey, ${foodNutrients.amount} AS amount
-      FROM ${chosen} chosen
+      FROM (${chosen}) chosen
       JOIN ${foods} ON ${foods.id} = chosen.food_id
       JOIN ${datasets} ON ${datasets.id} = ${foods.datasetId}
-      LEFT JOIN ${foodNutrients} ON ${foodNutrients.foodId} = ${foods.id} AND ${inArray(foodNutrients.nutrientKey, [...SHARE_NUTRIENTS])}`)) as unknown as [
-    { foodId: number; slug: string; datasetName: string; release: string; nutrientKey: ShareNutrientKey | null; amount: number | string | null }[],
-  ];
+      LEFT JOIN ${foodNutrients} ON ${foodNutrients.foodId} = ${foods.id} AND ${inArray(foodNutrients.nutrientKey, [...SHARE_NUTRIENTS])}`;
+}
+
+/**
+ * The foods the report of [from, to] can meet: those of the household's groups in the groups'
+ * own look-back window and of its lots with larder records (a superset of what the group queries
+ * return), so their facts are read beside the groups instead of after them.
+ */
+const factsOfFoodsNear = rawQuery<FoodFactRow>(
+  foodFactsOf(sql`SELECT ${harvestGroups.foodId} AS food_id FROM ${harvestGroups}
+      WHERE ${and(eq(harvestGroups.householdId, sql.placeholder('householdId')), gte(harvestGroups.day, sql.placeholder('start')), lte(harvestGroups.day, sql.placeholder('end')))}
+    UNION SELECT ${purchaseGroups.foodId} FROM ${purchaseGroups}
+      WHERE ${and(eq(purchaseGroups.householdId, sql.placeholder('householdId')), gte(purchaseGroups.day, sql.placeholder('start')), lte(purchaseGroups.day, sql.placeholder('end')))}
+    UNION SELECT ${harvests.foodId} FROM ${larderOutcomes} JOIN ${harvests} ON ${harvests.id} = ${larderOutcomes.harvestId}
+      WHERE ${eq(larderOutcomes.householdId, sql.placeholder('householdId'))}`),
+);
+
+/** The facts of the foods near [from, to] (factsOfFoodsNear), or of a list of foods. */
+async function foodFacts(pool: Pool, foodsOf: { householdId: number; from: string; to: string } | readonly number[]): Promise<FoodFacts> {
+  const out: FoodFacts = { amounts: new Map(), datasets: new Map() };
+  let rows: FoodFactRow[];
+  if ('householdId' in foodsOf) rows = await factsOfFoodsNear.run(pool, { householdId: foodsOf.householdId, start: lookback(foodsOf.from), end: lastDay(foodsOf.to) });
+  else if (foodsOf.length === 0) return out;
+  else rows = await rawQuery<FoodFactRow>(foodFactsOf(sql`SELECT ${foods.id} AS food_id FROM ${foods} WHERE ${inArray(foods.id, [...foodsOf])}`)).run(pool);
   for (const r of rows) {
     if (!out.datasets.has(r.foodId)) out.datasets.set(r.foodId, { slug: r.slug, name: r.datasetName, release: r.release });
     let m = out.amounts.get(r.foodId);
@@ -118,21 +133,6 @@ async function foodFacts(db: Executor, ids: readonly number[] | SQL): Promise<Fo
     if (r.nutrientKey !== null && r.amount !== null) m[r.nutrientKey] = Number(r.amount);
   }
   return out;
-}
-
-/**
- * The foods the report of [from, to] can meet, as a subquery: those of the household's groups in
- * the groups' own look-back window and of its lots with larder records (a superset of what the
- * group queries return), so their facts are read beside the groups instead of after them.
- */
-function foodsNear(householdId: number, from: string, to: string): SQL {
-  const [start, end] = [lookback(from), lastDay(to)];
-  return sql`SELECT ${harvestGroups.foodId} AS food_id FROM ${harvestGroups}
-      WHERE ${and(eq(harvestGroups.householdId, householdId), gte(harvestGroups.day, start), lte(harvestGroups.day, end))}
-    UNION SELECT ${purchaseGroups.foodId} FROM ${purchaseGroups}
-      WHERE ${and(eq(purchaseGroups.householdId, householdId), gte(purchaseGroups.day, start), lte(purchaseGroups.day, end))}
-    UNION SELECT ${harvests.foodId} FROM ${larderOutcomes} JOIN ${harvests} ON ${harvests.id} = ${larderOutcomes.harvestId}
-      WHERE ${eq(larderOutcomes.householdId, householdId)}`;
 }
 
 /** The datasets of the foods behind a report, by slug, each once. */
@@ -169,20 +169,21 @@ export async function effectiveRecordsSince(household: ShareHousehold): Promise<
  */
 export async function householdShare(household: ShareHousehold, from: string, to: string, pool?: Pool, now: Date = new Date()): Promise<ShareResponse> {
   const db = pool ? dbOn(pool) : getDb();
+  const raw = pool ?? getPool();
   // Every query at once: the foods' facts come by a subquery on the groups, not after them.
   const [grouped, withOutcomes, bought, rows, first, near] = await Promise.all([
-    harvestGroupRows(db, household.id, from, to),
-    outcomeLotGroups(db, household.id, from, to),
-    purchaseGroupRows(db, household.id, from, to),
+    harvestGroupRows(raw, household.id, from, to),
+    outcomeLotGroups(db, raw, household.id, from, to),
+    purchaseGroupRows(raw, household.id, from, to),
     listPeople(household.id),
     household.recordsSince ? Promise.resolve(null) : firstEntryDate(db, household.id),
-    foodFacts(db, foodsNear(household.id, from, to)),
+    foodFacts(raw, { householdId: household.id, from, to }),
   ]);
   const home = [...grouped, ...withOutcomes];
   const ids = foodIdsOf([...home, ...bought]);
   // A write between those queries can bring a food the subquery did not see: read it now.
   const missing = ids.filter((id) => !near.datasets.has(id));
-  const facts = missing.length === 0 ? near : mergeFacts(near, await foodFacts(db, missing));
+  const facts = missing.length === 0 ? near : mergeFacts(near, await foodFacts(raw, missing));
   const groups = shareGroups(home, bought, facts.amounts, loadRetention());
   const people = rows.map((r) => needsPerson(personFields(r)));
   const recordsSince = household.recordsSince ?? defaultRecordsSince(todayIn(household.timezone, household.createdAt), first);
