@@ -3,7 +3,7 @@
  * see spread.ts), kept apart for home-grown and bought food, with the weight whose nutrient value is unknown counted
  * beside the sums (an unknown value is never read as zero).
  */
-import { listMonths, monthIndex, monthOf, addMonths, parseDate } from './months';
+import { addMonths, dateMonthIndex, listMonths, monthIndex, monthOf, parseDate } from './months';
 import type { NutrientKey } from './nutrients';
 import { spreadBetween, spreadByDay, type SpreadPart } from './spread';
 
@@ -154,16 +154,17 @@ export function fractionEatenIn(
 /** fractionEatenIn with the range as month indexes (monthIndex), for callers that ask for many entries. */
 export function fractionEatenBetween(entry: EatenBasis, start: number, end: number): number {
   const first = dateMonthIndex(entry.date);
+  const shares = eatenShares(entry);
   let sum = 0;
-  for (const { offset, fraction } of eatenShares(entry)) if (first + offset >= start && first + offset <= end) sum += fraction;
+  for (let i = 0; i < shares.length; i++) {
+    const { offset, fraction } = shares[i]!;
+    if (first + offset >= start && first + offset <= end) sum += fraction;
+  }
   return sum;
 }
 
-/** Month index (year × 12 + month − 1) of a 'YYYY-MM-DD' date, checked once. */
-export function dateMonthIndex(date: string): number {
-  const { year, month } = parseDate(date);
-  return year * 12 + (month - 1);
-}
+/** Month index (year × 12 + month − 1) of a 'YYYY-MM-DD' date, checked once (months.ts). */
+export { dateMonthIndex };
 
 function checkSpread(spreadMonths: number): void {
   if (!Number.isInteger(spreadMonths) || spreadMonths < 1) {
@@ -241,29 +242,31 @@ export function allocate<K extends NutrientKey>(
   });
   // The sums of each month as an array in the order of `keys`, so the inner loop indexes, not looks up.
   const slots = result.map((m) => keys.map((key) => m.sums[key]));
-  const amounts: (number | null | undefined)[] = new Array(keys.length);
+  // An entry's amounts by key, unboxed (NaN: unknown), so reading thousands of entries makes no garbage.
+  const amounts = new Float64Array(keys.length);
   for (const entry of entries) {
     checkGrams(entry.edibleGrams);
     const shares = eatenShares(entry);
     if (shares.length === 0) continue;
     const first = dateMonthIndex(entry.date) - start;
-    for (let k = 0; k < keys.length; k++) amounts[k] = checkedAmount(entry, keys[k]!);
+    for (let k = 0; k < keys.length; k++) amounts[k] = checkedAmount(entry, keys[k]!) ?? NaN;
     const home = entry.source === 'home';
-    for (const { offset, fraction } of shares) {
+    for (let p = 0; p < shares.length; p++) {
+      const { offset, fraction } = shares[p]!;
       const slot = slots[first + offset];
       if (!slot) continue; // eaten outside the report's range
       const grams = entry.edibleGrams * fraction;
       for (let k = 0; k < keys.length; k++) {
         const sums = slot[k]!;
-        const amount = amounts[k];
+        const amount = amounts[k]!;
         // As addEntryPart: a null or missing value adds its grams to the unknown weight, never zero to the sum.
         if (home) {
-          if (amount == null) sums.homeUnknownGrams += grams;
+          if (Number.isNaN(amount)) sums.homeUnknownGrams += grams;
           else {
             sums.home += amount * fraction;
             sums.homeKnownGrams += grams;
           }
-        } else if (amount == null) sums.boughtUnknownGrams += grams;
+        } else if (Number.isNaN(amount)) sums.boughtUnknownGrams += grams;
         else {
           sums.bought += amount * fraction;
           sums.boughtKnownGrams += grams;

@@ -129,6 +129,22 @@ function dayFormat(timeZone: string): Intl.DateTimeFormat {
   return f;
 }
 
+/**
+ * The month index (year × 12 + month − 1, as monthIndex) of a 'YYYY-MM-DD' date, checked as
+ * parseDate checks it but without making an object: the share report asks for every entry,
+ * e.g. dateMonthIndex('2026-11-30') → 24322. Throws RangeError for an impossible date.
+ */
+export function dateMonthIndex(value: string): number {
+  if (typeof value === 'string' && value.length === 10 && value.charCodeAt(4) === 45 && value.charCodeAt(7) === 45) {
+    const year = digitsAt(value, 0, 4);
+    const month = digitsAt(value, 5, 2);
+    const day = digitsAt(value, 8, 2);
+    if (year >= 1 && month >= 1 && month <= 12 && day >= 1 && day <= daysIn(year, month)) return year * 12 + (month - 1);
+  }
+  parseDate(value); // throws its sentence
+  return NaN;
+}
+
 /** Year, month and day of a 'YYYY-MM-DD' string, e.g. parseDate('2026-04-30'). Throws RangeError for an impossible date. */
 export function parseDate(value: string): YearMonthDay {
   const d = typeof value === 'string' ? splitDate(value) : null;

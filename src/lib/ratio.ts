@@ -9,7 +9,7 @@
  * FAO states the ratio in percent: ssrPercent returns that; ssrFraction the same ÷ 100, which is
  * what computeShare's `ratio` holds so that every share in the report is a fraction.
  */
-import { listMonths, monthIndex, parseDate } from './months';
+import { dateMonthIndex, listMonths, monthIndex } from './months';
 import type { FoodEntry } from './allocate';
 import type { NutrientKey } from './nutrients';
 
@@ -80,8 +80,7 @@ export function selfSufficiency<K extends NutrientKey>(
   for (const key of keys) flows.set(key, { production: flow(), imports: flow(), exports: flow() });
   const byKey = keys.map((key) => flows.get(key)!);
   for (const entry of entries) {
-    const { year, month } = parseDate(entry.date);
-    const index = year * 12 + month - 1;
+    const index = dateMonthIndex(entry.date);
     if (index < start || index > end) continue;
     if (!Number.isFinite(entry.edibleGrams) || entry.edibleGrams < 0) {
       throw new RangeError(`edible grams must be a number ≥ 0, got ${entry.edibleGrams}`);
