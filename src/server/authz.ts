@@ -5,9 +5,10 @@
 import type { APIContext, APIRoute } from 'astro';
 import { and, eq, sql, type SQL } from 'drizzle-orm';
 import { preparedOnce } from '@/db/client';
-import { households, memberships, type Household, type Role } from '@/db/schema';
+import { households, memberships, session, user, type Household, type Role } from '@/db/schema';
 import { roleAllows, type Access } from '@/lib/household-schemas';
 import { HttpError, handle } from './http';
+import { currentSession, putSession, requestSession, sessionColumns, sessionCookieToken, type SessionRow } from './session-lookup';
 
 export interface HouseholdAccess {
   userId: string;
@@ -32,10 +33,16 @@ export type GateColumns = Record<string, SQL>;
 /** The values of such columns as the query answers them. */
 export type GateValues<X extends GateColumns> = { [K in keyof X]: X[K] extends SQL<infer T> ? T : never };
 
-/** A household id from the URL: a positive whole number written plainly, else 404. */
-function householdIdOf(param: string | undefined): number {
+/** A household id from the URL: a positive whole number written plainly, else null. */
+function householdIdOrNull(param: string | undefined): number | null {
   const id = Number(param);
-  if (!Number.isInteger(id) || id <= 0 || String(id) !== param) throw new HttpError(404, 'not_found', 'No such household.');
+  return Number.isInteger(id) && id > 0 && String(id) === param ? id : null;
+}
+
+/** The same, else 404. */
+function householdIdOf(param: string | undefined): number {
+  const id = householdIdOrNull(param);
+  if (id === null) throw new HttpError(404, 'not_found', 'No such household.');
   return id;
 }
 
@@ -107,15 +114,19 @@ export function islandHousehold(a: HouseholdAccess) {
  * answered as JSON. `param` names the route parameter holding the household id.
  */
 export function householdRoute(access: Access, fn: (ctx: APIContext, a: HouseholdAccess) => Promise<Response> | Response, param = 'id'): APIRoute {
-  return guarded(access, param, async (ctx, user, id) => fn(ctx, (await gate(plainGate, user.id, id, access)).access));
+  return householdRouteWith(access, { columns: {}, values: () => ({}) }, (ctx, a) => fn(ctx, a), param);
 }
 
 /**
  * householdRoute for a handler that reads a little more about the household before anything else
  * (the share endpoint's stored answer): `extra.columns` (subqueries on the placeholder
  * `householdId` and on those `extra.values` gives per request) are read in the gate's own query,
- * so they cost no round trip of their own. For anyone the gate refuses, no row comes back and
- * nothing of them is read.
+ * so they cost no round trip of their own. For anyone the gate refuses, nothing of them is read.
+ *
+ * The gate also reads the session (the middleware leaves it to it on these routes): the session,
+ * its user, the membership and the household in one query. A session better-auth must see
+ * (expired, due for refresh, unknown), a missing cookie or an id that cannot be a household's go
+ * the two-step way: the session as the middleware reads it, then the membership.
  */
 export function householdRouteWith<X extends GateColumns>(
   access: Access,
@@ -123,19 +134,51 @@ export function householdRouteWith<X extends GateColumns>(
   fn: (ctx: APIContext, a: HouseholdAccess, values: GateValues<X>) => Promise<Response> | Response,
   param = 'id',
 ): APIRoute {
-  const query = gateQuery(extra.columns);
-  return guarded(access, param, async (ctx, user, id) => {
-    const passed = await gate(query, user.id, id, access, extra.values(ctx));
-    return fn(ctx, passed.access, passed.values);
-  });
-}
-
-/** A route that answers 401 signed out and 404 for an id that cannot be a household's, marked as gated. */
-function guarded(access: Access, param: string, fn: (ctx: APIContext, user: { id: string }, householdId: number) => Promise<Response>): APIRoute {
+  const plain = gateQuery(extra.columns);
+  const withSession = sessionGateQuery(extra.columns);
+  const names = Object.keys(extra.columns);
   const route = handle(async (ctx: APIContext) => {
-    const user = requireUser(ctx);
-    return fn(ctx, user, householdIdOf(ctx.params[param]));
+    let passed: { access: HouseholdAccess; values: GateValues<X> } | null = null;
+    if (ctx.locals.sessionWithGate) {
+      const token = await sessionCookieToken(ctx.request.headers);
+      const id = token ? householdIdOrNull(ctx.params[param]) : null;
+      if (token && id !== null) {
+        const [row] = (await withSession().execute({ ...extra.values(ctx), householdId: id, token })) as (SessionRow & { role: Role | null; household: Household | null } & Record<string, unknown>)[];
+        const s = await currentSession(row);
+        if (s && row) {
+          putSession(ctx.locals, s);
+          passed = checked(row, s.user.id, access, names);
+        }
+      }
+      if (!passed) putSession(ctx.locals, await requestSession(ctx.request.headers));
+    }
+    passed ??= await gate(plain, requireUser(ctx).id, householdIdOf(ctx.params[param]), access, extra.values(ctx));
+    return fn(ctx, passed.access, passed.values);
   });
   Object.defineProperty(route, GUARDED, { value: access });
   return route;
+}
+
+/** The gate with the session: the session and its user, the membership and household if any, and the extra columns (read for members only). */
+function sessionGateQuery<X extends GateColumns>(columns: X) {
+  const forMembers = Object.fromEntries(Object.entries(columns).map(([name, column]) => [name, sql`IF(${memberships.role} IS NULL, NULL, ${column})`]));
+  return preparedOnce((db) =>
+    db
+      .select({ ...sessionColumns, role: memberships.role, household: households, ...forMembers })
+      .from(session)
+      .innerJoin(user, eq(user.id, session.userId))
+      .leftJoin(memberships, and(eq(memberships.userId, session.userId), eq(memberships.householdId, sql.placeholder('householdId'))))
+      .leftJoin(households, eq(households.id, memberships.householdId))
+      .where(eq(session.token, sql.placeholder('token')))
+      .limit(1)
+      .prepare(),
+  );
+}
+
+/** The membership and role of a gate row that read the session too: 404 not a member, 403 role too low. */
+function checked<X extends GateColumns>(row: { role: Role | null; household: Household | null } & Record<string, unknown>, userId: string, access: Access, names: string[]) {
+  if (!row.role || !row.household) throw new HttpError(404, 'not_found', 'No such household.');
+  if (!roleAllows(row.role, access)) throw new HttpError(403, 'forbidden', `Your role (${row.role}) cannot do this in this household.`);
+  const values = Object.fromEntries(names.map((n) => [n, row[n]])) as GateValues<X>;
+  return { access: { userId, household: row.household, role: row.role }, values };
 }

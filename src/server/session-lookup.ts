@@ -51,41 +51,66 @@ export function verifiedToken(value: string, secret: string): string | null {
   return given.length === expected.length && timingSafeEqual(given, expected) ? token : null;
 }
 
+/** The session columns every lookup reads (session joined to its user). */
+export const sessionColumns = {
+  sessionId: session.id,
+  expiresAt: session.expiresAt,
+  userId: user.id,
+  email: user.email,
+  name: user.name,
+  emailVerified: user.emailVerified,
+};
+
+export type SessionRow = { sessionId: string; expiresAt: Date; userId: string; email: string; name: string; emailVerified: boolean };
+
 const sessionByToken = preparedOnce((db) =>
-  db
-    .select({
-      sessionId: session.id,
-      expiresAt: session.expiresAt,
-      userId: user.id,
-      email: user.email,
-      name: user.name,
-      emailVerified: user.emailVerified,
-    })
-    .from(session)
-    .innerJoin(user, eq(user.id, session.userId))
-    .where(eq(session.token, sql.placeholder('token')))
-    .limit(1)
-    .prepare(),
+  db.select(sessionColumns).from(session).innerJoin(user, eq(user.id, session.userId)).where(eq(session.token, sql.placeholder('token'))).limit(1).prepare(),
 );
+
+/** The token of the request's session cookie when its signature is ours, else null (signed out: better-auth answers the same without a query). */
+export async function sessionCookieToken(headers: Headers): Promise<string | null> {
+  const ctx = await getAuth().$context;
+  const value = cookieValue(headers.get('cookie'), ctx.authCookies.sessionToken.name);
+  return value ? verifiedToken(value, ctx.secret) : null;
+}
+
+/**
+ * A session row as signed in, or undefined when better-auth must see it: expired (it deletes it)
+ * or old enough to have its expiry moved on this request — better-auth's own two tests.
+ */
+export async function currentSession(row: SessionRow | undefined, now: number = Date.now()): Promise<SignedInSession | undefined> {
+  if (!row) return undefined;
+  const { expiresIn, updateAge } = (await getAuth().$context).sessionConfig;
+  const expires = row.expiresAt.getTime();
+  if (expires < now || expires - expiresIn * 1000 + updateAge * 1000 <= now) return undefined;
+  return {
+    user: { id: row.userId, email: row.email, name: row.name, emailVerified: row.emailVerified },
+    session: { id: row.sessionId, userId: row.userId, expiresAt: row.expiresAt },
+  };
+}
 
 /**
  * The request's session and user, null when it carries no validly signed session cookie, or
  * undefined when better-auth must decide (no such session, expired, due for refresh).
  */
 export async function quickSession(headers: Headers, now: number = Date.now()): Promise<SignedInSession | null | undefined> {
-  const ctx = await getAuth().$context;
-  const value = cookieValue(headers.get('cookie'), ctx.authCookies.sessionToken.name);
-  if (!value) return null;
-  const token = verifiedToken(value, ctx.secret);
+  const token = await sessionCookieToken(headers);
   if (!token) return null;
   const [row] = await sessionByToken().execute({ token });
-  if (!row) return undefined;
-  const expires = row.expiresAt.getTime();
-  const { expiresIn, updateAge } = ctx.sessionConfig;
-  // better-auth's own tests: expired, or old enough to have its expiry moved on this request.
-  if (expires < now || expires - expiresIn * 1000 + updateAge * 1000 <= now) return undefined;
-  return {
-    user: { id: row.userId, email: row.email, name: row.name, emailVerified: row.emailVerified },
-    session: { id: row.sessionId, userId: row.userId, expiresAt: row.expiresAt },
-  };
+  return currentSession(row, now);
+}
+
+/** The request's session by quickSession, else by better-auth's getSession; null when signed out. */
+export async function requestSession(headers: Headers): Promise<SignedInSession | null> {
+  const quick = await quickSession(headers);
+  if (quick !== undefined) return quick;
+  const s = await getAuth().api.getSession({ headers });
+  return s ? { user: s.user, session: s.session } : null;
+}
+
+/** Puts a session (or nobody) on Astro.locals, as the middleware's session step does. */
+export function putSession(locals: App.Locals, s: SignedInSession | null): void {
+  // The site-admin flag is looked up by the admin pages that need it, not on every request.
+  locals.user = s ? { id: s.user.id, email: s.user.email, name: s.user.name, emailVerified: s.user.emailVerified } : null;
+  locals.session = s ? { id: s.session.id, userId: s.session.userId, expiresAt: s.session.expiresAt } : null;
 }

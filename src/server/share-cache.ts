@@ -19,27 +19,31 @@ import { createHash, randomUUID } from 'node:crypto';
 import { and, eq, ne, sql, type SQL } from 'drizzle-orm';
 import { getDb, getPool } from '@/db/client';
 import { datasets, shareCache, shareVersions } from '@/db/schema';
-import { currentMonth } from './people';
 import { householdShare, type ShareHousehold } from './share-data';
 
 /** Set at build time (astro.config.mjs); from sources each process gets its own, so no answer outlives its code. */
 declare const __SELFSOWN_BUILD__: string | undefined;
 const BUILD = typeof __SELFSOWN_BUILD__ === 'string' ? __SELFSOWN_BUILD__ : `source-${randomUUID()}`;
 
-/** The key of a request: its range as asked (unchecked: a bad one is refused later, never stored) and the build. */
+/**
+ * The key of a request: its range as asked and the build, e.g. '2026-01|2026-12|<build>' ('||<build>'
+ * for the default range). Unchecked: a bad range is refused before anything is stored under it, and
+ * a key too long for the column is hashed (it can only miss).
+ */
 export function requestKey(from: string | null, to: string | null): string {
-  return createHash('sha256').update(`${from ?? ''}|${to ?? ''}|${BUILD}`).digest('base64url');
+  const key = `${from ?? ''}|${to ?? ''}|${BUILD}`;
+  return key.length <= 190 ? key : createHash('sha256').update(key).digest('base64url');
 }
 
-/** What else an answer rests on besides the household's records and the reference foods. */
-export function answerContext(household: ShareHousehold, from: string, to: string, now: Date): string {
-  return [from, to, currentMonth(household.timezone, now), household.timezone, household.recordsSince ?? '', household.createdAt.toISOString()].join('|');
+/** What else an answer rests on besides the household's records and the reference foods (`currentMonth`: now in the household's zone). */
+export function answerContext(household: ShareHousehold, range: { from: string; to: string; currentMonth: string }): string {
+  return [range.from, range.to, range.currentMonth, household.timezone, household.recordsSince ?? '', household.createdAt.toISOString()].join('|');
 }
 
 /** The stored answer of a request as the gate's query found it, with the version and revision it read. */
 export interface StoredAnswer {
-  /** The stored JSON when its version and revision are current, else null. */
-  storedBody: string | null;
+  /** The stored JSON (its UTF-8 bytes, sent without decoding) when its version and revision are current, else null. */
+  storedBody: Buffer | null;
   storedContext: string | null;
   shareVersion: string;
   referenceRevision: number | string;
@@ -57,7 +61,8 @@ const current = sql`FROM ${shareCache} WHERE ${shareCache.householdId} = ${house
  * placeholders `householdId` and `answerKey` (requestKey).
  */
 export const storedAnswerColumns: { [K in keyof StoredAnswer]: SQL<StoredAnswer[K]> } = {
-  storedBody: sql<string | null>`(SELECT ${shareCache.body} ${current})`,
+  // As bytes: the answer goes out as it is stored, never decoded into a string and encoded again.
+  storedBody: sql<Buffer | null>`(SELECT CAST(${shareCache.body} AS BINARY) ${current})`,
   storedContext: sql<string | null>`(SELECT ${shareCache.context} ${current})`,
   shareVersion: sql<string>`${version}`,
   referenceRevision: sql<number | string>`${revision}`,
@@ -84,12 +89,19 @@ async function store(householdId: number, key: string, found: StoredAnswer, cont
 }
 
 /**
- * The share report of [from, to] as JSON text: the stored answer `found` by the gate when it is
+ * The share report of [from, to] as JSON (text, or the stored bytes): the stored answer `found` by the gate when it is
  * still valid, else worked out by householdShare() and stored for the next reader (after this
  * answer has gone out). Throws what householdShare throws (RangeError when it cannot be computed).
  */
-export async function householdShareJson(household: ShareHousehold, from: string, to: string, key: string, found: StoredAnswer, now: Date = new Date()): Promise<string> {
-  const context = answerContext(household, from, to, now);
+export async function householdShareJson(
+  household: ShareHousehold,
+  range: { from: string; to: string; currentMonth: string },
+  key: string,
+  found: StoredAnswer,
+  now: Date = new Date(),
+): Promise<string | Buffer> {
+  const { from, to } = range;
+  const context = answerContext(household, range);
   if (found.storedBody !== null && found.storedContext === context) return found.storedBody;
   const body = JSON.stringify(await householdShare(household, from, to, undefined, now));
   setImmediate(() => store(household.id, key, found, context, body).catch((e: unknown) => console.error('share cache: could not store an answer', e)));

@@ -1,12 +1,13 @@
 /**
- * The one-query session lookup of the middleware (src/server/session-lookup.ts) answers exactly
- * as better-auth would: a current session signs the request in; a tampered cookie does not; an
+ * The one-query session lookup of the middleware (src/server/session-lookup.ts), and the household
+ * gate that reads the session with the membership (src/server/authz.ts), answer exactly as
+ * better-auth would: a current session signs the request in; a tampered cookie does not; an
  * expired session is refused and deleted, and one due for its daily refresh is refreshed — both by
  * better-auth itself, which the lookup hands those cases to.
  */
 import { afterAll, describe, expect, it } from 'vitest';
 import { testPool } from '../support/env';
-import { apiAs, newVerifiedUser } from '../support/users';
+import { apiAs, createHousehold, newVerifiedUser } from '../support/users';
 
 const pool = testPool();
 afterAll(() => pool.end());
@@ -62,5 +63,36 @@ describe('the session lookup', () => {
     const before = await expiresAt(token);
     expect((await apiAs(u.cookie, 'GET', '/api/households')).status).toBe(200);
     expect(await expiresAt(token)).toEqual(before);
+  });
+});
+
+describe('the household gate reading the session with the membership', () => {
+  it('answers a member, 404 to another signed-in person and 401 to a tampered or missing cookie', async () => {
+    const u = await newVerifiedUser();
+    const other = await newVerifiedUser();
+    const h = await createHousehold(u.cookie);
+    const path = `/api/households/${h.id}/people`;
+    expect((await apiAs(u.cookie, 'GET', path)).status).toBe(200);
+    expect((await apiAs(other.cookie, 'GET', path)).status).toBe(404);
+    const { name, token, signature } = sessionParts(u.cookie);
+    const flipped = `${name}=${encodeURIComponent(`${token}.${signature[0] === 'A' ? 'B' : 'A'}${signature.slice(1)}`)}`;
+    expect((await apiAs(flipped, 'GET', path)).status).toBe(401);
+    expect((await apiAs('', 'GET', path)).status).toBe(401);
+    // Signed out and a household id that cannot be one: still 401 first, as before the gate read the session.
+    expect((await apiAs('', 'GET', '/api/households/x1/people')).status).toBe(401);
+    expect((await apiAs(u.cookie, 'GET', '/api/households/x1/people')).status).toBe(404);
+  });
+
+  it('refuses an expired session (deleted by better-auth) and lets better-auth refresh an old one', async () => {
+    const u = await newVerifiedUser();
+    const h = await createHousehold(u.cookie);
+    const path = `/api/households/${h.id}/people`;
+    const { token } = sessionParts(u.cookie);
+    await pool.query('UPDATE session SET expires_at = NOW(3) + INTERVAL 10 DAY WHERE token = ?', [token]);
+    expect((await apiAs(u.cookie, 'GET', path)).status).toBe(200);
+    expect(((await expiresAt(token))!.getTime() - Date.now()) / 86_400_000).toBeGreaterThan(29.9);
+    await pool.query('UPDATE session SET expires_at = NOW(3) - INTERVAL 1 MINUTE WHERE token = ?', [token]);
+    expect((await apiAs(u.cookie, 'GET', path)).status).toBe(401);
+    expect(await expiresAt(token)).toBeNull();
   });
 });

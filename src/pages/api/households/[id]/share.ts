@@ -20,9 +20,11 @@ export const GET = householdRouteWith(
   async (ctx, a, stored) => {
     const params = ctx.url.searchParams;
     const q = shareQuery.parse({ from: params.get('from') ?? undefined, to: params.get('to') ?? undefined });
-    const range = q.from && q.to ? { from: q.from, to: q.to } : growingYear(currentMonth(a.household.timezone), a.household.yearStartMonth);
+    const now = new Date();
+    const month = currentMonth(a.household.timezone, now);
+    const range = q.from && q.to ? { from: q.from, to: q.to } : growingYear(month, a.household.yearStartMonth);
     try {
-      return jsonText(await householdShareJson(a.household, range.from, range.to, askedKey(ctx.url), stored));
+      return jsonText(await householdShareJson(a.household, { ...range, currentMonth: month }, askedKey(ctx.url), stored, now));
     } catch (e) {
       // The pure code refuses what it cannot count (a person older than the tables, …) with a sentence.
       if (e instanceof RangeError) throw new HttpError(422, 'cannot_compute', e.message);
