@@ -7,7 +7,7 @@ import { createServer } from 'node:net';
 import { resolve } from 'node:path';
 import type { ChildProcess } from 'node:child_process';
 import { startService, stopService, waitForHttp } from '@/cli/processes';
-import { childEnv, outDir } from '@/server/config';
+import { childEnv, outDir, serverNodeFlags } from '@/server/config';
 
 export interface BenchServer {
   base: string;
@@ -45,7 +45,7 @@ export async function startBenchServer(databaseUrl: string, account: { email: st
     // One sign-in per run; the rest of the limits as the app has them.
     AUTH_SIGNIN_RATE_LIMIT: '100/60',
   });
-  const child = startService('node', [...nodeArgs, resolve(outDir(), 'server/entry.mjs')], env, true);
+  const child = startService('node', [...serverNodeFlags(), ...nodeArgs, resolve(outDir(), 'server/entry.mjs')], env, true);
   const stop = () => stopService(child);
   try {
     await waitForHttp(`${base}/`, 60_000, child);
