@@ -4,7 +4,7 @@
  * beside the sums (an unknown value is never read as zero).
  */
 import { addMonths, dateMonthIndex, listMonths, monthIndex, monthOf, parseDate } from './months';
-import type { NutrientKey } from './nutrients';
+import { SHARE_NUTRIENTS, type NutrientKey } from './nutrients';
 import { spreadBetween, spreadByDay, type SpreadPart } from './spread';
 
 import { EATEN_USES, USES, type Use } from './uses';
@@ -25,6 +25,12 @@ export interface FoodEntry {
   /** Whole months the food is eaten over, from the entry's date (≥ 1); see spread.ts. */
   spreadMonths: number;
   nutrients: NutrientAmounts;
+  /**
+   * The same amounts as numbers in SHARE_NUTRIENTS order (NaN: unknown), when the caller has them
+   * (share-groups.ts): the share report reads thousands of entries, and an array is read faster
+   * than objects of as many shapes as there are foods. It must say what `nutrients` says.
+   */
+  shareAmounts?: Float64Array;
   edibleGrams: number;
   /**
    * A lot re-spread by the larder's records (larder.ts): eaten evenly by day over
@@ -197,11 +203,32 @@ type EntryAmounts = Pick<FoodEntry, 'date' | 'source' | 'edibleGrams' | 'nutrien
 
 /** An entry's amount of a nutrient (null or missing: unknown), refused when negative or not a number. */
 function checkedAmount(entry: EntryAmounts, key: NutrientKey): number | null | undefined {
-  const amount = entry.nutrients[key];
+  return checked(entry, key, entry.nutrients[key]);
+}
+
+function checked<A extends number | null | undefined>(entry: Pick<FoodEntry, 'date'>, key: NutrientKey, amount: A): A {
   if (amount != null && (!Number.isFinite(amount) || amount < 0)) {
     throw new RangeError(`${key} of an entry dated ${entry.date} must be a number ≥ 0, got ${amount}`);
   }
   return amount;
+}
+
+/** Each key's place in SHARE_NUTRIENTS (for FoodEntry.shareAmounts), or null when a key is not a share nutrient. */
+export function shareIndexes(keys: readonly NutrientKey[]): number[] | null {
+  const places = keys.map((k) => (SHARE_NUTRIENTS as readonly NutrientKey[]).indexOf(k));
+  return places.every((i) => i >= 0) ? places : null;
+}
+
+/**
+ * An entry's amount of the key at `k`, NaN when unknown: from shareAmounts when the entry has them
+ * and `places` (shareIndexes of the keys) says where, else from its nutrients. Checked as checkedAmount.
+ */
+export function amountAt(entry: FoodEntry, keys: readonly NutrientKey[], places: readonly number[] | null, k: number): number {
+  if (places && entry.shareAmounts) {
+    const a = entry.shareAmounts[places[k]!]!;
+    return Number.isNaN(a) ? NaN : checked(entry, keys[k]!, a);
+  }
+  return checkedAmount(entry, keys[k]!) ?? NaN;
 }
 
 /**
@@ -244,12 +271,13 @@ export function allocate<K extends NutrientKey>(
   const slots = result.map((m) => keys.map((key) => m.sums[key]));
   // An entry's amounts by key, unboxed (NaN: unknown), so reading thousands of entries makes no garbage.
   const amounts = new Float64Array(keys.length);
+  const places = shareIndexes(keys);
   for (const entry of entries) {
     checkGrams(entry.edibleGrams);
     const shares = eatenShares(entry);
     if (shares.length === 0) continue;
     const first = dateMonthIndex(entry.date) - start;
-    for (let k = 0; k < keys.length; k++) amounts[k] = checkedAmount(entry, keys[k]!) ?? NaN;
+    for (let k = 0; k < keys.length; k++) amounts[k] = amountAt(entry, keys, places, k);
     const home = entry.source === 'home';
     for (let p = 0; p < shares.length; p++) {
       const { offset, fraction } = shares[p]!;

@@ -59,6 +59,8 @@ export interface ShareGroup {
   edibleGrams: number;
   entries: number;
   nutrients: Partial<Record<ShareNutrientKey, number>>;
+  /** The same as numbers in SHARE_NUTRIENTS order, NaN where unknown (FoodEntry.shareAmounts). */
+  shareAmounts?: Float64Array;
 }
 
 /**
@@ -86,11 +88,13 @@ interface Grouping {
 /** A food's known share nutrients (SHARE_NUTRIENTS order) with their amounts per 100 g, and an object of those keys to copy. */
 interface FoodShape {
   keys: ShareNutrientKey[];
+  /** Each key's place in SHARE_NUTRIENTS. */
+  places: number[];
   per100g: number[];
   blank: Partial<Record<ShareNutrientKey, number>>;
 }
 
-const NO_FOOD: FoodShape = { keys: [], per100g: [], blank: {} };
+const NO_FOOD: FoodShape = { keys: [], places: [], per100g: [], blank: {} };
 
 /**
  * Each food's shape, worked out once per report: a group's nutrients are then a copy of the
@@ -103,11 +107,12 @@ function foodShapes(amounts: FoodAmounts): (foodId: number | null) => FoodShape 
     let shape = shapes.get(foodId);
     if (!shape) {
       const per100g = amounts.get(foodId);
-      shape = { keys: [], per100g: [], blank: {} };
-      for (const k of SHARE_NUTRIENTS) {
+      shape = { keys: [], places: [], per100g: [], blank: {} };
+      for (const [place, k] of SHARE_NUTRIENTS.entries()) {
         const a = per100g?.[k];
         if (a === undefined) continue;
         shape.keys.push(k);
+        shape.places.push(place);
         shape.per100g.push(a);
         shape.blank[k] = 0;
       }
@@ -129,6 +134,7 @@ class Group implements ShareGroup {
   edibleGrams: number;
   entries: number;
   nutrients: Partial<Record<ShareNutrientKey, number>> = {};
+  shareAmounts?: Float64Array;
 
   constructor(
     public source: Source,
@@ -193,7 +199,20 @@ function collect(rows: readonly GroupRow[], source: Source, foodShape: (foodId: 
     const nutrients = { ...shape.blank };
     for (let i = 0; i < shape.keys.length; i++) nutrients[shape.keys[i]!] = (g.edibleGrams * shape.per100g[i]!) / 100;
     g.nutrients = retention ? (applyRetention(g, nutrients, retention) as Partial<Record<ShareNutrientKey, number>>) : nutrients;
+    g.shareAmounts = shareAmountsOf(g.nutrients, shape);
   }
+}
+
+/** A group's nutrients as FoodEntry.shareAmounts; none when a value is not a number (the share code then refuses it by key). */
+function shareAmountsOf(nutrients: Partial<Record<ShareNutrientKey, number>>, shape: FoodShape): Float64Array | undefined {
+  const out = new Float64Array(SHARE_NUTRIENTS.length).fill(NaN);
+  for (let i = 0; i < shape.keys.length; i++) {
+    const v = nutrients[shape.keys[i]!];
+    if (v === undefined) continue;
+    if (Number.isNaN(v)) return undefined;
+    out[shape.places[i]!] = v;
+  }
+  return out;
 }
 
 /** The distinct reference foods behind some rows or groups, e.g. [{ foodId: 3 }, { foodId: 3 }, { foodId: null }] → [3]. */
@@ -214,15 +233,20 @@ export function contributorId(g: Pick<ShareGroup, 'cropId' | 'foodId'>): string 
  * first day (fresh food and a spread of one month count wholly in their month).
  */
 export function groupEntry(g: ShareGroup): CropEntry {
-  return {
+  const e: CropEntry = {
     date: g.date,
     use: g.use,
     source: g.source,
     spreadMonths: g.spread,
-    ...(g.until ? { eatenFrom: g.eatenFrom, until: g.until } : {}),
     edibleGrams: g.edibleGrams,
     nutrients: g.nutrients,
     cropId: contributorId(g),
     name: g.name || 'Unnamed harvest',
   };
+  if (g.until) {
+    e.eatenFrom = g.eatenFrom;
+    e.until = g.until;
+  }
+  if (g.shareAmounts) e.shareAmounts = g.shareAmounts;
+  return e;
 }

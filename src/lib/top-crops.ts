@@ -54,8 +54,8 @@ export function topCrops(groups: readonly ShareGroup[], from: string, to: string
     if (!c) sums.set(e.cropId, (c = { group: i, name: e.name, amounts: new Float64Array(count), ranked: new Uint8Array(count), firstGave: new Int32Array(count) }));
     if (!isEaten(e.use)) return;
     for (let k = 0; k < count; k++) {
-      const amount = e.nutrients[SHARE_NUTRIENTS[k]!];
-      if (amount == null) continue; // unknown: cannot rank
+      const amount = e.shareAmounts ? e.shareAmounts[k]! : (e.nutrients[SHARE_NUTRIENTS[k]!] ?? NaN);
+      if (Number.isNaN(amount)) continue; // unknown: cannot rank
       // By day, like allocate(): a lot stored on 30 November counts one day's share in November.
       const eaten = amount * fractions[i]!;
       if (eaten <= 0) continue;
@@ -91,8 +91,9 @@ export function topCrops(groups: readonly ShareGroup[], from: string, to: string
   homeEntries.forEach((e, i) => {
     const crop = crops.get(e.cropId);
     if (!crop || fractions[i] === 0) return;
-    for (const key of SHARE_NUTRIENTS) {
-      if (e.nutrients[key] == null && crop.values[key] === 0) {
+    for (const [k, key] of SHARE_NUTRIENTS.entries()) {
+      const unknown = e.shareAmounts ? Number.isNaN(e.shareAmounts[k]!) : e.nutrients[key] == null;
+      if (unknown && crop.values[key] === 0) {
         crop.values[key] = null;
         crop.shareOfHome[key] = null;
       }

@@ -15,7 +15,9 @@ import type { Pool } from 'mysql2/promise';
 import { getDb, getPool, type Db } from '@/db/client';
 import { crops, datasets, foodNutrients, foods, harvestGroups, harvests, larderOutcomes, purchaseGroups, purchases, type Household } from '@/db/schema';
 import { ENTRY_LIMITS } from '@/lib/entry-schemas';
+import type { OutcomeRecord } from '@/lib/larder';
 import { lotGroupRows, type OutcomeLot } from '@/lib/larder-share';
+import type { LarderOutcomeKind } from '@/lib/larder-outcomes';
 import { addMonths, daysInMonth, todayIn } from '@/lib/months';
 import { SHARE_NUTRIENTS, type ShareNutrientKey } from '@/lib/nutrients';
 import { needsPerson } from '@/lib/people-schemas';
@@ -28,7 +30,6 @@ import { useTotals } from '@/lib/use-totals';
 import { dbOn } from './db-on';
 import { rawQuery } from './raw-query';
 import { countsAsFood, cropOfHarvest, foodOfHarvest, harvestNameSql } from './harvest-sql';
-import { outcomesOf } from './larder';
 import { harvestGroupRows, purchaseGroupRows } from './share-rollup';
 import { currentMonth, listPeople, personFields } from './people';
 import { loadRetention } from './retention-file';
@@ -41,32 +42,49 @@ function lastDay(month: string): string {
 const lookback = (from: string) => `${addMonths(from, -ENTRY_LIMITS.maxSpreadMonths)}-01`;
 
 /**
- * The stored and preserved lots with larder records that can fall in [from, to], one by one, each
- * turned into its eaten segments and lost parts (src/lib/larder-share.ts). No lot lasts longer
+ * The stored and preserved lots with larder records that can fall in [from, to], one by one (read
+ * with their records in one query), each turned into its eaten segments and lost parts
+ * (src/lib/larder-share.ts). No lot lasts longer
  * than ENTRY_LIMITS.maxSpreadMonths (larder.ts), so the same look-back as the grouped query holds.
  */
-async function outcomeLotGroups(db: Db, pool: Pool, householdId: number, from: string, to: string): Promise<GroupRow[]> {
-  const lots = await lotsWithRecords.run(pool, { householdId, start: lookback(from), end: lastDay(to) });
-  if (lots.length === 0) return [];
-  const outcomes = await outcomesOf(db, householdId, lots.map((l) => l.id));
-  return lots.flatMap(({ id, ...lot }) => lotGroupRows(lot, outcomes.get(id) ?? []));
+async function outcomeLotGroups(pool: Pool, householdId: number, from: string, to: string): Promise<GroupRow[]> {
+  const rows = await lotRecords.run(pool, { householdId, start: lookback(from), end: lastDay(to) });
+  const out: GroupRow[] = [];
+  // One row per lot and record: a lot's rows come together, its records in date order.
+  for (let i = 0; i < rows.length; ) {
+    const { id, date, use, spread, preserveMethod, cropId, foodId, name, grams, edibleGrams } = rows[i]!;
+    const records: OutcomeRecord[] = [];
+    for (; i < rows.length && rows[i]!.id === id; i++) {
+      const r = rows[i]!;
+      records.push({ id: r.outcomeId, kind: r.kind, date: r.outcomeDate, lostFraction: r.lostFraction, until: r.until });
+    }
+    out.push(...lotGroupRows({ date, use, spread, preserveMethod, cropId, foodId, name, grams, edibleGrams }, records));
+  }
+  return out;
 }
 
-const lotsWithRecords = rawQuery<OutcomeLot & { id: number }>(sql`
+/** The lots with larder records and their records, in one query (lot columns repeated per record). */
+const lotRecords = rawQuery<
+  OutcomeLot & { id: number; outcomeId: number; kind: LarderOutcomeKind; outcomeDate: string; lostFraction: number | null; until: string | null }
+>(sql`
     SELECT ${harvests.id} AS id, ${harvests.date} AS date, ${harvests.use} AS \`use\`, GREATEST(${harvests.spreadMonths}, 1) AS spread,
            ${harvests.preserveMethod} AS preserveMethod, ${harvests.cropId} AS cropId, ${harvests.foodId} AS foodId,
-           ${harvestNameSql()} AS name, ${harvests.grams} AS grams, ${harvests.edibleGrams} AS edibleGrams
-      FROM ${harvests}
+           ${harvestNameSql()} AS name, ${harvests.grams} AS grams, ${harvests.edibleGrams} AS edibleGrams,
+           ${larderOutcomes.id} AS outcomeId, ${larderOutcomes.kind} AS kind, ${larderOutcomes.date} AS outcomeDate,
+           ${larderOutcomes.lostFraction} AS lostFraction, ${larderOutcomes.until} AS \`until\`
+      FROM ${larderOutcomes}
+      JOIN ${harvests} ON ${harvests.id} = ${larderOutcomes.harvestId}
       LEFT JOIN ${crops} ON ${cropOfHarvest()}
       LEFT JOIN ${foods} ON ${foodOfHarvest()}
      WHERE ${and(
+       // Driven from the household's records (a few lots), not by probing every harvest in the range.
+       eq(larderOutcomes.householdId, sql.placeholder('householdId')),
        eq(harvests.householdId, sql.placeholder('householdId')),
        gte(harvests.date, sql.placeholder('start')),
        lte(harvests.date, sql.placeholder('end')),
        countsAsFood(),
-       // Driven from the household's records (a few lots), not by probing every harvest in the range.
-       sql`${harvests.id} IN (SELECT DISTINCT ${larderOutcomes.harvestId} FROM ${larderOutcomes} WHERE ${eq(larderOutcomes.householdId, sql.placeholder('householdId'))})`,
-     )}`);
+     )}
+     ORDER BY ${harvests.id}, ${larderOutcomes.date}, ${larderOutcomes.id}`);
 
 /** The date of the household's first harvest or purchase, or null when it has logged nothing. */
 async function firstEntryDate(db: Db, householdId: number): Promise<string | null> {
@@ -173,7 +191,7 @@ export async function householdShare(household: ShareHousehold, from: string, to
   // Every query at once: the foods' facts come by a subquery on the groups, not after them.
   const [grouped, withOutcomes, bought, rows, first, near] = await Promise.all([
     harvestGroupRows(raw, household.id, from, to),
-    outcomeLotGroups(db, raw, household.id, from, to),
+    outcomeLotGroups(raw, household.id, from, to),
     purchaseGroupRows(raw, household.id, from, to),
     listPeople(household.id),
     household.recordsSince ? Promise.resolve(null) : firstEntryDate(db, household.id),
