@@ -103,7 +103,7 @@ export async function householdShareJson(
   const { from, to } = range;
   const context = answerContext(household, range);
   if (found.storedBody !== null && found.storedContext === context) return found.storedBody;
-  const body = JSON.stringify(await householdShare(household, from, to, undefined, now));
+  const body = JSON.stringify(await householdShare(household, from, to, undefined, now, found.referenceRevision));
   setImmediate(() => store(household.id, key, found, context, body).catch((e: unknown) => console.error('share cache: could not store an answer', e)));
   return body;
 }

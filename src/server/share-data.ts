@@ -8,18 +8,20 @@
  * triggers keep with every write (share-rollup.ts), so the rows grow with the variety of what was
  * logged, not with the number of weighings; a lot eaten over 2 months or more is grouped by its
  * day instead of its month, because it is spread by day. Lots with larder records are read one by
- * one. Queries go through Drizzle's builder and `sql` templates that name the schema's columns.
+ * one. Queries go through Drizzle's builder and `sql` templates that name the schema's columns;
+ * the hot ones are written once and run as mysql2 gives the rows (raw-query.ts), all at once, and
+ * the foods' nutrients come from those kept at the datasets' revision (food-facts.ts).
  */
-import { and, eq, gte, inArray, lte, min, sql, type SQL } from 'drizzle-orm';
+import { and, eq, gte, lte, min, sql } from 'drizzle-orm';
 import type { Pool } from 'mysql2/promise';
 import { getDb, getPool, type Db } from '@/db/client';
-import { crops, datasets, foodNutrients, foods, harvestGroups, harvests, larderOutcomes, purchaseGroups, purchases, type Household } from '@/db/schema';
+import { crops, foods, harvests, larderOutcomes, purchases, type Household } from '@/db/schema';
 import { ENTRY_LIMITS } from '@/lib/entry-schemas';
 import type { OutcomeRecord } from '@/lib/larder';
 import { lotGroupRows, type OutcomeLot } from '@/lib/larder-share';
 import type { LarderOutcomeKind } from '@/lib/larder-outcomes';
 import { addMonths, daysInMonth, todayIn } from '@/lib/months';
-import { SHARE_NUTRIENTS, type ShareNutrientKey } from '@/lib/nutrients';
+import { SHARE_NUTRIENTS } from '@/lib/nutrients';
 import { needsPerson } from '@/lib/people-schemas';
 import { defaultRecordsSince } from '@/lib/records-start';
 import { foodIdsOf, groupEntry, shareGroups, type FoodAmounts, type GroupRow } from '@/lib/share-groups';
@@ -28,6 +30,7 @@ import { computeShare } from '@/lib/shares';
 import { topCrops } from '@/lib/top-crops';
 import { useTotals } from '@/lib/use-totals';
 import { dbOn } from './db-on';
+import { foodFacts, referenceRevision, type FoodFact } from './food-facts';
 import { rawQuery } from './raw-query';
 import { countsAsFood, cropOfHarvest, foodOfHarvest, harvestNameSql } from './harvest-sql';
 import { harvestGroupRows, purchaseGroupRows } from './share-rollup';
@@ -96,75 +99,14 @@ async function firstEntryDate(db: Db, householdId: number): Promise<string | nul
   return dates.length === 0 ? null : dates.sort()[0]!;
 }
 
-/** What the report needs of a reference food: its share nutrients per 100 g and its dataset. */
-interface FoodFacts {
-  amounts: FoodAmounts;
-  datasets: Map<number, DatasetRef>;
-}
-
-/** A food's share nutrient (one row per food and nutrient; a food with none comes once, with nulls) and its dataset. */
-interface FoodFactRow {
-  foodId: number;
-  slug: string;
-  datasetName: string;
-  release: string;
-  nutrientKey: ShareNutrientKey | null;
-  amount: string | number | null;
-}
-
-/** The facts of the foods a subquery names (its column `food_id`). */
-function foodFactsOf(chosen: SQL): SQL {
-  return sql`
-    SELECT ${foods.id} AS foodId, ${datasets.slug} AS slug, ${datasets.name} AS datasetName, ${datasets.release} AS \`release\`,
-           ${foodNutrients.nutrientKey} AS nutrientKey, ${foodNutrients.amount} AS amount
-      FROM (${chosen}) chosen
-      JOIN ${foods} ON ${foods.id} = chosen.food_id
-      JOIN ${datasets} ON ${datasets.id} = ${foods.datasetId}
-      LEFT JOIN ${foodNutrients} ON ${foodNutrients.foodId} = ${foods.id} AND ${inArray(foodNutrients.nutrientKey, [...SHARE_NUTRIENTS])}`;
-}
-
-/**
- * The foods the report of [from, to] can meet: those of the household's groups in the groups'
- * own look-back window and of its lots with larder records (a superset of what the group queries
- * return), so their facts are read beside the groups instead of after them.
- */
-const factsOfFoodsNear = rawQuery<FoodFactRow>(
-  foodFactsOf(sql`SELECT ${harvestGroups.foodId} AS food_id FROM ${harvestGroups}
-      WHERE ${and(eq(harvestGroups.householdId, sql.placeholder('householdId')), gte(harvestGroups.day, sql.placeholder('start')), lte(harvestGroups.day, sql.placeholder('end')))}
-    UNION SELECT ${purchaseGroups.foodId} FROM ${purchaseGroups}
-      WHERE ${and(eq(purchaseGroups.householdId, sql.placeholder('householdId')), gte(purchaseGroups.day, sql.placeholder('start')), lte(purchaseGroups.day, sql.placeholder('end')))}
-    UNION SELECT ${harvests.foodId} FROM ${larderOutcomes} JOIN ${harvests} ON ${harvests.id} = ${larderOutcomes.harvestId}
-      WHERE ${eq(larderOutcomes.householdId, sql.placeholder('householdId'))}`),
-);
-
-/** The facts of the foods near [from, to] (factsOfFoodsNear), or of a list of foods. */
-async function foodFacts(pool: Pool, foodsOf: { householdId: number; from: string; to: string } | readonly number[]): Promise<FoodFacts> {
-  const out: FoodFacts = { amounts: new Map(), datasets: new Map() };
-  let rows: FoodFactRow[];
-  if ('householdId' in foodsOf) rows = await factsOfFoodsNear.run(pool, { householdId: foodsOf.householdId, start: lookback(foodsOf.from), end: lastDay(foodsOf.to) });
-  else if (foodsOf.length === 0) return out;
-  else rows = await rawQuery<FoodFactRow>(foodFactsOf(sql`SELECT ${foods.id} AS food_id FROM ${foods} WHERE ${inArray(foods.id, [...foodsOf])}`)).run(pool);
-  for (const r of rows) {
-    if (!out.datasets.has(r.foodId)) out.datasets.set(r.foodId, { slug: r.slug, name: r.datasetName, release: r.release });
-    let m = out.amounts.get(r.foodId);
-    if (!m) out.amounts.set(r.foodId, (m = {}));
-    if (r.nutrientKey !== null && r.amount !== null) m[r.nutrientKey] = Number(r.amount);
-  }
-  return out;
-}
-
 /** The datasets of the foods behind a report, by slug, each once. */
-function datasetsOf(facts: FoodFacts, foodIds: readonly number[]): DatasetRef[] {
+function datasetsOf(facts: Map<number, FoodFact>, foodIds: readonly number[]): DatasetRef[] {
   const bySlug = new Map<string, DatasetRef>();
   for (const id of foodIds) {
-    const d = facts.datasets.get(id);
+    const d = facts.get(id)?.dataset;
     if (d) bySlug.set(`${d.slug}|${d.name}|${d.release}`, d);
   }
   return [...bySlug.values()].sort((a, b) => (a.slug < b.slug ? -1 : a.slug > b.slug ? 1 : 0));
-}
-
-function mergeFacts(a: FoodFacts, b: FoodFacts): FoodFacts {
-  return { amounts: new Map([...a.amounts, ...b.amounts]), datasets: new Map([...a.datasets, ...b.datasets]) };
 }
 
 /** What the report needs of a household: its id, zone (for "now"), creation and records start. */
@@ -183,26 +125,34 @@ export async function effectiveRecordsSince(household: ShareHousehold): Promise<
  * `recordsSince`, else the earlier of its creation month and its first entry's month) are not
  * charged; "now" is the household's time zone's.
  * `pool` is for callers with their own pool (the benchmark); the app's shared client otherwise.
+ * `revision` is the datasets' revision when the caller has read it already (the share endpoint's
+ * gate); else it is read beside the groups.
  * Throws RangeError when the range or a person's data cannot be computed.
  */
-export async function householdShare(household: ShareHousehold, from: string, to: string, pool?: Pool, now: Date = new Date()): Promise<ShareResponse> {
+export async function householdShare(
+  household: ShareHousehold,
+  from: string,
+  to: string,
+  pool?: Pool,
+  now: Date = new Date(),
+  revision?: number | string,
+): Promise<ShareResponse> {
   const db = pool ? dbOn(pool) : getDb();
   const raw = pool ?? getPool();
-  // Every query at once: the foods' facts come by a subquery on the groups, not after them.
-  const [grouped, withOutcomes, bought, rows, first, near] = await Promise.all([
+  // Every query at once; the foods' facts come from those kept at the datasets' revision (food-facts.ts).
+  const [grouped, withOutcomes, bought, rows, first, atRevision] = await Promise.all([
     harvestGroupRows(raw, household.id, from, to),
     outcomeLotGroups(raw, household.id, from, to),
     purchaseGroupRows(raw, household.id, from, to),
     listPeople(household.id),
     household.recordsSince ? Promise.resolve(null) : firstEntryDate(db, household.id),
-    foodFacts(raw, { householdId: household.id, from, to }),
+    revision === undefined ? referenceRevision(raw) : Promise.resolve(Number(revision)),
   ]);
   const home = [...grouped, ...withOutcomes];
   const ids = foodIdsOf([...home, ...bought]);
-  // A write between those queries can bring a food the subquery did not see: read it now.
-  const missing = ids.filter((id) => !near.datasets.has(id));
-  const facts = missing.length === 0 ? near : mergeFacts(near, await foodFacts(raw, missing));
-  const groups = shareGroups(home, bought, facts.amounts, loadRetention());
+  const facts = await foodFacts(raw, ids, atRevision);
+  const amounts: FoodAmounts = new Map([...facts].map(([id, f]) => [id, f.amounts]));
+  const groups = shareGroups(home, bought, amounts, loadRetention());
   const people = rows.map((r) => needsPerson(personFields(r)));
   const recordsSince = household.recordsSince ?? defaultRecordsSince(todayIn(household.timezone, household.createdAt), first);
   const entries = groups.map(groupEntry);
