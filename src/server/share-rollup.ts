@@ -61,7 +61,7 @@ const harvestGroupsIn = rawQuery<RawGroup>(sql`
            ${harvestGroups.grams} AS grams, ${harvestGroups.edibleGrams} AS edibleGrams, ${harvestGroups.entries} AS entries
       FROM ${harvestGroups}
       LEFT JOIN ${crops} ON ${cropOfGroup()}
-      LEFT JOIN ${foods} ON ${foods.id} = ${harvestGroups.foodId}
+      LEFT JOIN ${foods} ON ${foods.id} = ${harvestGroups.foodId} AND (${harvestGroups.cropId} = 0 OR COALESCE(${crops.name}, '') = '')
      WHERE ${and(
        eq(harvestGroups.householdId, at.household),
        gte(harvestGroups.day, at.start),
@@ -78,7 +78,8 @@ const harvestGroupsIn = rawQuery<RawGroup>(sql`
 /**
  * Harvest groups whose eating can fall in [from, to] or that are dated in it: dated in the range,
  * or stored/preserved earlier with a spread reaching `from`. Not-food crops never count as food,
- * nor a crop of another household. Names: the crop with its variety, else the food. The report
+ * nor a crop of another household. Names: the crop with its variety, else the food (joined only
+ * for groups with no crop: a crop always has a name). The report
  * reads thousands of groups: the query is written once (raw-query.ts) and its rows read as mysql2
  * gives them.
  */
