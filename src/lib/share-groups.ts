@@ -197,9 +197,18 @@ function collect(rows: readonly GroupRow[], source: Source, foodShape: (foodId: 
     // A nutrient the food has no row for stays missing: unknown, never zero.
     const shape = foodShape(r.foodId);
     const nutrients = { ...shape.blank };
-    for (let i = 0; i < shape.keys.length; i++) nutrients[shape.keys[i]!] = (g.edibleGrams * shape.per100g[i]!) / 100;
-    g.nutrients = retention ? (applyRetention(g, nutrients, retention) as Partial<Record<ShareNutrientKey, number>>) : nutrients;
-    g.shareAmounts = shareAmountsOf(g.nutrients, shape);
+    const amounts = new Float64Array(SHARE_NUTRIENTS.length).fill(NaN);
+    let notANumber = false;
+    for (let i = 0; i < shape.keys.length; i++) {
+      const v = (g.edibleGrams * shape.per100g[i]!) / 100;
+      nutrients[shape.keys[i]!] = v;
+      amounts[shape.places[i]!] = v;
+      if (Number.isNaN(v)) notANumber = true;
+    }
+    const retained = retention ? (applyRetention(g, nutrients, retention) as Partial<Record<ShareNutrientKey, number>>) : nutrients;
+    g.nutrients = retained;
+    // Retention made new values (a preserved lot): read them back; otherwise the numbers are those just written.
+    g.shareAmounts = retained === nutrients && !notANumber ? amounts : shareAmountsOf(retained, shape);
   }
 }
 
