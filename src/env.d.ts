@@ -13,6 +13,8 @@ declare namespace App {
     user?: { id: string; email: string; name: string; emailVerified: boolean } | null;
     /** Their better-auth session, else null (session step). */
     session?: { id: string; userId: string; expiresAt: Date } | null;
+    /** On /api/households/{id}/…: user and session are read by the household gate with the membership (authz.ts), not by the session step. */
+    sessionWithGate?: boolean;
     /** Page views only (not /api; household step): the signed-in user's households with their role, by name. */
     households?: { id: number; name: string; role: 'owner' | 'grower' | 'viewer' }[];
     /** Page views only (household step): the household in the URL, else the remembered one (cookie `household`), else the only one. */

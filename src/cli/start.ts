@@ -7,7 +7,7 @@
  */
 import { existsSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { bindHost, bindPort, childEnv, databaseUrl, hasAuthSecret, loadDotEnv, mailConfig, outDir, publicOrigin } from '@/server/config';
+import { bindHost, bindPort, childEnv, databaseUrl, hasAuthSecret, loadDotEnv, mailConfig, outDir, publicOrigin, serverNodeFlags } from '@/server/config';
 import { serverPaths, stopServer } from './mariadb';
 import { importFoods } from './import-foods';
 import { startMailFake, type MailFake } from './mail-fake';
@@ -41,7 +41,7 @@ async function main(): Promise<void> {
   const built = await run(resolve(root, 'node_modules/.bin/astro'), ['build'], env);
   if (built !== 0) throw new Error('the build failed');
 
-  const services = [startService('node', [resolve(outDir(root), 'server/entry.mjs')], env)];
+  const services = [startService('node', [...serverNodeFlags(), resolve(outDir(root), 'server/entry.mjs')], env)];
   const app = services[0]!;
   let stopping = false;
   const stopAll = async () => {

@@ -7,7 +7,7 @@
  */
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { childEnv, loadDotEnv, outDir as buildDir, parseDatabaseUrl, testDatabaseUrl, testRunConfig } from '@/server/config';
+import { childEnv, loadDotEnv, outDir as buildDir, parseDatabaseUrl, testDatabaseUrl, serverNodeFlags, testRunConfig } from '@/server/config';
 import { migrateDatabase } from '@/db/migrate';
 import { recreateDatabase, serverPaths, stopServer } from './mariadb';
 import { dbUp } from './db';
@@ -157,7 +157,7 @@ async function main(): Promise<number> {
   const build = await stage('build', async () => ({ code: await run(bin('astro'), ['build'], env) }));
   stages.push(build);
   if (build.ok) {
-    const server = startService('node', [resolve(outDir, 'server/entry.mjs')], env, true);
+    const server = startService('node', [...serverNodeFlags(), resolve(outDir, 'server/entry.mjs')], env, true);
     try {
       await waitForHttp(`${baseUrl}/`, 30_000, server);
       if (wanted.has('integration')) stages.push(

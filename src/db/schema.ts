@@ -473,9 +473,10 @@ export const shareVersions = mysqlTable('share_versions', {
 });
 
 /**
- * Share report answers as sent (JSON), by household and a key naming everything else they rest
- * on (range, current month, zone, records start, creation, build); valid while the household's
- * share version and the reference datasets' revision are the ones stored beside them.
+ * Share report answers as sent (JSON), by household and a key naming the request as asked (range
+ * or none, build), with the context they were worked out in (the range it meant, current month,
+ * zone, records start, creation, year start); valid while that context is still the household's
+ * and the household's share version and the reference datasets' revision are the ones stored beside them.
  */
 export const shareCache = mysqlTable(
   'share_cache',
@@ -486,6 +487,7 @@ export const shareCache = mysqlTable(
     answerKey: varchar('answer_key', { length: 190 }).notNull(),
     version: varchar('version', { length: 64 }).notNull(),
     referenceRevision: bigint('reference_revision', { mode: 'number', unsigned: true }).notNull(),
+    context: varchar('context', { length: 255 }).notNull().default(''),
     body: mediumtext('body').notNull(),
     createdAt: timestamp('created_at').notNull().defaultNow(),
   },

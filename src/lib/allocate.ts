@@ -3,8 +3,8 @@
  * see spread.ts), kept apart for home-grown and bought food, with the weight whose nutrient value is unknown counted
  * beside the sums (an unknown value is never read as zero).
  */
-import { listMonths, monthIndex, monthOf, addMonths, parseDate } from './months';
-import type { NutrientKey } from './nutrients';
+import { addMonths, dateMonthIndex, listMonths, monthIndex, monthOf, parseDate } from './months';
+import { SHARE_NUTRIENTS, type NutrientKey } from './nutrients';
 import { spreadBetween, spreadByDay, type SpreadPart } from './spread';
 
 import { EATEN_USES, USES, type Use } from './uses';
@@ -25,6 +25,12 @@ export interface FoodEntry {
   /** Whole months the food is eaten over, from the entry's date (≥ 1); see spread.ts. */
   spreadMonths: number;
   nutrients: NutrientAmounts;
+  /**
+   * The same amounts as numbers in SHARE_NUTRIENTS order (NaN: unknown), when the caller has them
+   * (share-groups.ts): the share report reads thousands of entries, and an array is read faster
+   * than objects of as many shapes as there are foods. It must say what `nutrients` says.
+   */
+  shareAmounts?: Float64Array;
   edibleGrams: number;
   /**
    * A lot re-spread by the larder's records (larder.ts): eaten evenly by day over
@@ -111,9 +117,9 @@ export function eatenParts(entry: EatenBasis): EatenPart[] {
  * strings: the share report calls this for every entry,
  * e.g. eatenShares({ date: '2026-11-30', use: 'stored', source: 'home', spreadMonths: 3 })[0] → { offset: 0, fraction: 1/90 }.
  */
-export function eatenShares(entry: EatenBasis): SpreadPart[] {
+export function eatenShares(entry: EatenBasis): readonly SpreadPart[] {
   checkSpread(entry.spreadMonths);
-  if (!isEaten(entry.use)) return [];
+  if (!isEaten(entry.use)) return NONE;
   if (entry.until) {
     // Offsets stay counted from the entry's own month, as for every other entry.
     const from = entry.eatenFrom ?? entry.date;
@@ -122,10 +128,14 @@ export function eatenShares(entry: EatenBasis): SpreadPart[] {
   }
   if (entry.use === 'fresh' && entry.source === 'home') {
     parseDate(entry.date); // checks the date
-    return [{ offset: 0, fraction: 1 }];
+    return WHOLE_OWN_MONTH;
   }
   return spreadByDay(entry.date, entry.spreadMonths);
 }
+
+// Shared answers, read and never changed by callers (as spreadByDay's kept parts are).
+const NONE: readonly SpreadPart[] = Object.freeze([]);
+const WHOLE_OWN_MONTH: readonly SpreadPart[] = Object.freeze([Object.freeze({ offset: 0, fraction: 1 })]);
 
 /**
  * The months an entry touches, as offsets from its month; a lot spread by day from a late date
@@ -150,16 +160,17 @@ export function fractionEatenIn(
 /** fractionEatenIn with the range as month indexes (monthIndex), for callers that ask for many entries. */
 export function fractionEatenBetween(entry: EatenBasis, start: number, end: number): number {
   const first = dateMonthIndex(entry.date);
+  const shares = eatenShares(entry);
   let sum = 0;
-  for (const { offset, fraction } of eatenShares(entry)) if (first + offset >= start && first + offset <= end) sum += fraction;
+  for (let i = 0; i < shares.length; i++) {
+    const { offset, fraction } = shares[i]!;
+    if (first + offset >= start && first + offset <= end) sum += fraction;
+  }
   return sum;
 }
 
-/** Month index (year × 12 + month − 1) of a 'YYYY-MM-DD' date, checked once. */
-export function dateMonthIndex(date: string): number {
-  const { year, month } = parseDate(date);
-  return year * 12 + (month - 1);
-}
+/** Month index (year × 12 + month − 1) of a 'YYYY-MM-DD' date, checked once (months.ts). */
+export { dateMonthIndex };
 
 function checkSpread(spreadMonths: number): void {
   if (!Number.isInteger(spreadMonths) || spreadMonths < 1) {
@@ -187,20 +198,44 @@ export function addSums(a: NutrientSums, b: NutrientSums): NutrientSums {
   return a;
 }
 
+/** What addEntryPart reads of an entry. */
+type EntryAmounts = Pick<FoodEntry, 'date' | 'source' | 'edibleGrams' | 'nutrients'>;
+
 /** An entry's amount of a nutrient (null or missing: unknown), refused when negative or not a number. */
-function checkedAmount(entry: FoodEntry, key: NutrientKey): number | null | undefined {
-  const amount = entry.nutrients[key];
+function checkedAmount(entry: EntryAmounts, key: NutrientKey): number | null | undefined {
+  return checked(entry, key, entry.nutrients[key]);
+}
+
+function checked<A extends number | null | undefined>(entry: Pick<FoodEntry, 'date'>, key: NutrientKey, amount: A): A {
   if (amount != null && (!Number.isFinite(amount) || amount < 0)) {
     throw new RangeError(`${key} of an entry dated ${entry.date} must be a number ≥ 0, got ${amount}`);
   }
   return amount;
 }
 
+/** Each key's place in SHARE_NUTRIENTS (for FoodEntry.shareAmounts), or null when a key is not a share nutrient. */
+export function shareIndexes(keys: readonly NutrientKey[]): number[] | null {
+  const places = keys.map((k) => (SHARE_NUTRIENTS as readonly NutrientKey[]).indexOf(k));
+  return places.every((i) => i >= 0) ? places : null;
+}
+
+/**
+ * An entry's amount of the key at `k`, NaN when unknown: from shareAmounts when the entry has them
+ * and `places` (shareIndexes of the keys) says where, else from its nutrients. Checked as checkedAmount.
+ */
+export function amountAt(entry: FoodEntry, keys: readonly NutrientKey[], places: readonly number[] | null, k: number): number {
+  if (places && entry.shareAmounts) {
+    const a = entry.shareAmounts[places[k]!]!;
+    return Number.isNaN(a) ? NaN : checked(entry, keys[k]!, a);
+  }
+  return checkedAmount(entry, keys[k]!) ?? NaN;
+}
+
 /**
  * Adds one share of an entry into the sums of one month and nutrient.
  * A null or missing value adds its grams to the unknown weight, never zero to the sum.
  */
-export function addEntryPart(sums: NutrientSums, entry: FoodEntry, key: NutrientKey, fraction: number): void {
+export function addEntryPart(sums: NutrientSums, entry: EntryAmounts, key: NutrientKey, fraction: number): void {
   const amount = checkedAmount(entry, key);
   const grams = entry.edibleGrams * fraction;
   if (entry.source === 'home') {
@@ -234,29 +269,32 @@ export function allocate<K extends NutrientKey>(
   });
   // The sums of each month as an array in the order of `keys`, so the inner loop indexes, not looks up.
   const slots = result.map((m) => keys.map((key) => m.sums[key]));
-  const amounts: (number | null | undefined)[] = new Array(keys.length);
+  // An entry's amounts by key, unboxed (NaN: unknown), so reading thousands of entries makes no garbage.
+  const amounts = new Float64Array(keys.length);
+  const places = shareIndexes(keys);
   for (const entry of entries) {
     checkGrams(entry.edibleGrams);
     const shares = eatenShares(entry);
     if (shares.length === 0) continue;
     const first = dateMonthIndex(entry.date) - start;
-    for (let k = 0; k < keys.length; k++) amounts[k] = checkedAmount(entry, keys[k]!);
+    for (let k = 0; k < keys.length; k++) amounts[k] = amountAt(entry, keys, places, k);
     const home = entry.source === 'home';
-    for (const { offset, fraction } of shares) {
+    for (let p = 0; p < shares.length; p++) {
+      const { offset, fraction } = shares[p]!;
       const slot = slots[first + offset];
       if (!slot) continue; // eaten outside the report's range
       const grams = entry.edibleGrams * fraction;
       for (let k = 0; k < keys.length; k++) {
         const sums = slot[k]!;
-        const amount = amounts[k];
+        const amount = amounts[k]!;
         // As addEntryPart: a null or missing value adds its grams to the unknown weight, never zero to the sum.
         if (home) {
-          if (amount == null) sums.homeUnknownGrams += grams;
+          if (Number.isNaN(amount)) sums.homeUnknownGrams += grams;
           else {
             sums.home += amount * fraction;
             sums.homeKnownGrams += grams;
           }
-        } else if (amount == null) sums.boughtUnknownGrams += grams;
+        } else if (Number.isNaN(amount)) sums.boughtUnknownGrams += grams;
         else {
           sums.bought += amount * fraction;
           sums.boughtKnownGrams += grams;

@@ -4,7 +4,7 @@
  * the 'YYYY-MM-DD' string itself (src/lib/months.ts), never through the machine's locale, so the
  * server's HTML, the browser's islands and the e-mails write the same text.
  */
-import { daysBetween, monthName, parseDate, parseMonth } from './months';
+import { daysBetween, monthName, parseDate, parseMonth, todayIn } from './months';
 
 const WEEKDAYS = ['Mon', 'Tue', 'Wed', 'Thu', 'Fri', 'Sat', 'Sun'] as const;
 
@@ -46,11 +46,5 @@ export function formatMonthText(month: string, length: 'short' | 'long' = 'short
 export function formatInstantDate(instant: string | Date, timeZone = 'UTC'): string {
   const when = typeof instant === 'string' ? new Date(instant) : instant;
   if (Number.isNaN(when.getTime())) throw new RangeError(`"${String(instant)}" is not a point in time`);
-  let day: string;
-  try {
-    day = new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(when);
-  } catch {
-    day = when.toISOString().slice(0, 10);
-  }
-  return formatDate(day);
+  return formatDate(todayIn(timeZone, when));
 }

@@ -19,8 +19,28 @@ export interface YearMonthDay extends YearMonth {
   day: number;
 }
 
-const MONTH_RE = /^(\d{4})-(\d{2})$/;
-const DATE_RE = /^(\d{4})-(\d{2})-(\d{2})$/;
+/**
+ * The number written by `length` ASCII digits of `value` from `at`, or -1 when one is not a digit.
+ * The report reads thousands of dates: reading the characters beats a regular expression's
+ * match arrays and substrings.
+ */
+function digitsAt(value: string, at: number, length: number): number {
+  let n = 0;
+  for (let i = at; i < at + length; i++) {
+    const c = value.charCodeAt(i) - 48;
+    if (c < 0 || c > 9) return -1;
+    n = n * 10 + c;
+  }
+  return n;
+}
+
+/** 'YYYY-MM' (exactly: four digits, a hyphen, two digits) as numbers, unchecked beyond that; null otherwise. */
+function monthDigits(value: string, length: number): YearMonth | null {
+  if (value.length !== length || value.charCodeAt(4) !== 45) return null;
+  const year = digitsAt(value, 0, 4);
+  const month = digitsAt(value, 5, 2);
+  return year < 0 || month < 0 ? null : { year, month };
+}
 
 /** Leap year in the Gregorian calendar, e.g. isLeapYear(2028) → true, isLeapYear(2100) → false. */
 export function isLeapYear(year: number): boolean {
@@ -43,20 +63,16 @@ function daysIn(year: number, month: number): number {
 }
 
 function splitMonth(value: string): YearMonth | null {
-  const m = MONTH_RE.exec(value);
-  if (!m) return null;
-  const year = Number(m[1]);
-  const month = Number(m[2]);
-  if (year < 1 || month < 1 || month > 12) return null;
-  return { year, month };
+  const ym = monthDigits(value, 7);
+  if (!ym || ym.year < 1 || ym.month < 1 || ym.month > 12) return null;
+  return ym;
 }
 
 function splitDate(value: string): YearMonthDay | null {
-  const m = DATE_RE.exec(value);
-  if (!m) return null;
-  const year = Number(m[1]);
-  const month = Number(m[2]);
-  const day = Number(m[3]);
+  const ym = monthDigits(value, 10);
+  if (!ym || value.charCodeAt(7) !== 45) return null;
+  const { year, month } = ym;
+  const day = digitsAt(value, 8, 2);
   if (year < 1 || month < 1 || month > 12 || day < 1 || day > daysIn(year, month)) return null;
   return { year, month, day };
 }
@@ -90,11 +106,43 @@ export function isDate(value: unknown): value is string {
  */
 export function todayIn(timeZone: string, now: Date = new Date()): string {
   try {
-    // en-CA writes dates as YYYY-MM-DD.
-    return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(now);
+    return dayFormat(timeZone).format(now);
   } catch {
     return now.toISOString().slice(0, 10);
   }
+}
+
+/**
+ * One formatter per zone, kept: making an Intl.DateTimeFormat costs far more than formatting with
+ * it, and a share request asks for "today" several times. Only zones the runtime knows get in
+ * (an unknown one throws before it is kept), so the map holds at most the runtime's zone list.
+ */
+const dayFormats = new Map<string, Intl.DateTimeFormat>();
+
+function dayFormat(timeZone: string): Intl.DateTimeFormat {
+  let f = dayFormats.get(timeZone);
+  if (!f) {
+    // en-CA writes dates as YYYY-MM-DD.
+    f = new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' });
+    dayFormats.set(timeZone, f);
+  }
+  return f;
+}
+
+/**
+ * The month index (year × 12 + month − 1, as monthIndex) of a 'YYYY-MM-DD' date, checked as
+ * parseDate checks it but without making an object: the share report asks for every entry,
+ * e.g. dateMonthIndex('2026-11-30') → 24322. Throws RangeError for an impossible date.
+ */
+export function dateMonthIndex(value: string): number {
+  if (typeof value === 'string' && value.length === 10 && value.charCodeAt(4) === 45 && value.charCodeAt(7) === 45) {
+    const year = digitsAt(value, 0, 4);
+    const month = digitsAt(value, 5, 2);
+    const day = digitsAt(value, 8, 2);
+    if (year >= 1 && month >= 1 && month <= 12 && day >= 1 && day <= daysIn(year, month)) return year * 12 + (month - 1);
+  }
+  parseDate(value); // throws its sentence
+  return NaN;
 }
 
 /** Year, month and day of a 'YYYY-MM-DD' string, e.g. parseDate('2026-04-30'). Throws RangeError for an impossible date. */

@@ -141,22 +141,34 @@ export function personMonthNeeds<K extends NutrientKey>(person: Person, month: s
  */
 export function monthlyNeedDetails<K extends NutrientKey>(people: readonly Person[], month: string, keys: readonly K[], memo?: NeedMemo): Record<K, MonthNeed> {
   daysInMonth(month); // validates the month even for an empty household
-  const perPerson = people.map((person) => personMonthDetails(person, month, keys, memo)).filter((d) => d !== 'absent');
+  const perPerson: Record<K, PersonMonthNeed>[] = [];
+  for (const person of people) {
+    const d = personMonthDetails(person, month, keys, memo);
+    if (d !== 'absent') perPerson.push(d);
+  }
   const out = {} as Record<K, MonthNeed>;
+  // Plain loops, people in order (the same sums as adding their needs one by one): a report asks for every month.
   for (const key of keys) {
-    const known = perPerson.map((d) => d[key]).filter((n) => n !== null);
-    const withoutValue = perPerson.length - known.length;
-    if (perPerson.length > 0 && known.length === 0) {
+    let known = 0;
+    let ranged = false;
+    let need = 0;
+    let low = 0;
+    let high = 0;
+    for (const d of perPerson) {
+      const n = d[key];
+      if (n === null) continue;
+      known += 1;
+      if (n.high !== null) ranged = true;
+      need += n.need;
+      low += n.low;
+      high += n.high ?? n.need;
+    }
+    const withoutValue = perPerson.length - known;
+    if (perPerson.length > 0 && known === 0) {
       out[key] = { need: null, needLow: null, needHigh: null, peopleWithoutValue: withoutValue };
       continue;
     }
-    const ranged = known.some((n) => n.high !== null);
-    out[key] = {
-      need: known.reduce((sum, n) => sum + n.need, 0),
-      needLow: ranged ? known.reduce((sum, n) => sum + n.low, 0) : null,
-      needHigh: ranged ? known.reduce((sum, n) => sum + (n.high ?? n.need), 0) : null,
-      peopleWithoutValue: withoutValue,
-    };
+    out[key] = { need, needLow: ranged ? low : null, needHigh: ranged ? high : null, peopleWithoutValue: withoutValue };
   }
   return out;
 }

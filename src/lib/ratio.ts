@@ -9,8 +9,8 @@
  * FAO states the ratio in percent: ssrPercent returns that; ssrFraction the same ÷ 100, which is
  * what computeShare's `ratio` holds so that every share in the report is a fraction.
  */
-import { listMonths, monthIndex, parseDate } from './months';
-import type { FoodEntry } from './allocate';
+import { dateMonthIndex, listMonths, monthIndex } from './months';
+import { shareIndexes, type FoodEntry } from './allocate';
 import type { NutrientKey } from './nutrients';
 
 /**
@@ -53,6 +53,9 @@ interface Flow {
 
 const flow = (): Flow => ({ sum: 0, known: 0, unknown: 0 });
 
+/** FoodEntry.shareAmounts writes unknown as NaN. */
+const nullIfNaN = (a: number): number | null => (Number.isNaN(a) ? null : a);
+
 function add(f: Flow, amount: number | null | undefined, grams: number): void {
   if (amount == null) f.unknown += grams;
   else {
@@ -79,16 +82,16 @@ export function selfSufficiency<K extends NutrientKey>(
   const flows = new Map<K, { production: Flow; imports: Flow; exports: Flow }>();
   for (const key of keys) flows.set(key, { production: flow(), imports: flow(), exports: flow() });
   const byKey = keys.map((key) => flows.get(key)!);
+  const places = shareIndexes(keys);
   for (const entry of entries) {
-    const { year, month } = parseDate(entry.date);
-    const index = year * 12 + month - 1;
+    const index = dateMonthIndex(entry.date);
     if (index < start || index > end) continue;
     if (!Number.isFinite(entry.edibleGrams) || entry.edibleGrams < 0) {
       throw new RangeError(`edible grams must be a number ≥ 0, got ${entry.edibleGrams}`);
     }
     for (let k = 0; k < keys.length; k++) {
       const f = byKey[k]!;
-      const amount = entry.nutrients[keys[k]!];
+      const amount = places && entry.shareAmounts ? nullIfNaN(entry.shareAmounts[places[k]!]!) : entry.nutrients[keys[k]!];
       add(entry.source === 'home' ? f.production : f.imports, amount, entry.edibleGrams);
       if (entry.use === 'sold' || entry.use === 'given') add(f.exports, amount, entry.edibleGrams);
     }

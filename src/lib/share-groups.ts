@@ -40,7 +40,8 @@ export type FoodAmounts = Map<number, Partial<Record<ShareNutrientKey, number>>>
 
 /** A group with its source and the nutrients of its edible grams. */
 export interface ShareGroup {
-  key: string;
+  /** What tells the group from every other: source, date, use, spread, method, crop, food and (for a part of a lot) its days. */
+  readonly key: string;
   source: Source;
   month: string;
   /** 'YYYY-MM-DD' the group is eaten from (the month's first day unless spread by day). */
@@ -58,6 +59,8 @@ export interface ShareGroup {
   edibleGrams: number;
   entries: number;
   nutrients: Partial<Record<ShareNutrientKey, number>>;
+  /** The same as numbers in SHARE_NUTRIENTS order, NaN where unknown (FoodEntry.shareAmounts). */
+  shareAmounts?: Float64Array;
 }
 
 /**
@@ -66,40 +69,125 @@ export interface ShareGroup {
  * e.g. shareGroups([{ month: '2026-08', use: 'fresh', foodId: 7, edibleGrams: 500, … }], [], new Map([[7, { energy_kcal: 77 }]]))[0].nutrients → { energy_kcal: 385 }.
  */
 export function shareGroups(home: readonly GroupRow[], bought: readonly GroupRow[], amounts: FoodAmounts, retention?: RetentionTable): ShareGroup[] {
-  const groups = new Map<string, ShareGroup>();
-  collect(home, 'home', amounts, groups, retention);
-  collect(bought, 'bought', amounts, groups, retention);
-  return [...groups.values()];
+  const into: Grouping = { byDate: new Map(), order: [] };
+  const foods = foodShapes(amounts);
+  collect(home, 'home', foods, into, retention);
+  collect(bought, 'bought', foods, into, retention);
+  return into.order;
 }
 
-function collect(rows: readonly GroupRow[], source: Source, amounts: FoodAmounts, into: Map<string, ShareGroup>, retention?: RetentionTable): void {
+/**
+ * Groups found so far: by date (then compared field by field, as the report meets thousands of
+ * rows and a date holds a few groups), and in the order they were first met.
+ */
+interface Grouping {
+  byDate: Map<string, ShareGroup[]>;
+  order: ShareGroup[];
+}
+
+/** A food's known share nutrients (SHARE_NUTRIENTS order) with their amounts per 100 g, and an object of those keys to copy. */
+interface FoodShape {
+  keys: ShareNutrientKey[];
+  /** Each key's place in SHARE_NUTRIENTS. */
+  places: number[];
+  per100g: number[];
+  blank: Partial<Record<ShareNutrientKey, number>>;
+}
+
+const NO_FOOD: FoodShape = { keys: [], places: [], per100g: [], blank: {} };
+
+/**
+ * Each food's shape, worked out once per report: a group's nutrients are then a copy of the
+ * food's blank object filled in place, instead of an object grown key by key thousands of times.
+ */
+function foodShapes(amounts: FoodAmounts): (foodId: number | null) => FoodShape {
+  const shapes = new Map<number, FoodShape>();
+  return (foodId) => {
+    if (foodId == null) return NO_FOOD;
+    let shape = shapes.get(foodId);
+    if (!shape) {
+      const per100g = amounts.get(foodId);
+      shape = { keys: [], places: [], per100g: [], blank: {} };
+      for (const [place, k] of SHARE_NUTRIENTS.entries()) {
+        const a = per100g?.[k];
+        if (a === undefined) continue;
+        shape.keys.push(k);
+        shape.places.push(place);
+        shape.per100g.push(a);
+        shape.blank[k] = 0;
+      }
+      shapes.set(foodId, shape);
+    }
+    return shape;
+  };
+}
+
+/** A group as collect() makes it; its key is written out only when asked for. */
+class Group implements ShareGroup {
+  month: string;
+  use: Use;
+  spread: number;
+  cropId: number | null;
+  foodId: number | null;
+  name: string;
+  grams: number;
+  edibleGrams: number;
+  entries: number;
+  nutrients: Partial<Record<ShareNutrientKey, number>> = {};
+  shareAmounts?: Float64Array;
+
+  constructor(
+    public source: Source,
+    r: GroupRow,
+    public date: string,
+    public preserveMethod: PreserveMethod | null,
+    public eatenFrom: string | null,
+    public until: string | null,
+  ) {
+    this.month = r.month;
+    this.use = r.use;
+    this.spread = r.spread;
+    this.cropId = r.cropId;
+    this.foodId = r.foodId;
+    this.name = r.name ?? '';
+    this.grams = r.grams;
+    this.edibleGrams = r.edibleGrams;
+    this.entries = r.entries;
+  }
+
+  get key(): string {
+    const part = this.until ? `|${this.eatenFrom}|${this.until}` : '';
+    return `${this.source}|${this.date}|${this.use}|${this.spread}|${this.preserveMethod ?? ''}|${this.cropId ?? ''}|${this.foodId ?? ''}${part}`;
+  }
+}
+
+function collect(rows: readonly GroupRow[], source: Source, foodShape: (foodId: number | null) => FoodShape, into: Grouping, retention?: RetentionTable): void {
   for (const r of rows) {
     const date = r.date ?? `${r.month}-01`;
     const method = r.use === 'preserved' ? (r.preserveMethod ?? null) : null;
     const eatenFrom = r.until ? (r.eatenFrom ?? date) : null;
     const until = r.until ?? null;
-    const key = `${source}|${date}|${r.use}|${r.spread}|${method ?? ''}|${r.cropId ?? ''}|${r.foodId ?? ''}${until ? `|${eatenFrom}|${until}` : ''}`;
-    let g = into.get(key);
+    const cropId = r.cropId ?? null;
+    const foodId = r.foodId ?? null;
+    // One group per source, date, use, spread, method, crop, food and (for a part of a lot with
+    // larder records) the days it is eaten over.
+    let sameDate = into.byDate.get(date);
+    if (!sameDate) into.byDate.set(date, (sameDate = []));
+    let g = sameDate.find(
+      (x) =>
+        x.cropId === cropId &&
+        x.foodId === foodId &&
+        x.source === source &&
+        x.use === r.use &&
+        x.spread === r.spread &&
+        x.preserveMethod === method &&
+        (x.until || null) === (until || null) &&
+        (x.until ? x.eatenFrom : null) === (until ? eatenFrom : null),
+    );
     if (!g) {
-      g = {
-        key,
-        source,
-        month: r.month,
-        date,
-        use: r.use,
-        spread: r.spread,
-        preserveMethod: method,
-        eatenFrom,
-        until,
-        cropId: r.cropId,
-        foodId: r.foodId,
-        name: r.name ?? '',
-        grams: r.grams,
-        edibleGrams: r.edibleGrams,
-        entries: r.entries,
-        nutrients: {},
-      };
-      into.set(key, g);
+      g = new Group(source, r, date, method, eatenFrom, until);
+      sameDate.push(g);
+      into.order.push(g);
     } else {
       // Only the parts of lots with larder records can meet an existing group (SQL groups are distinct).
       g.grams += r.grams;
@@ -107,14 +195,33 @@ function collect(rows: readonly GroupRow[], source: Source, amounts: FoodAmounts
       g.entries += r.entries;
     }
     // A nutrient the food has no row for stays missing: unknown, never zero.
-    const per100g = r.foodId == null ? undefined : amounts.get(r.foodId);
-    const nutrients: Partial<Record<ShareNutrientKey, number>> = {};
-    for (const k of SHARE_NUTRIENTS) {
-      const a = per100g?.[k];
-      if (a !== undefined) nutrients[k] = (g.edibleGrams * a) / 100;
+    const shape = foodShape(r.foodId);
+    const nutrients = { ...shape.blank };
+    const amounts = new Float64Array(SHARE_NUTRIENTS.length).fill(NaN);
+    let notANumber = false;
+    for (let i = 0; i < shape.keys.length; i++) {
+      const v = (g.edibleGrams * shape.per100g[i]!) / 100;
+      nutrients[shape.keys[i]!] = v;
+      amounts[shape.places[i]!] = v;
+      if (Number.isNaN(v)) notANumber = true;
     }
-    g.nutrients = retention ? (applyRetention(g, nutrients, retention) as Partial<Record<ShareNutrientKey, number>>) : nutrients;
+    const retained = retention ? (applyRetention(g, nutrients, retention) as Partial<Record<ShareNutrientKey, number>>) : nutrients;
+    g.nutrients = retained;
+    // Retention made new values (a preserved lot): read them back; otherwise the numbers are those just written.
+    g.shareAmounts = retained === nutrients && !notANumber ? amounts : shareAmountsOf(retained, shape);
   }
+}
+
+/** A group's nutrients as FoodEntry.shareAmounts; none when a value is not a number (the share code then refuses it by key). */
+function shareAmountsOf(nutrients: Partial<Record<ShareNutrientKey, number>>, shape: FoodShape): Float64Array | undefined {
+  const out = new Float64Array(SHARE_NUTRIENTS.length).fill(NaN);
+  for (let i = 0; i < shape.keys.length; i++) {
+    const v = nutrients[shape.keys[i]!];
+    if (v === undefined) continue;
+    if (Number.isNaN(v)) return undefined;
+    out[shape.places[i]!] = v;
+  }
+  return out;
 }
 
 /** The distinct reference foods behind some rows or groups, e.g. [{ foodId: 3 }, { foodId: 3 }, { foodId: null }] → [3]. */
@@ -135,15 +242,20 @@ export function contributorId(g: Pick<ShareGroup, 'cropId' | 'foodId'>): string 
  * first day (fresh food and a spread of one month count wholly in their month).
  */
 export function groupEntry(g: ShareGroup): CropEntry {
-  return {
+  const e: CropEntry = {
     date: g.date,
     use: g.use,
     source: g.source,
     spreadMonths: g.spread,
-    ...(g.until ? { eatenFrom: g.eatenFrom, until: g.until } : {}),
     edibleGrams: g.edibleGrams,
     nutrients: g.nutrients,
     cropId: contributorId(g),
     name: g.name || 'Unnamed harvest',
   };
+  if (g.until) {
+    e.eatenFrom = g.eatenFrom;
+    e.until = g.until;
+  }
+  if (g.shareAmounts) e.shareAmounts = g.shareAmounts;
+  return e;
 }

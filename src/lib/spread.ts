@@ -48,7 +48,7 @@ const KNOWN_MAX = 20_000;
  * spreadByDay('2026-11-30', 3) → Nov 1/90, Dec 31/90, Jan 31/90, Feb 27/90 (30 Nov to 28 Feb, 90 days);
  * spreadByDay('2026-07-14', 1) → [{ offset: 0, fraction: 1 }].
  */
-export function spreadByDay(date: string, spreadMonths: number): SpreadPart[] {
+export function spreadByDay(date: string, spreadMonths: number): readonly SpreadPart[] {
   if (!Number.isInteger(spreadMonths) || spreadMonths < 1) {
     throw new RangeError(`spreadMonths must be a whole number of months from 1, got ${spreadMonths}`);
   }

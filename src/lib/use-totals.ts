@@ -4,7 +4,7 @@
  * Energy follows the share code's rule for unknown values (knownSum in shares.ts).
  */
 import { addEntryPart, emptySums, USES, type NutrientSums, type Use } from './allocate';
-import { groupEntry, type ShareGroup } from './share-groups';
+import type { ShareGroup } from './share-groups';
 import type { UseTotal } from './share-types';
 import { knownSum } from './shares';
 
@@ -22,7 +22,7 @@ export function useTotals(groups: readonly ShareGroup[], from: string, to: strin
     t.total.grams += g.grams;
     t.total.edibleGrams += g.edibleGrams;
     t.total.entries += g.entries;
-    addEntryPart(t.energy, groupEntry(g), 'energy_kcal', 1);
+    addEntryPart(t.energy, { date: g.date, source: g.source, edibleGrams: g.edibleGrams, nutrients: g.nutrients }, 'energy_kcal', 1);
   }
   return [...totals.values()].map(({ total, energy }) => ({
     ...total,

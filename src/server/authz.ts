@@ -3,12 +3,13 @@
  * URL (404 — its existence is not revealed), role allowing the action (403).
  */
 import type { APIContext, APIRoute } from 'astro';
-import { and, eq } from 'drizzle-orm';
-import { getDb } from '@/db/client';
-import { households, memberships, type Household, type Role } from '@/db/schema';
+import { and, eq, sql, type SQL } from 'drizzle-orm';
+import { getDb, preparedOnce } from '@/db/client';
+import { households, memberships, session, user, type Household, type Role } from '@/db/schema';
 import { roleAllows, type Access } from '@/lib/household-schemas';
 import { parseRouteId } from '@/lib/route-id';
 import { HttpError, handle } from './http';
+import { currentSession, putSession, requestSession, sessionColumns, sessionCookieToken, type SessionRow } from './session-lookup';
 
 export interface HouseholdAccess {
   userId: string;
@@ -25,22 +26,57 @@ export function requireUser(ctx: Pick<APIContext, 'locals'>): { id: string; emai
   return u;
 }
 
-/** Resolves the household from its id and checks the caller's membership and role. */
-export async function householdAccess(userId: string, householdIdParam: string | undefined, access: Access): Promise<HouseholdAccess> {
-  const id = parseRouteId(householdIdParam);
+/**
+ * Columns a route reads in the gate's own query (householdRouteWith): subqueries that may use the
+ * placeholders `householdId` and those the route gives values for.
+ */
+export type GateColumns = Record<string, SQL>;
+/** The values of such columns as the query answers them. */
+export type GateValues<X extends GateColumns> = { [K in keyof X]: X[K] extends SQL<infer T> ? T : never };
+
+/** A household id from the URL (digits only, see parseRouteId), else 404. */
+function householdIdOf(param: string | undefined): number {
+  const id = parseRouteId(param);
   if (id === null) throw new HttpError(404, 'not_found', 'No such household.');
-  const rows = await getDb()
-    .select({ household: households, role: memberships.role })
-    .from(memberships)
-    .innerJoin(households, eq(households.id, memberships.householdId))
-    .where(and(eq(memberships.householdId, id), eq(memberships.userId, userId)))
-    .limit(1);
-  const row = rows[0];
+  return id;
+}
+
+/** The gate's one query (the membership with its household, and any extra columns), prepared once. */
+function gateQuery<X extends GateColumns>(columns: X) {
+  return preparedOnce((db) =>
+    db
+      .select({ household: households, role: memberships.role, ...columns })
+      .from(memberships)
+      .innerJoin(households, eq(households.id, memberships.householdId))
+      .where(and(eq(memberships.householdId, sql.placeholder('householdId')), eq(memberships.userId, sql.placeholder('userId'))))
+      .limit(1)
+      .prepare(),
+  );
+}
+
+/** Runs a gate query for a user and household and checks the membership and role. */
+async function gate<X extends GateColumns>(
+  query: ReturnType<typeof gateQuery<X>>,
+  userId: string,
+  id: number,
+  access: Access,
+  values: Record<string, unknown> = {},
+): Promise<{ access: HouseholdAccess; values: GateValues<X> }> {
+  const rows = await query().execute({ ...values, householdId: id, userId });
+  const row = rows[0] as ({ household: Household; role: Role } & GateValues<X>) | undefined;
   if (!row) throw new HttpError(404, 'not_found', 'No such household.');
   if (!roleAllows(row.role, access)) {
     throw new HttpError(403, 'forbidden', `Your role (${row.role}) cannot do this in this household.`);
   }
-  return { userId, household: row.household, role: row.role };
+  const { household, role, ...rest } = row;
+  return { access: { userId, household, role }, values: rest as unknown as GateValues<X> };
+}
+
+const plainGate = gateQuery({});
+
+/** Resolves the household from its id and checks the caller's membership and role. */
+export async function householdAccess(userId: string, householdIdParam: string | undefined, access: Access): Promise<HouseholdAccess> {
+  return (await gate(plainGate, userId, householdIdOf(householdIdParam), access)).access;
 }
 
 /**
@@ -80,15 +116,52 @@ async function householdExists(id: number): Promise<boolean> {
 }
 
 export function householdRoute(access: Access, fn: (ctx: APIContext, a: HouseholdAccess) => Promise<Response> | Response, param = 'id'): APIRoute {
+  return householdRouteWith(access, { columns: {}, values: () => ({}) }, (ctx, a) => fn(ctx, a), param);
+}
+
+/**
+ * householdRoute for a handler that reads a little more about the household before anything else
+ * (the share endpoint's stored answer): `extra.columns` (subqueries on the placeholder
+ * `householdId` and on those `extra.values` gives per request) are read in the gate's own query,
+ * so they cost no round trip of their own. For anyone the gate refuses, nothing of them is read.
+ *
+ * The gate also reads the session (the middleware leaves it to it on these routes): the session,
+ * its user, the membership and the household in one query. A session better-auth must see
+ * (expired, due for refresh, unknown), a missing cookie or an id that cannot be a household's go
+ * the two-step way: the session as the middleware reads it, then the membership.
+ */
+export function householdRouteWith<X extends GateColumns>(
+  access: Access,
+  extra: { columns: X; values: (ctx: APIContext) => Record<string, unknown> },
+  fn: (ctx: APIContext, a: HouseholdAccess, values: GateValues<X>) => Promise<Response> | Response,
+  param = 'id',
+): APIRoute {
+  const plain = gateQuery(extra.columns);
+  const withSession = sessionGateQuery(extra.columns);
+  const names = Object.keys(extra.columns);
   const route = handle(async (ctx: APIContext) => {
-    const user = requireUser(ctx);
-    const a = await householdAccess(user.id, ctx.params[param], access);
+    let passed: { access: HouseholdAccess; values: GateValues<X> } | null = null;
+    if (ctx.locals.sessionWithGate) {
+      const token = await sessionCookieToken(ctx.request.headers);
+      const id = token ? parseRouteId(ctx.params[param]) : null;
+      if (token && id !== null) {
+        const [row] = (await withSession().execute({ ...extra.values(ctx), householdId: id, token })) as (SessionRow & { role: Role | null; household: Household | null } & Record<string, unknown>)[];
+        const s = await currentSession(row);
+        if (s && row) {
+          putSession(ctx.locals, s);
+          passed = checked(row, s.user.id, access, names);
+        }
+      }
+      if (!passed) putSession(ctx.locals, await requestSession(ctx.request.headers));
+    }
+    passed ??= await gate(plain, requireUser(ctx).id, householdIdOf(ctx.params[param]), access, extra.values(ctx));
+    const { access: a, values } = passed;
     // A write refused because the household was deleted meanwhile (its crop "does not exist", a
     // foreign key failed…) is answered for what happened: the household is gone.
     const gone = async () => !SAFE_METHODS.has(ctx.request.method) && !(await householdExists(a.household.id));
     let response: Response;
     try {
-      response = await fn(ctx, a);
+      response = await fn(ctx, a, values);
     } catch (e) {
       if (await gone()) throw new HttpError(404, 'not_found', 'No such household: it was deleted.');
       throw e;
@@ -98,4 +171,28 @@ export function householdRoute(access: Access, fn: (ctx: APIContext, a: Househol
   });
   Object.defineProperty(route, GUARDED, { value: access });
   return route;
+}
+
+/** The gate with the session: the session and its user, the membership and household if any, and the extra columns (read for members only). */
+function sessionGateQuery<X extends GateColumns>(columns: X) {
+  const forMembers = Object.fromEntries(Object.entries(columns).map(([name, column]) => [name, sql`IF(${memberships.role} IS NULL, NULL, ${column})`]));
+  return preparedOnce((db) =>
+    db
+      .select({ ...sessionColumns, role: memberships.role, household: households, ...forMembers })
+      .from(session)
+      .innerJoin(user, eq(user.id, session.userId))
+      .leftJoin(memberships, and(eq(memberships.userId, session.userId), eq(memberships.householdId, sql.placeholder('householdId'))))
+      .leftJoin(households, eq(households.id, memberships.householdId))
+      .where(eq(session.token, sql.placeholder('token')))
+      .limit(1)
+      .prepare(),
+  );
+}
+
+/** The membership and role of a gate row that read the session too: 404 not a member, 403 role too low. */
+function checked<X extends GateColumns>(row: { role: Role | null; household: Household | null } & Record<string, unknown>, userId: string, access: Access, names: string[]) {
+  if (!row.role || !row.household) throw new HttpError(404, 'not_found', 'No such household.');
+  if (!roleAllows(row.role, access)) throw new HttpError(403, 'forbidden', `Your role (${row.role}) cannot do this in this household.`);
+  const values = Object.fromEntries(names.map((n) => [n, row[n]])) as GateValues<X>;
+  return { access: { userId, household: row.household, role: row.role }, values };
 }

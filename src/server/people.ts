@@ -2,8 +2,8 @@
  * People who eat in a household, in the database. Every query is scoped by the household id, so a
  * person of another household is simply not found (the route answers 404).
  */
-import { and, asc, eq } from 'drizzle-orm';
-import { getDb } from '@/db/client';
+import { and, asc, eq, sql } from 'drizzle-orm';
+import { getDb, preparedOnce } from '@/db/client';
 import { people, type Person } from '@/db/schema';
 import type { PersonJson } from '@/lib/api-types';
 import { todayIn } from '@/lib/months';
@@ -49,9 +49,13 @@ export function currentMonth(timeZone: string, now: Date = new Date()): string {
   return monthOf(todayIn(timeZone, now));
 }
 
-/** Everyone who eats in the household, by name. */
+const peopleOf = preparedOnce((db) =>
+  db.select().from(people).where(eq(people.householdId, sql.placeholder('householdId'))).orderBy(asc(people.name), asc(people.id)).prepare(),
+);
+
+/** Everyone who eats in the household, by name (prepared once: every share report asks). */
 export async function listPeople(householdId: number): Promise<Person[]> {
-  return getDb().select().from(people).where(eq(people.householdId, householdId)).orderBy(asc(people.name), asc(people.id));
+  return peopleOf().execute({ householdId });
 }
 
 /** One person of the household, or a 404 when the id is not one of its people. */

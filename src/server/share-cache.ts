@@ -1,71 +1,109 @@
 /**
  * Stored share answers: the JSON of GET …/share as it was sent, kept in share_cache per household
- * and a key naming everything else it rests on (range, current month, zone, records start, creation
- * date, build). An answer is valid while the household's share version — stamped anew by every
- * statement that writes its entries, larder records, crops or people, by triggers in the writer's transaction
- * (drizzle/0009_share_rollup.sql) — and the reference datasets' revision (one more on every food
- * reload) are the ones stored beside it. One query looks an answer up with both; a valid one is
- * sent as stored, without parsing or writing JSON again. Nothing lives in process memory, so every
- * app server sees the same answers and the same invalidation.
+ * and a key naming the request as asked (its range, or none for the default, and the build),
+ * beside the context it was worked out in (the range that meant, current month, zone, records
+ * start, creation date). An answer is valid while its context is still the household's, and the
+ * household's share version — stamped anew by every statement that writes its entries, larder
+ * records, crops or people, by triggers in the writer's transaction (drizzle/0009_share_rollup.sql)
+ * — and the reference datasets' revision (one more on every food reload) are the ones stored
+ * beside it. The key needs nothing but the URL, so the lookup rides on the household gate's own
+ * query (storedAnswerColumns, read by householdRouteWith in authz.ts): a valid answer costs one
+ * query after the session and is sent as stored, without parsing or writing JSON again. Nothing
+ * lives in process memory, so every app server sees the same answers and the same invalidation.
  *
  * The version is read before the report is worked out: a write that lands meanwhile leaves the new
  * answer labelled with the older version, so it is never served after that write. A household with
  * no version row yet (nothing written since migration 0009) has the version ''.
  */
 import { createHash, randomUUID } from 'node:crypto';
-import { sql } from 'drizzle-orm';
-import { getDb } from '@/db/client';
-import { shareCache } from '@/db/schema';
-import { currentMonth } from './people';
+import { and, eq, ne, sql, type SQL } from 'drizzle-orm';
+import { getDb, getPool } from '@/db/client';
+import { datasets, shareCache, shareVersions } from '@/db/schema';
 import { householdShare, type ShareHousehold } from './share-data';
 
 /** Set at build time (astro.config.mjs); from sources each process gets its own, so no answer outlives its code. */
 declare const __SELFSOWN_BUILD__: string | undefined;
 const BUILD = typeof __SELFSOWN_BUILD__ === 'string' ? __SELFSOWN_BUILD__ : `source-${randomUUID()}`;
 
-/** The key of an answer: everything besides the household's records and the reference foods that it rests on. */
-export function answerKey(household: ShareHousehold, from: string, to: string, now: Date): string {
-  const parts = [from, to, currentMonth(household.timezone, now), household.timezone, household.recordsSince ?? '', household.createdAt.toISOString(), BUILD];
-  return createHash('sha256').update(parts.join('|')).digest('base64url');
+/**
+ * The key of a request: its range as asked and the build, e.g. '2026-01|2026-12|<build>' ('||<build>'
+ * for the default range). Unchecked: a bad range is refused before anything is stored under it, and
+ * a key too long for the column is hashed (it can only miss).
+ */
+export function requestKey(from: string | null, to: string | null): string {
+  const key = `${from ?? ''}|${to ?? ''}|${BUILD}`;
+  return key.length <= 190 ? key : createHash('sha256').update(key).digest('base64url');
 }
 
-interface Lookup {
-  body: string | null;
-  version: string;
-  revision: number;
+/** What else an answer rests on besides the household's records and the reference foods (`currentMonth`: now in the household's zone). */
+export function answerContext(household: ShareHousehold, range: { from: string; to: string; currentMonth: string }): string {
+  return [range.from, range.to, range.currentMonth, household.timezone, household.recordsSince ?? '', household.createdAt.toISOString()].join('|');
 }
 
-async function lookup(householdId: number, key: string): Promise<Lookup> {
-  const [rows] = (await getDb().execute(sql`
-    SELECT IF(c.version = COALESCE(v.version, '') AND c.reference_revision = r.revision, c.body, NULL) AS body,
-           COALESCE(v.version, '') AS version, r.revision AS revision
-      FROM (SELECT COALESCE(SUM(revision), 0) AS revision FROM datasets) r
-      LEFT JOIN share_versions v ON v.household_id = ${householdId}
-      LEFT JOIN share_cache c ON c.household_id = ${householdId} AND c.answer_key = ${key}`)) as unknown as [{ body: string | null; version: string; revision: number | string }[]];
-  const r = rows[0]!;
-  return { body: r.body, version: r.version, revision: Number(r.revision) };
+/** The stored answer of a request as the gate's query found it, with the version and revision it read. */
+export interface StoredAnswer {
+  /** The stored JSON (its UTF-8 bytes, sent without decoding) when its version and revision are current, else null. */
+  storedBody: Buffer | null;
+  storedContext: string | null;
+  shareVersion: string;
+  referenceRevision: number | string;
 }
 
-/** Stores an answer and drops the household's answers of other versions (not awaited by the reader). */
-async function store(householdId: number, key: string, found: Lookup, body: string): Promise<void> {
+const householdId = sql.placeholder('householdId');
+const answerKey = sql.placeholder('answerKey');
+const version = sql`COALESCE((SELECT ${shareVersions.version} FROM ${shareVersions} WHERE ${shareVersions.householdId} = ${householdId}), '')`;
+const revision = sql`(SELECT COALESCE(SUM(${datasets.revision}), 0) FROM ${datasets})`;
+const current = sql`FROM ${shareCache} WHERE ${shareCache.householdId} = ${householdId} AND ${shareCache.answerKey} = ${answerKey}
+    AND ${shareCache.version} = ${version} AND ${shareCache.referenceRevision} = ${revision}`;
+
+/**
+ * The lookup as columns of the gate's query (subqueries on constants, evaluated once), on the
+ * placeholders `householdId` and `answerKey` (requestKey).
+ */
+export const storedAnswerColumns: { [K in keyof StoredAnswer]: SQL<StoredAnswer[K]> } = {
+  // As bytes: the answer goes out as it is stored, never decoded into a string and encoded again.
+  storedBody: sql<Buffer | null>`(SELECT CAST(${shareCache.body} AS BINARY) ${current})`,
+  storedContext: sql<string | null>`(SELECT ${shareCache.context} ${current})`,
+  shareVersion: sql<string>`${version}`,
+  referenceRevision: sql<number | string>`${revision}`,
+};
+
+/**
+ * Stores an answer and drops the household's answers of other versions. Written by the builder,
+ * sent as a prepared statement: the body goes as it is (the text protocol escapes every
+ * character of a 500 KB answer first), and only once (the update reads it back with VALUES()).
+ */
+async function store(householdId: number, key: string, found: StoredAnswer, context: string, body: string): Promise<void> {
   const db = getDb();
-  await db
+  const again = (column: typeof shareCache.body | typeof shareCache.version | typeof shareCache.context | typeof shareCache.referenceRevision) => sql`VALUES(${column})`;
+  const insert = db
     .insert(shareCache)
-    .values({ householdId, answerKey: key, version: found.version, referenceRevision: found.revision, body })
-    .onDuplicateKeyUpdate({ set: { version: found.version, referenceRevision: found.revision, body, createdAt: sql`CURRENT_TIMESTAMP` } });
-  await db.execute(sql`DELETE FROM share_cache WHERE household_id = ${householdId} AND version <> ${found.version}`);
+    .values({ householdId, answerKey: key, version: found.shareVersion, referenceRevision: Number(found.referenceRevision), context, body })
+    .onDuplicateKeyUpdate({
+      set: { version: again(shareCache.version), referenceRevision: again(shareCache.referenceRevision), context: again(shareCache.context), body: again(shareCache.body), createdAt: sql`CURRENT_TIMESTAMP` },
+    })
+    .toSQL();
+  const drop = db.delete(shareCache).where(and(eq(shareCache.householdId, householdId), ne(shareCache.version, found.shareVersion))).toSQL();
+  await getPool().execute(insert.sql, insert.params as (string | number)[]);
+  await getPool().execute(drop.sql, drop.params as (string | number)[]);
 }
 
 /**
- * The share report of [from, to] as JSON text: the stored answer when it is still valid, else
- * worked out by householdShare() and stored for the next reader.
- * Throws what householdShare throws (RangeError when the report cannot be computed).
+ * The share report of [from, to] as JSON (text, or the stored bytes): the stored answer `found` by the gate when it is
+ * still valid, else worked out by householdShare() and stored for the next reader (after this
+ * answer has gone out). Throws what householdShare throws (RangeError when it cannot be computed).
  */
-export async function householdShareJson(household: ShareHousehold, from: string, to: string, now: Date = new Date()): Promise<string> {
-  const key = answerKey(household, from, to, now);
-  const found = await lookup(household.id, key);
-  if (found.body !== null) return found.body;
-  const body = JSON.stringify(await householdShare(household, from, to, undefined, now));
-  store(household.id, key, found, body).catch((e: unknown) => console.error('share cache: could not store an answer', e));
+export async function householdShareJson(
+  household: ShareHousehold,
+  range: { from: string; to: string; currentMonth: string },
+  key: string,
+  found: StoredAnswer,
+  now: Date = new Date(),
+): Promise<string | Buffer> {
+  const { from, to } = range;
+  const context = answerContext(household, range);
+  if (found.storedBody !== null && found.storedContext === context) return found.storedBody;
+  const body = JSON.stringify(await householdShare(household, from, to, undefined, now, found.referenceRevision));
+  setImmediate(() => store(household.id, key, found, context, body).catch((e: unknown) => console.error('share cache: could not store an answer', e)));
   return body;
 }

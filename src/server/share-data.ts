@@ -8,16 +8,20 @@
  * triggers keep with every write (share-rollup.ts), so the rows grow with the variety of what was
  * logged, not with the number of weighings; a lot eaten over 2 months or more is grouped by its
  * day instead of its month, because it is spread by day. Lots with larder records are read one by
- * one. Queries go through Drizzle's builder and `sql` templates that name the schema's columns.
+ * one. Queries go through Drizzle's builder and `sql` templates that name the schema's columns;
+ * the hot ones are written once and run as mysql2 gives the rows (raw-query.ts), all at once, and
+ * the foods' nutrients come from those kept at the datasets' revision (food-facts.ts).
  */
-import { and, eq, gte, inArray, lte, min, sql } from 'drizzle-orm';
+import { and, eq, gte, lte, min, sql } from 'drizzle-orm';
 import type { Pool } from 'mysql2/promise';
-import { getDb, type Db } from '@/db/client';
-import { crops, datasets, foodNutrients, foods, harvests, larderOutcomes, purchases, type Household } from '@/db/schema';
+import { getDb, getPool, type Db } from '@/db/client';
+import { crops, foods, harvests, larderOutcomes, purchases, type Household } from '@/db/schema';
 import { ENTRY_LIMITS } from '@/lib/entry-schemas';
-import { lotGroupRows } from '@/lib/larder-share';
+import type { OutcomeRecord } from '@/lib/larder';
+import { lotGroupRows, type OutcomeLot } from '@/lib/larder-share';
+import type { LarderOutcomeKind } from '@/lib/larder-outcomes';
 import { addMonths, daysInMonth, todayIn } from '@/lib/months';
-import { SHARE_NUTRIENTS, type ShareNutrientKey } from '@/lib/nutrients';
+import { SHARE_NUTRIENTS } from '@/lib/nutrients';
 import { needsPerson } from '@/lib/people-schemas';
 import { defaultRecordsSince } from '@/lib/records-start';
 import { foodIdsOf, groupEntry, shareGroups, type FoodAmounts, type GroupRow } from '@/lib/share-groups';
@@ -26,8 +30,9 @@ import { computeShare } from '@/lib/shares';
 import { topCrops } from '@/lib/top-crops';
 import { useTotals } from '@/lib/use-totals';
 import { dbOn } from './db-on';
+import { foodFacts, referenceRevision, type FoodFact } from './food-facts';
+import { rawQuery } from './raw-query';
 import { countsAsFood, cropOfHarvest, foodOfHarvest, harvestNameSql } from './harvest-sql';
-import { outcomesOf } from './larder';
 import { harvestGroupRows, purchaseGroupRows } from './share-rollup';
 import { currentMonth, listPeople, personFields } from './people';
 import { loadRetention } from './retention-file';
@@ -40,41 +45,49 @@ function lastDay(month: string): string {
 const lookback = (from: string) => `${addMonths(from, -ENTRY_LIMITS.maxSpreadMonths)}-01`;
 
 /**
- * The stored and preserved lots with larder records that can fall in [from, to], one by one, each
- * turned into its eaten segments and lost parts (src/lib/larder-share.ts). No lot lasts longer
+ * The stored and preserved lots with larder records that can fall in [from, to], one by one (read
+ * with their records in one query), each turned into its eaten segments and lost parts
+ * (src/lib/larder-share.ts). No lot lasts longer
  * than ENTRY_LIMITS.maxSpreadMonths (larder.ts), so the same look-back as the grouped query holds.
  */
-async function outcomeLotGroups(db: Db, householdId: number, from: string, to: string): Promise<GroupRow[]> {
-  const lots = await db
-    .select({
-      id: harvests.id,
-      date: harvests.date,
-      use: harvests.use,
-      spread: sql<number>`GREATEST(${harvests.spreadMonths}, 1)`.mapWith(Number),
-      preserveMethod: harvests.preserveMethod,
-      cropId: harvests.cropId,
-      foodId: harvests.foodId,
-      name: harvestNameSql(),
-      grams: harvests.grams,
-      edibleGrams: harvests.edibleGrams,
-    })
-    .from(harvests)
-    .leftJoin(crops, cropOfHarvest())
-    .leftJoin(foods, foodOfHarvest())
-    .where(
-      and(
-        eq(harvests.householdId, householdId),
-        gte(harvests.date, lookback(from)),
-        lte(harvests.date, lastDay(to)),
-        countsAsFood(),
-        // Driven from the household's records (a few lots), not by probing every harvest in the range.
-        inArray(harvests.id, db.selectDistinct({ id: larderOutcomes.harvestId }).from(larderOutcomes).where(eq(larderOutcomes.householdId, householdId))),
-      ),
-    );
-  if (lots.length === 0) return [];
-  const outcomes = await outcomesOf(db, householdId, lots.map((l) => l.id));
-  return lots.flatMap(({ id, ...lot }) => lotGroupRows(lot, outcomes.get(id) ?? []));
+async function outcomeLotGroups(pool: Pool, householdId: number, from: string, to: string): Promise<GroupRow[]> {
+  const rows = await lotRecords.run(pool, { householdId, start: lookback(from), end: lastDay(to) });
+  const out: GroupRow[] = [];
+  // One row per lot and record: a lot's rows come together, its records in date order.
+  for (let i = 0; i < rows.length; ) {
+    const { id, date, use, spread, preserveMethod, cropId, foodId, name, grams, edibleGrams } = rows[i]!;
+    const records: OutcomeRecord[] = [];
+    for (; i < rows.length && rows[i]!.id === id; i++) {
+      const r = rows[i]!;
+      records.push({ id: r.outcomeId, kind: r.kind, date: r.outcomeDate, lostFraction: r.lostFraction, until: r.until });
+    }
+    out.push(...lotGroupRows({ date, use, spread, preserveMethod, cropId, foodId, name, grams, edibleGrams }, records));
+  }
+  return out;
 }
+
+/** The lots with larder records and their records, in one query (lot columns repeated per record). */
+const lotRecords = rawQuery<
+  OutcomeLot & { id: number; outcomeId: number; kind: LarderOutcomeKind; outcomeDate: string; lostFraction: number | null; until: string | null }
+>(sql`
+    SELECT ${harvests.id} AS id, ${harvests.date} AS date, ${harvests.use} AS \`use\`, GREATEST(${harvests.spreadMonths}, 1) AS spread,
+           ${harvests.preserveMethod} AS preserveMethod, ${harvests.cropId} AS cropId, ${harvests.foodId} AS foodId,
+           ${harvestNameSql()} AS name, ${harvests.grams} AS grams, ${harvests.edibleGrams} AS edibleGrams,
+           ${larderOutcomes.id} AS outcomeId, ${larderOutcomes.kind} AS kind, ${larderOutcomes.date} AS outcomeDate,
+           ${larderOutcomes.lostFraction} AS lostFraction, ${larderOutcomes.until} AS \`until\`
+      FROM ${larderOutcomes}
+      JOIN ${harvests} ON ${harvests.id} = ${larderOutcomes.harvestId}
+      LEFT JOIN ${crops} ON ${cropOfHarvest()}
+      LEFT JOIN ${foods} ON ${foodOfHarvest()}
+     WHERE ${and(
+       // Driven from the household's records (a few lots), not by probing every harvest in the range.
+       eq(larderOutcomes.householdId, sql.placeholder('householdId')),
+       eq(harvests.householdId, sql.placeholder('householdId')),
+       gte(harvests.date, sql.placeholder('start')),
+       lte(harvests.date, sql.placeholder('end')),
+       countsAsFood(),
+     )}
+     ORDER BY ${harvests.id}, ${larderOutcomes.date}, ${larderOutcomes.id}`);
 
 /** The date of the household's first harvest or purchase, or null when it has logged nothing. */
 async function firstEntryDate(db: Db, householdId: number): Promise<string | null> {
@@ -86,34 +99,14 @@ async function firstEntryDate(db: Db, householdId: number): Promise<string | nul
   return dates.length === 0 ? null : dates.sort()[0]!;
 }
 
-/**
- * The share nutrients of the foods behind the groups, in one query over the distinct foods
- * (a handful), instead of joining every group to its nutrients in SQL.
- */
-async function foodAmounts(db: Db, foodIds: readonly number[]): Promise<FoodAmounts> {
-  const out: FoodAmounts = new Map();
-  if (foodIds.length === 0) return out;
-  const rows = await db
-    .select({ foodId: foodNutrients.foodId, key: foodNutrients.nutrientKey, amount: foodNutrients.amount })
-    .from(foodNutrients)
-    .where(and(inArray(foodNutrients.foodId, [...foodIds]), inArray(foodNutrients.nutrientKey, [...SHARE_NUTRIENTS])));
-  for (const r of rows) {
-    let m = out.get(r.foodId);
-    if (!m) out.set(r.foodId, (m = {}));
-    m[r.key as ShareNutrientKey] = Number(r.amount);
+/** The datasets of the foods behind a report, by slug, each once. */
+function datasetsOf(facts: Map<number, FoodFact>, foodIds: readonly number[]): DatasetRef[] {
+  const bySlug = new Map<string, DatasetRef>();
+  for (const id of foodIds) {
+    const d = facts.get(id)?.dataset;
+    if (d) bySlug.set(`${d.slug}|${d.name}|${d.release}`, d);
   }
-  return out;
-}
-
-/** The food composition datasets the foods come from, by slug. */
-async function datasetsOf(db: Db, foodIds: readonly number[]): Promise<DatasetRef[]> {
-  if (foodIds.length === 0) return [];
-  return db
-    .selectDistinct({ slug: datasets.slug, name: datasets.name, release: datasets.release })
-    .from(foods)
-    .innerJoin(datasets, eq(datasets.id, foods.datasetId))
-    .where(inArray(foods.id, [...foodIds]))
-    .orderBy(datasets.slug);
+  return [...bySlug.values()].sort((a, b) => (a.slug < b.slug ? -1 : a.slug > b.slug ? 1 : 0));
 }
 
 /** What the report needs of a household: its id, zone (for "now"), creation and records start. */
@@ -132,27 +125,41 @@ export async function effectiveRecordsSince(household: ShareHousehold): Promise<
  * `recordsSince`, else the earlier of its creation month and its first entry's month) are not
  * charged; "now" is the household's time zone's.
  * `pool` is for callers with their own pool (the benchmark); the app's shared client otherwise.
+ * `revision` is the datasets' revision when the caller has read it already (the share endpoint's
+ * gate); else it is read beside the groups.
  * Throws RangeError when the range or a person's data cannot be computed.
  */
-export async function householdShare(household: ShareHousehold, from: string, to: string, pool?: Pool, now: Date = new Date()): Promise<ShareResponse> {
+export async function householdShare(
+  household: ShareHousehold,
+  from: string,
+  to: string,
+  pool?: Pool,
+  now: Date = new Date(),
+  revision?: number | string,
+): Promise<ShareResponse> {
   const db = pool ? dbOn(pool) : getDb();
-  const [grouped, withOutcomes, bought, rows, first] = await Promise.all([
-    harvestGroupRows(db, household.id, from, to),
-    outcomeLotGroups(db, household.id, from, to),
-    purchaseGroupRows(db, household.id, from, to),
+  const raw = pool ?? getPool();
+  // Every query at once; the foods' facts come from those kept at the datasets' revision (food-facts.ts).
+  const [grouped, withOutcomes, bought, rows, first, atRevision] = await Promise.all([
+    harvestGroupRows(raw, household.id, from, to),
+    outcomeLotGroups(raw, household.id, from, to),
+    purchaseGroupRows(raw, household.id, from, to),
     listPeople(household.id),
     household.recordsSince ? Promise.resolve(null) : firstEntryDate(db, household.id),
+    revision === undefined ? referenceRevision(raw) : Promise.resolve(Number(revision)),
   ]);
   const home = [...grouped, ...withOutcomes];
   const ids = foodIdsOf([...home, ...bought]);
-  const [amounts, sources] = await Promise.all([foodAmounts(db, ids), datasetsOf(db, ids)]);
+  const facts = await foodFacts(raw, ids, atRevision);
+  const amounts: FoodAmounts = new Map([...facts].map(([id, f]) => [id, f.amounts]));
   const groups = shareGroups(home, bought, amounts, loadRetention());
   const people = rows.map((r) => needsPerson(personFields(r)));
   const recordsSince = household.recordsSince ?? defaultRecordsSince(todayIn(household.timezone, household.createdAt), first);
+  const entries = groups.map(groupEntry);
   const report = computeShare({
     from,
     to,
-    entries: groups.map(groupEntry),
+    entries,
     people,
     nutrients: SHARE_NUTRIENTS,
     recordsSince,
@@ -160,9 +167,9 @@ export async function householdShare(household: ShareHousehold, from: string, to
   });
   return {
     ...report,
-    topCrops: topCrops(groups, from, to),
+    topCrops: topCrops(groups, from, to, entries),
     uses: useTotals(groups, from, to),
     peopleCount: people.length,
-    datasets: sources,
+    datasets: datasetsOf(facts, ids),
   };
 }

@@ -18,7 +18,8 @@ import { addMonths, daysInMonth } from '@/lib/months';
 import { isPreserveMethod } from '@/lib/retention';
 import type { GroupRow } from '@/lib/share-groups';
 import type { Use } from '@/lib/uses';
-import type { Executor } from './entry-input';
+import type { Pool } from 'mysql2/promise';
+import { rawQuery } from './raw-query';
 
 function lastDay(month: string): string {
   return `${month}-${String(daysInMonth(month)).padStart(2, '0')}`;
@@ -36,48 +37,65 @@ const weight = (v: number) => (v > 0 ? v : 0);
 /** The group's crop, in the same household (crop 0 = none). */
 const cropOfGroup = () => and(eq(crops.id, harvestGroups.cropId), eq(crops.householdId, harvestGroups.householdId));
 
+const at = {
+  household: sql.placeholder('householdId'),
+  /** lookback(from): the first day a group can be dated and still be eaten in the range. */
+  start: sql.placeholder('start'),
+  /** lastDay(to) */
+  end: sql.placeholder('end'),
+  /** The range's first day. */
+  first: sql.placeholder('first'),
+  /** period(from) */
+  period: sql.placeholder('period'),
+};
+
+/** The placeholders' values for [from, to]. */
+function rangeValues(householdId: number, from: string, to: string) {
+  return { householdId, start: lookback(from), end: lastDay(to), first: `${from}-01`, period: period(from) };
+}
+
+const harvestGroupsIn = rawQuery<RawGroup>(sql`
+    SELECT ${harvestGroups.day} AS date, ${harvestGroups.use} AS \`use\`, ${harvestGroups.spread} AS spread, ${harvestGroups.preserveMethod} AS preserveMethod,
+           ${harvestGroups.cropId} AS cropId, ${harvestGroups.foodId} AS foodId,
+           COALESCE(NULLIF(CONCAT_WS(', ', ${crops.name}, NULLIF(${crops.variety}, '')), ''), ${foods.name}) AS name,
+           ${harvestGroups.grams} AS grams, ${harvestGroups.edibleGrams} AS edibleGrams, ${harvestGroups.entries} AS entries
+      FROM ${harvestGroups}
+      LEFT JOIN ${crops} ON ${cropOfGroup()}
+      LEFT JOIN ${foods} ON ${foods.id} = ${harvestGroups.foodId} AND (${harvestGroups.cropId} = 0 OR COALESCE(${crops.name}, '') = '')
+     WHERE ${and(
+       eq(harvestGroups.householdId, at.household),
+       gte(harvestGroups.day, at.start),
+       lte(harvestGroups.day, at.end),
+       or(isNull(crops.id), eq(crops.notFood, false)),
+       or(eq(harvestGroups.cropId, 0), isNotNull(crops.id)),
+       or(
+         gte(harvestGroups.day, at.first),
+         // ≤: a lot spread by day from late in a month reaches one month further than its spread.
+         and(inArray(harvestGroups.use, ['stored', 'preserved']), sql`PERIOD_DIFF(${at.period}, DATE_FORMAT(${harvestGroups.day}, '%Y%m')) <= ${harvestGroups.spread}`),
+       ),
+     )}`);
+
 /**
  * Harvest groups whose eating can fall in [from, to] or that are dated in it: dated in the range,
  * or stored/preserved earlier with a spread reaching `from`. Not-food crops never count as food,
- * nor a crop of another household. Names: the crop with its variety, else the food.
+ * nor a crop of another household. Names: the crop with its variety, else the food (joined only
+ * for groups with no crop: a crop always has a name). The report
+ * reads thousands of groups: the query is written once (raw-query.ts) and its rows read as mysql2
+ * gives them.
  */
-export async function harvestGroupRows(db: Executor, householdId: number, from: string, to: string): Promise<GroupRow[]> {
-  const g = harvestGroups;
-  // A `sql` template naming the schema's columns, its rows read as mysql2 gives them: the report
-  // reads thousands of groups, and mapping each row through the query builder cost more than the query.
-  const [rows] = (await db.execute(sql`
-    SELECT ${g.day} AS date, ${g.use} AS \`use\`, ${g.spread} AS spread, ${g.preserveMethod} AS preserveMethod,
-           ${g.cropId} AS cropId, ${g.foodId} AS foodId,
-           COALESCE(NULLIF(CONCAT_WS(', ', ${crops.name}, NULLIF(${crops.variety}, '')), ''), ${foods.name}) AS name,
-           ${g.grams} AS grams, ${g.edibleGrams} AS edibleGrams, ${g.entries} AS entries
-      FROM ${g}
-      LEFT JOIN ${crops} ON ${cropOfGroup()}
-      LEFT JOIN ${foods} ON ${foods.id} = ${g.foodId}
-     WHERE ${and(
-       eq(g.householdId, householdId),
-       gte(g.day, lookback(from)),
-       lte(g.day, lastDay(to)),
-       or(isNull(crops.id), eq(crops.notFood, false)),
-       or(eq(g.cropId, 0), isNotNull(crops.id)),
-       or(
-         gte(g.day, `${from}-01`),
-         // ≤: a lot spread by day from late in a month reaches one month further than its spread.
-         and(inArray(g.use, ['stored', 'preserved']), sql`PERIOD_DIFF(${period(from)}, DATE_FORMAT(${g.day}, '%Y%m')) <= ${g.spread}`),
-       ),
-     )}`)) as unknown as [RawGroup[]];
-  return rows.map((r) => ({
-    month: r.date.slice(0, 7),
-    date: r.date,
-    use: r.use,
-    spread: r.spread,
-    preserveMethod: isPreserveMethod(r.preserveMethod) ? r.preserveMethod : null,
-    cropId: r.cropId === 0 ? null : r.cropId,
-    foodId: r.foodId === 0 ? null : r.foodId,
-    name: r.name,
-    grams: weight(r.grams),
-    edibleGrams: weight(r.edibleGrams),
-    entries: r.entries,
-  }));
+export async function harvestGroupRows(pool: Pool, householdId: number, from: string, to: string): Promise<GroupRow[]> {
+  const rows = await harvestGroupsIn.run(pool, rangeValues(householdId, from, to));
+  // Each row made a GroupRow in place: thousands of rows, no copies.
+  for (const r of rows) {
+    const g = r as unknown as GroupRow;
+    g.month = r.date.slice(0, 7);
+    g.preserveMethod = isPreserveMethod(r.preserveMethod) ? r.preserveMethod : null;
+    g.cropId = r.cropId === 0 ? null : r.cropId;
+    g.foodId = r.foodId === 0 ? null : r.foodId;
+    g.grams = weight(r.grams);
+    g.edibleGrams = weight(r.edibleGrams);
+  }
+  return rows as unknown as GroupRow[];
 }
 
 /** A harvest group as mysql2 reads it (DATE as 'YYYY-MM-DD', see src/db/client.ts). */
@@ -94,18 +112,20 @@ interface RawGroup {
   entries: number;
 }
 
-/** Purchase groups whose eating can fall in [from, to] (bought food is always spread). */
-export async function purchaseGroupRows(db: Executor, householdId: number, from: string, to: string): Promise<GroupRow[]> {
-  const g = purchaseGroups;
-  const [rows] = (await db.execute(sql`
-    SELECT ${g.day} AS date, ${g.spread} AS spread, ${g.foodId} AS foodId, ${g.grams} AS grams, ${g.edibleGrams} AS edibleGrams, ${g.entries} AS entries
-      FROM ${g}
+const purchaseGroupsIn = rawQuery<Omit<RawGroup, 'use' | 'preserveMethod' | 'cropId' | 'name'>>(sql`
+    SELECT ${purchaseGroups.day} AS date, ${purchaseGroups.spread} AS spread, ${purchaseGroups.foodId} AS foodId,
+           ${purchaseGroups.grams} AS grams, ${purchaseGroups.edibleGrams} AS edibleGrams, ${purchaseGroups.entries} AS entries
+      FROM ${purchaseGroups}
      WHERE ${and(
-       eq(g.householdId, householdId),
-       gte(g.day, lookback(from)),
-       lte(g.day, lastDay(to)),
-       or(gte(g.day, `${from}-01`), sql`PERIOD_DIFF(${period(from)}, DATE_FORMAT(${g.day}, '%Y%m')) <= ${g.spread}`),
-     )}`)) as unknown as [Omit<RawGroup, 'use' | 'preserveMethod' | 'cropId' | 'name'>[]];
+       eq(purchaseGroups.householdId, at.household),
+       gte(purchaseGroups.day, at.start),
+       lte(purchaseGroups.day, at.end),
+       or(gte(purchaseGroups.day, at.first), sql`PERIOD_DIFF(${at.period}, DATE_FORMAT(${purchaseGroups.day}, '%Y%m')) <= ${purchaseGroups.spread}`),
+     )}`);
+
+/** Purchase groups whose eating can fall in [from, to] (bought food is always spread). */
+export async function purchaseGroupRows(pool: Pool, householdId: number, from: string, to: string): Promise<GroupRow[]> {
+  const rows = await purchaseGroupsIn.run(pool, rangeValues(householdId, from, to));
   return rows.map((r) => ({
     month: r.date.slice(0, 7),
     date: r.date,

@@ -4,7 +4,8 @@
  * and shopping trips: ≈ 25,000 harvests and 7,500 purchases, six people), one small household (one
  * year, four beds) and 2,000 more small households of a year each — the service case — each with an
  * owner account. Written to its own databases on the private MariaDB: selfsown_bench (everything)
- * and selfsown_bench_small (the small household alone, the "otherwise empty" database). The heavy
+ * and selfsown_bench_small (the small household alone, the "otherwise empty" database; another
+ * name with BENCH_DATABASE, see benchUrls). The heavy
  * household goes in one transaction, the 2,000 in transactions of 50 households.
  * `npm run bench` calls this when the data are missing or of an older layout (BENCH_FRESH=1: always).
  */
@@ -60,12 +61,29 @@ export interface BenchData {
   counts: { harvests: number; purchases: number; crops: number; people: number };
 }
 
-export function benchUrls(): { url: string; smallUrl: string } {
-  const base = testDatabaseUrl().replace(/\/[A-Za-z0-9_]+$/, '');
-  return { url: `${base}/selfsown_bench`, smallUrl: `${base}/selfsown_bench_small` };
+/**
+ * The bench's database name (BENCH_DATABASE, default selfsown_bench); the small and food databases
+ * add _small and _foods. Two checkouts benching on one MariaDB each set their own.
+ */
+export function benchDatabase(): string {
+  const name = process.env.BENCH_DATABASE || 'selfsown_bench';
+  if (!/^[A-Za-z0-9_]+$/.test(name)) throw new Error(`BENCH_DATABASE "${name}" may use only letters, digits and _`);
+  return name;
 }
 
-const markerPath = () => resolve(process.cwd(), '.data', 'bench', 'data.json');
+export function benchUrls(): { url: string; smallUrl: string; foodsUrl: string } {
+  const base = testDatabaseUrl().replace(/\/[A-Za-z0-9_]+$/, '');
+  const name = benchDatabase();
+  return { url: `${base}/${name}`, smallUrl: `${base}/${name}_small`, foodsUrl: `${base}/${name}_foods` };
+}
+
+/** Where the bench keeps its files: .data/bench, or .data/bench/<name> for another BENCH_DATABASE. */
+export function benchDir(): string {
+  const name = benchDatabase();
+  return resolve(process.cwd(), '.data', 'bench', ...(name === 'selfsown_bench' ? [] : [name]));
+}
+
+const markerPath = () => resolve(benchDir(), 'data.json');
 
 /** The data of an earlier `bench:data`, when they are still there and of this layout; else null. */
 export async function existingData(): Promise<BenchData | null> {
@@ -166,7 +184,7 @@ if (isMain(import.meta.url)) {
   const t = Date.now();
   makeBenchData().then(
     (d) => {
-      console.log(`• bench data ready in ${((Date.now() - t) / 1000).toFixed(0)} s (anchor ${d.anchor}); .data/bench/data.json`);
+      console.log(`• bench data ready in ${((Date.now() - t) / 1000).toFixed(0)} s (anchor ${d.anchor}); ${markerPath()}`);
       process.exit(0);
     },
     (e: unknown) => {

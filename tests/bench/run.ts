@@ -1,9 +1,9 @@
 /**
  * npm run bench — the hot paths against the limits of the stack, measured side by side in one run
  * (ratios, since absolute times drift on shared machines), never part of the test suite. Uses its
- * own databases on the private MariaDB (selfsown_bench, selfsown_bench_small, selfsown_bench_foods;
- * made by ./data.ts when missing) and the BUILT app (`astro build` first unless BENCH_NO_BUILD=1),
- * started on free loopback ports. Prints a table and writes .data/bench/latest.json as
+ * own databases on the private MariaDB (selfsown_bench, selfsown_bench_small, selfsown_bench_foods,
+ * or BENCH_DATABASE and its _small and _foods; made by ./data.ts when missing) and the BUILT app (`astro build` first unless BENCH_NO_BUILD=1),
+ * started on free loopback ports. Prints a table and writes .data/bench/latest.json (.data/bench/<BENCH_DATABASE>/ for another name) as
  * [{ name, value, baseline, ratio, target, pass }], each the median of alternating rounds.
  *
  * Rows: share-10y, share-12m, share-growth, share-service (./share.ts), search (./search.ts),
@@ -18,7 +18,7 @@ import { createPool } from '@/db/client';
 import { migrateDatabase } from '@/db/migrate';
 import { run } from '@/cli/processes';
 import { childEnv, loadDotEnv } from '@/server/config';
-import { BENCH_EMAIL, BENCH_PASSWORD, benchUrls, existingData, makeBenchData } from './data';
+import { BENCH_EMAIL, BENCH_PASSWORD, benchDir, benchUrls, existingData, makeBenchData } from './data';
 import { benchImportCsv, benchImportFoods } from './imports';
 import { benchLoad } from './load';
 import { benchPlan } from './plan';
@@ -66,7 +66,7 @@ async function main(): Promise<void> {
     try {
       if (only.has('share')) rows.push(...(await benchShare({ server, smallServer, pool, smallPool, heavyId: data.heavyId, smallId: data.smallId, smallAloneId: data.smallAloneId, anchor: data.anchor, rounds: ROUNDS })));
       if (only.has('search')) rows.push(await benchSearch(server, pool));
-      if (only.has('import-foods')) rows.push(await benchImportFoods(benchUrls().url.replace(/selfsown_bench$/, 'selfsown_bench_foods'), IMPORT_ROUNDS));
+      if (only.has('import-foods')) rows.push(await benchImportFoods(benchUrls().foodsUrl, IMPORT_ROUNDS));
       if (only.has('import-csv')) rows.push(await benchImportCsv(server, pool, data.heavyId, IMPORT_ROUNDS));
       if (only.has('load')) rows.push(...(await benchLoad(server, data.heavyId, LOAD_ROUNDS)));
     } finally {
@@ -77,10 +77,10 @@ async function main(): Promise<void> {
     }
   }
   printTable(rows);
-  const dir = resolve(process.cwd(), '.data', 'bench');
-  mkdirSync(dir, { recursive: true });
-  writeFileSync(resolve(dir, 'latest.json'), JSON.stringify(rows, null, 2) + '\n');
-  console.log(`\n• ${rows.filter((r) => r.pass).length} of ${rows.length} rows pass; .data/bench/latest.json`);
+  const latest = resolve(benchDir(), 'latest.json');
+  mkdirSync(benchDir(), { recursive: true });
+  writeFileSync(latest, JSON.stringify(rows, null, 2) + '\n');
+  console.log(`\n• ${rows.filter((r) => r.pass).length} of ${rows.length} rows pass; ${latest}`);
 }
 
 main().then(

@@ -7,7 +7,7 @@ import { createServer } from 'node:net';
 import { resolve } from 'node:path';
 import type { ChildProcess } from 'node:child_process';
 import { startService, stopService, waitForHttp } from '@/cli/processes';
-import { childEnv, outDir } from '@/server/config';
+import { childEnv, outDir, serverNodeFlags } from '@/server/config';
 
 export interface BenchServer {
   base: string;
@@ -28,8 +28,8 @@ export function freePort(): Promise<number> {
   });
 }
 
-/** Starts the built server on `databaseUrl` and signs the bench account in. */
-export async function startBenchServer(databaseUrl: string, account: { email: string; password: string }): Promise<BenchServer> {
+/** Starts the built server on `databaseUrl` and signs the bench account in; `nodeArgs` go before the entry (e.g. --cpu-prof). */
+export async function startBenchServer(databaseUrl: string, account: { email: string; password: string }, nodeArgs: string[] = []): Promise<BenchServer> {
   const port = await freePort();
   const base = `http://127.0.0.1:${port}`;
   const env = childEnv({
@@ -45,7 +45,7 @@ export async function startBenchServer(databaseUrl: string, account: { email: st
     // One sign-in per run; the rest of the limits as the app has them.
     AUTH_SIGNIN_RATE_LIMIT: '100/60',
   });
-  const child = startService('node', [resolve(outDir(), 'server/entry.mjs')], env, true);
+  const child = startService('node', [...serverNodeFlags(), ...nodeArgs, resolve(outDir(), 'server/entry.mjs')], env, true);
   const stop = () => stopService(child);
   try {
     await waitForHttp(`${base}/`, 60_000, child);

@@ -78,6 +78,13 @@ describe('months', () => {
     expect(isDate('2026-02-29')).toBe(false);
     expect(isDate('2026-04-31')).toBe(false);
     expect(isDate('2026-4-01')).toBe(false);
+    // Exactly four digits, hyphen, two digits, hyphen, two digits: nothing around, no signs or spaces.
+    for (const bad of ['2026-04-1', '2026-04-011', ' 2026-04-01', '2026-04-01\n', '2026-04+01', '+026-04-01', '2026-0a-01', '2026--4-01', '0000-01-01', '2026_04_01']) {
+      expect(isDate(bad), bad).toBe(false);
+    }
+    for (const bad of ['2026-+1', '2026-1 ', ' 026-01', '0000-01', '2026-011']) expect(isMonth(bad), bad).toBe(false);
+    expect(isDate('0001-01-01')).toBe(true);
+    expect(isDate('9999-12-31')).toBe(true);
     expect(monthOf('2026-11-05')).toBe('2026-11');
     expect(() => monthOf('2026-11-31')).toThrow(RangeError);
   });

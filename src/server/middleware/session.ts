@@ -1,22 +1,21 @@
 /**
  * Puts the signed-in user and their session on Astro.locals (both null when signed out), from
- * better-auth's session cookie. Skipped for /api/auth/ (better-auth's own routes) and /_astro/
- * (built assets), where both stay null.
+ * better-auth's session cookie: in one query for a current session (session-lookup.ts), else by
+ * better-auth's getSession. Skipped for /api/auth/ (better-auth's own routes) and /_astro/
+ * (built assets), where both stay null. On /api/households/{id}/… the household gate reads the
+ * session in its own query (authz.ts: one round trip for both), so this step leaves it to the
+ * gate (`sessionWithGate`): every route there is made by householdRoute (the route matrix test).
  */
 import { defineMiddleware } from 'astro:middleware';
-import { getAuth } from '@/server/auth';
+import { putSession, requestSession } from '@/server/session-lookup';
+
+/** Routes whose session the household gate reads. */
+const HOUSEHOLD_API = /^\/api\/households\/[^/]+(\/|$)/;
 
 export const session = defineMiddleware(async (ctx, next) => {
-  ctx.locals.user = null;
-  ctx.locals.session = null;
+  putSession(ctx.locals, null);
   const { pathname } = ctx.url;
-  if (!pathname.startsWith('/api/auth/') && !pathname.startsWith('/_astro/')) {
-    const s = await getAuth().api.getSession({ headers: ctx.request.headers });
-    if (s) {
-      // The site-admin flag is looked up by the admin pages that need it, not on every request.
-      ctx.locals.user = { id: s.user.id, email: s.user.email, name: s.user.name, emailVerified: s.user.emailVerified };
-      ctx.locals.session = { id: s.session.id, userId: s.session.userId, expiresAt: s.session.expiresAt };
-    }
-  }
+  if (HOUSEHOLD_API.test(pathname)) ctx.locals.sessionWithGate = true;
+  else if (!pathname.startsWith('/api/auth/') && !pathname.startsWith('/_astro/')) putSession(ctx.locals, await requestSession(ctx.request.headers));
   return next();
 });

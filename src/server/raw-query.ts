@@ -1,0 +1,32 @@
+/**
+ * A read written once from a Drizzle `sql` template — naming the schema's columns as everywhere
+ * else, with placeholders for what changes per call — and run on a mysql2 pool, its rows as mysql2
+ * gives them. For the share report's hot reads only: building the SQL again and passing every
+ * field of thousands of rows through Drizzle's result hook cost more CPU than the queries
+ * themselves. Rows keep mysql2's types (DATE as 'YYYY-MM-DD', see src/db/client.ts; DECIMAL as
+ * text), so a query here names its columns with the aliases its caller reads.
+ */
+import { fillPlaceholders, type SQL } from 'drizzle-orm';
+import { MySqlDialect } from 'drizzle-orm/mysql-core';
+import type { Pool } from 'mysql2/promise';
+
+const dialect = new MySqlDialect();
+
+export interface RawQuery<Row> {
+  /** The SQL text, written once (placeholders as `?`). */
+  readonly text: string;
+  /** Runs the query on `pool` with the placeholders' values. */
+  run(pool: Pool, values?: Record<string, unknown>): Promise<Row[]>;
+}
+
+/** A query of `template` (sql.placeholder('name') for each value given per call). */
+export function rawQuery<Row>(template: SQL): RawQuery<Row> {
+  const { sql: text, params } = dialect.sqlToQuery(template);
+  return {
+    text,
+    async run(pool, values = {}) {
+      const [rows] = await pool.query(text, fillPlaceholders(params, values));
+      return rows as Row[];
+    },
+  };
+}
