@@ -6,6 +6,7 @@ import {
   bigint,
   boolean,
   char,
+  customType,
   date,
   decimal,
   double,
@@ -472,8 +473,11 @@ export const shareVersions = mysqlTable('share_versions', {
   version: varchar('version', { length: 64 }).notNull(),
 });
 
+/** Bytes as MariaDB's MEDIUMBLOB holds them (up to 16 MB), read and written as Buffers. */
+const mediumblob = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => 'mediumblob' });
+
 /**
- * Share report answers as sent (JSON), by household and a key naming the request as asked (range
+ * Share report answers as sent (JSON; `body_gzip` the same gzip-compressed, for clients that accept it), by household and a key naming the request as asked (range
  * or none, build), with the context they were worked out in (the range it meant, current month,
  * zone, records start, creation, year start); valid while that context is still the household's
  * and the household's share version and the reference datasets' revision are the ones stored beside them.
@@ -489,6 +493,7 @@ export const shareCache = mysqlTable(
     referenceRevision: bigint('reference_revision', { mode: 'number', unsigned: true }).notNull(),
     context: varchar('context', { length: 255 }).notNull().default(''),
     body: mediumtext('body').notNull(),
+    bodyGzip: mediumblob('body_gzip'),
     createdAt: timestamp('created_at').notNull().defaultNow(),
   },
   (t) => [primaryKey({ columns: [t.householdId, t.answerKey] })],

@@ -25,9 +25,9 @@ export function json(body: unknown, status = 200, headers: Record<string, string
 }
 
 /** An answer whose JSON is already written (a stored answer, as text or as its UTF-8 bytes), sent as it is. */
-export function jsonText(text: string | Uint8Array, status = 200): Response {
+export function jsonText(text: string | Uint8Array, status = 200, headers: Record<string, string> = {}): Response {
   // mysql2's Buffer is a Uint8Array; the cast only meets the DOM typing of a Response body.
-  return new Response(text as string | Uint8Array<ArrayBuffer>, { status, headers: { 'content-type': 'application/json; charset=utf-8', 'cache-control': 'no-store' } });
+  return new Response(text as string | Uint8Array<ArrayBuffer>, { status, headers: { 'content-type': 'application/json; charset=utf-8', 'cache-control': 'no-store', ...headers } });
 }
 
 export function errorResponse(status: number, code: string, message: string, fields?: Record<string, string>): Response {

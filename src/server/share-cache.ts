@@ -16,10 +16,15 @@
  * no version row yet (nothing written since migration 0009) has the version ''.
  */
 import { createHash, randomUUID } from 'node:crypto';
+import { promisify } from 'node:util';
+import { gzip as gzipCallback } from 'node:zlib';
 import { and, eq, ne, sql, type SQL } from 'drizzle-orm';
+import type { AnyMySqlColumn } from 'drizzle-orm/mysql-core';
 import { getDb, getPool } from '@/db/client';
 import { datasets, shareCache, shareVersions } from '@/db/schema';
 import { householdShare, type ShareHousehold } from './share-data';
+
+const gzipAsync = promisify(gzipCallback);
 
 /** Set at build time (astro.config.mjs); from sources each process gets its own, so no answer outlives its code. */
 declare const __SELFSOWN_BUILD__: string | undefined;
@@ -44,6 +49,8 @@ export function answerContext(household: ShareHousehold, range: { from: string; 
 export interface StoredAnswer {
   /** The stored JSON (its UTF-8 bytes, sent without decoding) when its version and revision are current, else null. */
   storedBody: Buffer | null;
+  /** 1 when storedBody is the gzip-compressed copy (asked for with `gzip` = 1 and stored), else 0 or null. */
+  storedGzip: number | string | null;
   storedContext: string | null;
   shareVersion: string;
   referenceRevision: number | string;
@@ -51,6 +58,7 @@ export interface StoredAnswer {
 
 const householdId = sql.placeholder('householdId');
 const answerKey = sql.placeholder('answerKey');
+const gzip = sql.placeholder('gzip');
 const version = sql`COALESCE((SELECT ${shareVersions.version} FROM ${shareVersions} WHERE ${shareVersions.householdId} = ${householdId}), '')`;
 const revision = sql`(SELECT COALESCE(SUM(${datasets.revision}), 0) FROM ${datasets})`;
 const current = sql`FROM ${shareCache} WHERE ${shareCache.householdId} = ${householdId} AND ${shareCache.answerKey} = ${answerKey}
@@ -58,11 +66,13 @@ const current = sql`FROM ${shareCache} WHERE ${shareCache.householdId} = ${house
 
 /**
  * The lookup as columns of the gate's query (subqueries on constants, evaluated once), on the
- * placeholders `householdId` and `answerKey` (requestKey).
+ * placeholders `householdId`, `answerKey` (requestKey) and `gzip` (1 when the client accepts it).
  */
 export const storedAnswerColumns: { [K in keyof StoredAnswer]: SQL<StoredAnswer[K]> } = {
-  // As bytes: the answer goes out as it is stored, never decoded into a string and encoded again.
-  storedBody: sql<Buffer | null>`(SELECT CAST(${shareCache.body} AS BINARY) ${current})`,
+  // As bytes: the answer goes out as it is stored, never decoded into a string and encoded again;
+  // compressed when the client takes gzip and the copy is there (a sixth of the bytes to read and send).
+  storedBody: sql<Buffer | null>`(SELECT IF(${gzip} = 1 AND ${shareCache.bodyGzip} IS NOT NULL, ${shareCache.bodyGzip}, CAST(${shareCache.body} AS BINARY)) ${current})`,
+  storedGzip: sql<number | null>`(SELECT ${gzip} = 1 AND ${shareCache.bodyGzip} IS NOT NULL ${current})`,
   storedContext: sql<string | null>`(SELECT ${shareCache.context} ${current})`,
   shareVersion: sql<string>`${version}`,
   referenceRevision: sql<number | string>`${revision}`,
@@ -75,23 +85,34 @@ export const storedAnswerColumns: { [K in keyof StoredAnswer]: SQL<StoredAnswer[
  */
 async function store(householdId: number, key: string, found: StoredAnswer, context: string, body: string): Promise<void> {
   const db = getDb();
-  const again = (column: typeof shareCache.body | typeof shareCache.version | typeof shareCache.context | typeof shareCache.referenceRevision) => sql`VALUES(${column})`;
+  // Compressed once here, on libuv's thread pool, instead of on every request that takes gzip.
+  const bodyGzip = await gzipAsync(body);
+  const again = (column: AnyMySqlColumn) => sql`VALUES(${column})`;
   const insert = db
     .insert(shareCache)
-    .values({ householdId, answerKey: key, version: found.shareVersion, referenceRevision: Number(found.referenceRevision), context, body })
+    .values({ householdId, answerKey: key, version: found.shareVersion, referenceRevision: Number(found.referenceRevision), context, body, bodyGzip })
     .onDuplicateKeyUpdate({
-      set: { version: again(shareCache.version), referenceRevision: again(shareCache.referenceRevision), context: again(shareCache.context), body: again(shareCache.body), createdAt: sql`CURRENT_TIMESTAMP` },
+      set: {
+        version: again(shareCache.version),
+        referenceRevision: again(shareCache.referenceRevision),
+        context: again(shareCache.context),
+        body: again(shareCache.body),
+        bodyGzip: again(shareCache.bodyGzip),
+        createdAt: sql`CURRENT_TIMESTAMP`,
+      },
     })
     .toSQL();
   const drop = db.delete(shareCache).where(and(eq(shareCache.householdId, householdId), ne(shareCache.version, found.shareVersion))).toSQL();
-  await getPool().execute(insert.sql, insert.params as (string | number)[]);
+  await getPool().execute(insert.sql, insert.params as (string | number | Buffer)[]);
   await getPool().execute(drop.sql, drop.params as (string | number)[]);
 }
 
 /**
- * The share report of [from, to] as JSON (text, or the stored bytes): the stored answer `found` by the gate when it is
- * still valid, else worked out by householdShare() and stored for the next reader (after this
- * answer has gone out). Throws what householdShare throws (RangeError when it cannot be computed).
+ * The share report of [from, to] as JSON: the stored answer `found` by the gate when it is still
+ * valid (its bytes; `gzip` when they are the compressed copy the gate was asked for), else worked
+ * out by householdShare() (text, never compressed: that would cost the waiting client) and stored
+ * for the next reader after this answer has gone out. Throws what householdShare throws
+ * (RangeError when it cannot be computed).
  */
 export async function householdShareJson(
   household: ShareHousehold,
@@ -99,11 +120,11 @@ export async function householdShareJson(
   key: string,
   found: StoredAnswer,
   now: Date = new Date(),
-): Promise<string | Buffer> {
+): Promise<{ body: string | Buffer; gzip: boolean }> {
   const { from, to } = range;
   const context = answerContext(household, range);
-  if (found.storedBody !== null && found.storedContext === context) return found.storedBody;
+  if (found.storedBody !== null && found.storedContext === context) return { body: found.storedBody, gzip: Number(found.storedGzip) === 1 };
   const body = JSON.stringify(await householdShare(household, from, to, undefined, now, found.referenceRevision));
   setImmediate(() => store(household.id, key, found, context, body).catch((e: unknown) => console.error('share cache: could not store an answer', e)));
-  return body;
+  return { body, gzip: false };
 }

@@ -1,12 +1,14 @@
 /**
  * The stored share answers (src/server/share-cache.ts), looked up in the household gate's own
  * query by a key of the request as asked: what is stored is what is sent; an answer is kept per
- * range asked; the default range follows the household's year start; and nobody but a member
- * gets one. (Every write that changes an answer is in share-rollup.test.ts.)
+ * range asked; the default range follows the household's year start; a client that takes gzip gets
+ * the stored copy compressed; and nobody but a member gets one. (Every write that changes an answer is in share-rollup.test.ts.)
  */
+import { request, type IncomingHttpHeaders } from 'node:http';
+import { gunzipSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Pool } from 'mysql2/promise';
-import { testPool } from '../support/env';
+import { BASE_URL, testPool } from '../support/env';
 import { foodId, logHarvest, makeCrop } from '../support/entries';
 import { apiAs, householdWithRoles, type RoleFixture } from '../support/users';
 
@@ -44,7 +46,8 @@ describe('stored share answers', () => {
     expect(first.status).toBe(200);
     await storedCount(1);
     // A marker only the stored row holds: were the answer worked out again, it would not be there.
-    await pool.query(`UPDATE share_cache SET body = JSON_SET(body, '$.from', 'stored') WHERE household_id = ?`, [hid]);
+    // (Its gzip copy dropped, so the marked text is what goes out.)
+    await pool.query(`UPDATE share_cache SET body = JSON_SET(body, '$.from', 'stored'), body_gzip = NULL WHERE household_id = ?`, [hid]);
     expect((await share('?from=2025-01&to=2025-12')).body.from).toBe('stored');
     // Another range is another answer; the first stays as stored.
     expect((await share('?from=2025-06&to=2026-05')).body.from).toBe('2025-06');
@@ -69,11 +72,50 @@ describe('stored share answers', () => {
     expect(viewer.body.from).toBe('stored');
   });
 
+  it('sends a stored answer gzip-compressed to a client that accepts gzip, and plain to others', async () => {
+    const path = `/api/households/${hid}/share?from=2024-01&to=2024-12`;
+    const cold = await rawGet(path, { 'accept-encoding': 'gzip, deflate, br, zstd' });
+    // Worked out now: sent plain (compressing would keep the client waiting), then stored both ways.
+    expect(cold.status).toBe(200);
+    expect(cold.headers['content-encoding']).toBeUndefined();
+    expect(cold.headers.vary).toBe('Accept-Encoding');
+    const report = JSON.parse(cold.bytes.toString('utf8'));
+    for (let i = 0; i < 50; i++) {
+      const [rows] = await pool.query('SELECT body_gzip IS NOT NULL AS z FROM share_cache WHERE household_id = ? AND answer_key LIKE ?', [hid, '2024-01|2024-12|%']);
+      if ((rows as { z: number }[])[0]?.z === 1) break;
+      await new Promise((r) => setTimeout(r, 20));
+    }
+    const warm = await rawGet(path, { 'accept-encoding': 'gzip, deflate, br, zstd' });
+    expect(warm.headers['content-encoding']).toBe('gzip');
+    expect(warm.headers.vary).toBe('Accept-Encoding');
+    expect(warm.bytes.length).toBeLessThan(cold.bytes.length / 3);
+    expect(JSON.parse(gunzipSync(warm.bytes).toString('utf8'))).toEqual(report);
+    for (const asked of [undefined, 'identity', 'br, deflate', 'gzip;q=0, *']) {
+      const plain = await rawGet(path, asked === undefined ? {} : { 'accept-encoding': asked });
+      expect(plain.headers['content-encoding'], String(asked)).toBeUndefined();
+      expect(JSON.parse(plain.bytes.toString('utf8'))).toEqual(report);
+    }
+  });
+
   it('refuses a bad range with 400 whether or not an answer is stored', async () => {
     expect((await share('?from=2025-13&to=2025-12')).status).toBe(400);
     expect((await share('?from=2025-13&to=2025-12')).status).toBe(400);
   });
 });
+
+/** One GET as the owner with exactly these headers, its body as the bytes sent (nothing decoded). */
+function rawGet(path: string, headers: Record<string, string>): Promise<{ status: number; headers: IncomingHttpHeaders; bytes: Buffer }> {
+  const url = new URL(path, BASE_URL);
+  return new Promise((resolve, reject) => {
+    const req = request({ host: url.hostname, port: url.port, path: url.pathname + url.search, headers: { cookie: t.owner.cookie, ...headers } }, (res) => {
+      const chunks: Buffer[] = [];
+      res.on('data', (c: Buffer) => chunks.push(c));
+      res.on('end', () => resolve({ status: res.statusCode ?? 0, headers: res.headers, bytes: Buffer.concat(chunks) }));
+    });
+    req.on('error', reject);
+    req.end();
+  });
+}
 
 function ok(r: { status: number; body: unknown }) {
   expect(r.status, JSON.stringify(r.body)).toBe(200);

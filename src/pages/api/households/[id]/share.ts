@@ -1,3 +1,4 @@
+import { acceptsGzip } from '@/lib/accept-encoding';
 import { growingYear } from '@/lib/growing-year';
 import { shareQuery } from '@/lib/share-query';
 import { householdRouteWith } from '@/server/authz';
@@ -11,12 +12,12 @@ const askedKey = (url: URL) => requestKey(url.searchParams.get('from'), url.sear
  * GET /api/households/{id}/share?from=YYYY-MM&to=YYYY-MM: the home share per month and nutrient,
  * totals, the FAO self-sufficiency ratio, the crops that supplied most and the harvest's uses.
  * Without a range: the household's growing year containing today (in its time zone). Answers are
- * stored and sent again until a write changes what they rest on (share-cache.ts); the stored one
- * is looked up in the membership check's own query.
+ * stored and sent again until a write changes what they rest on (share-cache.ts), gzip-compressed
+ * to a client that accepts it; the stored one is looked up in the membership check's own query.
  */
 export const GET = householdRouteWith(
   'read',
-  { columns: storedAnswerColumns, values: (ctx) => ({ answerKey: askedKey(ctx.url) }) },
+  { columns: storedAnswerColumns, values: (ctx) => ({ answerKey: askedKey(ctx.url), gzip: acceptsGzip(ctx.request.headers.get('accept-encoding')) ? 1 : 0 }) },
   async (ctx, a, stored) => {
     const params = ctx.url.searchParams;
     const q = shareQuery.parse({ from: params.get('from') ?? undefined, to: params.get('to') ?? undefined });
@@ -24,7 +25,9 @@ export const GET = householdRouteWith(
     const month = currentMonth(a.household.timezone, now);
     const range = q.from && q.to ? { from: q.from, to: q.to } : growingYear(month, a.household.yearStartMonth);
     try {
-      return jsonText(await householdShareJson(a.household, { ...range, currentMonth: month }, askedKey(ctx.url), stored, now));
+      const answer = await householdShareJson(a.household, { ...range, currentMonth: month }, askedKey(ctx.url), stored, now);
+      // A stored answer goes out compressed to a client that takes gzip (every browser does).
+      return jsonText(answer.body, 200, answer.gzip ? { 'content-encoding': 'gzip', vary: 'Accept-Encoding' } : { vary: 'Accept-Encoding' });
     } catch (e) {
       // The pure code refuses what it cannot count (a person older than the tables, …) with a sentence.
       if (e instanceof RangeError) throw new HttpError(422, 'cannot_compute', e.message);

@@ -1,0 +1,1 @@
+ALTER TABLE `share_cache` ADD `body_gzip` mediumblob;
