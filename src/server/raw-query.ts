@@ -4,11 +4,12 @@
  * gives them. For the share report's hot reads only: building the SQL again and passing every
  * field of thousands of rows through Drizzle's result hook cost more CPU than the queries
  * themselves. Rows keep mysql2's types (DATE as 'YYYY-MM-DD', see src/db/client.ts; DECIMAL as
- * text), so a query here names its columns with the aliases its caller reads.
+ * text), so a query here names its columns with the aliases its caller reads. Sent as prepared
+ * statements: a value is never spliced into the text.
  */
 import { fillPlaceholders, type SQL } from 'drizzle-orm';
 import { MySqlDialect } from 'drizzle-orm/mysql-core';
-import type { Pool } from 'mysql2/promise';
+import type { ExecuteValues, Pool } from 'mysql2/promise';
 
 const dialect = new MySqlDialect();
 
@@ -25,7 +26,9 @@ export function rawQuery<Row>(template: SQL): RawQuery<Row> {
   return {
     text,
     async run(pool, values = {}) {
-      const [rows] = await pool.query(text, fillPlaceholders(params, values));
+      // Binary protocol (a statement prepared once per connection, mysql2 keeps it): numbers
+      // arrive as numbers, not text to parse, the cheaper way for thousands of rows.
+      const [rows] = await pool.execute(text, fillPlaceholders(params, values) as ExecuteValues);
       return rows as Row[];
     },
   };

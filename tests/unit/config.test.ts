@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { authSecret, lettersNow, lettersSchedule, mailConfig, publicOrigin, rateLimitRule, readEnv, testRunConfig } from '@/server/config';
+import { authSecret, lettersNow, lettersSchedule, mailConfig, publicOrigin, rateLimitRule, readEnv, serverNodeFlags, testRunConfig } from '@/server/config';
 
 afterEach(() => {
   vi.unstubAllEnvs();
@@ -26,6 +26,17 @@ describe('the environment schema', () => {
     expect(env.SMTP_URL).toBeUndefined();
     expect(env.PUBLIC_ORIGIN).toBeUndefined();
     expect(env.TEST_FILES).toEqual([]);
+  });
+
+  it("sizes the app server's heap by SERVER_HEAP_MB and SERVER_YOUNG_MB, 0 leaving Node's own", () => {
+    vi.stubEnv('SERVER_HEAP_MB', '');
+    vi.stubEnv('SERVER_YOUNG_MB', '');
+    expect(serverNodeFlags()).toEqual(['--max-old-space-size=1024', '--max-semi-space-size=32']);
+    vi.stubEnv('SERVER_HEAP_MB', '0');
+    vi.stubEnv('SERVER_YOUNG_MB', '64');
+    expect(serverNodeFlags()).toEqual(['--max-semi-space-size=64']);
+    vi.stubEnv('SERVER_YOUNG_MB', '0');
+    expect(serverNodeFlags()).toEqual([]);
   });
 
   it('turns TRUST_PROXY on only for "1"', () => {
