@@ -1,5 +1,6 @@
 /** Child processes for the start and test commands: started in their own group, stopped by pid. */
 import { spawn, type ChildProcess } from 'node:child_process';
+import { createServer } from 'node:net';
 import { childEnv } from '@/server/config';
 
 export function run(cmd: string, args: string[], env: NodeJS.ProcessEnv = childEnv()): Promise<number> {
@@ -48,4 +49,16 @@ export async function waitForHttp(url: string, timeoutMs = 30_000, child?: Child
     }
   }
   throw new Error(`${url} did not answer within ${timeoutMs / 1000} s`);
+}
+
+/** A loopback port nothing listens on now (the OS picks it). */
+export function freeLoopbackPort(): Promise<number> {
+  return new Promise((ok, fail) => {
+    const s = createServer();
+    s.once('error', fail);
+    s.listen(0, '127.0.0.1', () => {
+      const { port } = s.address() as { port: number };
+      s.close(() => ok(port));
+    });
+  });
 }

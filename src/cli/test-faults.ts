@@ -5,25 +5,13 @@
  * start their own app servers from the build; this module starts it before them and stops it after,
  * whatever happened.
  */
-import { createServer } from 'node:net';
 import { migrateDatabase } from '@/db/migrate';
 import { parseDatabaseUrl } from '@/server/config';
 import { ensureInstalled, recreateDatabase, serverPaths, startServer, stopServer } from './mariadb';
+import { freeLoopbackPort } from './processes';
 
 /** The folder under the project root holding the faults stage's MariaDB. */
 export const FAULTS_DB_FOLDER = '.data-faults';
-
-/** A loopback port nothing listens on now (the OS picks it). */
-export function freeLoopbackPort(): Promise<number> {
-  return new Promise((ok, fail) => {
-    const s = createServer();
-    s.once('error', fail);
-    s.listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as { port: number };
-      s.close(() => ok(port));
-    });
-  });
-}
 
 /**
  * Runs `fn` with a private MariaDB up and its test database migrated; `fn` gets the variables that

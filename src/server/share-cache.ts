@@ -70,7 +70,7 @@ const current = sql`FROM ${shareCache} WHERE ${shareCache.householdId} = ${house
  */
 export const storedAnswerColumns: { [K in keyof StoredAnswer]: SQL<StoredAnswer[K]> } = {
   // As bytes: the answer goes out as it is stored, never decoded into a string and encoded again;
-  // compressed when the client takes gzip and the copy is there (a sixth of the bytes to read and send).
+  // compressed when the client takes gzip and the copy is there (a quarter of the bytes to read and send).
   storedBody: sql<Buffer | null>`(SELECT IF(${gzip} = 1 AND ${shareCache.bodyGzip} IS NOT NULL, ${shareCache.bodyGzip}, CAST(${shareCache.body} AS BINARY)) ${current})`,
   storedGzip: sql<number | null>`(SELECT ${gzip} = 1 AND ${shareCache.bodyGzip} IS NOT NULL ${current})`,
   storedContext: sql<string | null>`(SELECT ${shareCache.context} ${current})`,

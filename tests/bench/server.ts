@@ -3,10 +3,9 @@
  * port with its own environment (its bench database, no letter job, no mail sent), as
  * src/cli/test.ts starts the server under test; then one signed-in cookie for the bench account.
  */
-import { createServer } from 'node:net';
 import { resolve } from 'node:path';
 import type { ChildProcess } from 'node:child_process';
-import { startService, stopService, waitForHttp } from '@/cli/processes';
+import { freeLoopbackPort, startService, stopService, waitForHttp } from '@/cli/processes';
 import { childEnv, outDir, serverNodeFlags } from '@/server/config';
 
 export interface BenchServer {
@@ -16,21 +15,9 @@ export interface BenchServer {
   stop(): Promise<void>;
 }
 
-/** A port nothing listens on now (the OS picks it). */
-export function freePort(): Promise<number> {
-  return new Promise((ok, fail) => {
-    const s = createServer();
-    s.once('error', fail);
-    s.listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as { port: number };
-      s.close(() => ok(port));
-    });
-  });
-}
-
 /** Starts the built server on `databaseUrl` and signs the bench account in; `nodeArgs` go before the entry (e.g. --cpu-prof). */
 export async function startBenchServer(databaseUrl: string, account: { email: string; password: string }, nodeArgs: string[] = []): Promise<BenchServer> {
-  const port = await freePort();
+  const port = await freeLoopbackPort();
   const base = `http://127.0.0.1:${port}`;
   const env = childEnv({
     DATABASE_URL: databaseUrl,
@@ -41,7 +28,7 @@ export async function startBenchServer(databaseUrl: string, account: { email: st
     SELFSOWN_ALLOW_DEV_SECRET: '1',
     LETTERS_SCHEDULER: 'off',
     SMTP_URL: '',
-    FAKE_SMTP_PORT: String(await freePort()),
+    FAKE_SMTP_PORT: String(await freeLoopbackPort()),
     // One sign-in per run; the rest of the limits as the app has them.
     AUTH_SIGNIN_RATE_LIMIT: '100/60',
   });
