@@ -3,8 +3,9 @@
  * shared by every household and loaded by `npm run db:import-foods`. Part of the one schema:
  * src/db/schema.ts re-exports it, and code imports it from there.
  */
-import { bigint, customType, double, index, int, mediumtext, mysqlEnum, mysqlTable, primaryKey, smallint, text, timestamp, tinyint, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
+import { bigint, double, index, int, mediumtext, mysqlEnum, mysqlTable, primaryKey, smallint, text, timestamp, tinyint, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
 import { DATASET_JOB_KINDS, DATASET_JOB_STATUSES, FDC_FORMATS } from '@/lib/dataset-jobs';
+import { longblob } from './column-types';
 // ── Reference data: food composition datasets ────────────────────────────────────────────────
 
 /** A public food composition dataset (e.g. USDA SR28), with its release and licence. */
@@ -109,8 +110,6 @@ export const datasetReleases = mysqlTable(
   (t) => [index('dataset_releases_dataset_idx').on(t.datasetId)],
 );
 
-const longBlob = customType<{ data: Buffer }>({ dataType: () => 'longblob' });
-
 /**
  * A dataset job the admin pages follow. An administrator's FoodData Central upload: read and checked
  * into `payload` (gzipped JSON of the foods and amounts) with progress the page polls, then applied
@@ -137,7 +136,7 @@ export const datasetJobs = mysqlTable('dataset_jobs', {
   errors: mediumtext('errors'),
   /** JSON: what a new release would change, per household (src/lib/release-changes.ts). */
   preview: mediumtext('preview'),
-  payload: longBlob('payload'),
+  payload: longblob('payload'),
   createdBy: varchar('created_by', { length: 36 }).notNull(),
   /** The server process running it ("host:pid:boot id", src/lib/job-runner.ts) while reading or applying. */
   runner: varchar('runner', { length: 160 }),

@@ -6,7 +6,6 @@ import {
   bigint,
   boolean,
   char,
-  customType,
   date,
   decimal,
   double,
@@ -33,6 +32,7 @@ import { DIETS } from '@/lib/diet';
 import { PRESERVE_METHODS } from '@/lib/retention';
 import { PLANTING_SLOTS } from '@/lib/planting-slots';
 import { LARDER_OUTCOMES } from '@/lib/larder-outcomes';
+import { mediumblob } from './column-types';
 import { foods } from './schema-reference';
 import { user } from './schema-auth';
 
@@ -472,9 +472,6 @@ export const shareVersions = mysqlTable('share_versions', {
     .references(() => households.id, { onDelete: 'cascade' }),
   version: varchar('version', { length: 64 }).notNull(),
 });
-
-/** Bytes as MariaDB's MEDIUMBLOB holds them (up to 16 MB), read and written as Buffers. */
-const mediumblob = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => 'mediumblob' });
 
 /**
  * Share report answers as sent (JSON; `body_gzip` the same gzip-compressed, for clients that accept it), by household and a key naming the request as asked (range
