@@ -13,7 +13,7 @@ import type { Pool } from 'mysql2/promise';
 import { datasets, foodNutrients, foods } from '@/db/schema';
 import { SHARE_NUTRIENTS, type ShareNutrientKey } from '@/lib/nutrients';
 import type { DatasetRef } from '@/lib/share-types';
-import { rawQuery } from './raw-query';
+import { rawQuery, rawRead } from './raw-query';
 
 export interface FoodFact {
   /** Amount per 100 g of each share nutrient the dataset gives; a missing key is unknown. */
@@ -43,13 +43,16 @@ interface FactRow {
 }
 
 async function readFacts(pool: Pool, ids: readonly number[]): Promise<Map<number, FoodFact>> {
-  const rows = await rawQuery<FactRow>(sql`
+  const rows = await rawRead<FactRow>(
+    pool,
+    sql`
     SELECT ${foods.id} AS foodId, ${datasets.slug} AS slug, ${datasets.name} AS datasetName, ${datasets.release} AS \`release\`,
            ${foodNutrients.nutrientKey} AS nutrientKey, ${foodNutrients.amount} AS amount
       FROM ${foods}
       JOIN ${datasets} ON ${datasets.id} = ${foods.datasetId}
       LEFT JOIN ${foodNutrients} ON ${foodNutrients.foodId} = ${foods.id} AND ${inArray(foodNutrients.nutrientKey, [...SHARE_NUTRIENTS])}
-     WHERE ${inArray(foods.id, [...ids])}`).run(pool);
+     WHERE ${inArray(foods.id, [...ids])}`,
+  );
   const out = new Map<number, FoodFact>();
   for (const r of rows) {
     let fact = out.get(r.foodId);

@@ -33,3 +33,14 @@ export function rawQuery<Row>(template: SQL): RawQuery<Row> {
     },
   };
 }
+
+/**
+ * A read whose text depends on its values (an IN list), run once: sent as text, not prepared, so
+ * no statement per list length is left on the connection (MariaDB caps prepared statements
+ * server-wide, max_prepared_stmt_count).
+ */
+export async function rawRead<Row>(pool: Pool, template: SQL): Promise<Row[]> {
+  const { sql: text, params } = dialect.sqlToQuery(template);
+  const [rows] = await pool.query(text, params);
+  return rows as Row[];
+}

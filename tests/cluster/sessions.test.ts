@@ -5,9 +5,9 @@
  * AUTH_SIGNIN_RATE_LIMIT=3/60 and AUTH_ACCOUNT_SIGNIN_RATE_LIMIT=4/60 (src/cli/test-cluster.ts).
  */
 import { describe, expect, it } from 'vitest';
-import { freshLoopbackAddress } from '../support/loopback';
+import { freshLoopbackAddress, loopbackCookie } from '../support/loopback';
 import { newVerifiedUser, TEST_PASSWORD } from '../support/users';
-import { call, cookieOf } from './support';
+import { call } from './support';
 
 const signIn = (server: number, email: string, password: string, from = freshLoopbackAddress()) =>
   call(server, '', 'POST', '/api/auth/sign-in/email', { email, password }, {}, from);
@@ -17,7 +17,7 @@ describe('two app servers, one set of sessions and limits', () => {
     const u = await newVerifiedUser({ name: 'Sam Session' });
     const a = await signIn(0, u.email, TEST_PASSWORD);
     expect(a.status).toBe(200);
-    const cookie = cookieOf(a);
+    const cookie = loopbackCookie(a);
     const created = await call(1, cookie, 'POST', '/api/households', { name: 'Two-door plot', timezone: 'Europe/Berlin', units: 'metric', yearStartMonth: 1 });
     expect(created.status).toBe(201);
     const onA = await call(0, cookie, 'GET', '/api/households');

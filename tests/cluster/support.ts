@@ -8,6 +8,7 @@ import { request } from 'node:http';
 import mysql from 'mysql2/promise';
 import type { GaleraCluster, GaleraNode } from '@/cli/galera';
 import { parseDatabaseUrl } from '@/server/config';
+import { answerOf, type LoopbackAnswer } from '../support/loopback';
 
 function required(name: string): string {
   const v = process.env[name];
@@ -20,11 +21,7 @@ export const LOGS = required('CLUSTER_APP_LOGS').split(',');
 export const CLUSTER = JSON.parse(required('CLUSTER_LAYOUT')) as GaleraCluster;
 export const ORIGIN = required('PUBLIC_ORIGIN');
 
-export interface Answer {
-  status: number;
-  headers: Record<string, string | string[] | undefined>;
-  body: any;
-}
+export type Answer = LoopbackAnswer;
 
 /**
  * One JSON request to app server `server` (0 = A, 1 = B), from `localAddress` when given (the
@@ -50,36 +47,13 @@ export function call(server: number, cookie: string, method: string, path: strin
           ...headers,
         },
       },
-      (res) => {
-        const chunks: Buffer[] = [];
-        res.on('data', (c: Buffer) => chunks.push(c));
-        res.on('end', () => {
-          const text = Buffer.concat(chunks).toString('utf8');
-          let parsed: unknown = text;
-          try {
-            parsed = JSON.parse(text);
-          } catch {
-            /* not JSON */
-          }
-          resolve({ status: res.statusCode ?? 0, headers: res.headers, body: parsed });
-        });
-        res.on('error', reject);
-      },
+      (res) => answerOf(res).then(resolve, reject),
     );
     req.setTimeout(30_000, () => req.destroy(new Error('timed out')));
     req.on('error', reject);
     if (payload) req.write(payload);
     req.end();
   });
-}
-
-/** The Cookie header value for the cookies an answer sets. */
-export function cookieOf(a: Answer): string {
-  const set = a.headers['set-cookie'] ?? [];
-  return (Array.isArray(set) ? set : [set])
-    .map((c) => c.split(';')[0]!)
-    .filter((c) => !/=$/.test(c))
-    .join('; ');
 }
 
 /** Lines of server `server`'s log matching `pattern`. */

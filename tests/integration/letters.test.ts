@@ -6,7 +6,6 @@
  */
 import { execFile } from 'node:child_process';
 import { readFile } from 'node:fs/promises';
-import { createServer } from 'node:net';
 import { join } from 'node:path';
 import { simpleParser } from 'mailparser';
 import type { Pool, RowDataPacket } from 'mysql2/promise';
@@ -20,6 +19,7 @@ import { foodId, logHarvest, makeCrop } from '../support/entries';
 import { api, testPool } from '../support/env';
 import { linkTo, waitForMail } from '../support/mail';
 import { addMember, apiAs, createHousehold, householdWithRoles, newVerifiedUser, type RoleFixture, type TestUser } from '../support/users';
+import { freeLoopbackPort } from '@/cli/processes';
 
 const root = new URL('../..', import.meta.url).pathname;
 
@@ -44,15 +44,6 @@ const sentLines = (out: string) => out.split('\n').filter((l) => l.startsWith('s
 /** Letters in the outbox to `email` about `month` ('November 2026'). */
 async function lettersTo(email: string, month: string): Promise<number> {
   return (await listMail()).filter((m) => m.to.includes(email.toLowerCase()) && m.subject.includes(month)).length;
-}
-
-/** A port on loopback with nothing listening: an SMTP server that cannot be reached. */
-async function closedPort(): Promise<number> {
-  const s = createServer();
-  await new Promise<void>((r) => s.listen(0, '127.0.0.1', () => r()));
-  const port = (s.address() as { port: number }).port;
-  await new Promise((r) => s.close(r));
-  return port;
 }
 
 /** A crop matched to USDA SR28 11352 (potatoes, raw), a harvest on each date and a person who eats. */
@@ -178,7 +169,7 @@ describe('at most once, retried when it failed', () => {
     await stock(owner, h.id, ['2026-11-12']);
     const args = ['--month', '2026-11', '--household', String(h.id)];
 
-    const down = await letters(args, { SMTP_URL: `smtp://127.0.0.1:${await closedPort()}` });
+    const down = await letters(args, { SMTP_URL: `smtp://127.0.0.1:${await freeLoopbackPort()}` });
     expect(down.code).toBe(1);
     expect(down.stdout).toContain(`failed 2026-11 to ${owner.email} for Retry row`);
     expect(down.stdout).toContain('0 sent, 0 skipped, 1 failed');

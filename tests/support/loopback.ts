@@ -3,7 +3,7 @@
  * server sees a different client. The sign-in limiter counts per client address: the rate-limit
  * test uses one address of its own, and signIn() a fresh one each time so other tests never meet it.
  */
-import { request } from 'node:http';
+import { request, type IncomingMessage } from 'node:http';
 import { BASE_URL } from './env';
 
 let counter = 0;
@@ -36,24 +36,30 @@ export function requestFrom(localAddress: string, method: string, path: string, 
         // Like a browser, a state-changing request names its origin.
         headers: { ...(method === 'GET' ? {} : { origin: BASE_URL }), ...(payload ? { 'content-type': 'application/json', 'content-length': Buffer.byteLength(payload) } : {}), ...headers },
       },
-      (res) => {
-        const chunks: Buffer[] = [];
-        res.on('data', (c: Buffer) => chunks.push(c));
-        res.on('end', () => {
-          const text = Buffer.concat(chunks).toString('utf8');
-          let parsed: unknown = text;
-          try {
-            parsed = JSON.parse(text);
-          } catch {
-            /* not JSON */
-          }
-          resolve({ status: res.statusCode ?? 0, headers: res.headers, body: parsed });
-        });
-      },
+      (res) => answerOf(res).then(resolve, reject),
     );
     req.on('error', reject);
     if (payload) req.write(payload);
     req.end();
+  });
+}
+
+/** A response read whole: its status, headers and body (parsed when it is JSON, else the text). */
+export function answerOf(res: IncomingMessage): Promise<LoopbackAnswer> {
+  return new Promise((resolve, reject) => {
+    const chunks: Buffer[] = [];
+    res.on('data', (c: Buffer) => chunks.push(c));
+    res.on('error', reject);
+    res.on('end', () => {
+      const text = Buffer.concat(chunks).toString('utf8');
+      let parsed: unknown = text;
+      try {
+        parsed = JSON.parse(text);
+      } catch {
+        /* not JSON */
+      }
+      resolve({ status: res.statusCode ?? 0, headers: res.headers, body: parsed });
+    });
   });
 }
 

@@ -3,7 +3,6 @@
  * connecting to a port nothing listens on, a closed pool, the same under Drizzle's wrapper — and the
  * 503 answer they become (src/server/db-errors.ts, src/server/http.ts).
  */
-import { createServer } from 'node:net';
 import mysql from 'mysql2/promise';
 import { drizzle } from 'drizzle-orm/mysql2';
 import { sql } from 'drizzle-orm';
@@ -11,16 +10,7 @@ import { describe, expect, it } from 'vitest';
 import { databaseErrorAnswer, isDatabaseUnavailable } from '@/server/db-errors';
 import { toResponse } from '@/server/http';
 import { unavailablePageHtml } from '@/lib/unavailable-page';
-
-/** A loopback port with nothing listening on it. */
-function closedPort(): Promise<number> {
-  return new Promise((ok) => {
-    const s = createServer().listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as { port: number };
-      s.close(() => ok(port));
-    });
-  });
-}
+import { freeLoopbackPort } from '@/cli/processes';
 
 async function caught(fn: () => Promise<unknown>): Promise<unknown> {
   try {
@@ -33,7 +23,7 @@ async function caught(fn: () => Promise<unknown>): Promise<unknown> {
 
 describe('a database that cannot be reached', () => {
   it('is recognised from a refused connect, a closed pool and under Drizzle’s wrapper', async () => {
-    const port = await closedPort();
+    const port = await freeLoopbackPort();
     const refused = await caught(() => mysql.createConnection({ host: '127.0.0.1', port, user: 'x', connectTimeout: 2_000 }));
     expect((refused as { code: string }).code).toBe('ECONNREFUSED');
     expect(isDatabaseUnavailable(refused)).toBe(true);
