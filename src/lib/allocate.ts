@@ -28,9 +28,11 @@ export interface FoodEntry {
   /**
    * The same amounts as numbers in SHARE_NUTRIENTS order (NaN: unknown), when the caller has them
    * (share-groups.ts): the share report reads thousands of entries, and an array is read faster
-   * than objects of as many shapes as there are foods. It must say what `nutrients` says.
+   * than objects of as many shapes as there are foods. It must say what `nutrients` says. A plain
+   * array, not a Float64Array: a typed array of 15 doubles gets its own buffer outside V8's heap,
+   * about 25 times dearer to make, and the report makes one per group.
    */
-  shareAmounts?: Float64Array;
+  shareAmounts?: readonly number[];
   edibleGrams: number;
   /**
    * A lot re-spread by the larder's records (larder.ts): eaten evenly by day over

@@ -60,7 +60,7 @@ export interface ShareGroup {
   entries: number;
   nutrients: Partial<Record<ShareNutrientKey, number>>;
   /** The same as numbers in SHARE_NUTRIENTS order, NaN where unknown (FoodEntry.shareAmounts). */
-  shareAmounts?: Float64Array;
+  shareAmounts?: readonly number[];
 }
 
 /**
@@ -95,6 +95,9 @@ interface FoodShape {
 }
 
 const NO_FOOD: FoodShape = { keys: [], places: [], per100g: [], blank: {} };
+
+/** Every share nutrient unknown (NaN), copied for each group's amounts. */
+const UNKNOWN_AMOUNTS: readonly number[] = SHARE_NUTRIENTS.map(() => NaN);
 
 /**
  * Each food's shape, worked out once per report: a group's nutrients are then a copy of the
@@ -134,7 +137,7 @@ class Group implements ShareGroup {
   edibleGrams: number;
   entries: number;
   nutrients: Partial<Record<ShareNutrientKey, number>> = {};
-  shareAmounts?: Float64Array;
+  shareAmounts?: readonly number[];
 
   constructor(
     public source: Source,
@@ -197,7 +200,7 @@ function collect(rows: readonly GroupRow[], source: Source, foodShape: (foodId: 
     // A nutrient the food has no row for stays missing: unknown, never zero.
     const shape = foodShape(r.foodId);
     const nutrients = { ...shape.blank };
-    const amounts = new Float64Array(SHARE_NUTRIENTS.length).fill(NaN);
+    const amounts = UNKNOWN_AMOUNTS.slice();
     let notANumber = false;
     for (let i = 0; i < shape.keys.length; i++) {
       const v = (g.edibleGrams * shape.per100g[i]!) / 100;
@@ -213,8 +216,8 @@ function collect(rows: readonly GroupRow[], source: Source, foodShape: (foodId: 
 }
 
 /** A group's nutrients as FoodEntry.shareAmounts; none when a value is not a number (the share code then refuses it by key). */
-function shareAmountsOf(nutrients: Partial<Record<ShareNutrientKey, number>>, shape: FoodShape): Float64Array | undefined {
-  const out = new Float64Array(SHARE_NUTRIENTS.length).fill(NaN);
+function shareAmountsOf(nutrients: Partial<Record<ShareNutrientKey, number>>, shape: FoodShape): number[] | undefined {
+  const out = UNKNOWN_AMOUNTS.slice();
   for (let i = 0; i < shape.keys.length; i++) {
     const v = nutrients[shape.keys[i]!];
     if (v === undefined) continue;

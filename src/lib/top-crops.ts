@@ -11,6 +11,9 @@ import { groupEntry, type ShareGroup } from './share-groups';
 import type { TopCrop } from './share-types';
 import type { CropEntry } from './shares';
 
+/** One 0 per share nutrient, copied for each contributor's sums. */
+const ZEROS: readonly number[] = SHARE_NUTRIENTS.map(() => 0);
+
 /** How many crops per nutrient the report names (the union over nutrients is returned). */
 export const TOP_CROPS_PER_NUTRIENT = 5;
 
@@ -19,7 +22,8 @@ interface Sums {
   /** Index (among the home groups) of the contributor's first group, whose crop and food it shows. */
   group: number;
   name: string;
-  amounts: Float64Array;
+  /** A plain array (a Float64Array of this size is made outside V8's heap, many times dearer). */
+  amounts: number[];
   /** Whether some eaten entry had a value for the nutrient (else the contributor is not ranked on it). */
   ranked: Uint8Array;
   /** Index of the first entry that gave the nutrient: the order topContributors meets contributors in. */
@@ -51,7 +55,7 @@ export function topCrops(groups: readonly ShareGroup[], from: string, to: string
   const totals = new Float64Array(count);
   homeEntries.forEach((e, i) => {
     let c = sums.get(e.cropId);
-    if (!c) sums.set(e.cropId, (c = { group: i, name: e.name, amounts: new Float64Array(count), ranked: new Uint8Array(count), firstGave: new Int32Array(count) }));
+    if (!c) sums.set(e.cropId, (c = { group: i, name: e.name, amounts: ZEROS.slice(), ranked: new Uint8Array(count), firstGave: new Int32Array(count) }));
     if (!isEaten(e.use)) return;
     for (let k = 0; k < count; k++) {
       const amount = e.shareAmounts ? e.shareAmounts[k]! : (e.nutrients[SHARE_NUTRIENTS[k]!] ?? NaN);

@@ -19,6 +19,8 @@ export interface FoodFact {
   /** Amount per 100 g of each share nutrient the dataset gives; a missing key is unknown. */
   amounts: Partial<Record<ShareNutrientKey, number>>;
   dataset: DatasetRef;
+  /** The food's name (a harvest group with no crop is named after its food). */
+  name: string;
 }
 
 const MAX_FOODS = 5000;
@@ -35,6 +37,7 @@ export async function referenceRevision(pool: Pool): Promise<number> {
 /** One row per food and share nutrient (a food with none comes once, with nulls), with its dataset. */
 interface FactRow {
   foodId: number;
+  foodName: string;
   slug: string;
   datasetName: string;
   release: string;
@@ -46,7 +49,7 @@ async function readFacts(pool: Pool, ids: readonly number[]): Promise<Map<number
   const rows = await rawRead<FactRow>(
     pool,
     sql`
-    SELECT ${foods.id} AS foodId, ${datasets.slug} AS slug, ${datasets.name} AS datasetName, ${datasets.release} AS \`release\`,
+    SELECT ${foods.id} AS foodId, ${foods.name} AS foodName, ${datasets.slug} AS slug, ${datasets.name} AS datasetName, ${datasets.release} AS \`release\`,
            ${foodNutrients.nutrientKey} AS nutrientKey, ${foodNutrients.amount} AS amount
       FROM ${foods}
       JOIN ${datasets} ON ${datasets.id} = ${foods.datasetId}
@@ -56,7 +59,7 @@ async function readFacts(pool: Pool, ids: readonly number[]): Promise<Map<number
   const out = new Map<number, FoodFact>();
   for (const r of rows) {
     let fact = out.get(r.foodId);
-    if (!fact) out.set(r.foodId, (fact = { amounts: {}, dataset: { slug: r.slug, name: r.datasetName, release: r.release } }));
+    if (!fact) out.set(r.foodId, (fact = { amounts: {}, dataset: { slug: r.slug, name: r.datasetName, release: r.release }, name: r.foodName }));
     if (r.nutrientKey !== null && r.amount !== null) fact.amounts[r.nutrientKey] = Number(r.amount);
   }
   return out;

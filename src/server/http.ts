@@ -24,10 +24,39 @@ export function json(body: unknown, status = 200, headers: Record<string, string
   });
 }
 
-/** An answer whose JSON is already written (a stored answer, as text or as its UTF-8 bytes), sent as it is. */
-export function jsonText(text: string | Uint8Array, status = 200, headers: Record<string, string> = {}): Response {
+/**
+ * An answer whose JSON is already written (a stored answer, as text or as its UTF-8 bytes), sent as
+ * it is. `afterSent` runs once the server has read the whole body to write it out (or the client
+ * went away): for work the waiting client should not wait for, such as storing the answer.
+ */
+export function jsonText(text: string | Uint8Array, status = 200, headers: Record<string, string> = {}, afterSent?: () => void): Response {
+  const init = { status, headers: { 'content-type': 'application/json; charset=utf-8', 'cache-control': 'no-store', ...headers } };
   // mysql2's Buffer is a Uint8Array; the cast only meets the DOM typing of a Response body.
-  return new Response(text as string | Uint8Array<ArrayBuffer>, { status, headers: { 'content-type': 'application/json; charset=utf-8', 'cache-control': 'no-store', ...headers } });
+  if (!afterSent) return new Response(text as string | Uint8Array<ArrayBuffer>, init);
+  return new Response(bodyThen(typeof text === 'string' ? new TextEncoder().encode(text) : text, afterSent), init);
+}
+
+/** A body of one chunk that calls `then` (on the next turn of the event loop) when it has been read to its end or cancelled. */
+function bodyThen(bytes: Uint8Array, then: () => void): ReadableStream<Uint8Array> {
+  let sent = false;
+  let called = false;
+  const done = () => {
+    if (called) return;
+    called = true;
+    setImmediate(then);
+  };
+  return new ReadableStream<Uint8Array>({
+    pull(controller) {
+      if (!sent) {
+        sent = true;
+        controller.enqueue(bytes);
+        return;
+      }
+      controller.close();
+      done();
+    },
+    cancel: done,
+  });
 }
 
 export function errorResponse(status: number, code: string, message: string, fields?: Record<string, string>): Response {

@@ -110,9 +110,10 @@ async function store(householdId: number, key: string, found: StoredAnswer, cont
 /**
  * The share report of [from, to] as JSON: the stored answer `found` by the gate when it is still
  * valid (its bytes; `gzip` when they are the compressed copy the gate was asked for), else worked
- * out by householdShare() (text, never compressed: that would cost the waiting client) and stored
- * for the next reader after this answer has gone out. Throws what householdShare throws
- * (RangeError when it cannot be computed).
+ * out by householdShare() (text, never compressed: that would cost the waiting client) with
+ * `store`, which the caller runs once the answer has gone out (compressing and writing it while
+ * the answer is being sent would delay it). Throws what householdShare throws (RangeError when it
+ * cannot be computed).
  */
 export async function householdShareJson(
   household: ShareHousehold,
@@ -120,11 +121,11 @@ export async function householdShareJson(
   key: string,
   found: StoredAnswer,
   now: Date = new Date(),
-): Promise<{ body: string | Buffer; gzip: boolean }> {
+): Promise<{ body: string | Buffer; gzip: boolean; store?: () => void }> {
   const { from, to } = range;
   const context = answerContext(household, range);
   if (found.storedBody !== null && found.storedContext === context) return { body: found.storedBody, gzip: Number(found.storedGzip) === 1 };
   const body = JSON.stringify(await householdShare(household, from, to, undefined, now, found.referenceRevision));
-  setImmediate(() => store(household.id, key, found, context, body).catch((e: unknown) => console.error('share cache: could not store an answer', e)));
-  return { body, gzip: false };
+  const keep = () => void store(household.id, key, found, context, body).catch((e: unknown) => console.error('share cache: could not store an answer', e));
+  return { body, gzip: false, store: keep };
 }

@@ -151,6 +151,8 @@ export async function householdShare(
   const home = [...grouped, ...withOutcomes];
   const ids = foodIdsOf([...home, ...bought]);
   const facts = await foodFacts(raw, ids, atRevision);
+  // A harvest group with no crop is named after its food (harvestGroupRows leaves it to us).
+  for (const g of grouped) if (g.name === null && g.foodId !== null) g.name = facts.get(g.foodId)?.name ?? null;
   const amounts: FoodAmounts = new Map([...facts].map(([id, f]) => [id, f.amounts]));
   const groups = shareGroups(home, bought, amounts, loadRetention());
   const people = rows.map((r) => needsPerson(personFields(r)));

@@ -10,9 +10,9 @@
  * `rebuildShareRollup` computes one household's groups again from its raw entries — the
  * recomputation the tests compare the kept rollup with, and a repair should one ever drift.
  */
-import { and, eq, gte, inArray, isNotNull, isNull, lte, notExists, or, sql, type SQL } from 'drizzle-orm';
+import { and, eq, gte, inArray, lte, notExists, or, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '@/db/client';
-import { crops, foods, harvestGroups, harvests, larderOutcomes, purchaseGroups, purchases } from '@/db/schema';
+import { crops, harvestGroups, harvests, larderOutcomes, purchaseGroups, purchases } from '@/db/schema';
 import { ENTRY_LIMITS } from '@/lib/entry-schemas';
 import { addMonths, daysInMonth } from '@/lib/months';
 import { isPreserveMethod } from '@/lib/retention';
@@ -34,9 +34,6 @@ const lookback = (from: string) => `${addMonths(from, -ENTRY_LIMITS.maxSpreadMon
 /** Subtracting an entry from its group can leave a rounding crumb below zero: never a negative weight. */
 const weight = (v: number) => (v > 0 ? v : 0);
 
-/** The group's crop, in the same household (crop 0 = none). */
-const cropOfGroup = () => and(eq(crops.id, harvestGroups.cropId), eq(crops.householdId, harvestGroups.householdId));
-
 const at = {
   household: sql.placeholder('householdId'),
   /** lookback(from): the first day a group can be dated and still be eaten in the range. */
@@ -57,17 +54,12 @@ function rangeValues(householdId: number, from: string, to: string) {
 const harvestGroupsIn = rawQuery<RawGroup>(sql`
     SELECT ${harvestGroups.day} AS date, ${harvestGroups.use} AS \`use\`, ${harvestGroups.spread} AS spread, ${harvestGroups.preserveMethod} AS preserveMethod,
            ${harvestGroups.cropId} AS cropId, ${harvestGroups.foodId} AS foodId,
-           COALESCE(NULLIF(CONCAT_WS(', ', ${crops.name}, NULLIF(${crops.variety}, '')), ''), ${foods.name}) AS name,
            ${harvestGroups.grams} AS grams, ${harvestGroups.edibleGrams} AS edibleGrams, ${harvestGroups.entries} AS entries
       FROM ${harvestGroups}
-      LEFT JOIN ${crops} ON ${cropOfGroup()}
-      LEFT JOIN ${foods} ON ${foods.id} = ${harvestGroups.foodId} AND (${harvestGroups.cropId} = 0 OR COALESCE(${crops.name}, '') = '')
      WHERE ${and(
        eq(harvestGroups.householdId, at.household),
        gte(harvestGroups.day, at.start),
        lte(harvestGroups.day, at.end),
-       or(isNull(crops.id), eq(crops.notFood, false)),
-       or(eq(harvestGroups.cropId, 0), isNotNull(crops.id)),
        or(
          gte(harvestGroups.day, at.first),
          // ≤: a lot spread by day from late in a month reaches one month further than its spread.
@@ -75,27 +67,46 @@ const harvestGroupsIn = rawQuery<RawGroup>(sql`
        ),
      )}`);
 
+/** The household's crops as a group names and filters them (a few dozen rows). */
+const householdCrops = rawQuery<{ id: number; name: string | null; variety: string | null; notFood: number }>(sql`
+    SELECT ${crops.id} AS id, ${crops.name} AS name, ${crops.variety} AS variety, ${crops.notFood} AS notFood
+      FROM ${crops} WHERE ${eq(crops.householdId, at.household)}`);
+
+/** A crop's name with its variety, as harvestNameSql() writes it; null when both are empty. */
+function cropLabel(c: { name: string | null; variety: string | null }): string | null {
+  const label = [c.name, c.variety || null].filter((part) => part !== null).join(', ');
+  return label === '' ? null : label;
+}
+
 /**
  * Harvest groups whose eating can fall in [from, to] or that are dated in it: dated in the range,
  * or stored/preserved earlier with a spread reaching `from`. Not-food crops never count as food,
- * nor a crop of another household. Names: the crop with its variety, else the food (joined only
- * for groups with no crop: a crop always has a name). The report
- * reads thousands of groups: the query is written once (raw-query.ts) and its rows read as mysql2
- * gives them.
+ * nor a crop of another household. Names: the crop with its variety; null for a group with no crop
+ * (the caller names it after its food, from the foods' facts it reads anyway: see share-data.ts).
+ * The report reads thousands of groups: the groups come from the rollup alone (one index range,
+ * no join per row) beside the household's few crops, read in parallel and matched here; the
+ * query is written once (raw-query.ts) and its rows read as mysql2 gives them.
  */
 export async function harvestGroupRows(pool: Pool, householdId: number, from: string, to: string): Promise<GroupRow[]> {
-  const rows = await harvestGroupsIn.run(pool, rangeValues(householdId, from, to));
+  const [rows, cropRows] = await Promise.all([harvestGroupsIn.run(pool, rangeValues(householdId, from, to)), householdCrops.run(pool, { householdId })]);
+  const cropsById = new Map(cropRows.map((c) => [c.id, { name: cropLabel(c), notFood: Boolean(c.notFood) }]));
+  const out: GroupRow[] = [];
   // Each row made a GroupRow in place: thousands of rows, no copies.
   for (const r of rows) {
+    const crop = r.cropId === 0 ? null : cropsById.get(r.cropId);
+    // A crop not (or no longer) the household's, or one that is not food, never counts.
+    if (crop === undefined || crop?.notFood) continue;
     const g = r as unknown as GroupRow;
     g.month = r.date.slice(0, 7);
     g.preserveMethod = isPreserveMethod(r.preserveMethod) ? r.preserveMethod : null;
     g.cropId = r.cropId === 0 ? null : r.cropId;
     g.foodId = r.foodId === 0 ? null : r.foodId;
+    g.name = crop?.name ?? null;
     g.grams = weight(r.grams);
     g.edibleGrams = weight(r.edibleGrams);
+    out.push(g);
   }
-  return rows as unknown as GroupRow[];
+  return out;
 }
 
 /** A harvest group as mysql2 reads it (DATE as 'YYYY-MM-DD', see src/db/client.ts). */
@@ -106,13 +117,12 @@ interface RawGroup {
   preserveMethod: string;
   cropId: number;
   foodId: number;
-  name: string | null;
   grams: number;
   edibleGrams: number;
   entries: number;
 }
 
-const purchaseGroupsIn = rawQuery<Omit<RawGroup, 'use' | 'preserveMethod' | 'cropId' | 'name'>>(sql`
+const purchaseGroupsIn = rawQuery<Omit<RawGroup, 'use' | 'preserveMethod' | 'cropId'>>(sql`
     SELECT ${purchaseGroups.day} AS date, ${purchaseGroups.spread} AS spread, ${purchaseGroups.foodId} AS foodId,
            ${purchaseGroups.grams} AS grams, ${purchaseGroups.edibleGrams} AS edibleGrams, ${purchaseGroups.entries} AS entries
       FROM ${purchaseGroups}

@@ -27,7 +27,8 @@ export const GET = householdRouteWith(
     try {
       const answer = await householdShareJson(a.household, { ...range, currentMonth: month }, askedKey(ctx.url), stored, now);
       // A stored answer goes out compressed to a client that takes gzip (every browser does).
-      return jsonText(answer.body, 200, answer.gzip ? { 'content-encoding': 'gzip', vary: 'Accept-Encoding' } : { vary: 'Accept-Encoding' });
+      // A new answer is stored once it has gone out.
+      return jsonText(answer.body, 200, answer.gzip ? { 'content-encoding': 'gzip', vary: 'Accept-Encoding' } : { vary: 'Accept-Encoding' }, answer.store);
     } catch (e) {
       // The pure code refuses what it cannot count (a person older than the tables, …) with a sentence.
       if (e instanceof RangeError) throw new HttpError(422, 'cannot_compute', e.message);
