@@ -56,7 +56,7 @@ function bodyThen(bytes: Uint8Array, then: () => void): ReadableStream<Uint8Arra
       done();
     },
     cancel: done,
-  });
+  }, { highWaterMark: 0 }); // pulled only when read: the end is reached when the reader asks for it
 }
 
 export function errorResponse(status: number, code: string, message: string, fields?: Record<string, string>): Response {

@@ -10,9 +10,11 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Pool } from 'mysql2/promise';
+import { and, eq, inArray } from 'drizzle-orm';
 import { drizzle } from 'drizzle-orm/mysql2';
 import * as schema from '@/db/schema';
 import { importDataset, type DatasetInfo } from '@/server/food-import';
+import { cropOfHarvest, foodOfHarvest, harvestNameSql } from '@/server/harvest-sql';
 import { rebuildShareRollup } from '@/server/share-rollup';
 import { testPool } from '../support/env';
 import { foodId, logHarvest, makeCrop, upload } from '../support/entries';
@@ -135,6 +137,25 @@ describe('crops and larder records', () => {
     await logHarvest(t.owner.cookie, hid, { cropId: chard.id, date: '2025-07-20', quantity: 4, unit: 'kg', use: 'given' });
     await afterWrite(async () => ok(await apiAs(t.owner.cookie, 'PATCH', path(`/crops/${chard.id}`), { notFood: true, foodId: null })));
     await afterWrite(async () => ok(await apiAs(t.owner.cookie, 'PATCH', path(`/crops/${chard.id}`), { notFood: false, foodId: await foodId('11233') })));
+  });
+
+  it('names crops as the harvest list does: with their variety, else after the food logged (harvestNameSql)', async () => {
+    const bean = await makeCrop(t.owner.cookie, hid, { name: 'Runner bean', variety: 'Scarlet Emperor', foodId: await foodId('11052'), category: 'legume' });
+    const served = await afterWrite(async () => {
+      await logHarvest(t.owner.cookie, hid, { cropId: bean.id, date: '2025-08-14', quantity: 6, unit: 'kg', use: 'fresh' });
+      await logHarvest(t.owner.cookie, hid, { foodId: await foodId('11233'), date: '2025-08-15', quantity: 2, unit: 'kg', use: 'fresh' });
+    });
+    // The report names crops in code (share-rollup.ts); the harvest list and the larder in SQL.
+    const db = drizzle(pool, { schema, mode: 'default' });
+    const listed = await db
+      .selectDistinct({ name: harvestNameSql() })
+      .from(schema.harvests)
+      .leftJoin(schema.crops, cropOfHarvest())
+      .leftJoin(schema.foods, foodOfHarvest())
+      .where(and(eq(schema.harvests.householdId, hid), inArray(schema.harvests.date, ['2025-08-14', '2025-08-15'])));
+    const names = listed.map((r) => r.name).sort();
+    expect(names).toEqual(['Kale, raw', 'Runner bean, Scarlet Emperor']);
+    for (const name of names) expect(served.topCrops.map((c: any) => c.name)).toContain(name);
   });
 
   it('a larder record added and removed (the lot leaves the rollup and comes back)', async () => {
