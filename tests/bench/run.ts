@@ -8,7 +8,7 @@
  *
  * Rows: share-10y, share-12m, share-growth, share-service (./share.ts), search (./search.ts),
  * import-foods, import-csv (./imports.ts), load, rss (./load.ts), plan (./plan.ts).
- * BENCH_ONLY=plan,share,… runs some of them; BENCH_ROUNDS (default 9), BENCH_IMPORT_ROUNDS (3),
+ * BENCH_ONLY=plan,share,… runs some of them; BENCH_ROUNDS (default 15), BENCH_IMPORT_ROUNDS (3),
  * BENCH_LOAD_ROUNDS (3) and BENCH_LOAD_SECONDS (20) size the rounds; BENCH_FRESH=1 remakes the data.
  */
 import { mkdirSync, writeFileSync } from 'node:fs';
@@ -27,7 +27,7 @@ import { benchSearch } from './search';
 import { startBenchServer } from './server';
 import { benchShare } from './share';
 
-const ROUNDS = Number(process.env.BENCH_ROUNDS || 9);
+const ROUNDS = Number(process.env.BENCH_ROUNDS || 15);
 const IMPORT_ROUNDS = Number(process.env.BENCH_IMPORT_ROUNDS || 3);
 const LOAD_ROUNDS = Number(process.env.BENCH_LOAD_ROUNDS || 3);
 const only = new Set((process.env.BENCH_ONLY || 'plan,share,search,import-foods,import-csv,load').split(',').map((s) => s.trim()));

@@ -62,8 +62,8 @@ async function getShare(server: BenchServer, pool: Pool, householdId: number, ra
   return ms;
 }
 
-/** Untimed rounds of both paths before the timed ones (BENCH_WARMUP, default 5). */
-const WARMUP_ROUNDS = Number(process.env.BENCH_WARMUP || 5);
+/** Untimed rounds of both paths before the timed ones (BENCH_WARMUP, default 20). */
+const WARMUP_ROUNDS = Number(process.env.BENCH_WARMUP || 20);
 
 /** Medians of alternating rounds after WARMUP_ROUNDS untimed ones: bare SQL, then the report through HTTP. */
 async function sideBySide(server: BenchServer, pool: Pool, householdId: number, range: { from: string; to: string }, rounds: number) {
