@@ -11,6 +11,7 @@ import { fileURLToPath } from 'node:url';
 import sharp from 'sharp';
 import { markSvg } from '@/lib/app-icon';
 import { PALETTE } from '@/lib/palette';
+import { plainPageHtml } from '@/lib/plain-page';
 import { isMain } from './is-main';
 
 export const PUBLIC_DIR = fileURLToPath(new URL('../../public/', import.meta.url));
@@ -27,19 +28,13 @@ export const ICONS = [
   { file: 'apple-touch-icon.png', size: 180, svg: () => markSvg({ background: PALETTE['loam-50'], plate: 0.8 }) },
 ] as const;
 
-/** The offline page: our colours inline (the built stylesheet's name changes every build), no script but "Try again". */
+/** The offline page (plain-page.ts's shell): our colours inline (the built stylesheet's name changes every build), no script but "Try again". */
 export function offlinePageHtml(): string {
   const P = PALETTE;
-  return `<!doctype html>
-<html lang="en">
-<head>
-<meta charset="utf-8">
-<meta name="viewport" content="width=device-width, initial-scale=1">
-<meta name="theme-color" content="${P['sprout-700']}">
-<link rel="icon" type="image/svg+xml" href="/favicon.svg">
-<title>No connection · Selfsown</title>
-<style>
-  body { margin: 0; min-height: 100vh; background: ${P['loam-50']}; color: ${P['loam-900']}; font: 18px/1.5 "Nunito Sans", system-ui, sans-serif; }
+  return plainPageHtml({
+    title: 'No connection',
+    head: `<meta name="theme-color" content="${P['sprout-700']}">\n`,
+    style: `  body { margin: 0; min-height: 100vh; background: ${P['loam-50']}; color: ${P['loam-900']}; font: 18px/1.5 "Nunito Sans", system-ui, sans-serif; }
   main { max-width: 34rem; margin: 0 auto; padding: 2rem 1rem; }
   .mark { width: 56px; height: 56px; }
   h1 { font-size: 1.6rem; line-height: 1.25; margin: 1rem 0 0.5rem; }
@@ -49,10 +44,8 @@ export function offlinePageHtml(): string {
   button { min-height: 48px; padding: 0 1.25rem; border-radius: 0.75rem; font: inherit; font-weight: 700; cursor: pointer; background: ${P['sprout-700']}; color: ${P.white}; border: 0; }
   button.quiet { background: ${P.white}; color: ${P['sprout-900']}; border: 1px solid ${P['loam-300']}; }
   button:focus-visible { outline: 3px solid ${P.focus}; outline-offset: 2px; }
-</style>
-</head>
-<body>
-<main data-testid="offline-page">
+`,
+    body: `<main data-testid="offline-page">
   <div class="mark" aria-hidden="true">${markSvg()}</div>
   <h1>No connection, and this page is not kept on this device yet</h1>
   <p>Selfsown keeps the pages you need in the garden once you have opened them with a signal: the harvest form, bought food and the harvest log of your household.</p>
@@ -62,9 +55,8 @@ export function offlinePageHtml(): string {
     <button type="button" class="quiet" onclick="history.back()">Go back</button>
   </div>
 </main>
-</body>
-</html>
-`;
+`,
+  });
 }
 
 export async function writeAppFiles(dir = PUBLIC_DIR): Promise<string[]> {

@@ -4,11 +4,10 @@
  * nodes (CLUSTER_LAYOUT), all set by src/cli/test-cluster.ts.
  */
 import { readFileSync } from 'node:fs';
-import { request } from 'node:http';
 import mysql from 'mysql2/promise';
 import type { GaleraCluster, GaleraNode } from '@/cli/galera';
 import { parseDatabaseUrl } from '@/server/config';
-import { answerOf, type LoopbackAnswer } from '../support/loopback';
+import { requestAt, type LoopbackAnswer } from '../support/loopback';
 
 function required(name: string): string {
   const v = process.env[name];
@@ -29,31 +28,7 @@ export type Answer = LoopbackAnswer;
  * A network failure rejects, like fetch.
  */
 export function call(server: number, cookie: string, method: string, path: string, body?: unknown, headers: Record<string, string> = {}, localAddress?: string): Promise<Answer> {
-  const url = new URL(path, SERVERS[server]);
-  const payload = body === undefined ? undefined : JSON.stringify(body);
-  return new Promise((resolve, reject) => {
-    const req = request(
-      {
-        host: url.hostname,
-        port: url.port,
-        path: url.pathname + url.search,
-        method,
-        localAddress,
-        agent: false,
-        headers: {
-          ...(method === 'GET' ? {} : { origin: ORIGIN }),
-          ...(cookie ? { cookie } : {}),
-          ...(payload ? { 'content-type': 'application/json', 'content-length': Buffer.byteLength(payload) } : {}),
-          ...headers,
-        },
-      },
-      (res) => answerOf(res).then(resolve, reject),
-    );
-    req.setTimeout(30_000, () => req.destroy(new Error('timed out')));
-    req.on('error', reject);
-    if (payload) req.write(payload);
-    req.end();
-  });
+  return requestAt(SERVERS[server]!, ORIGIN, localAddress, method, path, body, { ...(cookie ? { cookie } : {}), ...headers });
 }
 
 /** Lines of server `server`'s log matching `pattern`. */

@@ -21,9 +21,18 @@ export interface LoopbackAnswer {
   body: any;
 }
 
-/** One request from `localAddress`; the body (when given) is sent as JSON. */
+/** One request from `localAddress` to the test server; the body (when given) is sent as JSON. */
 export function requestFrom(localAddress: string, method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<LoopbackAnswer> {
-  const url = new URL(path, BASE_URL);
+  return requestAt(BASE_URL, BASE_URL, localAddress, method, path, body, headers);
+}
+
+/**
+ * One request to the server at `base` on a connection of its own, from `localAddress` when given;
+ * a state change names `origin`, as a browser does. The body (when given) is sent as JSON. A
+ * network failure rejects, like fetch.
+ */
+export function requestAt(base: string, origin: string, localAddress: string | undefined, method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<LoopbackAnswer> {
+  const url = new URL(path, base);
   const payload = body === undefined ? undefined : JSON.stringify(body);
   return new Promise((resolve, reject) => {
     const req = request(
@@ -33,11 +42,12 @@ export function requestFrom(localAddress: string, method: string, path: string, 
         path: url.pathname + url.search,
         method,
         localAddress,
-        // Like a browser, a state-changing request names its origin.
-        headers: { ...(method === 'GET' ? {} : { origin: BASE_URL }), ...(payload ? { 'content-type': 'application/json', 'content-length': Buffer.byteLength(payload) } : {}), ...headers },
+        agent: false,
+        headers: { ...(method === 'GET' ? {} : { origin }), ...(payload ? { 'content-type': 'application/json', 'content-length': Buffer.byteLength(payload) } : {}), ...headers },
       },
       (res) => answerOf(res).then(resolve, reject),
     );
+    req.setTimeout(30_000, () => req.destroy(new Error('timed out')));
     req.on('error', reject);
     if (payload) req.write(payload);
     req.end();
