@@ -9,7 +9,8 @@ import { beds, type Household } from '@/db/schema';
 import { areaUnitFor, fromM2, toM2, type AreaUnit, type BedInput, type BedPatch } from '@/lib/bed-schemas';
 import type { BedJson } from '@/lib/bed-types';
 import type { UnitSystem } from '@/lib/units';
-import { isDuplicateKey, type Executor } from './entry-input';
+import { isDuplicateKey } from './db-errors';
+import { type Executor } from './entry-input';
 import { HttpError } from './http';
 
 type Bed = typeof beds.$inferSelect;

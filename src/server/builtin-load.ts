@@ -11,10 +11,10 @@ import { getDb, getPool } from '@/db/client';
 import { datasetJobs } from '@/db/schema';
 import { formatAmount } from '@/lib/format-number';
 import { countText } from '@/lib/plural';
+import { isDuplicateKey } from './db-errors';
 import { recordAction, type Admin } from './admin';
 import { BUILTIN_DATASETS, builtinDataset, type BuiltinDataset } from './builtin-datasets';
 import { keepAlive, SELF_TEXT, updateJob } from './dataset-jobs';
-import { isDuplicateKey } from './entry-input';
 import { importDataset } from './food-import';
 import { HttpError } from './http';
 

@@ -16,10 +16,11 @@ import { todayIn } from '@/lib/months';
 import { WEIGHT_UNITS } from '@/lib/units';
 import { entryWeight } from '@/lib/count-volume';
 import { entryQuantityText } from '@/lib/entry-units';
+import { isDuplicateKey, isRowReferenced } from './db-errors';
 import { loadCropTable } from './crop-table-file';
 import { measuredFood, NoUnitWeight } from './unit-weights';
 import { HttpError } from './http';
-import { fieldError, invalidInput, isDuplicateKey, isRowReferenced, type Executor, type Tx } from './entry-input';
+import { fieldError, invalidInput, type Executor, type Tx } from './entry-input';
 
 
 /** "Name (variety)", or the name alone. Example: `cropDisplayName('Potato', 'Pink Fir')` → 'Potato (Pink Fir)' */

@@ -12,7 +12,7 @@ import { datasetJobs, type DatasetJob } from '@/db/schema';
 import { RUNNING_JOB_STATUSES } from '@/lib/dataset-jobs';
 import type { UploadJobJson } from '@/lib/dataset-upload';
 import { JOB_HEARTBEAT_MS, runnerText, stuckReason, type JobRunner } from '@/lib/job-runner';
-import { isDuplicateKey } from './entry-input';
+import { isDuplicateKey } from './db-errors';
 import { HttpError } from './http';
 import { removeJobFolder, sweepUploadFolders } from './upload-files';
 

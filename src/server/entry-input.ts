@@ -39,9 +39,6 @@ export function fieldError(field: string, message: string, code = 'invalid_input
 
 // readOptionalJson lives with the other body readers in ./http.
 
-// The MariaDB error tests live in ./db-errors (http.ts needs them too); re-exported for the data layer.
-export { isDuplicateKey, isParentMissing, isRetryableLock, isRowReferenced } from './db-errors';
-
 /**
  * Takes a shared lock on the household's row at the start of a write transaction, or answers 404
  * when it is gone: a concurrent deletion (which locks the row first, for update) then waits for

@@ -5,7 +5,8 @@ import { crops, harvests, households, memberships, plantings, purchases, staples
 import { compareMonths, monthOf, todayIn } from '@/lib/months';
 import { currentZoneName } from '@/lib/time-zones';
 import { currencyForZone } from '@/lib/currency';
-import { fieldError, isRetryableLock, type Tx } from './entry-input';
+import { isRetryableLock } from './db-errors';
+import { fieldError, type Tx } from './entry-input';
 import { HttpError } from './http';
 
 export interface HouseholdInput {

@@ -20,8 +20,9 @@ import { createHash } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { idempotencyKeys } from '@/db/schema';
+import { isDuplicateKey } from './db-errors';
 import { HttpError, json } from './http';
-import { isDuplicateKey, lockHousehold, type Tx } from './entry-input';
+import { lockHousehold, type Tx } from './entry-input';
 import { withWriteRetry } from './write-retry';
 
 /** The request header. */

@@ -17,7 +17,7 @@ import { getDb } from '@/db/client';
 import { households, letters, type Household, type Letter } from '@/db/schema';
 import { dueLetterMonthIn } from '@/lib/letter-due';
 import { letterText } from '@/lib/letter-text';
-import { isDuplicateKey, isRetryableLock } from './entry-input';
+import { isDuplicateKey, isRetryableLock } from './db-errors';
 import { householdLetterFigures, letterRecipients, memberLetterData, type LetterRecipient } from './letter-data';
 import { sendMail } from './mail';
 
