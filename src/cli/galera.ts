@@ -8,9 +8,10 @@
  * Ports from `firstPort` (the test's TEST_PORT + 1): SQL firstPort…+2; Galera's at firstPort + 20000.
  */
 import { spawn, spawnSync } from 'node:child_process';
-import { chownSync, existsSync, mkdirSync, openSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { chownSync, mkdirSync, openSync, rmSync, writeFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import mysql from 'mysql2/promise';
+import { serverPid } from './server-pid';
 import { ensurePackageFile, ensureProgram, findProgram } from './system';
 
 export const GALERA_LIBRARY = '/usr/lib/galera/libgalera_smm.so';
@@ -171,17 +172,9 @@ export function startNode(cluster: GaleraCluster, node: GaleraNode, bootstrap = 
   return child.pid!;
 }
 
-/** The running node's pid, from its pid file, or null. */
+/** The running node's pid, from its pid file, or null (a stale pid file included). */
 export function nodePid(node: GaleraNode): number | null {
-  if (!existsSync(node.pidFile)) return null;
-  const pid = Number(readFileSync(node.pidFile, 'utf8').trim());
-  if (!Number.isInteger(pid) || pid <= 0) return null;
-  try {
-    process.kill(pid, 0);
-    return pid;
-  } catch {
-    return null;
-  }
+  return serverPid(node.pidFile, node.dataDir);
 }
 
 /** SIGKILL: the node dies mid-transaction, as in a power cut. Returns when the process is gone. */

@@ -3,9 +3,10 @@
  * port and socket. Idempotent: `up` after `up`, or after a crash, just works.
  */
 import { spawn, spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync, openSync } from 'node:fs';
+import { existsSync, mkdirSync, rmSync, writeFileSync, openSync } from 'node:fs';
 import { resolve } from 'node:path';
 import mysql from 'mysql2/promise';
+import { serverPid } from './server-pid';
 import { ensureProgram, findProgram } from './system';
 import type { DbUrlParts } from '@/server/config';
 
@@ -35,7 +36,7 @@ function sleep(ms: number) {
   return new Promise((r) => setTimeout(r, ms));
 }
 
-export function pidAlive(pid: number): boolean {
+function pidAlive(pid: number): boolean {
   try {
     process.kill(pid, 0);
     return true;
@@ -44,10 +45,9 @@ export function pidAlive(pid: number): boolean {
   }
 }
 
-export function readPid(p: ServerPaths): number | null {
-  if (!existsSync(p.pidFile)) return null;
-  const n = Number(readFileSync(p.pidFile, 'utf8').trim());
-  return Number.isInteger(n) && n > 0 ? n : null;
+/** The running server's pid, or null when none runs from this data directory (a stale pid file included). */
+export function runningPid(p: ServerPaths): number | null {
+  return serverPid(p.pidFile, p.dataDir);
 }
 
 async function ping(p: ServerPaths): Promise<boolean> {
@@ -81,8 +81,8 @@ export function ensureInstalled(p: ServerPaths): void {
 /** Starts the private server on `port` unless it already answers. */
 export async function startServer(p: ServerPaths, port: number): Promise<void> {
   if (await ping(p)) return;
-  const old = readPid(p);
-  if (old && pidAlive(old)) {
+  const old = runningPid(p);
+  if (old) {
     // Starting up, or hung: give it a moment before concluding anything.
     for (let i = 0; i < 100; i++) {
       if (await ping(p)) return;
@@ -152,8 +152,8 @@ export async function recreateDatabase(p: ServerPaths, db: DbUrlParts): Promise<
 
 /** Stops the private server and waits for the process to exit. */
 export async function stopServer(p: ServerPaths): Promise<boolean> {
-  const pid = readPid(p);
-  if (!pid || !pidAlive(pid)) {
+  const pid = runningPid(p);
+  if (!pid) {
     rmSync(p.pidFile, { force: true });
     return false;
   }
@@ -167,8 +167,8 @@ export async function stopServer(p: ServerPaths): Promise<boolean> {
 
 /** Kills the server at once (SIGKILL: no shutdown, no flush), as a crash would; waits until it is gone. */
 export async function killServer(p: ServerPaths): Promise<number> {
-  const pid = readPid(p);
-  if (!pid || !pidAlive(pid)) throw new Error(`no MariaDB is running from ${p.dataDir}`);
+  const pid = runningPid(p);
+  if (!pid) throw new Error(`no MariaDB is running from ${p.dataDir}`);
   process.kill(pid, 'SIGKILL');
   for (let i = 0; i < 100 && pidAlive(pid); i++) await sleep(50);
   if (pidAlive(pid)) throw new Error(`MariaDB (pid ${pid}) did not die on SIGKILL`);
