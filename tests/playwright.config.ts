@@ -7,6 +7,8 @@ export default defineConfig({
   workers: 1,
   // One retry in CI only; a test that needed it is reported as flaky in the summary, not hidden.
   retries: process.env.CI ? 1 : 0,
+  // PW_REPEAT_EACH=N runs each test N times (hunting a flaky one; see DEVELOPERS.md).
+  repeatEach: Number(process.env.PW_REPEAT_EACH ?? 1),
   timeout: 60_000,
   reporter: [['list'], ['json']],
   outputDir: `../.data/test-reports-${process.env.TEST_PORT ?? '4399'}/e2e-artifacts`,

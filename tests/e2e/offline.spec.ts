@@ -31,6 +31,23 @@ async function potatoPlot(context: BrowserContext, name: string) {
   return { owner, h, crop };
 }
 
+/**
+ * The page has heard it has no signal. Chromium tells a page a moment after setOffline returns (and
+ * a page opened offline a moment after it starts); an entry saved in that moment is tried at once,
+ * and such a try from a page the service worker controls has been seen in CI to reach the server
+ * under the emulation, its answer lost. A phone with no signal knows it before anyone taps.
+ */
+async function offlineHeard(page: Page) {
+  await page.waitForFunction(() => !navigator.onLine);
+  // One more turn of the page's event loop: the `offline` event the app listens to has run.
+  await page.evaluate(() => new Promise((resolve) => setTimeout(resolve, 0)));
+}
+
+async function noSignal(context: BrowserContext, page: Page) {
+  await context.setOffline(true);
+  await offlineHeard(page);
+}
+
 /** Opens the Log page and waits until the service worker controls it and has kept the page and its crops. */
 async function visitLogOnline(page: Page, hid: number) {
   await page.goto(`/households/${hid}/log`);
@@ -64,7 +81,7 @@ test('three harvests logged offline wait on the phone and reach the server once 
   const { owner, h } = await potatoPlot(context, 'No-signal plot');
   await visitLogOnline(page, h.id);
 
-  await context.setOffline(true);
+  await noSignal(context, page);
   const waiting = page.getByTestId('waiting');
   const weights = ['1.5', '2', '0.25'];
   for (const [i, kg] of weights.entries()) {
@@ -90,7 +107,7 @@ test('three harvests logged offline wait on the phone and reach the server once 
 test('the Log page opens offline after one visit, its queue survives a reload, and an unvisited page shows the offline page', async ({ page, context }) => {
   const { owner, h } = await potatoPlot(context, 'Reload plot');
   await visitLogOnline(page, h.id);
-  await context.setOffline(true);
+  await noSignal(context, page);
   // A page never opened: the worker's offline page (proves the worker's own requests are offline too).
   await page.goto(`/households/${h.id}/share`);
   await expect(page.getByTestId('offline-page')).toContainText('No connection');
@@ -98,6 +115,7 @@ test('the Log page opens offline after one visit, its queue survives a reload, a
   // The Log page, from the worker's copy, with the crop chips from the kept crops list.
   await page.goto(`/households/${h.id}/log`);
   await expect(page.getByRole('heading', { name: 'Log a harvest' })).toBeVisible();
+  await offlineHeard(page);
   await expect(page.getByText('Potato', { exact: true })).toBeVisible();
   await logHarvest(page, '4');
   await expectFormFree(page);
@@ -125,12 +143,13 @@ test('a split weighing and a staple’s one tap logged offline are sent once eac
   await page.goto(`/households/${h.id}/bought`);
   await expect(page.getByTestId('staples')).toContainText('Flour sack');
 
-  await context.setOffline(true);
+  await noSignal(context, page);
   await page.getByTestId('staples').getByRole('button').first().tap();
   await expect(page.getByTestId('purchase-waiting')).toContainText('25 kg Flour sack — over 6 months');
   await expect(page.getByTestId('purchase-waiting')).toContainText('waiting to send');
 
   await page.goto(`/households/${h.id}/log`);
+  await offlineHeard(page);
   await page.getByText('Potato', { exact: true }).tap();
   await page.getByLabel('Weight', { exact: true }).fill('10');
   await page.getByRole('button', { name: 'Split this weighing between uses' }).tap();
@@ -160,7 +179,7 @@ test('an entry the server refuses after waiting is shown with its reason and not
     if (r.method() === 'POST' && r.url().endsWith(`/api/households/${h.id}/harvests`)) posts += 1;
   });
 
-  await context.setOffline(true);
+  await noSignal(context, page);
   await logHarvest(page, '3');
   await expect(page.getByTestId('waiting')).toContainText('1 entry is waiting to send');
   // Meanwhile, on another phone, the crop is deleted: the waiting entry names a crop that is gone.
