@@ -7,6 +7,7 @@
 import type { Pool } from 'mysql2/promise';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { grantAdmin } from '@/cli/admin-grant';
+import { searchFoods } from '@/server/food-search';
 import { BASE_URL, TEST_DB_URL, testPool } from '../support/env';
 import { apiAs, householdWithRoles, newVerifiedUser, type TestUser } from '../support/users';
 
@@ -97,11 +98,17 @@ describe('FoodData Central upload', () => {
     const job = await settled(r.body.upload.id);
     expect(job).toMatchObject({ status: 'ready', format: 'sr_legacy', foodCount: 2, amountCount: 3, changes: null });
     expect((await apiAs(admin.cookie, 'GET', `/api/foods?q=quillroot&dataset=${SLUG}`)).status).toBe(404); // not applied yet
+    // Asked before the load, the unrestricted search finds nothing; that answer is kept (food-search-cache.ts).
+    for (let i = 0; i < 2; i++) expect((await apiAs(admin.cookie, 'GET', '/api/foods?q=quillroot')).body.foods).toEqual([]);
     const applied = await apiAs(admin.cookie, 'POST', `/api/admin/uploads/${job.id}/apply`);
     expect(applied.status).toBe(200);
     expect(applied.body.upload.status).toBe('applied');
     const hits = await apiAs(admin.cookie, 'GET', `/api/foods?q=quillroot&dataset=${SLUG}`);
     expect(hits.body.foods.map((f: { code: string; refusePct: null }) => [f.code, f.refusePct])).toEqual([['990001', null], ['990002', null]]);
+    // The load voids the kept answer: the same search, asked again, is the search worked out now.
+    const again = await apiAs(admin.cookie, 'GET', '/api/foods?q=quillroot');
+    expect(again.body.foods.map((f: { code: string }) => f.code)).toEqual(['990001', '990002']);
+    expect(again.body.foods).toEqual(JSON.parse(JSON.stringify(await searchFoods(pool, 'quillroot', 20))));
     expect((await apiAs(admin.cookie, 'POST', `/api/admin/uploads/${job.id}/apply`)).status).toBe(409);
     const log = (await apiAs(admin.cookie, 'GET', '/api/admin/actions')).body.actions;
     expect(log[0]).toMatchObject({ action: 'dataset.apply', subject: SLUG, userEmail: admin.email });
@@ -114,8 +121,8 @@ describe('FoodData Central upload', () => {
     const boiled = (await apiAs(t.owner.cookie, 'GET', `/api/foods?code=990002&dataset=${SLUG}`)).body.foods[0].id;
     for (const foodId of [raw, boiled]) expect((await apiAs(t.owner.cookie, 'POST', `/api/households/${hid}/purchases`, { date: '2026-02-10', foodId, quantity: 1, unit: 'kg' })).status).toBe(201);
 
-    // Release 2: the raw food's energy 70 → 80 kcal per 100 g, the boiled food dropped.
-    const food2 = FOOD.split('\r\n').filter((l) => !l.includes('990002')).join('\r\n');
+    // Release 2: the raw food's energy 70 → 80 kcal per 100 g and its name longer, the boiled food dropped.
+    const food2 = FOOD.split('\r\n').filter((l) => !l.includes('990002')).join('\r\n').replace('Quillroot, raw', 'Quillroot, raw, peeled');
     const r = await upload({ 'food.csv': food2, 'nutrient.csv': NUTRIENT, 'food_nutrient.csv': amounts(80).split('\r\n').filter((l) => !l.includes('990002')).join('\r\n') }, { release: 'r2' });
     const job = await settled(r.body.upload.id);
     expect(job.status).toBe('ready');
@@ -125,7 +132,13 @@ describe('FoodData Central upload', () => {
 
     const before = await apiAs(t.owner.cookie, 'GET', `/api/households/${hid}/share?from=2026-02&to=2026-02`);
     expect(before.body.months[0].values.energy_kcal.bought).toBeCloseTo(1300, 6);
+    const search = async () => (await apiAs(t.owner.cookie, 'GET', `/api/foods?q=quillroot&dataset=${SLUG}`)).body.foods;
+    expect((await search()).map((f: { name: string }) => f.name)).toEqual(['Quillroot, raw', 'Quillroot, boiled']);
     expect((await apiAs(admin.cookie, 'POST', `/api/admin/uploads/${job.id}/apply`)).status).toBe(200);
+    // The same search, asked again at once, has the new name: the kept answer went with the load.
+    const renamed = await search();
+    expect(renamed.map((f: { name: string }) => f.name)).toEqual(['Quillroot, raw, peeled', 'Quillroot, boiled']);
+    expect(renamed).toEqual(JSON.parse(JSON.stringify(await searchFoods(pool, 'quillroot', 20, { dataset: SLUG }))));
     const after = await apiAs(t.owner.cookie, 'GET', `/api/households/${hid}/share?from=2026-02&to=2026-02`);
     expect(after.body.months[0].values.energy_kcal.bought).toBeCloseTo(800, 6);
     expect((await apiAs(admin.cookie, 'GET', '/api/datasets')).body.datasets.find((d: { slug: string }) => d.slug === SLUG).release).toBe('r2');

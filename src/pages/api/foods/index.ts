@@ -5,8 +5,9 @@ import { datasetSlug } from '@/lib/dataset-order';
 import { lineText } from '@/lib/text-schemas';
 import { searchOrderFor } from '@/server/food-search-order';
 import { datasetExists } from '@/server/datasets';
-import { foodsByCode, searchFoods } from '@/server/food-search';
-import { errorResponse, handle, json } from '@/server/http';
+import { foodsByCode } from '@/server/food-search';
+import { searchFoodsJson } from '@/server/food-search-cache';
+import { errorResponse, handle, json, jsonText } from '@/server/http';
 
 const query = z
   .object({
@@ -28,5 +29,6 @@ export const GET: APIRoute = handle(async (ctx) => {
   if (p.dataset && !(await datasetExists(pool, p.dataset))) return errorResponse(404, 'unknown_dataset', `No dataset is called ${p.dataset}; GET /api/datasets lists them.`);
   if (p.code) return json({ foods: await foodsByCode(pool, p.code, p.dataset) });
   const datasetOrder = p.dataset ? undefined : await searchOrderFor(ctx, p.household);
-  return json({ foods: await searchFoods(pool, p.q!, p.limit, { branded: p.branded === '1', dataset: p.dataset, datasetOrder }) });
+  // Kept in memory until the next dataset load (food-search-cache.ts).
+  return jsonText(await searchFoodsJson(pool, p.q!, p.limit, { branded: p.branded === '1', dataset: p.dataset, datasetOrder }));
 });
