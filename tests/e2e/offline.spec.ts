@@ -9,9 +9,24 @@ import type { BrowserContext, Page } from '@playwright/test';
 import { expect, test } from './fixtures';
 import { allHarvests, allPurchases, foodId, makeCrop } from '../support/entries';
 import { testPool } from '../support/env';
+import { startSignalProxy, type Signal } from '../support/signal-proxy';
 import { apiAs, createHousehold, newVerifiedUser, signIn, BASE_URL, type TestUser } from '../support/users';
 
-test.use({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, deviceScaleFactor: 2, serviceWorkers: 'allow' });
+// The browser reaches the app only through a proxy the tests can cut (tests/support/signal-proxy.ts).
+let signal: Signal;
+
+test.use({
+  viewport: { width: 390, height: 844 },
+  isMobile: true,
+  hasTouch: true,
+  deviceScaleFactor: 2,
+  serviceWorkers: 'allow',
+  proxy: async ({}, use) => {
+    signal = await startSignalProxy(BASE_URL);
+    await use({ server: signal.url });
+    await signal.close();
+  },
+});
 
 async function signInAs(context: BrowserContext, user: TestUser) {
   await context.addCookies(
@@ -31,21 +46,27 @@ async function potatoPlot(context: BrowserContext, name: string) {
   return { owner, h, crop };
 }
 
-/**
- * The page has heard it has no signal. Chromium tells a page a moment after setOffline returns (and
- * a page opened offline a moment after it starts); an entry saved in that moment is tried at once,
- * and such a try from a page the service worker controls has been seen in CI to reach the server
- * under the emulation, its answer lost. A phone with no signal knows it before anyone taps.
- */
+/** The page has heard it has no signal (Chromium tells it a moment after setOffline returns). */
 async function offlineHeard(page: Page) {
   await page.waitForFunction(() => !navigator.onLine);
   // One more turn of the page's event loop: the `offline` event the app listens to has run.
   await page.evaluate(() => new Promise((resolve) => setTimeout(resolve, 0)));
 }
 
+/**
+ * No signal: nothing reaches the app (the proxy is cut), and the browser says it is offline, as a
+ * phone does. The emulation alone is not enough: a request from a page the service worker controls
+ * has been seen to reach the server under it.
+ */
 async function noSignal(context: BrowserContext, page: Page) {
+  signal.cut();
   await context.setOffline(true);
   await offlineHeard(page);
+}
+
+async function signalBack(context: BrowserContext) {
+  signal.restore();
+  await context.setOffline(false);
 }
 
 /** Opens the Log page and waits until the service worker controls it and has kept the page and its crops. */
@@ -95,7 +116,7 @@ test('three harvests logged offline wait on the phone and reach the server once 
   expect(stored).toEqual([`selfsown:queue:v1:${encodeURIComponent(owner.id)}:${h.id}`]);
   expect((await allHarvests(owner.cookie, h.id)).total).toBe(0);
 
-  await context.setOffline(false);
+  await signalBack(context);
   await expect(waiting).toHaveCount(0, { timeout: 20_000 });
   await expect(page.getByTestId('just-saved')).toContainText('Sent and saved');
   const after = await allHarvests(owner.cookie, h.id);
@@ -111,6 +132,8 @@ test('the Log page opens offline after one visit, its queue survives a reload, a
   // A page never opened: the worker's offline page (proves the worker's own requests are offline too).
   await page.goto(`/households/${h.id}/share`);
   await expect(page.getByTestId('offline-page')).toContainText('No connection');
+  // The browser's requests do go through the proxy (the visit before the cut was passed on).
+  expect(signal.counts.passed).toBeGreaterThan(0);
 
   // The Log page, from the worker's copy, with the crop chips from the kept crops list.
   await page.goto(`/households/${h.id}/log`);
@@ -126,7 +149,7 @@ test('the Log page opens offline after one visit, its queue survives a reload, a
   await expect(page.getByTestId('waiting')).toContainText('4 kg Potato — fresh');
   expect((await allHarvests(owner.cookie, h.id)).total).toBe(0);
 
-  await context.setOffline(false);
+  await signalBack(context);
   await expect(page.getByTestId('waiting')).toHaveCount(0, { timeout: 20_000 });
   await expect(page.getByTestId('just-saved')).toContainText('4 kg Potato — fresh');
   const after = await allHarvests(owner.cookie, h.id);
@@ -160,7 +183,7 @@ test('a split weighing and a staple’s one tap logged offline are sent once eac
   expect((await allPurchases(owner.cookie, h.id)).total).toBe(0);
 
   // Back online on the Log page: the split and the staple waiting from the Bought page both go.
-  await context.setOffline(false);
+  await signalBack(context);
   await expect(page.getByTestId('waiting')).toHaveCount(0, { timeout: 20_000 });
   await expect.poll(async () => (await allPurchases(owner.cookie, h.id)).total, { timeout: 20_000 }).toBe(1);
   const harvests = await allHarvests(owner.cookie, h.id);
@@ -185,7 +208,7 @@ test('an entry the server refuses after waiting is shown with its reason and not
   // Meanwhile, on another phone, the crop is deleted: the waiting entry names a crop that is gone.
   expect((await apiAs(owner.cookie, 'DELETE', `/api/households/${h.id}/crops/${crop.id}`)).status).toBe(204);
 
-  await context.setOffline(false);
+  await signalBack(context);
   const refused = page.getByTestId('waiting').getByRole('alert');
   await expect(refused).toContainText('Not saved: 3 kg Potato — fresh');
   await page.waitForTimeout(3_000);
