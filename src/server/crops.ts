@@ -17,16 +17,13 @@ import { WEIGHT_UNITS } from '@/lib/units';
 import { entryWeight } from '@/lib/count-volume';
 import { entryQuantityText } from '@/lib/entry-units';
 import { isDuplicateKey, isRowReferenced } from './db-errors';
+import { cropDisplayName } from '@/lib/crop-name';
 import { loadCropTable } from './crop-table-file';
 import { measuredFood, NoUnitWeight } from './unit-weights';
 import { HttpError } from './http';
 import { fieldError, invalidInput, type Executor, type Tx } from './entry-input';
 
 
-/** "Name (variety)", or the name alone. Example: `cropDisplayName('Potato', 'Pink Fir')` → 'Potato (Pink Fir)' */
-export function cropDisplayName(name: string, variety: string | null | undefined): string {
-  return variety ? `${name} (${variety})` : name;
-}
 
 /** Reference foods by id, with refuse, kcal and protein per 100 g and their household measures. */
 export async function foodSummaries(ex: Executor, ids: readonly number[]): Promise<Map<number, FoodSummary>> {

@@ -16,9 +16,10 @@ export function foodOfHarvest(): SQL {
   return eq(foods.id, harvests.foodId);
 }
 
-/** The crop's name with its variety ("Potato, Charlotte"), else the reference food's name. */
+/** The crop's name as cropDisplayName writes it ("Potato (Charlotte)"), else the reference food's name. */
 export function harvestNameSql(): SQL<string | null> {
-  return sql<string | null>`COALESCE(NULLIF(CONCAT_WS(', ', ${crops.name}, NULLIF(${crops.variety}, '')), ''), ${foods.name})`;
+  const variety = sql`NULLIF(${crops.variety}, '')`;
+  return sql<string | null>`COALESCE(NULLIF(IF(${variety} IS NULL, ${crops.name}, CONCAT(${crops.name}, ' (', ${variety}, ')')), ''), ${foods.name})`;
 }
 
 /** Harvests that count as food: no crop or a food crop, and never one whose crop is not the household's. */

@@ -13,6 +13,7 @@
 import { and, eq, gte, inArray, lte, notExists, or, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '@/db/client';
 import { crops, harvestGroups, harvests, larderOutcomes, purchaseGroups, purchases } from '@/db/schema';
+import { cropDisplayName } from '@/lib/crop-name';
 import { ENTRY_LIMITS } from '@/lib/entry-schemas';
 import { addMonths, daysInMonth } from '@/lib/months';
 import { isPreserveMethod } from '@/lib/retention';
@@ -72,9 +73,9 @@ const householdCrops = rawQuery<{ id: number; name: string | null; variety: stri
     SELECT ${crops.id} AS id, ${crops.name} AS name, ${crops.variety} AS variety, ${crops.notFood} AS notFood
       FROM ${crops} WHERE ${eq(crops.householdId, at.household)}`);
 
-/** A crop's name with its variety, as harvestNameSql() writes it; null when both are empty. */
+/** A crop's name as harvestNameSql() writes it (cropDisplayName); null when it is empty. */
 function cropLabel(c: { name: string | null; variety: string | null }): string | null {
-  const label = [c.name, c.variety || null].filter((part) => part !== null).join(', ');
+  const label = cropDisplayName(c.name ?? '', c.variety);
   return label === '' ? null : label;
 }
 

@@ -139,7 +139,7 @@ describe('crops and larder records', () => {
     await afterWrite(async () => ok(await apiAs(t.owner.cookie, 'PATCH', path(`/crops/${chard.id}`), { notFood: false, foodId: await foodId('11233') })));
   });
 
-  it('names crops as the harvest list does: with their variety, else after the food logged (harvestNameSql)', async () => {
+  it('names crops as the harvest list does: "Name (variety)", else after the food logged (harvestNameSql)', async () => {
     const bean = await makeCrop(t.owner.cookie, hid, { name: 'Runner bean', variety: 'Scarlet Emperor', foodId: await foodId('11052'), category: 'legume' });
     const served = await afterWrite(async () => {
       await logHarvest(t.owner.cookie, hid, { cropId: bean.id, date: '2025-08-14', quantity: 6, unit: 'kg', use: 'fresh' });
@@ -154,8 +154,11 @@ describe('crops and larder records', () => {
       .leftJoin(schema.foods, foodOfHarvest())
       .where(and(eq(schema.harvests.householdId, hid), inArray(schema.harvests.date, ['2025-08-14', '2025-08-15'])));
     const names = listed.map((r) => r.name).sort();
-    expect(names).toEqual(['Kale, raw', 'Runner bean, Scarlet Emperor']);
+    expect(names).toEqual(['Kale, raw', 'Runner bean (Scarlet Emperor)']);
     for (const name of names) expect(served.topCrops.map((c: any) => c.name)).toContain(name);
+    // And the harvest list's own answer says the same (cropDisplayName).
+    const list = await apiAs(t.owner.cookie, 'GET', path('/harvests?from=2025-08-14&to=2025-08-14'));
+    expect(list.body.harvests.map((h: any) => h.cropName)).toContain('Runner bean (Scarlet Emperor)');
   });
 
   it('a larder record added and removed (the lot leaves the rollup and comes back)', async () => {
