@@ -210,17 +210,3 @@ export function rawnessRank(name: string, group?: string): number {
   if (fastFood || has(FAR_FROM_GARDEN) || (group !== undefined && FAR_GROUPS.has(group))) rank = RAWNESS.farFromGarden;
   return rank;
 }
-
-/**
- * Lower-case, accent-free words of a name and its group, for a LIKE or full-text index.
- * Example: searchText('Squash, winter, butternut, raw', 'Vegetables and Vegetable Products')
- *   === 'squash winter butternut raw vegetables and vegetable products'
- */
-export function searchText(name: string, group: string): string {
-  return `${name} ${group}`
-    .toLowerCase()
-    .normalize('NFD')
-    .replace(/[\u0300-\u036f]/g, '')
-    .replace(/[^a-z0-9%']+/g, ' ')
-    .trim();
-}

@@ -4,7 +4,7 @@
  * nutrient amounts and household weights: never duplicates. Statements go through Drizzle's builder
  * except the joined deletes (marked where they stay raw); the nutrient amounts go in with one bulk load.
  */
-import { eq, sql } from 'drizzle-orm';
+import { eq, inArray, sql } from 'drizzle-orm';
 import { drizzle } from 'drizzle-orm/mysql2';
 import type { Pool } from 'mysql2/promise';
 import { withWriteRetry } from './write-retry';
@@ -161,6 +161,14 @@ async function loadInOneTransaction(
     }
     const idRows = await db.select({ id: foodsTable.id, code: foodsTable.code }).from(foodsTable).where(eq(foodsTable.datasetId, id));
     const idByCode = new Map(idRows.map((r) => [r.code, r.id]));
+    // A food this release no longer has keeps its row (entries name it; its figures become unknown),
+    // but search stops offering it: nobody should pick a food with no figures. Back in a later
+    // release, the upsert above gives it its search words again.
+    const inRelease = new Set(foods.map((f) => f.code));
+    const dropped = idRows.filter((r) => !inRelease.has(r.code)).map((r) => r.id);
+    for (let i = 0; i < dropped.length; i += CHUNK) {
+      await db.update(foodsTable).set({ searchText: '' }).where(inArray(foodsTable.id, dropped.slice(i, i + CHUNK)));
+    }
 
     // Multi-table DELETE with a join: Drizzle's delete() has no join.
     await conn.query('DELETE fn FROM food_nutrients fn JOIN foods f ON f.id = fn.food_id WHERE f.dataset_id = ?', [id]);

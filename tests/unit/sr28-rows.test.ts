@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { describe, expect, it } from 'vitest';
-import { RAWNESS, isBranded, rawnessRank, searchText, sr28ToFoodRecords } from '@/lib/food-rows';
+import { RAWNESS, isBranded, rawnessRank, sr28ToFoodRecords } from '@/lib/food-rows';
 import { NUTRIENTS } from '@/lib/nutrients';
 import { SR28_FIELDS, parseSr28Row, sr28FieldIndex } from '@/lib/sr28-fields';
 import { OTHER_GROUP, sr28FoodGroup } from '@/lib/sr28-groups';
@@ -271,14 +271,5 @@ describe('isBranded', () => {
     const branded = records.foods.filter((f) => isBranded(f.originalName, f.group));
     expect(branded.length).toBeGreaterThan(300);
     for (const f of branded) expect(rawnessRank(f.name, f.group), f.name).toBe(RAWNESS.branded);
-  });
-});
-
-describe('searchText', () => {
-  it('gives lower-case words without punctuation or accents', () => {
-    expect(searchText('Squash, winter, butternut, raw', 'Vegetables and Vegetable Products')).toBe(
-      'squash winter butternut raw vegetables and vegetable products',
-    );
-    expect(searchText('Crème fraîche', 'Dairy and Egg Products')).toBe('creme fraiche dairy and egg products');
   });
 });
