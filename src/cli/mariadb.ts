@@ -6,7 +6,7 @@ import { spawn, spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, rmSync, writeFileSync, openSync } from 'node:fs';
 import { resolve } from 'node:path';
 import mysql from 'mysql2/promise';
-import { serverPid } from './server-pid';
+import { pidAlive, serverPid } from './server-pid';
 import { ensureProgram, findProgram } from './system';
 import type { DbUrlParts } from '@/server/config';
 
@@ -34,15 +34,6 @@ export function serverPaths(root = process.cwd(), folder = '.data'): ServerPaths
 
 function sleep(ms: number) {
   return new Promise((r) => setTimeout(r, ms));
-}
-
-function pidAlive(pid: number): boolean {
-  try {
-    process.kill(pid, 0);
-    return true;
-  } catch {
-    return false;
-  }
 }
 
 /** The running server's pid, or null when none runs from this data directory (a stale pid file included). */

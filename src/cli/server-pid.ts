@@ -11,7 +11,8 @@ export function cmdlineServesDataDir(cmdline: string, dataDir: string): boolean 
   return cmdline.split('\0').includes(`--datadir=${dataDir}`);
 }
 
-function alive(pid: number): boolean {
+/** Whether a process with this pid runs (any process: see serverPid for ours). */
+export function pidAlive(pid: number): boolean {
   try {
     process.kill(pid, 0);
     return true;
@@ -24,7 +25,7 @@ function alive(pid: number): boolean {
 export function serverPid(pidFile: string, dataDir: string): number | null {
   if (!existsSync(pidFile)) return null;
   const pid = Number(readFileSync(pidFile, 'utf8').trim());
-  if (!Number.isInteger(pid) || pid <= 0 || !alive(pid)) return null;
+  if (!Number.isInteger(pid) || pid <= 0 || !pidAlive(pid)) return null;
   // Without /proc (not Linux) the pid file is all there is to go on.
   if (!existsSync('/proc/self/cmdline')) return pid;
   try {
