@@ -24,6 +24,8 @@ export const BRAND_WORDS: ReadonlySet<string> = new Set([
   'EVIAN', 'CALISTOGA', 'BISCOFF', 'ENTENMANN', "ENTENMANN'S", "NEWMAN'S", "ANDREA'S", 'CRUNCHMASTER', "RUDI'S",
   'SCHIFF', 'ENFAGROW', 'GENTLEASE', 'COCOAVIA', 'KRAVE', 'KFC', "DOMINO'S", 'MALT-O-MEAL', 'SNACKWELL',
   "SNACKWELL'S", "BARBARA'S", "JACKSON'S", "BREAKSTONE'S", 'POSTUM', 'TOTINO', "TOTINO'S",
+  // Legumes group: SR28 16250–16262 "Silk … soy yogurt / creamer"
+  'SILK',
 ]);
 
 /** Brands written in more than one word, matched as consecutive words. */
@@ -36,6 +38,8 @@ export const BRAND_PHRASES: readonly (readonly string[])[] = [
   ['ABB', 'NUTR'], ['HEALTHY', 'REQUEST'], ["MOM'S", 'BEST'], ['FIBER', 'ONE'],
   ['CEREALS', 'RTE', 'POST'], ['CEREALS', 'READY', 'TO', 'EAT', 'POST'], ['VAN', "CAMP'S"], ["VAN'S"],
   ['LUNCHABLES'], ['FRITO', 'LAY'], ['HOT', 'POCKETS'], ['LA', 'CHOY'], ['CHEF', 'BOYARDEE'], ['BIRDS', 'EYE'],
+  // Legumes group: SR28 16279, 16281 "House foods premium … tofu"
+  ['HOUSE', 'FOODS'],
 ];
 
 // Possessives that are common nouns or dish names, not makers ("shepherd's pie", "baker's yeast").

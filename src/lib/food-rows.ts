@@ -95,6 +95,8 @@ const PRESERVED = new Set([
   'bottled', 'concentrate', 'concentrated', 'evaporated', 'condensed', 'unheated', 'juice', 'juices', 'powder',
   'flour', 'oil', 'meal', 'puree', 'paste', 'syrup', 'nectar', 'flakes', 'chips', 'jam', 'jelly', 'sauce',
   'pasteurized', 'fermented', 'kimchi', 'sauerkraut', 'gluten', 'bran', 'germ',
+  // Kitchen products SR28 names in one word, with no "fermented" or "prepared" to say so.
+  'miso', 'natto', 'tempeh', 'tofu', 'okara', 'poi', 'cornstarch', 'extract', 'isolate',
 ]);
 // Words that say it is a made, mixed or packaged product (rank 4).
 const PREPARED = new Set([
@@ -103,6 +105,9 @@ const PREPARED = new Set([
   'fortified', 'sweetened', 'restructured', 'imitation', 'recipe', 'homemade', 'home-prepared',
   'entree', 'dinner', 'soup', 'sandwich', 'pizza', 'cereals', 'candies', 'cookies', 'crackers', 'snacks', 'bar',
   'drink', 'beverage', 'beverages', 'dressing', 'spread', 'substitute', 'formulated', 'supplement',
+  // Dishes and made products SR28 names in one segment ("Potato pancakes", "Spinach souffle").
+  'pancakes', 'pancake', 'souffle', 'catsup', 'ketchup', 'seasoning', 'spice', 'extender', 'yogurt', 'creamer',
+  'meatloaf', 'vegetarian',
 ]);
 // Whole categories of food nobody grows (rank 5).
 const FAR_FROM_GARDEN = new Set(['babyfood', 'infant', 'toddler', 'formula', 'restaurant']);

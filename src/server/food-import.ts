@@ -64,10 +64,18 @@ export async function syncNutrients(db: Db): Promise<void> {
     });
 }
 
-/** True when this dataset release is already loaded with this many foods. */
-export async function isImported(pool: Pool, info: DatasetInfo, foodCount: number): Promise<boolean> {
-  const [r] = await dbOn(pool).select({ release: datasets.release, foodCount: datasets.foodCount }).from(datasets).where(eq(datasets.slug, info.slug));
-  return !!r && r.release === info.release && r.foodCount === foodCount;
+/**
+ * True when this dataset release is already loaded with these foods and their search ranks as the
+ * code works them out now: ranks are set at load time, so a release loaded under older rules
+ * (rawnessRank) is loaded again, once, by the next `db:import-foods` or `npm start`.
+ */
+export async function isImported(pool: Pool, info: DatasetInfo, records: readonly FoodRecord[]): Promise<boolean> {
+  const db = dbOn(pool);
+  const [r] = await db.select({ id: datasets.id, release: datasets.release, foodCount: datasets.foodCount }).from(datasets).where(eq(datasets.slug, info.slug));
+  if (!r || r.release !== info.release || r.foodCount !== records.length) return false;
+  const stored = await db.select({ code: foodsTable.code, rawness: foodsTable.rawness }).from(foodsTable).where(eq(foodsTable.datasetId, r.id));
+  const rank = new Map(stored.map((f) => [f.code, f.rawness]));
+  return records.every((f) => rank.get(f.code) === f.rawness);
 }
 
 async function datasetId(db: Db, slug: string): Promise<number> {
@@ -92,7 +100,7 @@ export async function importDataset(
     if (!codes.has(a.code)) throw new Error(`nutrient amount for unknown food code ${a.code}`);
     if (!Number.isFinite(a.amount) || a.amount < 0) throw new Error(`food ${a.code}: ${a.key} amount ${a.amount} is not a non-negative number`);
   }
-  if (!opts.force && (await isImported(pool, info, foods.length))) {
+  if (!opts.force && (await isImported(pool, info, foods))) {
     return { datasetId: await datasetId(dbOn(pool), info.slug), foods: foods.length, amounts: 0, skipped: true };
   }
 

@@ -51,6 +51,8 @@ export async function searchFoods(pool: Pool, q: string, limit = 20, options: Se
   // The word as typed wins over its singular ("potatoes" → "Potatoes, …" before "Potato pancakes").
   const opensAsTyped = sql`LOWER(${foods.name}) REGEXP ${`^${words[0]!}\\b`}`;
   const opens = sql`LOWER(${foods.name}) REGEXP ${`^(${[words[0]!, ...(one ? [one] : [])].join('|')})\\b`}`;
+  // A word still being typed opens the name too ("pota", "potato" → "Potatoes, …" before "Sweet potato").
+  const opensTyping = like(sql`LOWER(${foods.name})`, `${words[0]!.replace(/[\\%_]/g, '\\$&')}%`);
   // Datasets in the household's order, else in the order they were loaded (USDA SR28 first).
   const order: SQL[] = [];
   if (options.datasetOrder?.length) {
@@ -62,6 +64,7 @@ export async function searchFoods(pool: Pool, q: string, limit = 20, options: Se
   order.push(
     sql`(${opensAsTyped} AND ${foods.rawness} <= ${RAWNESS.otherRaw}) DESC`,
     sql`(${opens} AND ${foods.rawness} <= ${RAWNESS.otherRaw}) DESC`,
+    sql`(${opensTyping} AND ${foods.rawness} <= ${RAWNESS.otherRaw}) DESC`,
     sql`(${foods.rawness} = ${RAWNESS.everyday}) DESC`,
     sql`(${foods.rawness} <= ${RAWNESS.otherRaw}) DESC`,
     sql`${opens} DESC`,

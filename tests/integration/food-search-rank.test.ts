@@ -39,6 +39,15 @@ describe('GET /api/foods puts the everyday raw form first', () => {
     expect((await first('squash')).slice(0, 2).map((h) => h.code).sort()).toEqual(['11641', '11643']);
   });
 
+  it('puts the plain raw food first for a singular or a word still being typed', async () => {
+    // USDA SR28, NDB 11352 "Potatoes, flesh and skin, raw" and 11124 "Carrots, raw": not 11672
+    // "Potato pancakes" (a dish) nor "Sweet potato, …" for "potato" or "pota"
+    for (const [q, code] of [['potato', '11352'], ['pota', '11352'], ['carrot', '11124']] as const) {
+      const hits = await first(q);
+      expect(hits[0]?.code, `${q}: ${hits.slice(0, 3).map((h) => h.name).join(' | ')}`).toBe(code);
+    }
+  });
+
   it('finds a plural by its singular without matching longer words', async () => {
     // USDA SR28, NDB 01123 "Egg, whole, raw, fresh": "eggs" finds it, and Eggplant is not an egg
     const hits = await first('eggs');

