@@ -10,7 +10,7 @@ import { areaUnitFor, fromM2, toM2, type AreaUnit, type BedInput, type BedPatch 
 import type { BedJson } from '@/lib/bed-types';
 import type { UnitSystem } from '@/lib/units';
 import { isDuplicateKey } from './db-errors';
-import { type Executor } from './entry-input';
+import type { Executor } from './entry-input';
 import { HttpError } from './http';
 
 type Bed = typeof beds.$inferSelect;

@@ -23,8 +23,6 @@ import { measuredFood, NoUnitWeight } from './unit-weights';
 import { HttpError } from './http';
 import { fieldError, invalidInput, type Executor, type Tx } from './entry-input';
 
-
-
 /** Reference foods by id, with refuse, kcal and protein per 100 g and their household measures. */
 export async function foodSummaries(ex: Executor, ids: readonly number[]): Promise<Map<number, FoodSummary>> {
   const unique = [...new Set(ids)];

@@ -52,7 +52,7 @@ export async function searchFoods(pool: Pool, q: string, limit = 20, options: Se
   const opensAsTyped = sql`LOWER(${foods.name}) REGEXP ${`^${words[0]!}\\b`}`;
   const opens = sql`LOWER(${foods.name}) REGEXP ${`^(${[words[0]!, ...(one ? [one] : [])].join('|')})\\b`}`;
   // A word still being typed opens the name too ("pota", "potato" → "Potatoes, …" before "Sweet potato").
-  const opensTyping = like(sql`LOWER(${foods.name})`, `${words[0]!.replace(/[\\%_]/g, '\\$&')}%`);
+  const opensTyping = like(sql`LOWER(${foods.name})`, `${words[0]!}%`); // words are letters and digits only
   // Datasets in the household's order, else in the order they were loaded (USDA SR28 first).
   const order: SQL[] = [];
   if (options.datasetOrder?.length) {

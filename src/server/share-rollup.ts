@@ -69,15 +69,9 @@ const harvestGroupsIn = rawQuery<RawGroup>(sql`
      )}`);
 
 /** The household's crops as a group names and filters them (a few dozen rows). */
-const householdCrops = rawQuery<{ id: number; name: string | null; variety: string | null; notFood: number }>(sql`
+const householdCrops = rawQuery<{ id: number; name: string; variety: string | null; notFood: number }>(sql`
     SELECT ${crops.id} AS id, ${crops.name} AS name, ${crops.variety} AS variety, ${crops.notFood} AS notFood
       FROM ${crops} WHERE ${eq(crops.householdId, at.household)}`);
-
-/** A crop's name as harvestNameSql() writes it (cropDisplayName); null when it is empty. */
-function cropLabel(c: { name: string | null; variety: string | null }): string | null {
-  const label = cropDisplayName(c.name ?? '', c.variety);
-  return label === '' ? null : label;
-}
 
 /**
  * Harvest groups whose eating can fall in [from, to] or that are dated in it: dated in the range,
@@ -90,7 +84,7 @@ function cropLabel(c: { name: string | null; variety: string | null }): string |
  */
 export async function harvestGroupRows(pool: Pool, householdId: number, from: string, to: string): Promise<GroupRow[]> {
   const [rows, cropRows] = await Promise.all([harvestGroupsIn.run(pool, rangeValues(householdId, from, to)), householdCrops.run(pool, { householdId })]);
-  const cropsById = new Map(cropRows.map((c) => [c.id, { name: cropLabel(c), notFood: Boolean(c.notFood) }]));
+  const cropsById = new Map(cropRows.map((c) => [c.id, { name: cropDisplayName(c.name, c.variety), notFood: Boolean(c.notFood) }]));
   const out: GroupRow[] = [];
   // Each row made a GroupRow in place: thousands of rows, no copies.
   for (const r of rows) {

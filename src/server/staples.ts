@@ -11,7 +11,7 @@ import { isDuplicateKey } from './db-errors';
 import { requireFood } from './crops';
 import { HttpError } from './http';
 import { todayIn } from '@/lib/months';
-import { type Executor, type Tx } from './entry-input';
+import type { Executor, Tx } from './entry-input';
 import type { PurchaseJson } from '@/lib/entry-types';
 import { createPurchase } from './purchases';
 import { isCountOrVolume } from '@/lib/entry-units';
