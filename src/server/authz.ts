@@ -3,12 +3,13 @@
  * URL (404 — its existence is not revealed), role allowing the action (403).
  */
 import type { APIContext, APIRoute } from 'astro';
-import { and, eq, sql, type SQL } from 'drizzle-orm';
-import { getDb, preparedOnce } from '@/db/client';
+import { and, eq, getTableColumns, sql, type SQL } from 'drizzle-orm';
+import { getDb, getPool } from '@/db/client';
 import { households, memberships, session, user, type Household, type Role } from '@/db/schema';
 import { roleAllows, type Access } from '@/lib/household-schemas';
 import { parseRouteId } from '@/lib/route-id';
 import { HttpError, handle } from './http';
+import { rawQuery, readFields, selectList } from './raw-query';
 import { currentSession, putSession, requestSession, sessionColumns, sessionCookieToken, type SessionRow } from './session-lookup';
 
 export interface HouseholdAccess {
@@ -41,17 +42,46 @@ function householdIdOf(param: string | undefined): number {
   return id;
 }
 
-/** The gate's one query (the membership with its household, and any extra columns), prepared once. */
+const householdFields = getTableColumns(households);
+
+/** A gate row's household (null when no membership joined it) and role. */
+type GateRow = { role: Role | null; household: Household | null } & Record<string, unknown>;
+
+/** The household and role of a raw gate row read with `household.`-prefixed household columns. */
+function gateRow(raw: Record<string, unknown>, extraNames: string[]): GateRow {
+  const row: GateRow = { role: (raw.role as Role | null) ?? null, household: raw['household.id'] === null ? null : (readFields(householdFields, raw, 'household.') as Household) };
+  for (const name of extraNames) row[name] = raw[name] ?? null;
+  return row;
+}
+
+/**
+ * The extra columns, each under its own name, after a leading comma (nothing when there are none);
+ * `forMembers` reads them only where a membership joined.
+ */
+function extraList(columns: GateColumns, forMembers: boolean): SQL {
+  const entries = Object.entries(columns);
+  if (entries.length === 0) return sql``;
+  return sql`, ${selectList(Object.fromEntries(entries.map(([name, column]) => [name, forMembers ? sql`IF(${memberships.role} IS NULL, NULL, ${column})` : column])))}`;
+}
+
+/**
+ * The gate's one query (the membership with its household, and any extra columns), written once.
+ * Every household route starts with it (or its session form below), so it runs as a prepared
+ * statement over the binary protocol (raw-query.ts): nothing to escape and no SQL text for the
+ * database to parse again on each request.
+ */
 function gateQuery<X extends GateColumns>(columns: X) {
-  return preparedOnce((db) =>
-    db
-      .select({ household: households, role: memberships.role, ...columns })
-      .from(memberships)
-      .innerJoin(households, eq(households.id, memberships.householdId))
-      .where(and(eq(memberships.householdId, sql.placeholder('householdId')), eq(memberships.userId, sql.placeholder('userId'))))
-      .limit(1)
-      .prepare(),
-  );
+  const names = Object.keys(columns);
+  const query = rawQuery<Record<string, unknown>>(sql`
+    SELECT ${memberships.role} AS role, ${selectList(householdFields, 'household.')}${extraList(columns, false)}
+      FROM ${memberships}
+      JOIN ${households} ON ${eq(households.id, memberships.householdId)}
+     WHERE ${and(eq(memberships.householdId, sql.placeholder('householdId')), eq(memberships.userId, sql.placeholder('userId')))}
+     LIMIT 1`);
+  return async (values: Record<string, unknown>): Promise<GateRow | undefined> => {
+    const [raw] = await query.run(getPool(), values);
+    return raw ? gateRow(raw, names) : undefined;
+  };
 }
 
 /** Runs a gate query for a user and household and checks the membership and role. */
@@ -62,13 +92,12 @@ async function gate<X extends GateColumns>(
   access: Access,
   values: Record<string, unknown> = {},
 ): Promise<{ access: HouseholdAccess; values: GateValues<X> }> {
-  const rows = await query().execute({ ...values, householdId: id, userId });
-  const row = rows[0] as ({ household: Household; role: Role } & GateValues<X>) | undefined;
-  if (!row) throw new HttpError(404, 'not_found', 'No such household.');
+  const row = await query({ ...values, householdId: id, userId });
+  if (!row?.role || !row.household) throw new HttpError(404, 'not_found', 'No such household.');
   if (!roleAllows(row.role, access)) {
     throw new HttpError(403, 'forbidden', `Your role (${row.role}) cannot do this in this household.`);
   }
-  const { household, role, ...rest } = row;
+  const { household, role, ...rest } = row as GateRow & { role: Role; household: Household };
   return { access: { userId, household, role }, values: rest as unknown as GateValues<X> };
 }
 
@@ -145,7 +174,7 @@ export function householdRouteWith<X extends GateColumns>(
       const token = await sessionCookieToken(ctx.request.headers);
       const id = token ? parseRouteId(ctx.params[param]) : null;
       if (token && id !== null) {
-        const [row] = (await withSession().execute({ ...extra.values(ctx), householdId: id, token })) as (SessionRow & { role: Role | null; household: Household | null } & Record<string, unknown>)[];
+        const row = await withSession({ ...extra.values(ctx), householdId: id, token });
         const s = await currentSession(row);
         if (s && row) {
           putSession(ctx.locals, s);
@@ -175,22 +204,23 @@ export function householdRouteWith<X extends GateColumns>(
 
 /** The gate with the session: the session and its user, the membership and household if any, and the extra columns (read for members only). */
 function sessionGateQuery<X extends GateColumns>(columns: X) {
-  const forMembers = Object.fromEntries(Object.entries(columns).map(([name, column]) => [name, sql`IF(${memberships.role} IS NULL, NULL, ${column})`]));
-  return preparedOnce((db) =>
-    db
-      .select({ ...sessionColumns, role: memberships.role, household: households, ...forMembers })
-      .from(session)
-      .innerJoin(user, eq(user.id, session.userId))
-      .leftJoin(memberships, and(eq(memberships.userId, session.userId), eq(memberships.householdId, sql.placeholder('householdId'))))
-      .leftJoin(households, eq(households.id, memberships.householdId))
-      .where(eq(session.token, sql.placeholder('token')))
-      .limit(1)
-      .prepare(),
-  );
+  const names = Object.keys(columns);
+  const query = rawQuery<Record<string, unknown>>(sql`
+    SELECT ${selectList(sessionColumns)}, ${memberships.role} AS role, ${selectList(householdFields, 'household.')}${extraList(columns, true)}
+      FROM ${session}
+      JOIN ${user} ON ${eq(user.id, session.userId)}
+      LEFT JOIN ${memberships} ON ${and(eq(memberships.userId, session.userId), eq(memberships.householdId, sql.placeholder('householdId')))}
+      LEFT JOIN ${households} ON ${eq(households.id, memberships.householdId)}
+     WHERE ${eq(session.token, sql.placeholder('token'))}
+     LIMIT 1`);
+  return async (values: Record<string, unknown>): Promise<(SessionRow & GateRow) | undefined> => {
+    const [raw] = await query.run(getPool(), values);
+    return raw ? { ...readFields(sessionColumns, raw), ...gateRow(raw, names) } : undefined;
+  };
 }
 
 /** The membership and role of a gate row that read the session too: 404 not a member, 403 role too low. */
-function checked<X extends GateColumns>(row: { role: Role | null; household: Household | null } & Record<string, unknown>, userId: string, access: Access, names: string[]) {
+function checked<X extends GateColumns>(row: GateRow, userId: string, access: Access, names: string[]) {
   if (!row.role || !row.household) throw new HttpError(404, 'not_found', 'No such household.');
   if (!roleAllows(row.role, access)) throw new HttpError(403, 'forbidden', `Your role (${row.role}) cannot do this in this household.`);
   const values = Object.fromEntries(names.map((n) => [n, row[n]])) as GateValues<X>;

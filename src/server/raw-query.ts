@@ -7,8 +7,8 @@
  * text), so a query here names its columns with the aliases its caller reads. Sent as prepared
  * statements: a value is never spliced into the text.
  */
-import { fillPlaceholders, type SQL } from 'drizzle-orm';
-import { MySqlDialect } from 'drizzle-orm/mysql-core';
+import { Column, fillPlaceholders, is, sql, type SQL } from 'drizzle-orm';
+import { MySqlDialect, type AnyMySqlColumn } from 'drizzle-orm/mysql-core';
 import type { ExecuteValues, Pool } from 'mysql2/promise';
 
 const dialect = new MySqlDialect();
@@ -43,4 +43,33 @@ export async function rawRead<Row>(pool: Pool, template: SQL): Promise<Row[]> {
   const { sql: text, params } = dialect.sqlToQuery(template);
   const [rows] = await pool.query(text, params);
   return rows as Row[];
+}
+
+/** Named columns of the schema (or expressions) a raw read selects, each under its own name. */
+export type RawFields = Record<string, AnyMySqlColumn | SQL>;
+
+/** What a field reads as: a column's type as Drizzle gives it; an expression's value as mysql2 gives it. */
+type FieldValue<F> = F extends AnyMySqlColumn ? F['_']['notNull'] extends true ? F['_']['data'] : F['_']['data'] | null : F extends SQL<infer T> ? T : never;
+
+/** The select list `column AS \`<prefix><name>\`` of `fields`, for a rawQuery template. */
+export function selectList(fields: RawFields, prefix = ''): SQL {
+  return sql.join(
+    Object.entries(fields).map(([name, field]) => sql`${field} AS ${sql.identifier(prefix + name)}`),
+    sql`, `,
+  );
+}
+
+/**
+ * The fields of a row read with selectList(fields, prefix), as Drizzle's own select would give
+ * them: each column's value through the column's own mapping (booleans from 0/1, numbers from
+ * text, …), except that a TIMESTAMP or DATETIME arrives already as a Date (the binary protocol, the
+ * pool's time zone UTC: src/db/client.ts); an expression's value as mysql2 gives it.
+ */
+export function readFields<F extends RawFields>(fields: F, row: Record<string, unknown>, prefix = ''): { [K in keyof F]: FieldValue<F[K]> } {
+  const out: Record<string, unknown> = {};
+  for (const [name, field] of Object.entries(fields)) {
+    const value = row[prefix + name];
+    out[name] = value === null || value === undefined || !is(field, Column) || value instanceof Date ? (value ?? null) : field.mapFromDriverValue(value);
+  }
+  return out as { [K in keyof F]: FieldValue<F[K]> };
 }
