@@ -14,6 +14,7 @@ import { datasetReleases, datasets, foodNutrients, foodWeights, foods as foodsTa
 import { NUTRIENTS } from '@/lib/nutrients';
 import { loadRows } from './bulk-load';
 import { dbOn } from './db-on';
+import { forgetKeptSearches } from './food-search-cache';
 
 export interface DatasetInfo {
   slug: string;
@@ -104,8 +105,9 @@ export async function importDataset(
     return { datasetId: await datasetId(dbOn(pool), info.slug), foods: foods.length, amounts: 0, skipped: true };
   }
 
-  // One transaction on one connection, run whole again after a deadlock (write-retry.ts).
-  return withWriteRetry(() => loadInOneTransaction(pool, info, foods, amounts, opts, log));
+  // One transaction on one connection, run whole again after a deadlock (write-retry.ts). This
+  // process's kept search answers go once it ends: none of them is served from before the load.
+  return withWriteRetry(() => loadInOneTransaction(pool, info, foods, amounts, opts, log)).finally(forgetKeptSearches);
 }
 
 async function loadInOneTransaction(

@@ -1,13 +1,16 @@
 /**
  * An administrator's FoodData Central CSV upload against the built server and MariaDB: refused
- * files, a bad row that changes nothing, a new dataset found by search, and a new release that says
- * whose figures it moves before it is applied. The CSV files follow FDC's column layout; the foods
- * and figures in them are made up for the test (they check the loading, not any food).
+ * files, a bad row that changes nothing, a new dataset found by search, a new release that says
+ * whose figures it moves before it is applied, and kept search answers that follow every load (at
+ * once when this server made it, within REVISION_TRUST_MS when another process did). The CSV
+ * files follow FDC's column layout; the foods and figures in them are made up for the test (they
+ * check the loading, not any food).
  */
 import type { Pool } from 'mysql2/promise';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { grantAdmin } from '@/cli/admin-grant';
 import { searchFoods } from '@/server/food-search';
+import { REVISION_TRUST_MS } from '@/server/food-search-cache';
 import { BASE_URL, TEST_DB_URL, testPool } from '../support/env';
 import { apiAs, householdWithRoles, newVerifiedUser, type TestUser } from '../support/users';
 
@@ -143,5 +146,17 @@ describe('FoodData Central upload', () => {
     const after = await apiAs(t.owner.cookie, 'GET', `/api/households/${hid}/share?from=2026-02&to=2026-02`);
     expect(after.body.months[0].values.energy_kcal.bought).toBeCloseTo(800, 6);
     expect((await apiAs(admin.cookie, 'GET', '/api/datasets')).body.datasets.find((d: { slug: string }) => d.slug === SLUG).release).toBe('r2');
+  });
+
+  it('sees a load made by another process (the revision moved in the database) within REVISION_TRUST_MS', async () => {
+    const search = async () => (await apiAs(admin.cookie, 'GET', `/api/foods?q=quillroot&dataset=${SLUG}`)).body.foods;
+    expect((await search()).map((f: { name: string }) => f.name)).toEqual(['Quillroot, raw, peeled']);
+    // What `npm run db:import-foods` would commit from its own process: a new name, the revision one more.
+    await pool.query("UPDATE foods JOIN datasets ON datasets.id = foods.dataset_id SET foods.name = 'Quillroot, raw, scrubbed' WHERE datasets.slug = ? AND foods.code = '990001'", [SLUG]);
+    await pool.query('UPDATE datasets SET revision = revision + 1 WHERE slug = ?', [SLUG]);
+    await new Promise((res) => setTimeout(res, REVISION_TRUST_MS + 50));
+    const now = await search();
+    expect(now.map((f: { name: string }) => f.name)).toEqual(['Quillroot, raw, scrubbed']);
+    expect(now).toEqual(JSON.parse(JSON.stringify(await searchFoods(pool, 'quillroot', 20, { dataset: SLUG }))));
   });
 });
