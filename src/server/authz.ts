@@ -60,6 +60,9 @@ function gateRow(raw: Record<string, unknown>, extraNames: string[]): GateRow {
  */
 function extraList(columns: GateColumns, forMembers: boolean): SQL {
   const entries = Object.entries(columns);
+  // Their names share the row with the gate's own columns.
+  const taken = entries.find(([name]) => name in sessionColumns || name === 'role' || name.startsWith('household.'));
+  if (taken) throw new Error(`a gate column cannot be called "${taken[0]}": the gate reads a column of that name itself`);
   if (entries.length === 0) return sql``;
   return sql`, ${selectList(Object.fromEntries(entries.map(([name, column]) => [name, forMembers ? sql`IF(${memberships.role} IS NULL, NULL, ${column})` : column])))}`;
 }
