@@ -61,22 +61,6 @@ export function getDb(): Db {
   return db;
 }
 
-/**
- * A query built once per client and kept: `build` makes a prepared Drizzle query (placeholders
- * for what changes per request), so a hot query is not written out as SQL again on every request.
- * Built again if the client was closed and opened anew.
- * @example const byToken = preparedOnce((db) => db.select().from(session).where(eq(session.token, sql.placeholder('token'))).prepare());
- *          await byToken().execute({ token });
- */
-export function preparedOnce<T>(build: (db: Db) => T): () => T {
-  let made: { db: Db; query: T } | null = null;
-  return () => {
-    const current = getDb();
-    if (made?.db !== current) made = { db: current, query: build(current) };
-    return made.query;
-  };
-}
-
 /** The raw pool, for bulk statements Drizzle does not express well. */
 export function getPool(): mysql.Pool {
   getDb();

@@ -2,8 +2,8 @@
  * People who eat in a household, in the database. Every query is scoped by the household id, so a
  * person of another household is simply not found (the route answers 404).
  */
-import { and, asc, eq, sql } from 'drizzle-orm';
-import { getDb, preparedOnce } from '@/db/client';
+import { and, asc, eq, getTableColumns, sql } from 'drizzle-orm';
+import { getDb, getPool } from '@/db/client';
 import { people, type Person } from '@/db/schema';
 import type { PersonJson } from '@/lib/api-types';
 import { todayIn } from '@/lib/months';
@@ -12,6 +12,7 @@ import { mergePerson, needsPerson, personInput, type PersonFields, type PersonIn
 import { personEnergy } from '@/lib/person-energy';
 import { parseRouteId } from '@/lib/route-id';
 import { HttpError } from './http';
+import { rawQuery, readFields, selectList } from './raw-query';
 
 
 /** The stored fields of a row, as the schemas name them. */
@@ -49,13 +50,16 @@ export function currentMonth(timeZone: string, now: Date = new Date()): string {
   return monthOf(todayIn(timeZone, now));
 }
 
-const peopleOf = preparedOnce((db) =>
-  db.select().from(people).where(eq(people.householdId, sql.placeholder('householdId'))).orderBy(asc(people.name), asc(people.id)).prepare(),
-);
+const personColumns = getTableColumns(people);
 
-/** Everyone who eats in the household, by name (prepared once: every share report asks). */
+const peopleOf = rawQuery<Record<string, unknown>>(sql`
+    SELECT ${selectList(personColumns)} FROM ${people}
+     WHERE ${eq(people.householdId, sql.placeholder('householdId'))}
+     ORDER BY ${asc(people.name)}, ${asc(people.id)}`);
+
+/** Everyone who eats in the household, by name (a prepared statement: every share report asks, raw-query.ts). */
 export async function listPeople(householdId: number): Promise<Person[]> {
-  return peopleOf().execute({ householdId });
+  return (await peopleOf.run(getPool(), { householdId })).map((raw) => readFields(personColumns, raw));
 }
 
 /** One person of the household, or a 404 when the id is not one of its people. */

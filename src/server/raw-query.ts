@@ -1,11 +1,13 @@
 /**
  * A read written once from a Drizzle `sql` template — naming the schema's columns as everywhere
  * else, with placeholders for what changes per call — and run on a mysql2 pool, its rows as mysql2
- * gives them. For the share report's hot reads only: building the SQL again and passing every
+ * gives them. For the hot reads: the share report's (building the SQL again and passing every
  * field of thousands of rows through Drizzle's result hook cost more CPU than the queries
- * themselves. Rows keep mysql2's types (DATE as 'YYYY-MM-DD', see src/db/client.ts; DECIMAL as
- * text), so a query here names its columns with the aliases its caller reads. Sent as prepared
- * statements: a value is never spliced into the text.
+ * themselves), and the session, household gate and people every request or report starts with
+ * (Drizzle's mysql2 "prepared" query is sent as text, escaped and parsed again each time). Rows
+ * keep mysql2's types (DATE as 'YYYY-MM-DD', see src/db/client.ts; DECIMAL as text), so a query
+ * here names its columns with the aliases its caller reads, or maps them back to the schema's
+ * types with readFields. Sent as prepared statements: a value is never spliced into the text.
  */
 import { Column, fillPlaceholders, is, sql, type SQL } from 'drizzle-orm';
 import { MySqlDialect, type AnyMySqlColumn } from 'drizzle-orm/mysql-core';

@@ -10,9 +10,10 @@
  */
 import { createHmac, timingSafeEqual } from 'node:crypto';
 import { eq, sql } from 'drizzle-orm';
-import { preparedOnce } from '@/db/client';
+import { getPool } from '@/db/client';
 import { session, user } from '@/db/schema';
 import { getAuth } from './auth';
+import { rawQuery, readFields, selectList } from './raw-query';
 
 export interface SignedInSession {
   user: { id: string; email: string; name: string; emailVerified: boolean };
@@ -63,9 +64,10 @@ export const sessionColumns = {
 
 export type SessionRow = { sessionId: string; expiresAt: Date; userId: string; email: string; name: string; emailVerified: boolean };
 
-const sessionByToken = preparedOnce((db) =>
-  db.select(sessionColumns).from(session).innerJoin(user, eq(user.id, session.userId)).where(eq(session.token, sql.placeholder('token'))).limit(1).prepare(),
-);
+/** Every request's one query, so a prepared statement over the binary protocol (raw-query.ts), as the household gate's. */
+const sessionByToken = rawQuery<Record<string, unknown>>(sql`
+    SELECT ${selectList(sessionColumns)} FROM ${session} JOIN ${user} ON ${eq(user.id, session.userId)}
+     WHERE ${eq(session.token, sql.placeholder('token'))} LIMIT 1`);
 
 /** The token of the request's session cookie when its signature is ours, else null (signed out: better-auth answers the same without a query). */
 export async function sessionCookieToken(headers: Headers): Promise<string | null> {
@@ -96,8 +98,8 @@ export async function currentSession(row: SessionRow | undefined, now: number = 
 export async function quickSession(headers: Headers, now: number = Date.now()): Promise<SignedInSession | null | undefined> {
   const token = await sessionCookieToken(headers);
   if (!token) return null;
-  const [row] = await sessionByToken().execute({ token });
-  return currentSession(row, now);
+  const [raw] = await sessionByToken.run(getPool(), { token });
+  return currentSession(raw ? readFields(sessionColumns, raw) : undefined, now);
 }
 
 /** The request's session by quickSession, else by better-auth's getSession; null when signed out. */

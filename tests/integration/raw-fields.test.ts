@@ -6,11 +6,12 @@
  */
 import { afterAll, describe, expect, it } from 'vitest';
 import { eq, getTableColumns, sql } from 'drizzle-orm';
-import { households, session, user } from '@/db/schema';
+import { households, people, session, user } from '@/db/schema';
 import { dbOn } from '@/server/db-on';
+import { listPeople } from '@/server/people';
 import { rawQuery, readFields, selectList } from '@/server/raw-query';
-import { testPool } from '../support/env';
-import { createHousehold, newVerifiedUser } from '../support/users';
+import { TEST_DB_URL, testPool } from '../support/env';
+import { apiAs, createHousehold, newVerifiedUser } from '../support/users';
 
 const pool = testPool();
 afterAll(() => pool.end());
@@ -50,5 +51,18 @@ describe('readFields', () => {
       expect(viaRaw.emailVerified).toBe(verified);
       expect(viaRaw.expiresAt.toISOString()).toBe('2031-05-06T07:08:09.123Z');
     }
+  });
+
+  it("reads a household's people as Drizzle does: doubles, 'YYYY-MM' and date columns, a BOOLEAN, nulls (listPeople)", async () => {
+    const u = await newVerifiedUser();
+    const h = await createHousehold(u.cookie);
+    const adult = { name: 'Ada', sex: 'female', ageYears: 41.5, heightCm: 168.2, weightKg: 61.4, activity: 'active', presentFrom: '2026-03-01' };
+    const baby = { name: 'Bo', sex: 'male', birthMonth: '2026-09', fedFromHousehold: true };
+    for (const p of [adult, baby]) expect((await apiAs(u.cookie, 'POST', `/api/households/${h.id}/people`, p)).status).toBe(201);
+    const viaDrizzle = await dbOn(pool).select().from(people).where(eq(people.householdId, h.id)).orderBy(people.name, people.id);
+    expect(process.env.DATABASE_URL).toBe(TEST_DB_URL); // listPeople reads through the app's shared client
+    const viaRaw = await listPeople(h.id);
+    expect(viaRaw).toEqual(viaDrizzle);
+    expect(viaRaw.map((p) => [p.name, p.fedFromHousehold, p.presentFrom, p.heightCm])).toEqual([['Ada', false, '2026-03-01', 168.2], ['Bo', true, null, null]]);
   });
 });
