@@ -204,7 +204,7 @@ export function addSums(a: NutrientSums, b: NutrientSums): NutrientSums {
 type EntryAmounts = Pick<FoodEntry, 'date' | 'source' | 'edibleGrams' | 'nutrients'>;
 
 /** An entry's amount of a nutrient (null or missing: unknown), refused when negative or not a number. */
-function checkedAmount(entry: EntryAmounts, key: NutrientKey): number | null | undefined {
+function checkedAmount(entry: Pick<FoodEntry, 'date' | 'nutrients'>, key: NutrientKey): number | null | undefined {
   return checked(entry, key, entry.nutrients[key]);
 }
 
@@ -225,7 +225,7 @@ export function shareIndexes(keys: readonly NutrientKey[]): number[] | null {
  * An entry's amount of the key at `k`, NaN when unknown: from shareAmounts when the entry has them
  * and `places` (shareIndexes of the keys) says where, else from its nutrients. Checked as checkedAmount.
  */
-export function amountAt(entry: FoodEntry, keys: readonly NutrientKey[], places: readonly number[] | null, k: number): number {
+export function amountAt(entry: Pick<FoodEntry, 'date' | 'nutrients' | 'shareAmounts'>, keys: readonly NutrientKey[], places: readonly number[] | null, k: number): number {
   if (places && entry.shareAmounts) {
     const a = entry.shareAmounts[places[k]!]!;
     return Number.isNaN(a) ? NaN : checked(entry, keys[k]!, a);

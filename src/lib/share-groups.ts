@@ -81,8 +81,8 @@ export function shareGroups(home: readonly GroupRow[], bought: readonly GroupRow
  * rows and a date holds a few groups), and in the order they were first met.
  */
 interface Grouping {
-  byDate: Map<string, ShareGroup[]>;
-  order: ShareGroup[];
+  byDate: Map<string, Group[]>;
+  order: Group[];
 }
 
 /** A food's known share nutrients (SHARE_NUTRIENTS order) with their amounts per 100 g, and an object of those keys to copy. */
@@ -136,8 +136,15 @@ class Group implements ShareGroup {
   grams: number;
   edibleGrams: number;
   entries: number;
-  nutrients: Partial<Record<ShareNutrientKey, number>> = {};
   shareAmounts?: readonly number[];
+  /** The nutrients as an object, when collect() made one (retention, a value that is not a number); else made from shareAmounts when first read. */
+  kept?: Partial<Record<ShareNutrientKey, number>>;
+  get nutrients(): Partial<Record<ShareNutrientKey, number>> {
+    return (this.kept ??= nutrientsOf(this.shareAmounts!));
+  }
+  set nutrients(v: Partial<Record<ShareNutrientKey, number>>) {
+    this.kept = v;
+  }
 
   constructor(
     public source: Source,
@@ -176,8 +183,11 @@ function collect(rows: readonly GroupRow[], source: Source, foodShape: (foodId: 
     // larder records) the days it is eaten over.
     let sameDate = into.byDate.get(date);
     if (!sameDate) into.byDate.set(date, (sameDate = []));
-    let g = sameDate.find(
-      (x) =>
+    // A loop, not find(): no closure made per row.
+    let g: Group | undefined;
+    for (let i = 0; i < sameDate.length; i++) {
+      const x = sameDate[i]!;
+      if (
         x.cropId === cropId &&
         x.foodId === foodId &&
         x.source === source &&
@@ -185,8 +195,12 @@ function collect(rows: readonly GroupRow[], source: Source, foodShape: (foodId: 
         x.spread === r.spread &&
         x.preserveMethod === method &&
         (x.until || null) === (until || null) &&
-        (x.until ? x.eatenFrom : null) === (until ? eatenFrom : null),
-    );
+        (x.until ? x.eatenFrom : null) === (until ? eatenFrom : null)
+      ) {
+        g = x;
+        break;
+      }
+    }
     if (!g) {
       g = new Group(source, r, date, method, eatenFrom, until);
       sameDate.push(g);
@@ -197,22 +211,38 @@ function collect(rows: readonly GroupRow[], source: Source, foodShape: (foodId: 
       g.edibleGrams += r.edibleGrams;
       g.entries += r.entries;
     }
-    // A nutrient the food has no row for stays missing: unknown, never zero.
+    // A nutrient the food has no row for stays missing: unknown, never zero. The amounts are
+    // written as numbers (shareAmounts, what the share code reads); the object of the same values
+    // is made only when something reads it, unless retention or a value that is not a number
+    // needs it now.
     const shape = foodShape(r.foodId);
-    const nutrients = { ...shape.blank };
     const amounts = UNKNOWN_AMOUNTS.slice();
     let notANumber = false;
     for (let i = 0; i < shape.keys.length; i++) {
       const v = (g.edibleGrams * shape.per100g[i]!) / 100;
-      nutrients[shape.keys[i]!] = v;
       amounts[shape.places[i]!] = v;
       if (Number.isNaN(v)) notANumber = true;
     }
+    const retains = retention !== undefined && g.use === 'preserved' && g.preserveMethod !== null;
+    if (!retains && !notANumber) {
+      g.shareAmounts = amounts;
+      g.kept = undefined;
+      continue;
+    }
+    const nutrients = { ...shape.blank };
+    for (let i = 0; i < shape.keys.length; i++) nutrients[shape.keys[i]!] = amounts[shape.places[i]!]!;
     const retained = retention ? (applyRetention(g, nutrients, retention) as Partial<Record<ShareNutrientKey, number>>) : nutrients;
-    g.nutrients = retained;
+    g.kept = retained;
     // Retention made new values (a preserved lot): read them back; otherwise the numbers are those just written.
     g.shareAmounts = retained === nutrients && !notANumber ? amounts : shareAmountsOf(retained, shape);
   }
+}
+
+/** The known amounts of shareAmounts (NaN: unknown, left out) as an object in SHARE_NUTRIENTS order. */
+function nutrientsOf(amounts: readonly number[]): Partial<Record<ShareNutrientKey, number>> {
+  const out: Partial<Record<ShareNutrientKey, number>> = {};
+  for (let i = 0; i < amounts.length; i++) if (!Number.isNaN(amounts[i]!)) out[SHARE_NUTRIENTS[i]!] = amounts[i]!;
+  return out;
 }
 
 /** A group's nutrients as FoodEntry.shareAmounts; none when a value is not a number (the share code then refuses it by key). */
@@ -245,20 +275,40 @@ export function contributorId(g: Pick<ShareGroup, 'cropId' | 'foodId'>): string 
  * first day (fresh food and a spread of one month count wholly in their month).
  */
 export function groupEntry(g: ShareGroup): CropEntry {
-  const e: CropEntry = {
-    date: g.date,
-    use: g.use,
-    source: g.source,
-    spreadMonths: g.spread,
-    edibleGrams: g.edibleGrams,
-    nutrients: g.nutrients,
-    cropId: contributorId(g),
-    name: g.name || 'Unnamed harvest',
-  };
-  if (g.until) {
-    e.eatenFrom = g.eatenFrom;
-    e.until = g.until;
+  return new GroupEntry(g);
+}
+
+/**
+ * What groupEntry makes: every entry with the same fields in the same order (one hidden class, so
+ * the share code's reads of thousands of them stay fast), its nutrients the group's own, read
+ * only when asked for (the share code reads shareAmounts).
+ */
+class GroupEntry implements CropEntry {
+  date: string;
+  use: Use;
+  source: Source;
+  spreadMonths: number;
+  edibleGrams: number;
+  shareAmounts: readonly number[] | undefined;
+  eatenFrom: string | null | undefined;
+  until: string | null | undefined;
+  cropId: string | number;
+  name: string;
+
+  constructor(private readonly group: ShareGroup) {
+    this.date = group.date;
+    this.use = group.use;
+    this.source = group.source;
+    this.spreadMonths = group.spread;
+    this.edibleGrams = group.edibleGrams;
+    this.shareAmounts = group.shareAmounts;
+    this.eatenFrom = group.until ? group.eatenFrom : undefined;
+    this.until = group.until || undefined;
+    this.cropId = contributorId(group);
+    this.name = group.name || 'Unnamed harvest';
   }
-  if (g.shareAmounts) e.shareAmounts = g.shareAmounts;
-  return e;
+
+  get nutrients(): Partial<Record<ShareNutrientKey, number>> {
+    return this.group.nutrients;
+  }
 }

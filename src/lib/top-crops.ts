@@ -95,7 +95,9 @@ export function topCrops(groups: readonly ShareGroup[], from: string, to: string
   homeEntries.forEach((e, i) => {
     const crop = crops.get(e.cropId);
     if (!crop || fractions[i] === 0) return;
-    for (const [k, key] of SHARE_NUTRIENTS.entries()) {
+    // An indexed loop: `for (const [k, key] of ….entries())` makes a pair per nutrient and entry.
+    for (let k = 0; k < count; k++) {
+      const key = SHARE_NUTRIENTS[k]!;
       const unknown = e.shareAmounts ? Number.isNaN(e.shareAmounts[k]!) : e.nutrients[key] == null;
       if (unknown && crop.values[key] === 0) {
         crop.values[key] = null;

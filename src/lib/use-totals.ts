@@ -3,10 +3,15 @@
  * (fresh, stored, … lost), so the dashboard can show how much was eaten, kept, given or lost.
  * Energy follows the share code's rule for unknown values (knownSum in shares.ts).
  */
-import { addEntryPart, emptySums, USES, type NutrientSums, type Use } from './allocate';
+import { amountAt, emptySums, shareIndexes, USES, type NutrientSums, type Use } from './allocate';
+import type { NutrientKey } from './nutrients';
 import type { ShareGroup } from './share-groups';
 import type { UseTotal } from './share-types';
 import { knownSum } from './shares';
+
+/** Energy, read from a group's shareAmounts where it has them (no object of its nutrients made). */
+const ENERGY: readonly NutrientKey[] = ['energy_kcal'];
+const ENERGY_PLACE = shareIndexes(ENERGY);
 
 /**
  * Totals by use, in the order of USES, of the home-grown groups dated in [from, to] ('YYYY-MM');
@@ -22,7 +27,13 @@ export function useTotals(groups: readonly ShareGroup[], from: string, to: strin
     t.total.grams += g.grams;
     t.total.edibleGrams += g.edibleGrams;
     t.total.entries += g.entries;
-    addEntryPart(t.energy, { date: g.date, source: g.source, edibleGrams: g.edibleGrams, nutrients: g.nutrients }, 'energy_kcal', 1);
+    // As addEntryPart: an unknown value adds its grams to the unknown weight, never zero to the sum.
+    const energy = amountAt(g, ENERGY, ENERGY_PLACE, 0);
+    if (Number.isNaN(energy)) t.energy.homeUnknownGrams += g.edibleGrams;
+    else {
+      t.energy.home += energy;
+      t.energy.homeKnownGrams += g.edibleGrams;
+    }
   }
   return [...totals.values()].map(({ total, energy }) => ({
     ...total,

@@ -37,8 +37,11 @@ const home = [
 const bought = [row({ cropId: null, foodId: 2, name: null, spread: 2, date: '2026-08-20' })];
 const groups = shareGroups(home, bought, amounts, table);
 const entries = groups.map(groupEntry);
-/** The same entries without the numbers: read by key, as every other caller's. */
-const byKey = entries.map(({ shareAmounts: _, ...e }) => e);
+/**
+ * The same entries without the numbers: read by key, as every other caller's. An entry's
+ * nutrients are read through its group (an accessor, which a spread does not copy): copied here.
+ */
+const byKey = entries.map(({ shareAmounts: _, ...e }, i) => ({ ...e, nutrients: entries[i]!.nutrients }));
 
 describe('share amounts beside the nutrients', () => {
   it('say what the nutrients say, unknown as NaN, retention applied', () => {
