@@ -9,7 +9,7 @@
  */
 import type { Source, Use } from './allocate';
 import { SHARE_NUTRIENTS, type ShareNutrientKey } from './nutrients';
-import { applyRetention, type PreserveMethod, type RetentionTable } from './retention';
+import type { PreserveMethod, RetentionTable } from './retention';
 import type { CropEntry } from './shares';
 
 /** One aggregate row: the entries of a month (or of a day, for lots spread by day), use, spread, crop, food and method, summed. */
@@ -71,8 +71,9 @@ export interface ShareGroup {
 export function shareGroups(home: readonly GroupRow[], bought: readonly GroupRow[], amounts: FoodAmounts, retention?: RetentionTable): ShareGroup[] {
   const into: Grouping = { byDate: new Map(), order: [] };
   const foods = foodShapes(amounts);
-  collect(home, 'home', foods, into, retention);
-  collect(bought, 'bought', foods, into, retention);
+  const factors = retentionFactors(retention);
+  collect(home, 'home', foods, into, factors);
+  collect(bought, 'bought', foods, into, factors);
   return into.order;
 }
 
@@ -171,7 +172,13 @@ class Group implements ShareGroup {
   }
 }
 
-function collect(rows: readonly GroupRow[], source: Source, foodShape: (foodId: number | null) => FoodShape, into: Grouping, retention?: RetentionTable): void {
+function collect(
+  rows: readonly GroupRow[],
+  source: Source,
+  foodShape: (foodId: number | null) => FoodShape,
+  into: Grouping,
+  retained: (shape: FoodShape, method: PreserveMethod) => readonly number[] | null,
+): void {
   for (const r of rows) {
     const date = r.date ?? `${r.month}-01`;
     const method = r.use === 'preserved' ? (r.preserveMethod ?? null) : null;
@@ -212,48 +219,57 @@ function collect(rows: readonly GroupRow[], source: Source, foodShape: (foodId: 
       g.entries += r.entries;
     }
     // A nutrient the food has no row for stays missing: unknown, never zero. The amounts are
-    // written as numbers (shareAmounts, what the share code reads); the object of the same values
-    // is made only when something reads it, unless retention or a value that is not a number
-    // needs it now.
+    // written as numbers (shareAmounts, what the share code reads), a preserved lot's after its
+    // method's retention factors (as applyRetention); the object of the same values is made only
+    // when something reads it.
     const shape = foodShape(r.foodId);
+    const factors = g.preserveMethod === null ? null : retained(shape, g.preserveMethod);
     const amounts = UNKNOWN_AMOUNTS.slice();
     let notANumber = false;
     for (let i = 0; i < shape.keys.length; i++) {
-      const v = (g.edibleGrams * shape.per100g[i]!) / 100;
+      let v = (g.edibleGrams * shape.per100g[i]!) / 100;
+      if (factors) v *= factors[i]!;
       amounts[shape.places[i]!] = v;
       if (Number.isNaN(v)) notANumber = true;
     }
-    const retains = retention !== undefined && g.use === 'preserved' && g.preserveMethod !== null;
-    if (!retains && !notANumber) {
+    if (!notANumber) {
       g.shareAmounts = amounts;
       g.kept = undefined;
       continue;
     }
+    // A value that is not a number: no numbers (the share code reads the object by key and refuses it there).
     const nutrients = { ...shape.blank };
     for (let i = 0; i < shape.keys.length; i++) nutrients[shape.keys[i]!] = amounts[shape.places[i]!]!;
-    const retained = retention ? (applyRetention(g, nutrients, retention) as Partial<Record<ShareNutrientKey, number>>) : nutrients;
-    g.kept = retained;
-    // Retention made new values (a preserved lot): read them back; otherwise the numbers are those just written.
-    g.shareAmounts = retained === nutrients && !notANumber ? amounts : shareAmountsOf(retained, shape);
+    g.kept = nutrients;
+    g.shareAmounts = undefined;
   }
+}
+
+/**
+ * A food's retention factors under a preserving method, one per key of its shape (1 where the
+ * table has no row, as applyRetention leaves such a value), worked out once per report; null
+ * when nothing changes (no table, or no rows for the method).
+ */
+function retentionFactors(retention?: RetentionTable): (shape: FoodShape, method: PreserveMethod) => readonly number[] | null {
+  const kept = new Map<FoodShape, Map<PreserveMethod, readonly number[] | null>>();
+  return (shape, method) => {
+    if (!retention) return null;
+    let byMethod = kept.get(shape);
+    if (!byMethod) kept.set(shape, (byMethod = new Map()));
+    let factors = byMethod.get(method);
+    if (factors === undefined) {
+      const rows = retention.get(method);
+      factors = rows ? shape.keys.map((k) => rows.get(k)?.factor ?? 1) : null;
+      byMethod.set(method, factors);
+    }
+    return factors;
+  };
 }
 
 /** The known amounts of shareAmounts (NaN: unknown, left out) as an object in SHARE_NUTRIENTS order. */
 function nutrientsOf(amounts: readonly number[]): Partial<Record<ShareNutrientKey, number>> {
   const out: Partial<Record<ShareNutrientKey, number>> = {};
   for (let i = 0; i < amounts.length; i++) if (!Number.isNaN(amounts[i]!)) out[SHARE_NUTRIENTS[i]!] = amounts[i]!;
-  return out;
-}
-
-/** A group's nutrients as FoodEntry.shareAmounts; none when a value is not a number (the share code then refuses it by key). */
-function shareAmountsOf(nutrients: Partial<Record<ShareNutrientKey, number>>, shape: FoodShape): number[] | undefined {
-  const out = UNKNOWN_AMOUNTS.slice();
-  for (let i = 0; i < shape.keys.length; i++) {
-    const v = nutrients[shape.keys[i]!];
-    if (v === undefined) continue;
-    if (Number.isNaN(v)) return undefined;
-    out[shape.places[i]!] = v;
-  }
   return out;
 }
 

@@ -1,7 +1,9 @@
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { parseRetentionCsv, retentionTable } from '@/lib/retention';
+import { nutrientsOf } from '@/lib/allocate';
+import { SHARE_NUTRIENTS } from '@/lib/nutrients';
+import { applyRetention, parseRetentionCsv, PRESERVE_METHODS, retentionTable } from '@/lib/retention';
 import { contributorId, foodIdsOf, groupEntry, shareGroups, type FoodAmounts, type GroupRow } from '@/lib/share-groups';
 
 // USDA SR28, NDB 11352 "Potatoes, flesh and skin, raw", per 100 g: 77 kcal, 2.05 g protein (no other share nutrients given here)
@@ -65,6 +67,20 @@ describe('share groups for issue 9', () => {
     expect(g!.nutrients.vitamin_c_mg).toBeCloseTo(1200 * 0.7, 9);
     expect(g!.nutrients.energy_kcal).toBe(490); // 1000 g × 49 kcal / 100 g (USDA SR28, NDB 11233)
     expect(g!.preserveMethod).toBe('frozen');
+  });
+
+  it('gives every method and share nutrient the value applyRetention gives, and a food without a value none', () => {
+    // The oracle is applyRetention over reference-data/retention.csv; the per-100 g amounts are
+    // only inputs (the same 2 for every nutrient of food 9, none for food 10), not checked values.
+    const full: FoodAmounts = new Map([...withKale, [9, Object.fromEntries(SHARE_NUTRIENTS.map((k) => [k, 2]))], [10, {}]]);
+    for (const method of PRESERVE_METHODS) {
+      for (const foodId of [KALE_ID, 9, 10]) {
+        const [g] = shareGroups([row({ use: 'preserved', spread: 6, foodId, edibleGrams: 1234, preserveMethod: method })], [], full, table);
+        const expected = applyRetention({ use: 'preserved', preserveMethod: method }, nutrientsOf(1234, full.get(foodId)!), table);
+        expect(g!.nutrients).toEqual(expected);
+        SHARE_NUTRIENTS.forEach((k, i) => expect(g!.shareAmounts![i]).toBe(expected[k] ?? NaN));
+      }
+    }
   });
 
   it('applies no factor without a method, or to a use other than preserved', () => {
