@@ -15,6 +15,6 @@ describe('gate columns', () => {
   });
 
   it('takes any other name', () => {
-    expect(route('storedBody')).not.toThrow();
+    expect(route('storedAnswer')).not.toThrow();
   });
 });
