@@ -138,7 +138,10 @@ class Group implements ShareGroup {
   edibleGrams: number;
   entries: number;
   shareAmounts?: readonly number[];
-  /** The nutrients as an object, when collect() made one (retention, a value that is not a number); else made from shareAmounts when first read. */
+  /**
+   * The nutrients as an object: made by collect() only for a value that is not a number (then no
+   * shareAmounts), else from shareAmounts when first read (the share code reads the numbers).
+   */
   kept?: Partial<Record<ShareNutrientKey, number>>;
   get nutrients(): Partial<Record<ShareNutrientKey, number>> {
     return (this.kept ??= nutrientsOf(this.shareAmounts!));
