@@ -239,16 +239,23 @@ export function amountAt(entry: Pick<FoodEntry, 'date' | 'nutrients' | 'shareAmo
  */
 export function addEntryPart(sums: NutrientSums, entry: EntryAmounts, key: NutrientKey, fraction: number): void {
   const amount = checkedAmount(entry, key);
-  const grams = entry.edibleGrams * fraction;
-  if (entry.source === 'home') {
-    if (amount == null) sums.homeUnknownGrams += grams;
+  addAmount(sums, entry.source, amount == null ? NaN : amount * fraction, entry.edibleGrams * fraction);
+}
+
+/**
+ * Adds an amount of a nutrient (NaN: unknown) eaten with `grams` of food into a month's sums: an
+ * unknown amount adds its grams to the unknown weight, never zero to the sum.
+ */
+export function addAmount(sums: NutrientSums, source: Source, amount: number, grams: number): void {
+  if (source === 'home') {
+    if (Number.isNaN(amount)) sums.homeUnknownGrams += grams;
     else {
-      sums.home += amount * fraction;
+      sums.home += amount;
       sums.homeKnownGrams += grams;
     }
-  } else if (amount == null) sums.boughtUnknownGrams += grams;
+  } else if (Number.isNaN(amount)) sums.boughtUnknownGrams += grams;
   else {
-    sums.bought += amount * fraction;
+    sums.bought += amount;
     sums.boughtKnownGrams += grams;
   }
 }

@@ -3,7 +3,7 @@
  * (fresh, stored, … lost), so the dashboard can show how much was eaten, kept, given or lost.
  * Energy follows the share code's rule for unknown values (knownSum in shares.ts).
  */
-import { amountAt, emptySums, shareIndexes, USES, type NutrientSums, type Use } from './allocate';
+import { addAmount, amountAt, emptySums, shareIndexes, USES, type NutrientSums, type Use } from './allocate';
 import type { NutrientKey } from './nutrients';
 import type { ShareGroup } from './share-groups';
 import type { UseTotal } from './share-types';
@@ -27,13 +27,7 @@ export function useTotals(groups: readonly ShareGroup[], from: string, to: strin
     t.total.grams += g.grams;
     t.total.edibleGrams += g.edibleGrams;
     t.total.entries += g.entries;
-    // As addEntryPart: an unknown value adds its grams to the unknown weight, never zero to the sum.
-    const energy = amountAt(g, ENERGY, ENERGY_PLACE, 0);
-    if (Number.isNaN(energy)) t.energy.homeUnknownGrams += g.edibleGrams;
-    else {
-      t.energy.home += energy;
-      t.energy.homeKnownGrams += g.edibleGrams;
-    }
+    addAmount(t.energy, 'home', amountAt(g, ENERGY, ENERGY_PLACE, 0), g.edibleGrams);
   }
   return [...totals.values()].map(({ total, energy }) => ({
     ...total,
